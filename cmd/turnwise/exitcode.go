@@ -1,0 +1,81 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+
+	"turnwise/coil"
+	"turnwise/forms"
+)
+
+// Exit codes, the same for every command (design.md).
+const (
+	exitOK         = 0 // success
+	exitFailure    = 1 // runtime failure: I/O, an unexpected error
+	exitBadInput   = 2 // bad flag, value, file content or combination
+	exitInfeasible = 3 // a valid request that no coil meets
+)
+
+// exitStatusHelp ends every command's Long help.
+const exitStatusHelp = `
+EXIT STATUS
+  0  success
+  1  runtime failure (for example an unwritable file)
+  2  bad input: the message names the flag or field and the fix
+  3  valid request, but no coil meets it: the message says which
+     constraint binds and what is nearest`
+
+// usageError is bad input found by the command layer: a missing or
+// conflicting flag, a value that does not parse.
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+func usageErrorf(format string, args ...any) error {
+	return &usageError{msg: fmt.Sprintf(format, args...)}
+}
+
+// flagError attaches the flag a model error belongs to.
+type flagError struct {
+	flag string
+	err  error
+}
+
+func (e *flagError) Error() string {
+	var ie *coil.InputError
+	if errors.As(e.err, &ie) {
+		return "--" + e.flag + ": " + ie.Reason
+	}
+	return "--" + e.flag + ": " + e.err.Error()
+}
+func (e *flagError) Unwrap() error { return e.err }
+
+// exitCode maps an error to the process exit status.
+func exitCode(err error) int {
+	if err == nil {
+		return exitOK
+	}
+	var (
+		ue *usageError
+		fe *flagError
+		ie *coil.InputError
+		pe *forms.ParseError
+		qe *forms.QuantityError
+	)
+	switch {
+	case errors.Is(err, coil.ErrInfeasible):
+		return exitInfeasible
+	case errors.Is(err, forms.ErrNotFound):
+		return exitBadInput
+	case errors.As(err, &ue), errors.As(err, &fe), errors.As(err, &ie),
+		errors.As(err, &pe), errors.As(err, &qe):
+		return exitBadInput
+	}
+	return exitFailure
+}
+
+// printError writes err once, on one line per wrapped layer the user needs.
+func printError(w io.Writer, err error) {
+	fmt.Fprintf(w, "turnwise: %v\n", err)
+}

@@ -1,0 +1,247 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"flag"
+	"math"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+var update = flag.Bool("update", false, "rewrite golden files in testdata/golden")
+
+// goldenDir is the repository's shared golden directory.
+var goldenDir = filepath.Join("..", "..", "testdata", "golden")
+
+// runCLI runs the command in-process and returns stdout, stderr and the
+// exit status.
+func runCLI(t *testing.T, args ...string) (string, string, int) {
+	t.Helper()
+	var out, errOut bytes.Buffer
+	code := run(args, &out, &errOut)
+	return out.String(), errOut.String(), code
+}
+
+// checkGolden compares got with testdata/golden/name; -update rewrites it.
+// A missing golden file fails.
+func checkGolden(t *testing.T, name, got string) {
+	t.Helper()
+	path := filepath.Join(goldenDir, name)
+	if *update {
+		if err := os.MkdirAll(goldenDir, 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("golden %s missing (run go test ./cmd/turnwise -update): %v", name, err)
+	}
+	if got != string(want) {
+		t.Errorf("%s differs from golden; run with -update if the change is intended\n--- got ---\n%s\n--- want ---\n%s", name, got, want)
+	}
+}
+
+// vhfArgs is the coil of the foundation issue's acceptance line.
+var vhfArgs = []string{"predict", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm", "--freq", "145MHz"}
+
+func TestPredictGolden(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	tests := []struct {
+		name   string
+		args   []string
+		golden string
+	}{
+		{"vhf table", vhfArgs, "predict_vhf.txt"},
+		{"vhf json", append(append([]string{}, vhfArgs...), "--json"), "predict_vhf.json"},
+		{"hf former inches", []string{"predict", "--former", "pvc 1in sch40", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz", "--units", "in"}, "predict_hf_in.txt"},
+		{"no frequency", []string{"predict", "--mandrel", "1/4in", "--wire", "18swg", "--insulation", "grade2", "--turns", "8.25", "--pitch", "1.5mm", "--leads", "0mm"}, "predict_nofreq.txt"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, tc.args...)
+			if code != exitOK {
+				t.Fatalf("exit %d: %s", code, errOut)
+			}
+			checkGolden(t, tc.golden, out)
+		})
+	}
+}
+
+// Every key the foundation issue lists is present and finite.
+func TestPredictJSONKeys(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out, errOut, code := runCLI(t, append(append([]string{}, vhfArgs...), "--json")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"turns", "pitch", "mean_diameter", "wire_diameter", "wire_overall_diameter",
+		"inside_diameter", "winding_length", "wire_length", "inductance", "inductance_coil",
+		"inductance_coil_at_f", "inductance_sheet", "nagaoka", "inductance_wheeler", "self_capacitance",
+		"srf", "inductance_effective", "r_ac", "q"} {
+		v, ok := doc[k].(float64)
+		if !ok || math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 {
+			t.Errorf("key %q = %v", k, doc[k])
+		}
+	}
+	if _, ok := doc["warnings"].([]any); !ok {
+		t.Error("warnings is not an array")
+	}
+	if doc["schema"] != float64(schemaVersion) {
+		t.Error("schema missing")
+	}
+}
+
+// Bad input: one line naming the flag, exit 2, no stack trace.
+func TestPredictBadInput(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	base := []string{"predict", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--leads", "5mm"}
+	tests := []struct {
+		name     string
+		override []string
+		wantFlag string
+	}{
+		{"pitch below wire", []string{"--pitch", "0.5mm"}, "--pitch"},
+		{"negative diameter", []string{"--mandrel", "-6mm"}, "--mandrel"},
+		{"zero turns", []string{"--turns", "0"}, "--turns"},
+		{"inductance as wire", []string{"--wire", "48nH"}, "--wire"},
+		{"bad frequency", []string{"--freq", "abc"}, "--freq"},
+		{"too many turns", []string{"--turns", "20000"}, "--turns"},
+		{"metres of diameter", []string{"--mandrel", "3m"}, "--mandrel"},
+		{"no such gauge", []string{"--wire", "60awg"}, "--wire"},
+		{"missing stock file", []string{"--stock", "/nonexistent/stock.toml"}, "--stock"},
+		{"pitch and length", []string{"--pitch", "2mm", "--length", "9mm"}, "--pitch"},
+		{"length too short", []string{"--length", "3mm"}, "--length"},
+		{"frequency above SRF", []string{"--freq", "5GHz"}, "--freq"},
+		{"positional argument", []string{"extra"}, "no arguments"},
+		{"unknown flag", []string{"--colour", "red"}, "--colour"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			args := replaceFlags(base, tc.override)
+			out, errOut, code := runCLI(t, args...)
+			if code != exitBadInput {
+				t.Errorf("exit %d, want %d; stderr %q", code, exitBadInput, errOut)
+			}
+			if out != "" {
+				t.Errorf("stdout not empty: %q", out)
+			}
+			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
+				t.Errorf("error is not one line: %q", errOut)
+			}
+			if !strings.Contains(errOut, tc.wantFlag) {
+				t.Errorf("error %q does not name %s", errOut, tc.wantFlag)
+			}
+			if strings.Contains(errOut, "goroutine") || strings.Contains(errOut, "panic") {
+				t.Errorf("stack trace: %q", errOut)
+			}
+		})
+	}
+}
+
+// replaceFlags returns base with each --flag in override set to its new
+// value (appended when base does not have it).
+func replaceFlags(base, override []string) []string {
+	out := append([]string{}, base...)
+	for i := 0; i < len(override); i++ {
+		name := override[i]
+		if !strings.HasPrefix(name, "--") || i+1 >= len(override) {
+			out = append(out, name)
+			continue
+		}
+		val := override[i+1]
+		i++
+		found := false
+		for j := 1; j+1 < len(out); j++ {
+			if out[j] == name {
+				out[j+1] = val
+				found = true
+			}
+		}
+		if !found {
+			out = append(out, name, val)
+		}
+	}
+	return out
+}
+
+// TestFlags builds a fresh tree and asks every command for --help: cobra
+// panics on duplicate flags or shorthands, and every command needs its
+// help text and exit-status section.
+func TestFlags(t *testing.T) {
+	root := newRootCmd(&globalOptions{stdout: &bytes.Buffer{}, stderr: &bytes.Buffer{}})
+	for _, c := range root.Commands() {
+		if c.Name() == "help" || c.Name() == "completion" {
+			continue
+		}
+		t.Run(c.Name(), func(t *testing.T) {
+			out, errOut, code := runCLI(t, c.Name(), "--help")
+			if code != exitOK {
+				t.Fatalf("--help exit %d: %s", code, errOut)
+			}
+			if c.Short == "" || c.Long == "" {
+				t.Error("missing Short or Long help")
+			}
+			if c.Name() != "version" && (c.Example == "" || !strings.Contains(out, "EXIT STATUS")) {
+				t.Error("help lacks an Example or the EXIT STATUS section")
+			}
+		})
+	}
+}
+
+func TestVersionAndCompletion(t *testing.T) {
+	out, _, code := runCLI(t, "version")
+	if code != exitOK || !strings.HasPrefix(out, "turnwise ") {
+		t.Errorf("version: %q exit %d", out, code)
+	}
+	out, _, code = runCLI(t, "completion", "bash")
+	if code != exitOK || !strings.Contains(out, "turnwise") {
+		t.Errorf("completion bash: exit %d", code)
+	}
+}
+
+// The import rule of DEVELOPERS.md: coil and forms never reach cobra or
+// gofpdf, and no library package imports cmd.
+func TestImportDirection(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs go list")
+	}
+	cmd := exec.Command("go", "list", "-deps", "turnwise/coil", "turnwise/forms", "turnwise/sheets")
+	cmd.Dir = filepath.Join("..", "..")
+	out, err := cmd.CombinedOutput()
+	if err != nil {
+		t.Fatalf("go list: %v\n%s", err, out)
+	}
+	for _, dep := range strings.Fields(string(out)) {
+		if strings.Contains(dep, "turnwise/cmd") {
+			t.Errorf("a library package imports %s", dep)
+		}
+	}
+	for _, pkg := range []string{"turnwise/coil", "turnwise/forms"} {
+		c := exec.Command("go", "list", "-deps", pkg)
+		c.Dir = filepath.Join("..", "..")
+		out, err := c.CombinedOutput()
+		if err != nil {
+			t.Fatalf("go list %s: %v", pkg, err)
+		}
+		for _, dep := range strings.Fields(string(out)) {
+			if strings.Contains(dep, "cobra") || strings.Contains(dep, "pflag") || strings.Contains(dep, "gofpdf") {
+				t.Errorf("%s depends on %s", pkg, dep)
+			}
+			if pkg == "turnwise/forms" && dep == "turnwise/coil" {
+				t.Errorf("forms imports coil")
+			}
+		}
+	}
+}

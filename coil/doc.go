@@ -1,0 +1,71 @@
+// Package coil models an air-cored, single-layer solenoid wound from round
+// wire: its inductance, self-capacitance, self-resonance, losses and Q, and
+// the numbers a builder needs to wind it.
+//
+// The package is pure computation. It never prints, reads files or exits;
+// bad input comes back as an *InputError naming the offending field.
+//
+// # Units
+//
+// Every exported quantity is a gonum unit type holding SI base units
+// (unit.Length in metres, unit.Inductance in henries, ...). Internal
+// float64 values carry their unit in the name (pitchM, lH).
+//
+// # Model
+//
+// The wire-centre diameter is D = D_f·(1+s) + d_o for a mandrel or former of
+// outside diameter D_f, springback s and insulated wire diameter d_o. The
+// current sheet has Rosa's length l = N·p.
+//
+//	L_sheet = μ0·π·(D/2)²·N²/l · K_N       Nagaoka's coefficient K_N, exact
+//	L_coil  = L_sheet − μ0·(D/2)·N·(k_s + k_m)   Rosa's round-wire correction
+//	k_s     = 3/2 − φ/4 − ln(2p/d)          φ = internal-inductance fraction
+//	k_m     = Rosa's mutual term (asymptotic series in N)
+//
+// φ is 1 at DC (Rosa's 5/4 − ln(2p/d)) and falls towards 2δ/r as the skin
+// depth δ shrinks against the wire radius r; it comes from the exact Bessel
+// solution for the internal impedance of a round wire. Two straight leads of
+// the same wire add their own inductance at the terminals. Medhurst's
+// empirical self-capacitance gives the self-resonance for a coil with one
+// end grounded; the effective inductance and Q at the operating frequency
+// follow from the lumped model (leads in series with the coil, the coil in
+// parallel with its self-capacitance).
+//
+// Losses: IACS copper with its temperature coefficient, skin effect from
+// the same Bessel solution, Medhurst's proximity factor for the winding,
+// small-loop radiation resistance. Q carries a stated uncertainty band.
+//
+// The model assumes a coil in free space: no shield, no core, no lossy
+// former; a wire shorter than about a tenth of a wavelength (Predict warns
+// otherwise); and turns that are evenly spaced.
+//
+// # References
+//
+//   - H. Nagaoka, "The inductance coefficients of solenoids", Journal of the
+//     College of Science, Imperial University of Tokyo, 27(6), 1909.
+//   - E. B. Rosa, "The self and mutual inductances of linear conductors" and
+//     "On the geometrical mean distances of rectangular areas and the
+//     calculation of self-inductance", Bulletin of the Bureau of Standards
+//     4(2), 1908 (round-wire correction first in Bull. BS 2(2), 1906).
+//   - E. B. Rosa and F. W. Grover, "Formulas and tables for the calculation of
+//     mutual and self-inductance", Bulletin of the Bureau of Standards 8(1),
+//     1912 (Nagaoka table; Rosa's A and B tables).
+//   - F. W. Grover, Inductance Calculations, Van Nostrand, 1946 (Dover 2004).
+//   - H. A. Wheeler, "Simple inductance formulas for radio coils", Proc. IRE
+//     16(10), 1398–1400, 1928.
+//   - R. G. Medhurst, "H.F. resistance and self-capacitance of single-layer
+//     solenoids", Wireless Engineer 24, 35–43 and 80–92, 1947.
+//   - H. A. Wheeler, "Formulas for the skin effect", Proc. IRE 30(9),
+//     412–424, 1942.
+//   - S. Ramo, J. R. Whinnery, T. Van Duzer, Fields and Waves in
+//     Communication Electronics, 3rd ed., Wiley, 1994, §5.6 (internal
+//     impedance of a round wire).
+//   - F. E. Terman, Radio Engineers' Handbook, McGraw-Hill, 1943 (apparent
+//     inductance and Q near self-resonance).
+//   - J. D. Kraus, Antennas, 2nd ed., McGraw-Hill, 1988 (small-loop
+//     radiation resistance).
+//   - International Annealed Copper Standard, NBS 1914 (resistivity
+//     1.7241e-8 Ω·m at 20 °C, temperature coefficient 0.00393 /K, density
+//     8890 kg/m³).
+//   - CODATA 2018 recommended values (μ0).
+package coil

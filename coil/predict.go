@@ -1,0 +1,257 @@
+package coil
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/unit"
+)
+
+// CutAllowance is added to the wire length to cut: 10 mm at each end for
+// stripping and soldering (common practice).
+const CutAllowance unit.Length = 20e-3
+
+// Bands on the model's estimates, as fractions of the nominal value.
+const (
+	// QMinFactor, QMaxFactor: a built coil's Q is usually below the
+	// estimate (solder joints, surface finish, former dielectric, nearby
+	// metal) and rarely far above it; Medhurst's table itself is recalled
+	// from memory.
+	QMinFactor = 0.70
+	QMaxFactor = 1.10
+
+	// FloatingSRFMin, FloatingSRFMax: the same coil floating at both ends
+	// resonates this much higher than with one end grounded (project's
+	// full-wave comparison).
+	FloatingSRFMin = 1.3
+	FloatingSRFMax = 1.6
+)
+
+// srfBand returns the range of the true SRF (one end grounded) relative to
+// Medhurst's estimate, from the project's full-wave comparison: −7 … +3 %
+// for 0.8 ≤ l/D ≤ 5, +5 … +14 % for shorter coils; longer coils were not
+// compared and get ±10 %.
+func srfBand(lOverD float64) (lo, hi float64) {
+	switch {
+	case lOverD < 0.8:
+		return 1.05, 1.14
+	case lOverD <= 5:
+		return 0.93, 1.03
+	default:
+		return 0.90, 1.10
+	}
+}
+
+// Flags mark conditions worth a warning; Prediction.Warnings words them.
+type Flags uint16
+
+const (
+	FlagNearSRF           Flags = 1 << iota // f > SRF/3
+	FlagLongWire                            // wire in the winding longer than λ/10
+	FlagMedhurstExtrap                      // l/D outside Medhurst's table
+	FlagNagaokaRange                        // l/D outside 0.01 … 100
+	FlagTinned                              // tinned wire at RF
+	FlagSteepPitch                          // pitch more than half the diameter
+	FlagWheelerOutOfRange                   // Wheeler's formula outside its range (informational)
+)
+
+// Prediction is everything the model says about one coil. Inductances are
+// low-frequency values unless the name says "at f"; when Frequency is zero
+// the "at f" values equal the low-frequency ones and R_ac, Q are zero.
+type Prediction struct {
+	Geometry  Geometry
+	Frequency unit.Frequency
+
+	// Build numbers.
+	MeanDiameter    unit.Length // wire-centre diameter D
+	InsideDiameter  unit.Length
+	OutsideDiameter unit.Length
+	SheetLength     unit.Length // Rosa's l = N·p
+	WindingLength   unit.Length // outside length (N−1)·p + d_o
+	HelixWire       unit.Length // wire in the winding
+	WireLength      unit.Length // to cut: winding + both leads + CutAllowance
+	CopperMass      unit.Mass   // of the cut length
+
+	// Inductance.
+	Nagaoka             float64         // K_N(l/D)
+	SelfCorrection      float64         // k_s at DC
+	MutualCorrection    float64         // k_m
+	InternalFraction    float64         // φ at f (1 at DC)
+	InductanceSheet     unit.Inductance // current sheet
+	InductanceCoil      unit.Inductance // helix alone, low frequency
+	InductanceCoilAtF   unit.Inductance // helix alone at f
+	InductanceLeads     unit.Inductance // both leads at f
+	Inductance          unit.Inductance // at the terminals at f: coil + leads
+	InductanceWheeler   unit.Inductance // cross-check only
+	WheelerValid        bool
+	InductanceEffective unit.Inductance // apparent at f, self-capacitance included
+
+	// Self-resonance, one end grounded.
+	SelfCapacitance unit.Capacitance
+	SRF             unit.Frequency
+	SRFMin, SRFMax  unit.Frequency // band of the estimate
+	SRFFloatingMin  unit.Frequency // both ends floating
+	SRFFloatingMax  unit.Frequency
+
+	// Loss at f.
+	RDC             unit.Resistance // winding + leads at the conductor temperature
+	SkinDepth       unit.Length
+	SkinFactor      float64 // R_ac/R_dc of isolated straight wire
+	ProximityFactor float64 // Medhurst's Φ scaled for partial skin effect
+	RRadiation      unit.Resistance
+	RAC             unit.Resistance // effective series resistance at the terminals
+	Q, QMin, QMax   float64
+
+	Flags Flags
+}
+
+// Predict evaluates the model for g at operating frequency f (zero for
+// none). It returns an *InputError for a geometry it cannot accept or when
+// f is within 10 % of, or above, the self-resonance.
+func Predict(g Geometry, f unit.Frequency) (Prediction, error) {
+	var p Prediction
+	if err := g.Validate(); err != nil {
+		return p, err
+	}
+	if !finite(float64(f)) || f < 0 || f > MaxFrequency {
+		return p, inputErrorf("frequency", "must be between 0 and 10 GHz, e.g. 145MHz")
+	}
+	evaluate(&p, &g, float64(f))
+	if f > 0 && float64(f) > 0.9*float64(p.SRF) {
+		return p, inputErrorf("frequency", "%s is above 90 %% of the self-resonance %s (one end grounded): the coil is not a usable inductor there; use fewer turns, a smaller diameter or a wider pitch",
+			fmtHz(float64(f)), fmtHz(float64(p.SRF)))
+	}
+	return p, nil
+}
+
+// evaluate fills p for a validated geometry. It allocates nothing.
+func evaluate(p *Prediction, g *Geometry, f float64) {
+	p.Geometry = *g
+	p.Frequency = unit.Frequency(f)
+	n := g.Turns
+	d := float64(g.WireDiameter)
+	r := d / 2
+	do := g.overall()
+	pitch := float64(g.Pitch)
+	lead := float64(g.LeadLength)
+	inside := float64(g.FormerDiameter) * (1 + g.Springback)
+	dm := inside + do
+	a := dm / 2
+	l := n * pitch
+	ld := l / dm
+
+	p.MeanDiameter = unit.Length(dm)
+	p.InsideDiameter = unit.Length(inside)
+	p.OutsideDiameter = unit.Length(inside + 2*do)
+	p.SheetLength = unit.Length(l)
+	p.WindingLength = unit.Length((n-1)*pitch + do)
+	helix := n * math.Sqrt(math.Pi*math.Pi*dm*dm+pitch*pitch)
+	p.HelixWire = unit.Length(helix)
+	cut := helix + 2*lead + float64(CutAllowance)
+	p.WireLength = unit.Length(cut)
+	p.CopperMass = unit.Mass(CopperDensity * math.Pi * r * r * cut)
+
+	// Inductance at DC.
+	kn := Nagaoka(ld)
+	ls := Mu0 * math.Pi * a * a * n * n / l * kn
+	lnRatio := math.Log(2 * pitch / d)
+	km := RosaMutual(n)
+	perK := Mu0 * a * n // inductance per unit of Rosa's correction
+	ksDC := 1.25 - lnRatio
+	lCoilDC := ls - perK*(ksDC+km)
+	p.Nagaoka = kn
+	p.SelfCorrection = ksDC
+	p.MutualCorrection = km
+	p.InductanceSheet = unit.Inductance(ls)
+	p.InductanceCoil = unit.Inductance(lCoilDC)
+	lw, valid := Wheeler(n, dm, l)
+	p.InductanceWheeler = unit.Inductance(lw)
+	p.WheelerValid = valid
+
+	// Self-capacitance and resonance (one end grounded).
+	h, inTable := MedhurstH(ld)
+	c := h * 1e-10 * dm // H pF/cm × D cm
+	p.SelfCapacitance = unit.Capacitance(c)
+
+	temp := g.kelvin()
+	rho := CopperResistivity20 * (1 + CopperTempCoeff*(temp-roomKelvin))
+	// SRF with the coil's own inductance at the SRF: one fixed-point step
+	// from the DC value is enough (φ changes L by well under 1 %).
+	srf := 1 / (twoPi * math.Sqrt(lCoilDC*c))
+	_, phiSRF := SkinFactors(r / SkinDepth(rho, srf))
+	lSRF := lCoilDC - perK*(1-phiSRF)/4
+	srf = 1 / (twoPi * math.Sqrt(lSRF*c))
+	p.SRF = unit.Frequency(srf)
+	lo, hi := srfBand(ld)
+	p.SRFMin, p.SRFMax = unit.Frequency(srf*lo), unit.Frequency(srf*hi)
+	p.SRFFloatingMin = unit.Frequency(srf * FloatingSRFMin)
+	p.SRFFloatingMax = unit.Frequency(srf * FloatingSRFMax)
+
+	rdcPerM := rho / (math.Pi * r * r)
+	p.RDC = unit.Resistance(rdcPerM * (helix + 2*lead))
+
+	var flags Flags
+	if !inTable {
+		flags |= FlagMedhurstExtrap
+	}
+	if ld < 0.01 || ld > 100 {
+		flags |= FlagNagaokaRange
+	}
+	if pitch > dm/2 {
+		flags |= FlagSteepPitch
+	}
+	if !valid {
+		flags |= FlagWheelerOutOfRange
+	}
+
+	if f == 0 {
+		p.InternalFraction = 1
+		p.InductanceCoilAtF = p.InductanceCoil
+		leads := 2 * LeadInductance(lead, r, 1)
+		p.InductanceLeads = unit.Inductance(leads)
+		p.Inductance = unit.Inductance(lCoilDC + leads)
+		p.InductanceEffective = p.Inductance
+		p.Flags = flags
+		return
+	}
+
+	delta := SkinDepth(rho, f)
+	fs, phi := SkinFactors(r / delta)
+	lCoil := lCoilDC - perK*(1-phi)/4 // internal inductance lost with skin effect
+	leads := 2 * LeadInductance(lead, r, phi)
+	p.InternalFraction = phi
+	p.InductanceCoilAtF = unit.Inductance(lCoil)
+	p.InductanceLeads = unit.Inductance(leads)
+	p.Inductance = unit.Inductance(lCoil + leads)
+
+	rr := f / srf
+	gr := 1 - rr*rr
+	p.InductanceEffective = unit.Inductance(leads + lCoil/gr)
+
+	phiMax := ProximityFactor(ld, d/pitch)
+	prox := 1 + (phiMax-1)*(fs-1)/fs
+	lambda := SpeedOfLight / f
+	area := math.Pi * a * a
+	nAL := n * area / (lambda * lambda)
+	rRad := 31171 * nAL * nAL // small loop, Kraus 1988
+	rCoil := rdcPerM*fs*helix*prox + rRad
+	rLeads := rdcPerM * fs * 2 * lead
+	rEff := rLeads + rCoil/(gr*gr)
+	p.SkinDepth = unit.Length(delta)
+	p.SkinFactor = fs
+	p.ProximityFactor = prox
+	p.RRadiation = unit.Resistance(rRad)
+	p.RAC = unit.Resistance(rEff)
+	q := twoPi * f * float64(p.InductanceEffective) / rEff
+	p.Q, p.QMin, p.QMax = q, q*QMinFactor, q*QMaxFactor
+
+	if f > srf/3 {
+		flags |= FlagNearSRF
+	}
+	if helix > lambda/10 {
+		flags |= FlagLongWire
+	}
+	if g.Conductor == Tinned {
+		flags |= FlagTinned
+	}
+	p.Flags = flags
+}

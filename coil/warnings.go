@@ -1,0 +1,81 @@
+package coil
+
+import (
+	"fmt"
+	"math"
+)
+
+// fmtHz formats a frequency with an engineering prefix for messages.
+func fmtHz(f float64) string {
+	switch {
+	case f >= 1e9:
+		return fmt.Sprintf("%.4g GHz", f/1e9)
+	case f >= 1e6:
+		return fmt.Sprintf("%.4g MHz", f/1e6)
+	case f >= 1e3:
+		return fmt.Sprintf("%.4g kHz", f/1e3)
+	}
+	return fmt.Sprintf("%.4g Hz", f)
+}
+
+// Warnings words the prediction's flags for a builder, most important
+// first. Informational flags (Wheeler's range) are not included.
+func (p *Prediction) Warnings() []string {
+	var w []string
+	f := float64(p.Frequency)
+	if p.Flags&FlagNearSRF != 0 {
+		w = append(w, fmt.Sprintf("operating frequency %s is above a third of the self-resonance %s (common practice limit): L and Q depend strongly on stray capacitance; prefer fewer turns or a smaller coil",
+			fmtHz(f), fmtHz(float64(p.SRF))))
+	}
+	if p.Flags&FlagLongWire != 0 {
+		lambda := SpeedOfLight / f
+		w = append(w, fmt.Sprintf("the winding's wire (%.3g m) is longer than a tenth of a wavelength (%.3g m) at %s: the lumped model is only a guide",
+			float64(p.HelixWire), lambda/10, fmtHz(f)))
+	}
+	if p.Flags&FlagMedhurstExtrap != 0 {
+		ld := float64(p.SheetLength) / float64(p.MeanDiameter)
+		w = append(w, fmt.Sprintf("length/diameter %.3g is outside Medhurst's table (0.1 … 50): self-capacitance and SRF are extrapolated", ld))
+	}
+	if p.Flags&FlagNagaokaRange != 0 {
+		ld := float64(p.SheetLength) / float64(p.MeanDiameter)
+		w = append(w, fmt.Sprintf("length/diameter %.3g is outside 0.01 … 100: an unusual shape for a single-layer coil; check the geometry", ld))
+	}
+	if p.Flags&FlagSteepPitch != 0 {
+		w = append(w, fmt.Sprintf("pitch %.3g mm is more than half the coil diameter: the turns are far from rings and the inductance is less certain",
+			float64(p.Geometry.Pitch)*1e3))
+	}
+	if p.Flags&FlagTinned != 0 && f > 0 {
+		w = append(w, "tinned wire: the tin skin raises RF resistance, so Q is likely lower than shown (silver-plated or bare copper is better at VHF)")
+	}
+	return w
+}
+
+// WavelengthFraction is the winding's wire length as a fraction of the
+// free-space wavelength at f.
+func (p *Prediction) WavelengthFraction() float64 {
+	if p.Frequency <= 0 {
+		return 0
+	}
+	return float64(p.HelixWire) * float64(p.Frequency) / SpeedOfLight
+}
+
+// allFinite reports whether every float in p is finite; Predict's tests
+// use it, and callers may too before printing.
+func (p *Prediction) allFinite() bool {
+	for _, v := range []float64{
+		float64(p.MeanDiameter), float64(p.InsideDiameter), float64(p.OutsideDiameter),
+		float64(p.SheetLength), float64(p.WindingLength), float64(p.HelixWire), float64(p.WireLength),
+		float64(p.CopperMass), p.Nagaoka, p.SelfCorrection, p.MutualCorrection, p.InternalFraction,
+		float64(p.InductanceSheet), float64(p.InductanceCoil), float64(p.InductanceCoilAtF),
+		float64(p.InductanceLeads), float64(p.Inductance), float64(p.InductanceWheeler),
+		float64(p.InductanceEffective), float64(p.SelfCapacitance), float64(p.SRF), float64(p.SRFMin),
+		float64(p.SRFMax), float64(p.SRFFloatingMin), float64(p.SRFFloatingMax), float64(p.RDC),
+		float64(p.SkinDepth), p.SkinFactor, p.ProximityFactor, float64(p.RRadiation), float64(p.RAC),
+		p.Q, p.QMin, p.QMax,
+	} {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return false
+		}
+	}
+	return true
+}
