@@ -335,3 +335,17 @@ func TestLengthPerPercent(t *testing.T) {
 		t.Errorf("squeezing %.3g mm changed L by %.3f %%, want about 1 %%", float64(dl)*1e3, r*100)
 	}
 }
+
+// The trim window brackets the coil as wound, and squeezing raises L.
+func TestWindow(t *testing.T) {
+	t.Parallel()
+	g := vhfExample()
+	least, most, err := Window(g, 145e6)
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, _ := Predict(g, 145e6)
+	if !(least < p.Inductance && p.Inductance < most) {
+		t.Errorf("window %g … %g does not bracket %g", float64(least), float64(most), float64(p.Inductance))
+	}
+}

@@ -1,0 +1,32 @@
+package coil
+
+import (
+	"gonum.org/v1/gonum/unit"
+)
+
+// LoosestPitchFactor is the loosest pitch, in overall wire diameters, that a
+// builder can set by spreading turns and still keep them even and the coil
+// in shape (a gap of two wire diameters; common practice).
+const LoosestPitchFactor = 3.0
+
+// Window is the range of terminal inductance at f a coil of g's turns can
+// be trimmed to by squeezing or spreading: close-wound (the most) down to
+// LoosestPitchFactor·d_o (the least). Pitch does not enter; the turns are
+// held. The self-resonance check of Predict is not applied at the window's
+// ends.
+func Window(g Geometry, f unit.Frequency) (least, most unit.Inductance, err error) {
+	if err := g.Validate(); err != nil {
+		return 0, 0, err
+	}
+	do := g.overall()
+	tight, loose := g, g
+	tight.Pitch = unit.Length(do)
+	loose.Pitch = unit.Length(LoosestPitchFactor * do)
+	if float64(g.Pitch) > float64(loose.Pitch) {
+		loose.Pitch = g.Pitch // already looser than the rule: the window starts here
+	}
+	var a, b Prediction
+	evaluate(&a, &tight, float64(f))
+	evaluate(&b, &loose, float64(f))
+	return b.Inductance, a.Inductance, nil
+}
