@@ -4,9 +4,13 @@ go 1.26
 
 require (
 	github.com/BurntSushi/toml v1.6.0
+	github.com/jung-kurt/gofpdf v1.16.2
 	github.com/spf13/cobra v1.10.2
 	github.com/spf13/pflag v1.0.9
 	gonum.org/v1/gonum v0.17.0
 )
 
-require github.com/inconshreveable/mousetrap v1.1.0 // indirect
+require (
+	github.com/inconshreveable/mousetrap v1.1.0 // indirect
+	golang.org/x/tools v0.30.0 // indirect
+)

@@ -1,0 +1,109 @@
+package main
+
+import (
+	"encoding/json"
+	"math"
+	"strings"
+	"testing"
+)
+
+var tapHFArgs = []string{"tap", "--former", "pvc 20mm", "--wire", "0.5mm", "--insulation", "grade1", "--turns", "40", "--pitch", "1mm", "--leads", "20mm", "--freq", "7.1MHz"}
+
+func TestTapGolden(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	tests := []struct {
+		name   string
+		args   []string
+		golden string
+	}{
+		{"impedance 1:50", withArgs(tapHFArgs, "--impedance-ratio", "1:50"), "tap_impedance.txt"},
+		{"vhf ratio json", []string{"tap", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm", "--ratio", "0.25", "--freq", "145MHz", "--json"}, "tap_vhf.json"},
+		{"bottom L", withArgs(tapHFArgs, "--bottom-l", "2uH"), "tap_bottom.txt"},
+		{"at a tap", withArgs(tapHFArgs, "--at", "17", "--units", "in"), "tap_at.txt"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, tc.args...)
+			if code != exitOK {
+				t.Fatalf("exit %d: %s", code, errOut)
+			}
+			checkGolden(t, tc.golden, out)
+		})
+	}
+}
+
+func TestTapJSONKeys(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out, errOut, code := runCLI(t, withArgs(tapHFArgs, "--ratio", "20%", "--json")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"tap_turns", "tap_position", "l_a", "l_b", "m", "k", "ratio"} {
+		v, ok := doc[k].(float64)
+		if !ok || !(v > 0) || math.IsInf(v, 0) {
+			t.Errorf("%s = %v", k, doc[k])
+		}
+	}
+	if r := doc["ratio"].(float64); math.Abs(r-0.2) > 0.02 {
+		t.Errorf("ratio %v for a 0.2 target", r)
+	}
+	if doc["schema"] != float64(schemaVersion) || doc["goal"] != "voltage_ratio" {
+		t.Errorf("schema %v goal %v", doc["schema"], doc["goal"])
+	}
+	if ch, ok := doc["choices"].([]any); !ok || len(ch) != 2 {
+		t.Errorf("choices %v", doc["choices"])
+	}
+}
+
+func TestParseRatio(t *testing.T) {
+	t.Parallel()
+	for _, tc := range []struct {
+		in   string
+		want float64
+		ok   bool
+	}{
+		{"0.2", 0.2, true}, {"20%", 0.2, true}, {"1:5", 0.2, true}, {" 1 : 50 ", 0.02, true},
+		{"0", 0, false}, {"1", 0, false}, {"5:1", 0, false}, {"1:0", 0, false}, {"abc", 0, false}, {"NaN", 0, false},
+	} {
+		got, err := parseRatio(tc.in)
+		if (err == nil) != tc.ok || (tc.ok && math.Abs(got-tc.want) > 1e-12) {
+			t.Errorf("parseRatio(%q) = %v, %v", tc.in, got, err)
+		}
+	}
+}
+
+func TestTapBadInput(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	tests := []struct {
+		name     string
+		args     []string
+		wantCode int
+		wantText string
+	}{
+		{"no goal", withArgs(tapHFArgs), exitBadInput, "--ratio"},
+		{"two goals", withArgs(tapHFArgs, "--ratio", "0.2", "--bottom-l", "1uH"), exitBadInput, "exactly one"},
+		{"ratio above one", withArgs(tapHFArgs, "--ratio", "2"), exitBadInput, "--ratio"},
+		{"tap beyond", withArgs(tapHFArgs, "--at", "50"), exitBadInput, "--at"},
+		{"tap third", withArgs(tapHFArgs, "--at", "2.3"), exitBadInput, "--at"},
+		{"bottom L not L", withArgs(tapHFArgs, "--bottom-l", "5pF"), exitBadInput, "--bottom-l"},
+		{"bottom L beyond coil", withArgs(tapHFArgs, "--bottom-l", "1mH"), exitInfeasible, "whole coil"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			_, errOut, code := runCLI(t, tc.args...)
+			if code != tc.wantCode {
+				t.Errorf("exit %d, want %d; stderr %q", code, tc.wantCode, errOut)
+			}
+			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
+				t.Errorf("error is not one line: %q", errOut)
+			}
+			if !strings.Contains(errOut, tc.wantText) {
+				t.Errorf("error %q does not say %s", errOut, tc.wantText)
+			}
+		})
+	}
+}

@@ -1,0 +1,331 @@
+package coil
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"gonum.org/v1/gonum/optimize"
+	"gonum.org/v1/gonum/unit"
+)
+
+// TapSearch says what ChooseTap may change besides the tap.
+type TapSearch struct {
+	// VaryPitch lets the search also set the pitch, anywhere from
+	// close-wound to LoosestPitchFactor wire diameters (the turns are
+	// held). The pitch is continuous: gonum/optimize's Nelder–Mead runs
+	// on it, with every quarter-turn tap tried at each pitch.
+	VaryPitch bool
+}
+
+// ClearanceNone is TapPlan.Clearance when no harmonic of the low range
+// can come near the high range inside a listed band (no band on the low
+// range).
+const ClearanceNone = 99
+
+// TapPlan is ChooseTap's answer: the chosen tap (and pitch), the circuit
+// it gives, and how it meets the requirements.
+type TapPlan struct {
+	Span     Span
+	Geometry Geometry // the coil as chosen; only the pitch may differ from the request
+	TapTurns float64
+	Feasible bool
+	// Conflicts lists, in words, each requirement the chosen tap still
+	// misses; empty when Feasible.
+	Conflicts []string
+	// Clearance is the smallest distance, over the dial stretches where the
+	// low range is in a listed band and over orders 2 and 3, of the
+	// harmonic from the high range's peak, in half-passbands: above 1 the
+	// harmonic is outside the passband. ClearanceNone when none applies.
+	Clearance float64
+	// Tried counts the candidates evaluated; Covering, Overlapping and
+	// Clean count how many of them met each requirement on its own, and
+	// CoveringOverlapping both of the first two: together they say which
+	// requirement is the one that conflicts.
+	Tried, Covering, Overlapping, Clean, CoveringOverlapping int
+}
+
+// tapScore is one candidate's standing against the requirements.
+type tapScore struct {
+	tap                    float64
+	coverShort, overShort  float64 // shortfalls, as fractions
+	coincidence, clearance float64 // Σ(1 − depth) inside passbands; min depth
+	slack                  float64 // smallest band-edge margin or overlap, fraction
+}
+
+func (s tapScore) covers() bool   { return s.coverShort == 0 }
+func (s tapScore) overlaps() bool { return s.overShort == 0 }
+func (s tapScore) clean() bool    { return s.coincidence == 0 }
+func (s tapScore) feasible() bool { return s.covers() && s.overlaps() && s.clean() }
+
+// cost orders candidates: every feasible one before any infeasible one;
+// among feasible ones, the larger clearance (up to 10 half-passbands, about
+// 20 dB) wins, then the larger slack (room for tolerances at the band
+// edges and in the overlap); among infeasible ones, the smaller total
+// shortfall, with coverage and overlap counted in units of the margin.
+func (s tapScore) cost(margin float64) float64 {
+	if s.feasible() {
+		return -math.Min(s.clearance, 10) - math.Min(s.slack, 0.5)
+	}
+	return 100 + (s.coverShort+s.overShort)/margin + s.coincidence
+}
+
+// ChooseTap chooses the tap of spec's coil (spec.TapTurns is ignored) so
+// that every listed band lies wholly inside one range with spec.Margin to
+// spare at both ends, the two ranges overlap by at least the margin, and
+// no harmonic of order 2 or 3 of the low range falls inside the high
+// range's passband where the low range is in a listed band. Every
+// quarter-turn tap on the winding is tried; among taps meeting all three
+// the one keeping harmonics farthest from the high range's peak is chosen.
+//
+// When no tap meets them all, ChooseTap returns the best compromise with
+// an error wrapping ErrInfeasible that names the requirements in conflict.
+func ChooseTap(spec SpanSpec, search TapSearch) (TapPlan, error) {
+	if len(spec.Bands) == 0 {
+		return TapPlan{}, inputErrorf("band", "choosing a tap needs the bands to cover; list them, e.g. 3.5-3.8MHz")
+	}
+	if spec.Geometry.Turns < 0.5 {
+		return TapPlan{}, inputErrorf("turns", "a coil needs at least half a turn to take a tap")
+	}
+	spec.TapTurns = 0
+	if err := validateSpan(&spec); err != nil {
+		return TapPlan{}, err
+	}
+	margin := spec.Margin
+	if margin == 0 {
+		margin = DefaultMargin
+	}
+	plan := TapPlan{}
+	best, err := bestTap(spec, spec.Geometry, margin, &plan)
+	if err != nil {
+		return TapPlan{}, err
+	}
+	geom := spec.Geometry
+	if search.VaryPitch {
+		g, s, err := searchPitch(spec, margin, &plan)
+		if err != nil {
+			return TapPlan{}, err
+		}
+		if s.cost(margin) < best.cost(margin) {
+			geom, best = g, s
+		}
+	}
+	spec.Geometry, spec.TapTurns = geom, best.tap
+	sp, err := SolveSpan(spec)
+	if err != nil {
+		return TapPlan{}, err
+	}
+	plan.Span, plan.Geometry, plan.TapTurns = sp, geom, best.tap
+	plan.Feasible = best.feasible()
+	plan.Clearance = math.Min(best.clearance, ClearanceNone)
+	plan.Conflicts = describeConflicts(&sp, best, margin)
+	if !plan.Feasible {
+		return plan, fmt.Errorf("%w: no tap meets every requirement (%s); of %d candidates %d cover every band, %d overlap, %d are free of harmonic coincidences and %d both cover and overlap; the best compromise is shown",
+			ErrInfeasible, strings.Join(plan.Conflicts, "; "), plan.Tried, plan.Covering, plan.Overlapping, plan.Clean, plan.CoveringOverlapping)
+	}
+	return plan, nil
+}
+
+// bestTap tries every quarter-turn tap of g and returns the lowest cost.
+func bestTap(spec SpanSpec, g Geometry, margin float64, plan *TapPlan) (tapScore, error) {
+	spec.Geometry = g
+	steps := int(math.Round(g.Turns * 4))
+	best := tapScore{tap: -1}
+	for i := 1; i < steps; i++ {
+		spec.TapTurns = float64(i) / 4
+		s, err := scoreTap(spec, margin)
+		if err != nil {
+			return tapScore{}, err
+		}
+		plan.Tried++
+		if s.covers() {
+			plan.Covering++
+		}
+		if s.overlaps() {
+			plan.Overlapping++
+		}
+		if s.clean() {
+			plan.Clean++
+		}
+		if s.covers() && s.overlaps() {
+			plan.CoveringOverlapping++
+		}
+		if best.tap < 0 || s.cost(margin) < best.cost(margin) {
+			best = s
+		}
+	}
+	if best.tap < 0 {
+		return tapScore{}, inputErrorf("turns", "a coil of %g turns has no quarter-turn tap on its winding", g.Turns)
+	}
+	return best, nil
+}
+
+// scoreTap measures one candidate against the requirements.
+func scoreTap(spec SpanSpec, margin float64) (tapScore, error) {
+	c, err := newSpanCircuit(spec)
+	if err != nil {
+		return tapScore{}, err
+	}
+	open, err := c.at(0)
+	if err != nil {
+		return tapScore{}, err
+	}
+	meshed, err := c.at(1)
+	if err != nil {
+		return tapScore{}, err
+	}
+	s := tapScore{tap: spec.TapTurns, clearance: ClearanceNone}
+	low := FreqRange{Min: meshed.FLow, Max: open.FLow}
+	high := FreqRange{Min: meshed.FHigh, Max: open.FHigh}
+	hasHigh := open.FHigh > 0 && meshed.FHigh > 0
+	s.slack = math.Inf(1)
+	for _, b := range spec.Bands {
+		room := rangeRoom(b, low)
+		if hasHigh {
+			room = math.Max(room, rangeRoom(b, high))
+		}
+		s.coverShort += math.Max(0, margin-room)
+		s.slack = math.Min(s.slack, room-margin)
+	}
+	if hasHigh {
+		ov := float64(low.Max-high.Min) / float64(high.Min)
+		s.overShort = math.Max(0, margin-ov)
+		s.slack = math.Min(s.slack, ov-margin)
+	} else {
+		s.overShort = 1
+		return s, nil
+	}
+	for _, w := range c.lowWindows(spec.Bands, low) {
+		n := int(math.Ceil((w.to-w.from)*spanScan/2)) + 1
+		if n < 2 {
+			n = 2
+		}
+		depth := map[int]float64{2: math.Inf(1), 3: math.Inf(1)}
+		for i := range n {
+			r, err := c.at(w.from + (w.to-w.from)*float64(i)/float64(n-1))
+			if err != nil {
+				return tapScore{}, err
+			}
+			for m := range depth {
+				depth[m] = math.Min(depth[m], c.measure(w.band, m, r).Depth)
+			}
+		}
+		for _, d := range depth {
+			s.clearance = math.Min(s.clearance, d)
+			if d <= 1 {
+				s.coincidence += 1 - d
+			}
+		}
+	}
+	if s.coincidence == 0 && s.clearance <= 1 {
+		s.coincidence = 1e-9 // exactly on the passband edge
+	}
+	return s, nil
+}
+
+// rangeRoom is how far band b sits inside rg at its tighter end, as a
+// fraction of that band edge (negative when the band runs past the end).
+func rangeRoom(b Band, rg FreqRange) float64 {
+	lo, hi := float64(b.Low), float64(b.High)
+	return math.Min((lo-float64(rg.Min))/lo, (float64(rg.Max)-hi)/hi)
+}
+
+// searchPitch runs Nelder–Mead on the pitch, reparameterised so that any
+// real u maps into [d_o, LoosestPitchFactor·d_o]:
+//
+//	p = d_o·(1 + (F−1)·(1 + tanh u)/2)
+//
+// and at each pitch every tap is tried. A coarse scan of nine pitches picks
+// the starting point, since the best tap switches as the pitch moves.
+func searchPitch(spec SpanSpec, margin float64, plan *TapPlan) (Geometry, tapScore, error) {
+	g0 := spec.Geometry
+	do := g0.overall()
+	pitchOf := func(u float64) unit.Length {
+		return unit.Length(do * (1 + (LoosestPitchFactor-1)*(1+math.Tanh(u))/2))
+	}
+	var firstErr error
+	eval := func(u float64) (Geometry, tapScore) {
+		g := g0
+		g.Pitch = pitchOf(u)
+		s, err := bestTap(spec, g, margin, &TapPlan{})
+		if err != nil {
+			if firstErr == nil {
+				firstErr = err
+			}
+			return g, tapScore{coverShort: math.Inf(1)}
+		}
+		return g, s
+	}
+	bestU, bestCost := 0.0, math.Inf(1)
+	var bestG Geometry
+	var bestS tapScore
+	for i := range 9 {
+		u := -2.5 + 5*float64(i)/8
+		g, s := eval(u)
+		if c := s.cost(margin); c < bestCost {
+			bestU, bestCost, bestG, bestS = u, c, g, s
+		}
+	}
+	if firstErr != nil {
+		return Geometry{}, tapScore{}, firstErr
+	}
+	p := optimize.Problem{Func: func(x []float64) float64 {
+		_, s := eval(x[0])
+		return s.cost(margin)
+	}}
+	settings := &optimize.Settings{FuncEvaluations: 40, Converger: &optimize.FunctionConverge{Absolute: 1e-6, Iterations: 8}}
+	res, err := optimize.Minimize(p, []float64{bestU}, settings, &optimize.NelderMead{SimplexSize: 0.3})
+	if firstErr != nil {
+		return Geometry{}, tapScore{}, firstErr
+	}
+	// A run stopped by its evaluation budget still holds a usable best
+	// point; anything else is a failure of the search, not of the coil.
+	if err != nil && !errors.Is(err, optimize.ErrLinesearcherFailure) {
+		if res == nil || res.Status != optimize.FunctionEvaluationLimit {
+			return bestG, bestS, nil
+		}
+	}
+	if res != nil && res.F < bestCost {
+		g, s := eval(res.X[0])
+		plan.Tried += int(res.FuncEvaluations)
+		return g, s, nil
+	}
+	return bestG, bestS, nil
+}
+
+// describeConflicts words each requirement the span still misses.
+func describeConflicts(sp *Span, s tapScore, margin float64) []string {
+	var out []string
+	for _, b := range sp.Bands {
+		room := rangeRoom(b.Band, sp.Low)
+		rg, name := sp.Low, "low"
+		if sp.HasHigh {
+			if h := rangeRoom(b.Band, sp.High); h > room {
+				room, rg, name = h, sp.High, "high"
+			}
+		}
+		if room >= margin {
+			continue
+		}
+		edge := fmt.Sprintf("the %s range runs %s to %s", name, fmtHz(float64(rg.Min)), fmtHz(float64(rg.Max)))
+		out = append(out, fmt.Sprintf("band %s (%s–%s) is not inside either range with %.0f %% to spare (%s)",
+			bandLabel(b.Band), fmtHz(float64(b.Band.Low)), fmtHz(float64(b.Band.High)), margin*100, edge))
+	}
+	if !sp.HasHigh {
+		out = append(out, "the circuit has no high range")
+	} else if s.overShort > 0 {
+		if sp.Overlap < 0 {
+			out = append(out, fmt.Sprintf("the ranges leave a gap from %s to %s", fmtHz(float64(sp.Low.Max)), fmtHz(float64(sp.High.Min))))
+		} else {
+			out = append(out, fmt.Sprintf("the ranges overlap by only %.1f %% (less than %.0f %%)", float64(sp.Overlap)/float64(sp.High.Min)*100, margin*100))
+		}
+	}
+	if s.coincidence > 0 {
+		for _, co := range sp.Coincidences {
+			out = append(out, fmt.Sprintf("the %s harmonic of the low range%s falls inside the high range's passband at %.1f %% of the dial (%s against %s)",
+				ordinal(co.Order), inBand(co.Band), co.Setting*100, fmtHz(float64(co.Harmonic)), fmtHz(float64(co.FHigh))))
+		}
+	}
+	return out
+}

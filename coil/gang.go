@@ -1,0 +1,240 @@
+package coil
+
+import (
+	"fmt"
+	"math"
+	"sort"
+
+	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/unit"
+)
+
+// Law is how a variable capacitor's capacitance follows its rotation.
+type Law int
+
+const (
+	// LawSLC, straight-line capacitance: C rises evenly with rotation.
+	LawSLC Law = iota
+	// LawSLF, straight-line frequency: 1/√C falls evenly with rotation,
+	// so the frequency of an LC tank does too.
+	LawSLF
+	// LawSLW, straight-line wavelength: √C rises evenly with rotation.
+	LawSLW
+	// LawTable: the capacitance measured at a few settings, linearly
+	// interpolated between them (GangSection.Table).
+	LawTable
+)
+
+func (l Law) String() string {
+	switch l {
+	case LawSLF:
+		return "slf"
+	case LawSLW:
+		return "slw"
+	case LawTable:
+		return "table"
+	}
+	return "slc"
+}
+
+// GangPoint is one measured point of a capacitor section: its capacitance
+// at a dial setting (0 plates open … 1 fully meshed).
+type GangPoint struct {
+	Setting     float64
+	Capacitance unit.Capacitance
+}
+
+// GangSection is one section of a variable capacitor as wired into the
+// circuit. The dial setting runs from 0, plates fully open (minimum
+// capacitance: the top of each range), to 1, plates fully meshed (maximum:
+// the bottom of each range).
+//
+// The SLF and SLW laws are defined on the section's own capacitance from
+// Min to Max; with a trimmer, strays and the coil's self-capacitance
+// added, the frequency is no longer exactly straight against rotation,
+// as on a real dial.
+type GangSection struct {
+	Min, Max unit.Capacitance // plates open, fully meshed; equal for a fixed capacitor
+	Law      Law
+	// Table holds the measured points for LawTable: settings from 0 to 1
+	// in rising order, capacitance never falling. Min and Max are then
+	// the first and last capacitance.
+	Table   []GangPoint
+	Trimmer unit.Capacitance // in parallel, fixed
+	Stray   unit.Capacitance // wiring and socket capacitance to ground at this section's node
+}
+
+// Validate reports a section the solver cannot use; param prefixes the
+// field names ("gang_a", "gang_b").
+func (s *GangSection) Validate(param string) error {
+	lo, hi := float64(s.Min), float64(s.Max)
+	if s.Law == LawTable {
+		if len(s.Table) < 2 {
+			return inputErrorf(param+"_table", "a measured law needs at least two points (plates open and fully meshed)")
+		}
+		t := s.Table
+		if t[0].Setting != 0 || t[len(t)-1].Setting != 1 {
+			return inputErrorf(param+"_table", "the measured points must start at 0 %% (plates open) and end at 100 %% (fully meshed)")
+		}
+		for i, p := range t {
+			c := float64(p.Capacitance)
+			if !finite(p.Setting) || !finite(c) || c < 0 || c > 1e-6 {
+				return inputErrorf(param+"_table", "point %d: capacitance must be between 0 and 1 µF", i+1)
+			}
+			if i > 0 && p.Setting <= t[i-1].Setting {
+				return inputErrorf(param+"_table", "point %d: settings must rise (%.4g %% follows %.4g %%)", i+1, p.Setting*100, t[i-1].Setting*100)
+			}
+			if i > 0 && c < float64(t[i-1].Capacitance) {
+				return inputErrorf(param+"_table", "point %d: capacitance falls from %.4g pF to %.4g pF; it must rise as the plates mesh", i+1, float64(t[i-1].Capacitance)*1e12, c*1e12)
+			}
+		}
+		lo, hi = float64(t[0].Capacitance), float64(t[len(t)-1].Capacitance)
+	} else if s.Law < LawSLC || s.Law > LawSLW {
+		return inputErrorf(param+"_law", "unknown law %d", int(s.Law))
+	}
+	switch {
+	case !finite(lo) || !finite(hi) || lo < 0 || hi < 0:
+		return inputErrorf(param, "capacitance must be zero or positive, e.g. 15-365pF")
+	case hi < lo:
+		return inputErrorf(param, "maximum %.4g pF is below the minimum %.4g pF; give MIN-MAX", hi*1e12, lo*1e12)
+	case hi > 1e-6:
+		return inputErrorf(param, "%.4g pF is more than 1 µF; a tuning capacitor is pF to nF", hi*1e12)
+	case (s.Law == LawSLF || s.Law == LawSLW) && lo == 0 && hi > 0:
+		return inputErrorf(param, "the %s law needs a minimum above 0 pF (every capacitor has one; e.g. 12-365pF)", s.Law)
+	}
+	for _, x := range []struct {
+		name string
+		v    unit.Capacitance
+	}{{"trimmer", s.Trimmer}, {"stray", s.Stray}} {
+		if v := float64(x.v); !finite(v) || v < 0 || v > 1e-6 {
+			return inputErrorf(param+"_"+x.name, "must be between 0 and 1 µF, e.g. 5pF")
+		}
+	}
+	return nil
+}
+
+// Capacitance is the section's own capacitance at a dial setting from 0
+// (plates open) to 1 (fully meshed); settings outside are clamped.
+func (s *GangSection) Capacitance(setting float64) unit.Capacitance {
+	x := math.Min(math.Max(setting, 0), 1)
+	lo, hi := float64(s.Min), float64(s.Max)
+	switch s.Law {
+	case LawSLF:
+		if lo == hi {
+			return s.Min
+		}
+		u := 1/math.Sqrt(lo) - x*(1/math.Sqrt(lo)-1/math.Sqrt(hi))
+		return unit.Capacitance(1 / (u * u))
+	case LawSLW:
+		u := math.Sqrt(lo) + x*(math.Sqrt(hi)-math.Sqrt(lo))
+		return unit.Capacitance(u * u)
+	case LawTable:
+		t := s.Table
+		i := sort.Search(len(t), func(i int) bool { return t[i].Setting >= x })
+		switch {
+		case i == 0:
+			return t[0].Capacitance
+		case i >= len(t):
+			return t[len(t)-1].Capacitance
+		}
+		a, b := t[i-1], t[i]
+		w := (x - a.Setting) / (b.Setting - a.Setting)
+		return unit.Capacitance(float64(a.Capacitance) + w*float64(b.Capacitance-a.Capacitance))
+	}
+	return unit.Capacitance(lo + x*(hi-lo))
+}
+
+// Total is the capacitance the section puts on its node at a setting:
+// its own, the trimmer and the stray.
+func (s *GangSection) Total(setting float64) unit.Capacitance {
+	return s.Capacitance(setting) + s.Trimmer + s.Stray
+}
+
+// Resonances are the natural frequencies of the two-gang circuit at one
+// dial setting. High is zero when the circuit has only one (a section at
+// zero capacitance, or a tap at an end of the coil).
+type Resonances struct {
+	Low, High unit.Frequency
+}
+
+// TwoNodeResonances solves the tapped coil with capacitance cTop from the
+// top of the coil to ground and cTap from the tap to ground (everything at
+// each node: gang section, trimmer, stray, and at the top the coil's
+// self-capacitance).
+//
+// Nodes v = (v_top, v_tap); the bottom section carries i_b from ground to
+// the tap, the top section i_a from the tap to the top, with branch
+// voltages u = (v_tap, v_top − v_tap) = A·v. With the inductance matrix
+// Λ = [[L_b, M], [M, L_a]] the nodal equations are C·v̈ + Γ·v = 0 with
+// Γ = Aᵀ·Λ⁻¹·A and C = diag(cTop, cTap), so the resonances satisfy
+//
+//	Γ·x = ω²·C·x
+//
+// a symmetric-definite generalized eigenproblem, reduced to the ordinary
+// symmetric one C^(−½)·Γ·C^(−½) and solved with gonum/mat's EigenSym.
+// When cTap is zero the tap node has no capacitance and is eliminated
+// (Schur complement): one resonance, of the whole coil with cTop. A tap at
+// an end (L_a or L_b zero) leaves one tank as well.
+func TwoNodeResonances(s Sections, cTop, cTap unit.Capacitance) (Resonances, error) {
+	la, lb, m := float64(s.LA), float64(s.LB), float64(s.M)
+	ct, cb := float64(cTop), float64(cTap)
+	switch {
+	case !finite(ct) || !finite(cb) || ct < 0 || cb < 0:
+		return Resonances{}, inputErrorf("capacitance", "node capacitances must be zero or positive")
+	case !finite(la) || !finite(lb) || !finite(m) || la < 0 || lb < 0:
+		return Resonances{}, inputErrorf("sections", "section inductances must be zero or positive")
+	}
+	single := func(l, c float64) (Resonances, error) {
+		if l <= 0 || c <= 0 {
+			return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance across its inductance: no resonance")
+		}
+		return Resonances{Low: unit.Frequency(1 / (twoPi * math.Sqrt(l*c)))}, nil
+	}
+	switch {
+	case la == 0: // tap at the top: both sections' capacitance across the whole coil
+		return single(lb, ct+cb)
+	case lb == 0: // tap at ground: section B is shorted
+		return single(la, ct)
+	}
+	det := la*lb - m*m
+	if !(det > 0) {
+		return Resonances{}, inputErrorf("sections", "coupling k = %.6g is not below 1: the sections are not a physical pair", m/math.Sqrt(la*lb))
+	}
+	// Λ⁻¹ (order i_b, i_a) and Γ = Aᵀ Λ⁻¹ A with A = [[0,1],[1,−1]].
+	inv := mat.NewDense(2, 2, []float64{la / det, -m / det, -m / det, lb / det})
+	a := mat.NewDense(2, 2, []float64{0, 1, 1, -1})
+	var tmp, gamma mat.Dense
+	tmp.Mul(inv, a)
+	gamma.Mul(a.T(), &tmp)
+	if ct == 0 && cb == 0 {
+		return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance: no resonance")
+	}
+	if cb == 0 || ct == 0 {
+		// Eliminate the node without capacitance: Γ_eff = Γ_kk − Γ_kj²/Γ_jj.
+		k, j := 0, 1
+		c := ct
+		if ct == 0 {
+			k, j, c = 1, 0, cb
+		}
+		g := gamma.At(k, k) - gamma.At(k, j)*gamma.At(k, j)/gamma.At(j, j)
+		return Resonances{Low: unit.Frequency(math.Sqrt(g/c) / twoPi)}, nil
+	}
+	st, sb := 1/math.Sqrt(ct), 1/math.Sqrt(cb)
+	w := mat.NewSymDense(2, []float64{
+		gamma.At(0, 0) * st * st, gamma.At(0, 1) * st * sb,
+		gamma.At(1, 0) * sb * st, gamma.At(1, 1) * sb * sb,
+	})
+	var eig mat.EigenSym
+	if !eig.Factorize(w, false) {
+		return Resonances{}, fmt.Errorf("coil: two-gang eigenproblem did not converge")
+	}
+	vals := eig.Values(nil)
+	sort.Float64s(vals)
+	if !(vals[0] > 0) {
+		return Resonances{}, fmt.Errorf("coil: two-gang eigenproblem gave a non-positive ω² (%g)", vals[0])
+	}
+	return Resonances{
+		Low:  unit.Frequency(math.Sqrt(vals[0]) / twoPi),
+		High: unit.Frequency(math.Sqrt(vals[1]) / twoPi),
+	}, nil
+}

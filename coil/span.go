@@ -1,0 +1,581 @@
+package coil
+
+import (
+	"fmt"
+	"math"
+	"sort"
+
+	"gonum.org/v1/gonum/unit"
+)
+
+// Band is a range of frequencies the builder wants to tune, e.g. an
+// amateur or broadcast band.
+type Band struct {
+	Name      string
+	Low, High unit.Frequency
+}
+
+// SpanSpec is a tapped coil on a two-gang capacitor: section A from the
+// top of the coil to ground, section B from the tap to ground, one shaft.
+type SpanSpec struct {
+	Geometry Geometry
+	TapTurns float64 // from the cold end, quarter turns
+	A, B     GangSection
+	// Steps is the number of dial rows reported, from 0 to 100 % of the
+	// dial (at least 2; 0 means 11, every 10 %).
+	Steps int
+	Bands []Band
+	// LoadedQ, when positive, is the circuit's loaded Q at every
+	// frequency. Zero uses half the coil model's Q at each frequency (see
+	// PassbandRule).
+	LoadedQ float64
+	// Margin is the fraction by which each listed band must sit inside a
+	// range's ends and the two ranges must overlap; 0 means DefaultMargin.
+	// Only ChooseTap and the coverage verdicts use it.
+	Margin float64
+}
+
+// DefaultMargin is the default coverage and overlap margin, 3 %: enough
+// for capacitor and coil tolerances that a trimmer can take up (common
+// practice).
+const DefaultMargin = 0.03
+
+// PassbandRule states how the high range's passband is taken. It is
+// printed by the command so the builder knows what "inside" means.
+const PassbandRule = "passband = f/Q_loaded (−3 dB full width of a single tuned circuit); Q_loaded = half the coil model's Q at f, the Q of a tank matched to its load (common practice), unless given"
+
+// DialRow is the circuit at one dial setting.
+type DialRow struct {
+	Setting float64          // 0 plates open … 1 fully meshed
+	CA, CB  unit.Capacitance // the gang sections' own capacitance
+	CTop    unit.Capacitance // everything from the top of the coil to ground
+	CTap    unit.Capacitance // everything from the tap to ground
+	FLow    unit.Frequency
+	FHigh   unit.Frequency // zero when the circuit has one resonance
+}
+
+// FreqRange is a tuning range, lowest to highest frequency.
+type FreqRange struct {
+	Min, Max unit.Frequency
+}
+
+// BandOnRange says where a band sits on one of the ranges.
+type BandOnRange struct {
+	Range string // "low" or "high"
+	// SettingAtLow and SettingAtHigh are the dial settings at which this
+	// range is tuned to the band's low and high edge; an edge beyond the
+	// range is clamped to the dial's end.
+	SettingAtLow, SettingAtHigh float64
+	// Whole is true when both edges are on the dial.
+	Whole bool
+	// Margin is the smaller distance of a band edge inside the range's
+	// ends, as a fraction of that edge (negative: past the end).
+	Margin float64
+	// Fraction of the band (in frequency) this range reaches.
+	Fraction float64
+}
+
+// BandCoverage is one listed band and the ranges that reach it.
+type BandCoverage struct {
+	Band    Band
+	Ranges  []BandOnRange // only ranges that reach some of the band
+	Covered bool          // some range holds the whole band
+}
+
+// Coincidence is a stretch of the dial where, with the low range tuned
+// inside a listed band, the Order-th harmonic of the low range's
+// frequency falls inside the high range's passband. Setting, FLow, FHigh
+// and Offset are at the point of the stretch where the harmonic comes
+// closest to the high range's peak.
+type Coincidence struct {
+	Band        string // the listed band the low range is in ("" when none are listed)
+	Order       int    // 2 or 3
+	Setting     float64
+	SettingFrom float64
+	SettingTo   float64
+	FLow        unit.Frequency
+	FHigh       unit.Frequency
+	Harmonic    unit.Frequency // Order × FLow
+	Offset      unit.Frequency // Harmonic − FHigh
+	Passband    unit.Frequency // full −3 dB width of the high range there
+	LoadedQ     float64
+	// Depth is |Offset| as a fraction of half the passband: 0 on the peak,
+	// 1 at the −3 dB edge.
+	Depth float64
+	// AttenuationDB is how far the harmonic is down on the high range's
+	// response, 10·log10(1 + (2·Q·Offset/FHigh)²).
+	AttenuationDB float64
+}
+
+// Span is the two-gang circuit across the dial.
+type Span struct {
+	Sections        Sections
+	SelfCapacitance unit.Capacitance // Medhurst's, across the whole coil
+	Dial            []DialRow
+	Low, High       FreqRange
+	HasHigh         bool // false when the circuit has one resonance only
+	// Overlap is Low.Max − High.Min: positive when the ranges overlap,
+	// negative for a gap.
+	Overlap      unit.Frequency
+	Bands        []BandCoverage
+	Coincidences []Coincidence
+	Margin       float64
+	Warnings     []string
+}
+
+// spanScan is the internal dial resolution for coincidences: 0.25 % of
+// the dial.
+const spanScan = 400
+
+// spanCircuit evaluates the circuit at any setting.
+type spanCircuit struct {
+	geom    Geometry
+	sec     Sections
+	a, b    GangSection
+	cself   float64
+	loadedQ float64
+	q       qTable
+}
+
+func (c *spanCircuit) at(x float64) (DialRow, error) {
+	ca, cb := c.a.Capacitance(x), c.b.Capacitance(x)
+	ct := ca + c.a.Trimmer + c.a.Stray + unit.Capacitance(c.cself)
+	ctap := cb + c.b.Trimmer + c.b.Stray
+	r, err := TwoNodeResonances(c.sec, ct, ctap)
+	if err != nil {
+		return DialRow{}, err
+	}
+	return DialRow{Setting: x, CA: ca, CB: cb, CTop: ct, CTap: ctap, FLow: r.Low, FHigh: r.High}, nil
+}
+
+// SolveSpan computes both ranges across the dial, their overlap, where
+// the listed bands fall and the harmonic coincidences.
+//
+// The section inductances are taken at one frequency, the geometric mean
+// of the two ranges at mid-dial (found from a first pass at low
+// frequency): across an HF range the skin effect moves them by well under
+// 1 %. The coil's self-capacitance (Medhurst, one end grounded) is put
+// across the whole coil, in parallel with section A.
+func SolveSpan(spec SpanSpec) (Span, error) {
+	c, err := newSpanCircuit(spec)
+	if err != nil {
+		return Span{}, err
+	}
+	return c.solve(spec)
+}
+
+func validateSpan(spec *SpanSpec) error {
+	if err := spec.Geometry.Validate(); err != nil {
+		return err
+	}
+	if err := validateTap(spec.Geometry.Turns, spec.TapTurns); err != nil {
+		return err
+	}
+	if err := spec.A.Validate("gang_a"); err != nil {
+		return err
+	}
+	if err := spec.B.Validate("gang_b"); err != nil {
+		return err
+	}
+	if spec.Steps != 0 && (spec.Steps < 2 || spec.Steps > 1001) {
+		return inputErrorf("steps", "%d dial rows: give 2 to 1001", spec.Steps)
+	}
+	if !finite(spec.LoadedQ) || spec.LoadedQ < 0 || spec.LoadedQ > 1e5 {
+		return inputErrorf("loaded_q", "must be between 0 (from the coil model) and 100000")
+	}
+	if !finite(spec.Margin) || spec.Margin < 0 || spec.Margin > 0.5 {
+		return inputErrorf("margin", "must be between 0 and 50 %%")
+	}
+	for i, b := range spec.Bands {
+		lo, hi := float64(b.Low), float64(b.High)
+		if !finite(lo) || !finite(hi) || lo <= 0 || hi <= lo || hi > MaxFrequency {
+			return inputErrorf("band", "band %d (%s): give LOW-HIGH with LOW below HIGH, e.g. 3.5-3.8MHz", i+1, b.Name)
+		}
+	}
+	return nil
+}
+
+func newSpanCircuit(spec SpanSpec) (*spanCircuit, error) {
+	if err := validateSpan(&spec); err != nil {
+		return nil, err
+	}
+	g := spec.Geometry
+	var whole Prediction
+	evaluate(&whole, &g, 0)
+	c := &spanCircuit{
+		geom:    g,
+		a:       spec.A,
+		b:       spec.B,
+		cself:   float64(whole.SelfCapacitance),
+		loadedQ: spec.LoadedQ,
+	}
+	// First pass at low frequency, then the sections at the mid-dial
+	// frequency.
+	c.sec = sections(&g, spec.TapTurns, 0)
+	mid, err := c.at(0.5)
+	if err != nil {
+		return nil, err
+	}
+	fRef := float64(mid.FLow)
+	if mid.FHigh > 0 {
+		fRef = math.Sqrt(float64(mid.FLow) * float64(mid.FHigh))
+	}
+	if fRef > 0.9*float64(whole.SRF) {
+		fRef = 0.9 * float64(whole.SRF)
+	}
+	c.sec = sections(&g, spec.TapTurns, fRef)
+	c.q = newQTable(&g, float64(whole.SRF))
+	return c, nil
+}
+
+func (c *spanCircuit) solve(spec SpanSpec) (Span, error) {
+	sp := Span{Sections: c.sec, SelfCapacitance: unit.Capacitance(c.cself), Margin: spec.Margin}
+	if sp.Margin == 0 {
+		sp.Margin = DefaultMargin
+	}
+	steps := spec.Steps
+	if steps == 0 {
+		steps = 11
+	}
+	for i := range steps {
+		r, err := c.at(float64(i) / float64(steps-1))
+		if err != nil {
+			return Span{}, err
+		}
+		sp.Dial = append(sp.Dial, r)
+	}
+	open, meshed := sp.Dial[0], sp.Dial[len(sp.Dial)-1]
+	sp.Low = FreqRange{Min: meshed.FLow, Max: open.FLow}
+	sp.HasHigh = open.FHigh > 0 && meshed.FHigh > 0
+	if sp.HasHigh {
+		sp.High = FreqRange{Min: meshed.FHigh, Max: open.FHigh}
+		sp.Overlap = sp.Low.Max - sp.High.Min
+	}
+	for _, b := range spec.Bands {
+		sp.Bands = append(sp.Bands, c.coverage(&sp, b))
+	}
+	if sp.HasHigh {
+		co, err := c.coincidences(spec.Bands)
+		if err != nil {
+			return Span{}, err
+		}
+		sp.Coincidences = co
+	}
+	sp.Warnings = c.warnings(&sp)
+	return sp, nil
+}
+
+// freq returns the low or high range's frequency at x.
+func (c *spanCircuit) freq(x float64, high bool) float64 {
+	r, err := c.at(x)
+	if err != nil {
+		return math.NaN()
+	}
+	if high {
+		return float64(r.FHigh)
+	}
+	return float64(r.FLow)
+}
+
+// settingFor finds the dial setting where a range is tuned to f, by
+// bisection (frequency never rises as the plates mesh); f must be within
+// the range.
+func (c *spanCircuit) settingFor(f float64, high bool, rg FreqRange) float64 {
+	switch {
+	case f >= float64(rg.Max):
+		return 0
+	case f <= float64(rg.Min):
+		return 1
+	}
+	lo, hi := 0.0, 1.0
+	for range 60 {
+		mid := (lo + hi) / 2
+		if c.freq(mid, high) > f {
+			lo = mid
+		} else {
+			hi = mid
+		}
+	}
+	return (lo + hi) / 2
+}
+
+func (c *spanCircuit) coverage(sp *Span, b Band) BandCoverage {
+	bc := BandCoverage{Band: b}
+	ranges := []struct {
+		name string
+		rg   FreqRange
+		high bool
+	}{{"low", sp.Low, false}}
+	if sp.HasHigh {
+		ranges = append(ranges, struct {
+			name string
+			rg   FreqRange
+			high bool
+		}{"high", sp.High, true})
+	}
+	lo, hi := float64(b.Low), float64(b.High)
+	for _, r := range ranges {
+		rmin, rmax := float64(r.rg.Min), float64(r.rg.Max)
+		reach := math.Min(hi, rmax) - math.Max(lo, rmin)
+		if reach < 0 || (reach == 0 && lo != hi) {
+			continue
+		}
+		on := BandOnRange{
+			Range:         r.name,
+			SettingAtLow:  c.settingFor(lo, r.high, r.rg),
+			SettingAtHigh: c.settingFor(hi, r.high, r.rg),
+			Whole:         lo >= rmin && hi <= rmax,
+			Margin:        math.Min((lo-rmin)/lo, (rmax-hi)/hi),
+			Fraction:      reach / (hi - lo),
+		}
+		bc.Ranges = append(bc.Ranges, on)
+		if on.Whole {
+			bc.Covered = true
+		}
+	}
+	return bc
+}
+
+// window is a stretch of dial settings, from and to inclusive.
+type window struct {
+	band     string
+	from, to float64
+}
+
+// lowWindows returns the stretches of the dial where the low range is
+// inside a listed band; the whole dial when none are listed.
+func (c *spanCircuit) lowWindows(bands []Band, low FreqRange) []window {
+	if len(bands) == 0 {
+		return []window{{"", 0, 1}}
+	}
+	var w []window
+	for _, b := range bands {
+		lo, hi := math.Max(float64(b.Low), float64(low.Min)), math.Min(float64(b.High), float64(low.Max))
+		if lo > hi {
+			continue
+		}
+		w = append(w, window{b.Name, c.settingFor(hi, false, low), c.settingFor(lo, false, low)})
+	}
+	return w
+}
+
+// coincidences scans the stretches of the dial where the low range is in a
+// listed band for harmonics of order 2 and 3 inside the high range's
+// passband.
+func (c *spanCircuit) coincidences(bands []Band) ([]Coincidence, error) {
+	open, err := c.at(0)
+	if err != nil {
+		return nil, err
+	}
+	meshed, err := c.at(1)
+	if err != nil {
+		return nil, err
+	}
+	low := FreqRange{Min: meshed.FLow, Max: open.FLow}
+	var out []Coincidence
+	for _, w := range c.lowWindows(bands, low) {
+		n := int(math.Ceil((w.to-w.from)*spanScan)) + 1
+		if n < 2 {
+			n = 2
+		}
+		rows := make([]DialRow, n)
+		for i := range rows {
+			x := w.from + (w.to-w.from)*float64(i)/float64(n-1)
+			if rows[i], err = c.at(x); err != nil {
+				return nil, err
+			}
+		}
+		for _, m := range []int{2, 3} {
+			out = append(out, c.runs(w.band, m, rows)...)
+		}
+	}
+	sort.SliceStable(out, func(i, j int) bool {
+		if out[i].Setting != out[j].Setting {
+			return out[i].Setting < out[j].Setting
+		}
+		return out[i].Order < out[j].Order
+	})
+	return out, nil
+}
+
+// measure describes the harmonic of order m at one dial row.
+func (c *spanCircuit) measure(band string, m int, r DialRow) Coincidence {
+	fl, fh := float64(r.FLow), float64(r.FHigh)
+	q := c.qLoaded(fh)
+	bw := fh / q
+	off := float64(m)*fl - fh
+	x := 2 * q * off / fh
+	return Coincidence{
+		Band: band, Order: m, Setting: r.Setting, SettingFrom: r.Setting, SettingTo: r.Setting,
+		FLow: r.FLow, FHigh: r.FHigh, Harmonic: unit.Frequency(float64(m) * fl),
+		Offset: unit.Frequency(off), Passband: unit.Frequency(bw), LoadedQ: q,
+		Depth: math.Abs(off) / (bw / 2), AttenuationDB: 10 * math.Log10(1+x*x),
+	}
+}
+
+// runs groups consecutive rows whose harmonic is inside the passband and
+// reports each group at its closest point; a sign change of the offset
+// inside a group is refined by bisection to the exact crossing.
+func (c *spanCircuit) runs(band string, m int, rows []DialRow) []Coincidence {
+	var out []Coincidence
+	var cur *Coincidence
+	var prev Coincidence
+	for i, r := range rows {
+		h := c.measure(band, m, r)
+		inside := h.Depth <= 1
+		if inside {
+			if cur == nil {
+				h2 := h
+				cur = &h2
+			} else {
+				if h.Depth < cur.Depth {
+					from := cur.SettingFrom
+					*cur = h
+					cur.SettingFrom = from
+				}
+				cur.SettingTo = r.Setting
+				if (h.Offset > 0) != (prev.Offset > 0) {
+					if x, ok := c.crossing(m, prev.Setting, r.Setting); ok {
+						e, err := c.at(x)
+						if err == nil {
+							best := c.measure(band, m, e)
+							from, to := cur.SettingFrom, cur.SettingTo
+							*cur = best
+							cur.SettingFrom, cur.SettingTo = from, to
+						}
+					}
+				}
+			}
+		}
+		if (!inside || i == len(rows)-1) && cur != nil {
+			out = append(out, *cur)
+			cur = nil
+		}
+		prev = h
+	}
+	return out
+}
+
+// crossing finds the setting between a and b where m·f_low = f_high.
+func (c *spanCircuit) crossing(m int, a, b float64) (float64, bool) {
+	g := func(x float64) float64 {
+		r, err := c.at(x)
+		if err != nil {
+			return math.NaN()
+		}
+		return float64(m)*float64(r.FLow) - float64(r.FHigh)
+	}
+	ga, gb := g(a), g(b)
+	if !(ga*gb <= 0) {
+		return 0, false
+	}
+	for range 60 {
+		mid := (a + b) / 2
+		gm := g(mid)
+		if (gm > 0) == (ga > 0) {
+			a, ga = mid, gm
+		} else {
+			b = mid
+		}
+	}
+	return (a + b) / 2, true
+}
+
+func (c *spanCircuit) qLoaded(f float64) float64 {
+	if c.loadedQ > 0 {
+		return c.loadedQ
+	}
+	return c.q.at(f) / 2
+}
+
+func (c *spanCircuit) warnings(sp *Span) []string {
+	var w []string
+	var whole Prediction
+	evaluate(&whole, &c.geom, 0)
+	srf := float64(whole.SRF)
+	top := float64(sp.Low.Max)
+	if sp.HasHigh {
+		top = float64(sp.High.Max)
+	}
+	if top > srf/3 {
+		w = append(w, fmt.Sprintf("the top of the %s range, %s, is above a third of the coil's self-resonance %s (common practice limit): expect the real range to fall short there",
+			map[bool]string{true: "high", false: "low"}[sp.HasHigh], fmtHz(top), fmtHz(srf)))
+	}
+	if !sp.HasHigh {
+		w = append(w, "the circuit has one resonance only (section B at zero capacitance, or the tap at an end of the coil): there is no high range")
+	}
+	if sp.HasHigh && sp.Overlap < 0 {
+		w = append(w, fmt.Sprintf("the ranges do not meet: a gap from %s to %s that neither range tunes; move the tap towards the cold end to bring the high range down",
+			fmtHz(float64(sp.Low.Max)), fmtHz(float64(sp.High.Min))))
+	}
+	for _, b := range sp.Bands {
+		if !b.Covered {
+			w = append(w, fmt.Sprintf("band %s (%s–%s) is not wholly inside either range", bandLabel(b.Band), fmtHz(float64(b.Band.Low)), fmtHz(float64(b.Band.High))))
+		}
+	}
+	for _, co := range sp.Coincidences {
+		w = append(w, fmt.Sprintf("harmonic coincidence at %.1f %% of the dial: low range at %s%s, its %s harmonic %s is %s from the high range's peak %s, inside its %s passband (only %.1f dB down)",
+			co.Setting*100, fmtHz(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), fmtHz(float64(co.Harmonic)),
+			fmtHz(math.Abs(float64(co.Offset))), fmtHz(float64(co.FHigh)), fmtHz(float64(co.Passband)), co.AttenuationDB))
+	}
+	return w
+}
+
+func bandLabel(b Band) string {
+	if b.Name != "" {
+		return b.Name
+	}
+	return fmt.Sprintf("%s–%s", fmtHz(float64(b.Low)), fmtHz(float64(b.High)))
+}
+
+func inBand(name string) string {
+	if name == "" {
+		return ""
+	}
+	return " (in " + name + ")"
+}
+
+func ordinal(m int) string {
+	switch m {
+	case 2:
+		return "2nd"
+	case 3:
+		return "3rd"
+	}
+	return fmt.Sprintf("%dth", m)
+}
+
+// qTable interpolates the coil model's Q against frequency (in ln f) so
+// that a dial scan does not evaluate the model at every point.
+type qTable struct {
+	lnF, q []float64
+}
+
+const qTablePoints = 48
+
+func newQTable(g *Geometry, srf float64) qTable {
+	fMax := 0.9 * srf
+	fMin := fMax / 1e4
+	t := qTable{lnF: make([]float64, qTablePoints), q: make([]float64, qTablePoints)}
+	var p Prediction
+	for i := range qTablePoints {
+		lf := math.Log(fMin) + (math.Log(fMax)-math.Log(fMin))*float64(i)/(qTablePoints-1)
+		evaluate(&p, g, math.Exp(lf))
+		t.lnF[i], t.q[i] = lf, p.Q
+	}
+	return t
+}
+
+func (t qTable) at(f float64) float64 {
+	lf := math.Log(f)
+	n := len(t.lnF)
+	switch {
+	case lf <= t.lnF[0]:
+		return t.q[0]
+	case lf >= t.lnF[n-1]:
+		return t.q[n-1]
+	}
+	i := sort.SearchFloat64s(t.lnF, lf)
+	w := (lf - t.lnF[i-1]) / (t.lnF[i] - t.lnF[i-1])
+	return t.q[i-1] + w*(t.q[i]-t.q[i-1])
+}
