@@ -1,0 +1,362 @@
+package main
+
+// The design search from catalog rows and option values: the glue between
+// forms (what the bench holds) and coil.Design (the physics), with no
+// cobra in sight so that `turnwise design` and the build-sheet command
+// (a job coil with a target instead of a winding) share it:
+//
+//	res, err := runDesignSearch(cat, &designSearchOptions{
+//		Capacitance: 22e-12, Freq: 145e6, Leads: 5e-3, MaxLength: 15e-3,
+//	})
+//
+// res.Candidates[0].Prediction.Geometry is the coil to wind;
+// res.Candidates[0].Support.Name and .Wire.Name are catalog names. Errors
+// name the design command's flags (the job file's keys have the same
+// names): a *flagError or *usageError for bad values (exit 2), an error
+// wrapping coil.ErrInfeasible when nothing fits (exit 3).
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"strings"
+
+	"gonum.org/v1/gonum/unit"
+
+	"turnwise/coil"
+	"turnwise/forms"
+)
+
+// designSearchOptions are the values of the design command's flags, parsed.
+// Zero values mean the flag was not given.
+type designSearchOptions struct {
+	// Target: Inductance, or Capacitance with Freq as the resonance.
+	Inductance  unit.Inductance
+	Capacitance unit.Capacitance
+	Stray       unit.Capacitance
+	Freq        unit.Frequency // operating frequency; with Capacitance the resonance too
+	Tolerance   float64        // fraction; 0: 2 %
+
+	Leads unit.Length      // each lead
+	Temp  unit.Temperature // 0: 20 °C
+
+	Support    string   // "", "any", "mandrel" (self-supporting) or "former"
+	Mandrel    string   // pin the support: a stock name or a diameter
+	Former     string   //   (at most one of the two)
+	Wires      []string // pin the wire: gauges, diameters or stock names
+	Insulation string   // for pinned wires: none, grade1..3 or an overall diameter
+	Conductor  string   // for pinned wires
+	Springback *float64 // for every mandrel, instead of saved calibrations
+
+	MaxLength     unit.Length
+	MaxDiameter   unit.Length
+	MaxWireLength unit.Length
+	MinSRFRatio   float64     // 0: 3
+	MinWire       unit.Length // bare diameter bounds
+	MaxWire       unit.Length
+	TrimMargin    float64 // 0: 5 %
+	Prefer        string  // "", "balanced", "q", "small", "easy"
+	Top           int     // 0: 5
+	FreeDiameter  bool    // also search a support of any diameter
+}
+
+// runDesignSearch runs the design search over cat with the options o.
+func runDesignSearch(cat *forms.Catalog, o *designSearchOptions) (coil.Result, error) {
+	t, err := designTarget(o)
+	if err != nil {
+		return coil.Result{}, err
+	}
+	c, err := designConstraints(cat, o)
+	if err != nil {
+		return coil.Result{}, err
+	}
+	res, err := coil.Design(t, c)
+	if err != nil {
+		return res, designError(err)
+	}
+	return res, nil
+}
+
+// designTarget turns the target flags into a coil.Target.
+func designTarget(o *designSearchOptions) (coil.Target, error) {
+	switch {
+	case o.Inductance > 0 && o.Capacitance > 0:
+		return coil.Target{}, usageErrorf("--inductance and --cap cannot be used together: give an inductance, or a capacitance with the --freq it must resonate at")
+	case o.Inductance == 0 && o.Capacitance == 0:
+		return coil.Target{}, usageErrorf("give a target: --inductance 48nH, or --cap 22pF with --freq 145MHz (the resonance)")
+	case o.Capacitance > 0 && o.Freq == 0:
+		return coil.Target{}, usageErrorf("--cap needs --freq, the frequency it must resonate at, e.g. --freq 145MHz")
+	case o.Stray > 0 && o.Capacitance == 0:
+		return coil.Target{}, usageErrorf("--stray adds to --cap; give --cap and --freq, or add the stray to nothing and drop it")
+	}
+	t := coil.Target{Tolerance: o.Tolerance}
+	if o.Inductance > 0 {
+		t.Inductance, t.Frequency = o.Inductance, o.Freq
+	} else {
+		t.Resonance, t.Capacitance, t.Stray = o.Freq, o.Capacitance, o.Stray
+	}
+	return t, nil
+}
+
+// designConstraints builds the search's stock and limits from cat and o.
+func designConstraints(cat *forms.Catalog, o *designSearchOptions) (coil.Constraints, error) {
+	c := coil.Constraints{
+		LeadLength:    o.Leads,
+		Temperature:   o.Temp,
+		MaxLength:     o.MaxLength,
+		MaxDiameter:   o.MaxDiameter,
+		MaxWireLength: o.MaxWireLength,
+		MinSRFRatio:   o.MinSRFRatio,
+		MinWire:       o.MinWire,
+		MaxWire:       o.MaxWire,
+		TrimMargin:    o.TrimMargin,
+		Top:           o.Top,
+	}
+	switch o.Prefer {
+	case "", "balanced":
+	case "q":
+		c.Prefer = coil.PreferQ
+	case "small":
+		c.Prefer = coil.PreferSmall
+	case "easy":
+		c.Prefer = coil.PreferEasy
+	default:
+		return c, &flagError{"prefer", fmt.Errorf("%q is not one of balanced, q, small, easy", o.Prefer)}
+	}
+	sups, err := designSupports(cat, o)
+	if err != nil {
+		return c, err
+	}
+	c.Supports = sups
+	if c.Wires, err = designWires(cat, o); err != nil {
+		return c, err
+	}
+	if o.Springback == nil {
+		c.Calibrations = designCalibrations(cat, c.Supports, c.Wires)
+	}
+	if o.FreeDiameter {
+		c.FreeDiameter = &coil.FreeDiameter{OnFormer: o.Support == "former" || o.Former != ""}
+		if o.Mandrel != "" || o.Former != "" {
+			return c, usageErrorf("--free-diameter chooses the diameter itself; drop --mandrel/--former, or drop --free-diameter")
+		}
+	}
+	return c, nil
+}
+
+// designSupports lists the mandrels and formers the search may use.
+func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support, error) {
+	kind := o.Support
+	switch kind {
+	case "", "any", "mandrel", "former":
+	default:
+		return nil, &flagError{"support", fmt.Errorf("%q is not one of any, mandrel, former", kind)}
+	}
+	withSpring := func(s coil.Support) coil.Support {
+		if !s.OnFormer && o.Springback != nil {
+			s.Springback, s.SpringbackNote = *o.Springback, "given"
+		}
+		return s
+	}
+	switch {
+	case o.Mandrel != "" && o.Former != "":
+		return nil, usageErrorf("--mandrel and --former cannot be used together; a coil is either slid off a mandrel or left on a former")
+	case o.Mandrel != "":
+		if kind == "former" {
+			return nil, usageErrorf("--mandrel contradicts --support former; drop one")
+		}
+		d, name, err := resolveMandrel(cat, o.Mandrel)
+		if err != nil {
+			return nil, err
+		}
+		return []coil.Support{withSpring(coil.Support{Name: name, Diameter: d})}, nil
+	case o.Former != "":
+		if kind == "mandrel" {
+			return nil, usageErrorf("--former contradicts --support mandrel; drop one")
+		}
+		d, name, err := resolveFormer(cat, o.Former)
+		if err != nil {
+			return nil, err
+		}
+		return []coil.Support{{Name: name, Diameter: d, OnFormer: true}}, nil
+	}
+	var out []coil.Support
+	if kind != "former" {
+		for _, m := range cat.Mandrels {
+			out = append(out, withSpring(coil.Support{Name: m.Name, Diameter: m.Diameter}))
+		}
+	}
+	if kind != "mandrel" {
+		for _, f := range cat.Formers {
+			out = append(out, coil.Support{Name: f.Name, Diameter: f.Diameter, OnFormer: true})
+		}
+	}
+	if len(out) == 0 && !o.FreeDiameter {
+		what := map[string]string{"mandrel": "mandrel", "former": "former"}[kind]
+		if what == "" {
+			what = "mandrel or former"
+		}
+		return nil, usageErrorf("the stock has no %s; add one to your stock file, use --use both, or give --free-diameter", what)
+	}
+	return out, nil
+}
+
+// designWires lists the wires the search may use: the pinned ones, or the
+// whole catalog.
+func designWires(cat *forms.Catalog, o *designSearchOptions) ([]coil.WireOption, error) {
+	rows, err := designWireRows(cat, o)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]coil.WireOption, 0, len(rows))
+	for _, w := range rows {
+		cond, err := coil.ParseConductor(w.Conductor)
+		if err != nil {
+			return nil, &flagError{"conductor", err}
+		}
+		out = append(out, coil.WireOption{Name: w.Name, Diameter: w.Bare, Overall: w.Overall, Conductor: cond})
+	}
+	if len(out) == 0 {
+		return nil, usageErrorf("the stock has no wire; add some to your stock file or use --use both")
+	}
+	return out, nil
+}
+
+// designWireRows is the catalog rows behind designWires, with the pinned
+// wires' --insulation and --conductor applied; commands describe the
+// candidates' wire from them.
+func designWireRows(cat *forms.Catalog, o *designSearchOptions) ([]forms.Wire, error) {
+	rows := cat.Wires
+	if len(o.Wires) > 0 {
+		rows = nil
+		for _, name := range o.Wires {
+			w, err := resolveWire(cat, name)
+			if err != nil {
+				return nil, err
+			}
+			if o.Insulation != "" {
+				overall, ins, err := forms.ParseInsulation(o.Insulation, w.Bare)
+				if err != nil {
+					return nil, &flagError{"insulation", err}
+				}
+				w.Overall, w.Insulation = overall, ins
+			}
+			if o.Conductor != "" {
+				w.Conductor = o.Conductor
+			}
+			rows = append(rows, w)
+		}
+	} else if o.Insulation != "" || o.Conductor != "" {
+		return nil, usageErrorf("--insulation and --conductor apply to a wire you name; add --wire")
+	}
+	return rows, nil
+}
+
+// designCalibrations resolves the catalog's springback calibrations to the
+// support and wire names the search uses; cat.Springback picks the latest
+// for each pair, with the same name matching as predict.
+func designCalibrations(cat *forms.Catalog, sups []coil.Support, wires []coil.WireOption) []coil.SpringbackCalibration {
+	if len(cat.Calibrations) == 0 {
+		return nil
+	}
+	holder := func(name string) string {
+		if m, err := cat.Mandrel(name); err == nil {
+			return "mandrel:" + strings.ToLower(m.Name)
+		}
+		if f, err := cat.Former(name); err == nil {
+			return "former:" + strings.ToLower(f.Name)
+		}
+		return ""
+	}
+	wireKey := func(name string) string {
+		if w, err := cat.Wire(name); err == nil {
+			return strings.ToLower(w.Name)
+		}
+		if w, ok, err := forms.ParseGauge(name); err == nil && ok {
+			return strings.ToLower(w.Name)
+		}
+		return ""
+	}
+	holders, wireKeys := map[string]bool{}, map[string]bool{}
+	for _, cal := range cat.Calibrations {
+		holders[holder(cal.Mandrel)] = true
+		wireKeys[wireKey(cal.Wire)] = true
+	}
+	var calWires []coil.WireOption
+	for _, w := range wires {
+		if k := wireKey(w.Name); k != "" && wireKeys[k] {
+			calWires = append(calWires, w)
+		}
+	}
+	var out []coil.SpringbackCalibration
+	for _, s := range sups {
+		if h := holder(s.Name); h == "" || !holders[h] {
+			continue
+		}
+		for _, w := range calWires {
+			if cal, ok := cat.Springback(s.Name, w.Name); ok {
+				out = append(out, coil.SpringbackCalibration{Support: s.Name, Wire: w.Name, Springback: cal.Springback, Note: cal.Note})
+			}
+		}
+	}
+	return out
+}
+
+// designFlags maps coil.InputError parameters to the design flags.
+var designFlags = map[string]string{
+	"inductance":      "inductance",
+	"resonance":       "freq",
+	"frequency":       "freq",
+	"capacitance":     "cap",
+	"tolerance":       "tolerance",
+	"lead_length":     "leads",
+	"temperature":     "temp",
+	"min_srf_ratio":   "min-srf-ratio",
+	"trim_margin":     "trim-margin",
+	"min_wire":        "min-wire",
+	"top":             "top",
+	"springback":      "springback",
+	"wires":           "wire",
+	"supports":        "support",
+	"free_diameter":   "free-diameter",
+	"min_turns":       "min-turns",
+	"constraints":     "max-length",
+	"max_length":      "max-length",
+	"max_diameter":    "max-diameter",
+	"max_wire_length": "max-wire-length",
+}
+
+// designError names the flag behind a model error and adds the flag to try
+// to an infeasibility.
+func designError(err error) error {
+	var ie *coil.InputError
+	if errors.As(err, &ie) {
+		if f, ok := designFlags[ie.Param]; ok {
+			return &flagError{f, err}
+		}
+		return err
+	}
+	var inf *coil.InfeasibleError
+	if errors.As(err, &inf) {
+		hint := ""
+		if f, ok := designFlags[inf.Constraint]; ok {
+			hint = " (--" + f + ")"
+		}
+		return fmt.Errorf("%w%s", err, hint)
+	}
+	return err
+}
+
+// parseWireSize reads a bare diameter or a gauge for --min-wire/--max-wire.
+func parseWireSize(s string) (unit.Length, error) {
+	if d, err := forms.ParseLength(s); err == nil {
+		return d, nil
+	}
+	w, ok, err := forms.ParseGauge(s)
+	if err != nil {
+		return 0, err
+	}
+	if !ok || math.IsNaN(float64(w.Bare)) {
+		return 0, fmt.Errorf("%q is neither a diameter (0.5mm) nor a gauge (24awg, 22swg)", s)
+	}
+	return w.Bare, nil
+}

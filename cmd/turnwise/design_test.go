@@ -1,0 +1,327 @@
+package main
+
+import (
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"turnwise/coil"
+	"turnwise/forms"
+)
+
+// The issue's acceptance lines, as goldens.
+var (
+	designVHFArgs = []string{"design", "--freq", "145MHz", "--cap", "22pF", "--leads", "5mm", "--max-length", "15mm"}
+	designHFArgs  = []string{"design", "--inductance", "4.7uH", "--freq", "7MHz"}
+)
+
+func TestDesignGolden(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	tests := []struct {
+		name   string
+		args   []string
+		golden string
+	}{
+		{"vhf table", designVHFArgs, "design_vhf.txt"},
+		{"vhf json", append(append([]string{}, designVHFArgs...), "--json"), "design_vhf.json"},
+		{"hf table", designHFArgs, "design_hf.txt"},
+		{"hf mandrel inches", []string{"design", "--inductance", "1.2uH", "--freq", "14MHz", "--leads", "10mm", "--support", "mandrel",
+			"--prefer", "q", "--top", "3", "--units", "in"}, "design_hf_mandrel_in.txt"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, tc.args...)
+			if code != exitOK {
+				t.Fatalf("exit %d: %s", code, errOut)
+			}
+			checkGolden(t, tc.golden, out)
+		})
+	}
+}
+
+// The HF target finds formers from the pipe catalog, not only drills.
+func TestDesignHFUsesFormers(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out, errOut, code := runCLI(t, append(append([]string{}, designHFArgs...), "--json")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc struct {
+		Candidates []struct {
+			Support     string `json:"support"`
+			SupportName string `json:"support_name"`
+		} `json:"candidates"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	formers := 0
+	for _, c := range doc.Candidates {
+		if c.Support == "former" && strings.HasPrefix(c.SupportName, "pvc") {
+			formers++
+		}
+	}
+	if formers == 0 {
+		t.Errorf("no pipe former among %+v", doc.Candidates)
+	}
+}
+
+// Every key the issue names is present, finite and in SI.
+func TestDesignJSONKeys(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out, errOut, code := runCLI(t, append(append([]string{}, designVHFArgs...), "--json")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if doc["schema"] != float64(schemaVersion) {
+		t.Error("schema missing")
+	}
+	for _, k := range []string{"target", "candidates", "pareto", "warnings"} {
+		if _, ok := doc[k]; !ok {
+			t.Errorf("key %q missing", k)
+		}
+	}
+	target := doc["target"].(map[string]any)
+	if r := target["required_inductance"].(float64); math.Abs(r-54.76e-9) > 0.01e-9 { // 1/((2π·145 MHz)²·22 pF), lc.go
+		t.Errorf("required_inductance %g", r)
+	}
+	cands := doc["candidates"].([]any)
+	if len(cands) != 5 {
+		t.Fatalf("%d candidates, want 5", len(cands))
+	}
+	for _, c := range cands {
+		m := c.(map[string]any)
+		for _, k := range []string{"turns", "pitch", "winding_length", "lead_length", "inductance", "inductance_effective",
+			"q", "srf", "score", "trim_min", "trim_max", "matched_inductance", "tune_low", "tune_high", "former_diameter"} {
+			v, ok := m[k].(float64)
+			if !ok || math.IsNaN(v) || math.IsInf(v, 0) {
+				t.Errorf("candidate key %q = %v", k, m[k])
+			}
+		}
+		if m["why"] == "" {
+			t.Error("empty why")
+		}
+		if lo, hi := m["trim_min"].(float64), m["trim_max"].(float64); !(lo < m["inductance"].(float64) && m["inductance"].(float64) < hi) {
+			t.Errorf("terminal L outside its trim window %g … %g", lo, hi)
+		}
+		if v := m["winding_length"].(float64); v > 15e-3 {
+			t.Errorf("winding_length %g over --max-length", v)
+		}
+	}
+}
+
+// An impossible target explains itself and exits 3, naming the flag.
+func TestDesignInfeasibleExit(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	tests := []struct {
+		name string
+		args []string
+		want []string
+	}{
+		{"too short", []string{"design", "--inductance", "480nH", "--freq", "30MHz", "--leads", "5mm", "--mandrel", "6mm", "--wire", "1mm", "--max-length", "5mm"},
+			[]string{"--max-length", "shortest", "allow"}},
+		{"leads alone", []string{"design", "--inductance", "1nH", "--freq", "145MHz", "--leads", "5mm"}, []string{"leads alone"}},
+		{"srf", []string{"design", "--inductance", "10uH", "--freq", "30MHz", "--leads", "5mm", "--min-srf-ratio", "10"}, []string{"--min-srf-ratio", "self-resonance"}},
+		{"too slim", []string{"design", "--inductance", "48nH", "--freq", "145MHz", "--leads", "5mm", "--max-diameter", "2mm"}, []string{"--max-diameter", "slimmest"}},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, tc.args...)
+			if code != exitInfeasible {
+				t.Fatalf("exit %d, want %d: %s", code, exitInfeasible, errOut)
+			}
+			if out != "" {
+				t.Errorf("stdout not empty: %q", out)
+			}
+			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
+				t.Errorf("not one line: %q", errOut)
+			}
+			for _, w := range tc.want {
+				if !strings.Contains(errOut, w) {
+					t.Errorf("%q lacks %q", errOut, w)
+				}
+			}
+		})
+	}
+	_, errOut, _ := runCLI(t, tests[0].args...)
+	checkGolden(t, "design_infeasible.txt", errOut)
+}
+
+// Bad flags: one line naming the flag, exit 2.
+func TestDesignBadInput(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	base := []string{"design", "--inductance", "48nH", "--freq", "145MHz", "--leads", "5mm"}
+	tests := []struct {
+		name     string
+		override []string
+		wantFlag string
+	}{
+		{"no target", []string{"--inductance", "0nH"}, "--inductance"},
+		{"bad inductance", []string{"--inductance", "abc"}, "--inductance"},
+		{"cap and inductance", []string{"--cap", "22pF"}, "--inductance"},
+		{"negative leads", []string{"--leads", "-5mm"}, "--leads"},
+		{"top zero", []string{"--top", "0"}, "--top"},
+		{"prefer", []string{"--prefer", "fast"}, "--prefer"},
+		{"support", []string{"--support", "rod"}, "--support"},
+		{"srf ratio", []string{"--min-srf-ratio", "1"}, "--min-srf-ratio"},
+		{"min wire", []string{"--min-wire", "thick"}, "--min-wire"},
+		{"min above max", []string{"--min-wire", "2mm", "--max-wire", "1mm"}, "--min-wire"},
+		{"unknown wire", []string{"--wire", "unobtainium"}, "--wire"},
+		{"mandrel and former", []string{"--mandrel", "6mm", "--former", "20mm"}, "--mandrel"},
+		{"insulation without wire", []string{"--insulation", "grade2"}, "--insulation"},
+		{"tolerance", []string{"--tolerance", "90%"}, "--tolerance"},
+		{"missing stock", []string{"--stock", "/nonexistent/stock.toml"}, "--stock"},
+		{"positional", []string{"extra"}, "no arguments"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, replaceFlags(base, tc.override)...)
+			if code != exitBadInput {
+				t.Errorf("exit %d, want %d; stderr %q", code, exitBadInput, errOut)
+			}
+			if out != "" {
+				t.Errorf("stdout not empty: %q", out)
+			}
+			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
+				t.Errorf("error is not one line: %q", errOut)
+			}
+			if !strings.Contains(errOut, tc.wantFlag) {
+				t.Errorf("error %q does not name %s", errOut, tc.wantFlag)
+			}
+		})
+	}
+}
+
+// The glue: catalog rows become supports and wires, pinned rows take the
+// flags' insulation, and saved calibrations reach the pairs they name
+// (the latest one for a pair).
+func TestDesignGlue(t *testing.T) {
+	f, err := os.Open(filepath.Join("..", "..", "testdata", "stock", "bench.toml"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	mine, err := forms.LoadStock(f, "bench.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	builtin, err := forms.BuiltIn()
+	if err != nil {
+		t.Fatal(err)
+	}
+	cat := forms.Merge(builtin, mine)
+
+	c, err := designConstraints(cat, &designSearchOptions{Support: "mandrel"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(c.Supports) != len(cat.Mandrels) || len(c.Wires) != len(cat.Wires) {
+		t.Errorf("%d supports, %d wires; catalog has %d mandrels, %d wires", len(c.Supports), len(c.Wires), len(cat.Mandrels), len(cat.Wires))
+	}
+	for _, s := range c.Supports {
+		if s.OnFormer {
+			t.Errorf("former %s among mandrels", s.Name)
+		}
+	}
+	want := map[[2]string]float64{
+		{"brass rod 6", "green spool"}: 0.028, // bench.toml, the later of its two (invented demo data)
+		{"6mm drill", "18swg"}:         0.04,  // bench.toml (invented demo data)
+	}
+	got := map[[2]string]float64{}
+	for _, cal := range c.Calibrations {
+		got[[2]string{cal.Support, cal.Wire}] = cal.Springback
+	}
+	for k, v := range want {
+		if math.Abs(got[k]-v) > 1e-12 {
+			t.Errorf("calibration %v = %v, want %v (all: %v)", k, got[k], v, got)
+		}
+	}
+
+	c, err = designConstraints(cat, &designSearchOptions{Former: "pvc 20mm", Wires: []string{"22awg", "1mm"}, Insulation: "grade2"})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(c.Supports) != 1 || !c.Supports[0].OnFormer || c.Supports[0].Diameter != 20e-3 {
+		t.Errorf("supports %+v", c.Supports)
+	}
+	if len(c.Wires) != 2 || !(c.Wires[0].Overall > c.Wires[0].Diameter) || !(c.Wires[1].Overall > c.Wires[1].Diameter) {
+		t.Errorf("pinned wires %+v lack grade 2 enamel", c.Wires)
+	}
+
+	v := 0.03
+	c, err = designConstraints(cat, &designSearchOptions{Mandrel: "6mm", Springback: &v})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if c.Supports[0].Springback != 0.03 || c.Calibrations != nil {
+		t.Errorf("--springback did not override: %+v, %v", c.Supports[0], c.Calibrations)
+	}
+
+	tg, err := designTarget(&designSearchOptions{Capacitance: 22e-12, Stray: 3e-12, Freq: 145e6})
+	if err != nil || tg.Resonance != 145e6 || tg.Capacitance != 22e-12 || tg.Stray != 3e-12 || tg.Inductance != 0 {
+		t.Errorf("target %+v, %v", tg, err)
+	}
+}
+
+// With a saved calibration the design on that mandrel and wire uses it and
+// says so (what `trim --save` promises).
+func TestDesignUsesCalibration(t *testing.T) {
+	stock := filepath.Join("..", "..", "testdata", "stock", "bench.toml")
+	out, errOut, code := runCLI(t, "design", "--stock", stock, "--mandrel", "6mm drill", "--wire", "18swg",
+		"--inductance", "60nH", "--freq", "145MHz", "--leads", "5mm", "--json")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc struct {
+		Candidates []struct {
+			Springback       float64 `json:"springback"`
+			SpringbackSource string  `json:"springback_source"`
+			Note             string  `json:"springback_note"`
+		} `json:"candidates"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if len(doc.Candidates) == 0 {
+		t.Fatal("no candidate")
+	}
+	c := doc.Candidates[0]
+	if c.Springback != 0.04 || c.SpringbackSource != "calibration" || !strings.Contains(c.Note, "demo") {
+		t.Errorf("candidate springback %+v", c)
+	}
+	table, _, _ := runCLI(t, "design", "--stock", stock, "--mandrel", "6mm drill", "--wire", "18swg",
+		"--inductance", "60nH", "--freq", "145MHz", "--leads", "5mm")
+	if !strings.Contains(table, "springback 4 % from your calibration") {
+		t.Errorf("table does not say it used the calibration:\n%s", table)
+	}
+}
+
+// The glue's errors carry the exit codes the sheet command relies on.
+func TestDesignSearchErrors(t *testing.T) {
+	cat, err := forms.BuiltIn()
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, err = runDesignSearch(cat, &designSearchOptions{Inductance: 1e-9, Freq: 145e6, Leads: 5e-3})
+	if exitCode(err) != exitInfeasible {
+		t.Errorf("infeasible: exit %d (%v)", exitCode(err), err)
+	}
+	_, err = runDesignSearch(cat, &designSearchOptions{Inductance: 48e-9, Freq: 145e6, Leads: 5e-3, MinSRFRatio: 1.1})
+	if exitCode(err) != exitBadInput || !strings.Contains(err.Error(), "--min-srf-ratio") {
+		t.Errorf("bad ratio: exit %d (%v)", exitCode(err), err)
+	}
+	res, err := runDesignSearch(cat, &designSearchOptions{Inductance: 48e-9, Freq: 145e6, Leads: 5e-3, Top: 1})
+	if err != nil || len(res.Candidates) != 1 {
+		t.Fatalf("top 1: %v, %d candidates", err, len(res.Candidates))
+	}
+	if _, err := coil.Predict(res.Candidates[0].Prediction.Geometry, 145e6); err != nil {
+		t.Error(err)
+	}
+}

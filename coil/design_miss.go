@@ -1,0 +1,293 @@
+package coil
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+)
+
+// When no coil fits, Design says which constraint binds and what is
+// nearest. It searches again with each of the builder's limits lifted in
+// turn (maximum length, diameter, wire length, minimum SRF ratio); a limit
+// whose lifting lets coils through binds, and the one that the nearest such
+// coil exceeds least is reported, with that coil. With no limit to blame,
+// the target itself is out of reach of the stock (too small or too large),
+// or the wire rules leave nothing to wind.
+
+// dsNear is the coil nearest to meeting one constraint.
+type dsNear struct {
+	ratio    float64 // how far over the limit: > 1
+	value    float64 // the coil's value of the constrained quantity
+	pair     *dsPair
+	n, pitch float64
+}
+
+type dsMissLog struct {
+	near  map[string]dsNear
+	small *dsNear // smallest inductance reachable, value in H
+	large *dsPair // a pair that needed more than MaxTurns
+}
+
+func (m *dsMissLog) note(constraint string, ratio float64, p *dsPair, n, pitch float64) {
+	if m.near == nil {
+		m.near = map[string]dsNear{}
+	}
+	if old, ok := m.near[constraint]; ok && old.ratio <= ratio {
+		return
+	}
+	m.near[constraint] = dsNear{ratio: ratio, pair: p, n: n, pitch: pitch}
+}
+
+func (m *dsMissLog) tooSmall(l float64, p *dsPair, n float64) {
+	if m.small == nil || l < m.small.value {
+		m.small = &dsNear{value: l, pair: p, n: n}
+	}
+}
+
+func (m *dsMissLog) tooLarge(p *dsPair) {
+	if m.large == nil {
+		m.large = p
+	}
+}
+
+// relaxed records, in a search that ignores constraint, how far a coil
+// that meets everything else is from meeting it.
+func (m *dsMissLog) relaxed(constraint string, c *dsCoil, s *designSettings) {
+	var v, limit float64
+	p := &c.lean
+	switch constraint {
+	case "max_length":
+		v, limit = p.length, float64(s.c.MaxLength)
+	case "max_diameter":
+		v, limit = p.od, float64(s.c.MaxDiameter)
+	case "max_wire_length":
+		v, limit = p.wire, float64(s.c.MaxWireLength)
+	case "min_srf_ratio":
+		v = p.srf
+		if m.near == nil {
+			m.near = map[string]dsNear{}
+		}
+		r := s.srfRatio * s.opF / v
+		if old, ok := m.near[constraint]; !ok || r < old.ratio {
+			m.near[constraint] = dsNear{ratio: r, value: v, pair: c.pair, n: c.n, pitch: c.pitch}
+		}
+		return
+	default:
+		return
+	}
+	if m.near == nil {
+		m.near = map[string]dsNear{}
+	}
+	r := v / limit
+	if old, ok := m.near[constraint]; !ok || r < old.ratio {
+		m.near[constraint] = dsNear{ratio: r, value: v, pair: c.pair, n: c.n, pitch: c.pitch}
+	}
+}
+
+// describe names a coil for a message: "5¼ turns of 1.00mm on 6mm drill".
+func (x *dsSearch) describe(n dsNear) string {
+	sup, _ := x.support(n.pair)
+	s := fmt.Sprintf("%s turns of %s on %s", dsTurns(n.n), x.wire(n.pair).Name, sup.Name)
+	if n.pitch > 0 {
+		s += fmt.Sprintf(" at %s pitch", shortMM(n.pitch))
+	}
+	return s
+}
+
+func dsTurns(n float64) string {
+	whole := math.Floor(n + 1e-9)
+	switch frac := n - whole; {
+	case frac < 0.125:
+		return fmt.Sprintf("%.0f", whole)
+	case frac < 0.375:
+		return fmt.Sprintf("%.0f¼", whole)
+	case frac < 0.625:
+		return fmt.Sprintf("%.0f½", whole)
+	}
+	return fmt.Sprintf("%.0f¾", whole)
+}
+
+// fmtInductance formats henries with an engineering prefix for messages.
+func fmtInductance(h float64) string {
+	switch a := math.Abs(h); {
+	case a >= 1:
+		return fmt.Sprintf("%.4g H", h)
+	case a >= 1e-3:
+		return fmt.Sprintf("%.4g mH", h*1e3)
+	case a >= 1e-6:
+		return fmt.Sprintf("%.4g µH", h*1e6)
+	case a >= 1e-9:
+		return fmt.Sprintf("%.4g nH", h*1e9)
+	}
+	return fmt.Sprintf("%.4g pH", h*1e12)
+}
+
+func (x *dsSearch) targetWords() string {
+	s := x.s
+	if s.effective {
+		return fmt.Sprintf("resonance at %s with %s (%s effective)", fmtHz(s.matchF),
+			fmtCap(float64(s.t.Capacitance+s.t.Stray)), fmtInductance(s.required))
+	}
+	return fmtInductance(s.required)
+}
+
+func fmtCap(c float64) string {
+	if c < 1e-9 {
+		return fmt.Sprintf("%.4g pF", c*1e12)
+	}
+	return fmt.Sprintf("%.4g nF", c*1e9)
+}
+
+// infeasible builds the error for a search that found nothing.
+func (x *dsSearch) infeasible() error {
+	s := x.s
+	c := &s.c
+	type lifted struct {
+		name string
+		near dsNear
+	}
+	var binds []lifted
+	if len(x.pairs) > 0 || x.miss.near["max_diameter"].pair != nil {
+		for _, name := range []string{"max_length", "max_diameter", "max_wire_length", "min_srf_ratio"} {
+			switch {
+			case name == "max_length" && c.MaxLength == 0,
+				name == "max_diameter" && c.MaxDiameter == 0,
+				name == "max_wire_length" && c.MaxWireLength == 0,
+				name == "min_srf_ratio" && s.opF == 0:
+				continue
+			}
+			y := newSearch(s, name, s.top)
+			y.run()
+			if n, ok := y.miss.near[name]; ok && len(y.coils) > 0 {
+				binds = append(binds, lifted{name, n})
+			}
+		}
+	}
+	if len(binds) > 0 {
+		sort.SliceStable(binds, func(i, j int) bool { return binds[i].near.ratio < binds[j].near.ratio })
+		b := binds[0]
+		return &InfeasibleError{Constraint: b.name, Message: x.bindMessage(b.name, b.near), Nearest: b.near.value}
+	}
+	switch {
+	case len(x.pairs) == 0 && x.miss.near["max_diameter"].pair == nil:
+		return &InfeasibleError{Constraint: "wire_rules", Message: x.rulesMessage()}
+	case x.miss.small != nil && x.miss.large == nil && !x.anyLargeMiss():
+		return &InfeasibleError{Constraint: "target_too_small", Message: x.smallMessage(), Nearest: x.miss.small.value}
+	case x.miss.large != nil:
+		return &InfeasibleError{Constraint: "target_too_large", Message: fmt.Sprintf(
+			"no coil meets %s: even the largest support needs more than %d turns", x.targetWords(), MaxTurns)}
+	case len(x.pairs) == 0:
+		return &InfeasibleError{Constraint: "stock", Message: "no support and wire in the stock can be combined under the limits given"}
+	}
+	if n, ok := x.miss.near["trim_margin"]; ok && x.miss.small == nil {
+		return &InfeasibleError{Constraint: "trim_margin", Message: fmt.Sprintf(
+			"no coil puts %s inside its squeeze/spread window with a %.3g %% margin; nearest: %s; use a smaller trim margin",
+			x.targetWords(), s.margin*100, x.describe(n))}
+	}
+	if len(binds) == 0 && x.multipleLimits() {
+		return &InfeasibleError{Constraint: "limits", Message: fmt.Sprintf(
+			"no coil meets %s under all the limits together, though each alone can be met; relax more than one of them", x.targetWords())}
+	}
+	if x.miss.small != nil {
+		return &InfeasibleError{Constraint: "target_too_small", Message: x.smallMessage(), Nearest: x.miss.small.value}
+	}
+	return &InfeasibleError{Constraint: "stock", Message: fmt.Sprintf("no coil in the stock meets %s", x.targetWords())}
+}
+
+func (x *dsSearch) anyLargeMiss() bool {
+	for k := range x.miss.near {
+		if k != "trim_margin" {
+			return true
+		}
+	}
+	return false
+}
+
+func (x *dsSearch) multipleLimits() bool {
+	c := &x.s.c
+	k := 0
+	for _, set := range []bool{c.MaxLength > 0, c.MaxDiameter > 0, c.MaxWireLength > 0, x.s.opF > 0} {
+		if set {
+			k++
+		}
+	}
+	return k > 1
+}
+
+func (x *dsSearch) bindMessage(name string, n dsNear) string {
+	s := x.s
+	c := &s.c
+	tw := x.targetWords()
+	switch name {
+	case "max_length":
+		msg := fmt.Sprintf("no coil reaches %s within %s outside length: the shortest that does is %s (%s); allow %s",
+			tw, shortMM(float64(c.MaxLength)), shortMM(n.value), x.describe(n), shortMM(math.Ceil(n.value*2e3)/2e3))
+		if l, nn, ok := x.mostWithin(n.pair, float64(c.MaxLength)); ok {
+			msg += fmt.Sprintf(", or accept %s from %s turns close-wound on the same support", fmtInductance(l), dsTurns(nn))
+		}
+		return msg
+	case "max_diameter":
+		return fmt.Sprintf("no coil reaches %s within %s outside diameter: the slimmest that does is %s across (%s); allow %s",
+			tw, shortMM(float64(c.MaxDiameter)), shortMM(n.value), x.describe(n), shortMM(math.Ceil(n.value*2e3)/2e3))
+	case "max_wire_length":
+		return fmt.Sprintf("no coil reaches %s with at most %s of wire: the least any needs is %s (%s); allow %s",
+			tw, shortMM(float64(c.MaxWireLength)), shortMM(n.value), x.describe(n), shortMM(math.Ceil(n.value*1e3)/1e3))
+	case "min_srf_ratio":
+		ratio := n.value / s.opF
+		return fmt.Sprintf("no coil for %s keeps its self-resonance at %g × %s = %s: the highest is %s (%.3g × f) with %s; accept a ratio of %.2g, or a smaller inductance or a smaller support",
+			tw, s.srfRatio, fmtHz(s.opF), fmtHz(s.srfRatio*s.opF), fmtHz(n.value), ratio, x.describe(n), math.Floor(ratio*10)/10)
+	}
+	return "no coil meets " + tw
+}
+
+// mostWithin is the terminal inductance of the most whole quarter turns of
+// close-wound wire that fit within length on pair p.
+func (x *dsSearch) mostWithin(p *dsPair, length float64) (float64, float64, bool) {
+	n := math.Floor(length/p.do*4+1e-9) / 4
+	if n < 1 {
+		return 0, 0, false
+	}
+	return x.matched(p, n, p.do), n, true
+}
+
+func (x *dsSearch) smallMessage() string {
+	s := x.s
+	sm := x.miss.small
+	lead := float64(s.c.LeadLength)
+	if sm.n == 0 {
+		return fmt.Sprintf("%s is less than the two %s leads alone (%s even with %s, the thickest wire that fits): shorten the leads, or make the leads the inductor",
+			x.targetWords(), shortMM(lead), fmtInductance(sm.value), x.wire(sm.pair).Name)
+	}
+	return fmt.Sprintf("%s is below what the stock can make: the least is %s spread to %g × the wire, %s; use shorter leads, a smaller support or a strip line",
+		x.targetWords(), x.describe(*sm), LoosestPitchFactor, fmtInductance(sm.value))
+}
+
+func (x *dsSearch) rulesMessage() string {
+	type kv struct {
+		k string
+		v int
+	}
+	counts := map[string]int{}
+	c := &x.s.c
+	for _, sp := range c.Supports {
+		for _, w := range c.Wires {
+			if ok, why := WireSuits(sp, w, c); !ok {
+				counts[why]++
+			}
+		}
+	}
+	var all []kv
+	for k, v := range counts {
+		all = append(all, kv{k, v})
+	}
+	sort.Slice(all, func(i, j int) bool { return all[i].v > all[j].v || all[i].v == all[j].v && all[i].k < all[j].k })
+	var parts []string
+	for i, e := range all {
+		if i == 3 {
+			break
+		}
+		parts = append(parts, e.k)
+	}
+	return "no wire in the stock suits any support: " + strings.Join(parts, "; ") + "; add suitable wire or a former"
+}
