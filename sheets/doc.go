@@ -1,4 +1,39 @@
-// Package sheets renders printable PDF build sheets for coils from the
-// coil model's predictions. It reads coil and forms values and never
-// re-derives physics.
+// Package sheets renders printable PDF build sheets for a batch of coils:
+// a cover page with the bill of materials, then one page per coil with a
+// side view drawn at true 1:1 scale, the winding steps, the predicted values
+// and room to log measurements, and for a coil tuned by a two-gang
+// capacitor a second page charting both tuning ranges across the dial.
+//
+// Render takes plain data (Document): the model's coil.Prediction for each
+// coil and sheets' own structs for the tap and the two-gang chart. It never
+// re-derives physics; the only arithmetic here is layout and the batch
+// totals of the bill of materials.
+//
+// # Scale
+//
+// Pages are A4 (210 × 297 mm) or US Letter (8.5 × 11 in) and all drawing is
+// in millimetres, so 1 mm on the page is 72/25.4 PDF points. The side view,
+// the 50 mm scale-check bar and the cut-out pitch template are drawn at 1:1.
+// Printers often rescale ("fit to page"); every coil page therefore carries
+// the scale bar and tells the builder to measure it before trusting the
+// drawing. A coil too large for the drawing area is drawn at the largest of
+// 1:2, 1:5 or 1:10 that fits and labelled "NOT FULL SIZE"; the scale bar and
+// the pitch template stay 1:1.
+//
+// # Lettering
+//
+// The PDF core font Helvetica in the Windows-1252 encoding: it needs no
+// embedded font file, every PDF reader has it, and the output is byte-for-byte
+// reproducible. That encoding has µ, ×, ±, °, ¼, ½ and ¾ but not Ω, so
+// resistance is written "ohm". Black on white, no colour, no fills lighter
+// than mid grey: the sheets survive a black-and-white photocopier.
+//
+// # Side view
+//
+// The wire is drawn as a helix seen from the side with its true pitch: the
+// front half of each turn solid at the wire's overall diameter, the back half
+// dashed, and a dot where the wire crosses the top and bottom silhouette. The
+// outside length printed (and measured with calipers) is the model's
+// (N−1)·p + d_o; it is dimensioned centred on the winding, where for a whole
+// number of turns it spans the bottom row of crossings exactly.
 package sheets

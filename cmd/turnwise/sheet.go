@@ -1,0 +1,600 @@
+package main
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"path/filepath"
+	"strings"
+	"time"
+
+	"github.com/spf13/cobra"
+
+	"turnwise/coil"
+	"turnwise/forms"
+	"turnwise/sheets"
+)
+
+// sheetOptions holds everything `turnwise sheet` needs; no cobra types.
+type sheetOptions struct {
+	job        string // job file; empty for one coil from the flags
+	coil       coilOptions
+	stock      *stockOptions
+	stockGiven bool // --stock or --use on the command line: overrides the job's
+	freq       frequencyFlag
+	tap        turnsFlag
+	units      *choiceFlag
+	paper      *choiceFlag
+	output     string
+	title      string
+	name       string
+	quantity   int
+	date       string
+	now        func() time.Time // the date when neither --date nor the job gives one
+
+	uncompressed bool // plain-text page content, for tests and reading by eye
+}
+
+func newSheetCmd(g *globalOptions) *cobra.Command {
+	opts := &sheetOptions{
+		stock: newStockOptions(),
+		units: newChoice("", "mm", "in"),
+		paper: newChoice("", "A4", "Letter"),
+		now:   time.Now,
+	}
+	cmd := &cobra.Command{
+		Use:   "sheet [JOB.toml] -o FILE.pdf",
+		Short: "Print PDF build sheets: a job file, or one coil from the flags",
+		Long: strings.TrimSpace(`
+Print build sheets for the bench: a cover page with the bill of materials
+for the whole batch, then one page per coil with a side view drawn at full
+size (1:1), the winding steps, what the coil should measure, how far to
+squeeze or spread it, a cut-out pitch template, a measurement log and
+cautions. A coil tuned by a two-gang capacitor gets a second page charting
+both tuning ranges across the dial.
+
+Give a job file (TOML), or describe one coil with predict's flags. In a
+job file each [[coil]] is a fixed winding (predict's flags as keys) or a
+target for the design search (design's flags as keys), with optional tap
+and two-gang capacitor (span's flags as keys):
+
+  title = "Club build night"     # required; paper = "A4" or "Letter",
+  date = 2026-03-14              # units = "mm" or "in", stock = "bench.toml"
+  [[coil]]
+  name = "L1"                    # required
+  quantity = 6
+  mandrel = "6mm drill"          # or former; also insulation, conductor,
+  wire = "1.00mm silver-plated"  # springback, pitch, temp
+  turns = 5
+  length = "10mm"
+  leads = "4mm"                  # required
+  freq = "137.5MHz"
+  tap = 1                        # turns from the cold end; or tap-ratio = 0.1
+  [[coil]]
+  name = "L2"
+  cap = "15pF"                   # or inductance = "80nH"; also stray,
+  freq = "137.5MHz"              # tolerance, support, mandrel, former, wire,
+  leads = "4mm"                  # max-length, max-diameter, min-srf-ratio ...
+  # two-gang: gang = "12-365pF", gang-b, law, trim-a, trim-b, stray-a,
+  # stray-b, bands = ["80m=3.5-3.8MHz"], choose-tap = true
+
+testdata/club-night.toml is a complete example. A malformed file is
+reported with its line and nothing is written.
+
+Print at 100 % ("actual size"). Every coil page carries a 50 mm bar:
+measure it before trusting the drawing. The PDF is written to a temporary
+file and renamed, so an existing FILE is replaced only by a complete one.
+` + exitStatusHelp),
+		Example: strings.TrimSpace(`
+  turnwise sheet testdata/club-night.toml -o build-sheets.pdf
+  turnwise sheet --mandrel 6mm --wire 1mm --turns 5 --length 8mm --leads 5mm --freq 145MHz --name "L1 145 MHz" -o l1.pdf`),
+		Args: func(cmd *cobra.Command, args []string) error {
+			if len(args) > 1 {
+				return usageErrorf("sheet takes one job file (got %d arguments); quote names with spaces", len(args))
+			}
+			return nil
+		},
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if opts.output == "" {
+				return usageErrorf("-o FILE.pdf is required (or -o - for standard output)")
+			}
+			fs := cmd.Flags()
+			if len(args) == 1 {
+				opts.job = args[0]
+				for _, f := range []string{"mandrel", "former", "wire", "insulation", "conductor", "springback", "turns", "pitch", "length", "leads", "temp", "freq", "tap", "name", "quantity"} {
+					if fs.Changed(f) {
+						return usageErrorf("--%s describes one coil without a job file; put it in %s instead, or drop the job file", f, args[0])
+					}
+				}
+			}
+			opts.stockGiven = fs.Changed("stock") || fs.Changed("use")
+			return runSheet(cmd.Context(), opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
+		},
+	}
+	fs := cmd.Flags()
+	opts.coil.addFlags(fs)
+	opts.stock.addFlags(fs)
+	fs.Var(&opts.freq, "freq", "operating frequency for L at f, effective L and Q, e.g. 145MHz")
+	fs.Var(&opts.tap, "tap", "tap position in turns from the cold (grounded) end, e.g. 1.5")
+	fs.StringVarP(&opts.output, "output", "o", "", "the PDF to write; - for standard output")
+	fs.Var(opts.units, "units", "display lengths in mm or in (default: the job's, else mm)")
+	fs.Var(opts.paper, "paper", "paper size A4 or Letter (default: the job's, else A4)")
+	fs.StringVar(&opts.title, "title", "", "title on every page (default: the job's, or \"Build sheet\")")
+	fs.StringVar(&opts.name, "name", "Coil", "name of the coil, without a job file")
+	fs.IntVar(&opts.quantity, "quantity", 1, "how many to build, without a job file")
+	fs.StringVar(&opts.date, "date", "", "date to print, YYYY-MM-DD (default: the job's date, else today)")
+	fs.BoolVar(&opts.uncompressed, "uncompressed", false, "write page content uncompressed (larger; for reading the PDF by eye)")
+	_ = fs.MarkHidden("uncompressed")
+	return cmd
+}
+
+func runSheet(_ context.Context, opts *sheetOptions, stdout, stderr io.Writer) error {
+	doc, warnings, err := sheetDocument(opts)
+	if err != nil {
+		return err
+	}
+	err = writeFileAtomic(opts.output, stdout, func(w io.Writer) error {
+		return sheets.Render(w, doc, sheets.Options{Uncompressed: opts.uncompressed})
+	})
+	if err != nil {
+		return err
+	}
+	for _, w := range warnings {
+		fmt.Fprintf(stderr, "warning: %s\n", w)
+	}
+	report := stdout
+	if opts.output == "-" {
+		report = stderr
+	}
+	pages, charts := 1+len(doc.Coils), 0
+	for _, c := range doc.Coils {
+		if c.Span != nil {
+			charts++
+		}
+	}
+	what := fmt.Sprintf("cover and %d coil %s", len(doc.Coils), sheetPlural(len(doc.Coils), "page", "pages"))
+	if charts > 0 {
+		what += fmt.Sprintf(", %d tuning %s", charts, sheetPlural(charts, "chart", "charts"))
+	}
+	name := opts.output
+	if name == "-" {
+		name = "standard output"
+	}
+	fmt.Fprintf(report, "wrote %s: %d pages (%s), %s\n", name, pages+charts, what, doc.Paper)
+	fmt.Fprintln(report, "Print at 100 % (actual size) and measure the 50 mm bar on each page before using the drawings.")
+	return nil
+}
+
+func sheetPlural(n int, one, many string) string {
+	if n == 1 {
+		return one
+	}
+	return many
+}
+
+// sheetDocument resolves every coil before anything is written, so a bad
+// job file leaves no output behind.
+func sheetDocument(opts *sheetOptions) (sheets.Document, []string, error) {
+	doc := sheets.Document{Title: opts.title, Paper: opts.paper.v, Units: opts.units.v}
+	var warnings []string
+	var date time.Time
+	if opts.date != "" {
+		d, err := time.Parse("2006-01-02", strings.TrimSpace(opts.date))
+		if err != nil {
+			return doc, nil, usageErrorf("--date %q: write it as 2026-03-14", opts.date)
+		}
+		date = d
+	}
+	if opts.job == "" {
+		c, w, err := flagSheetCoil(opts)
+		if err != nil {
+			return doc, nil, err
+		}
+		doc.Coils = []sheets.Coil{c}
+		warnings = w
+		if doc.Title == "" {
+			doc.Title = "Build sheet"
+		}
+	} else {
+		job, err := loadJobFile(opts.job)
+		if err != nil {
+			return doc, nil, err
+		}
+		cat, err := jobCatalog(job, opts.stock, opts.stockGiven)
+		if err != nil {
+			return doc, nil, err
+		}
+		if doc.Title == "" {
+			doc.Title = job.Title
+		}
+		if doc.Paper == "" {
+			doc.Paper = job.Paper
+		}
+		if doc.Units == "" {
+			doc.Units = job.Units
+		}
+		if date.IsZero() {
+			date = job.Date
+		}
+		doc.Notes = job.Notes
+		doc.Source = filepath.Base(job.File)
+		for i := range job.Coils {
+			c, w, err := jobSheetCoil(job, &job.Coils[i], cat, newLengthFormatter(sheetOr(doc.Units, "mm")))
+			if err != nil {
+				return doc, nil, err
+			}
+			doc.Coils = append(doc.Coils, c)
+			warnings = append(warnings, w...)
+		}
+	}
+	doc.Paper, doc.Units = sheetOr(doc.Paper, "A4"), sheetOr(doc.Units, "mm")
+	if date.IsZero() {
+		now := opts.now()
+		date = time.Date(now.Year(), now.Month(), now.Day(), 0, 0, 0, 0, time.UTC)
+	}
+	doc.Date = date
+	return doc, warnings, nil
+}
+
+func sheetOr(a, b string) string {
+	if a != "" {
+		return a
+	}
+	return b
+}
+
+// flagSheetCoil is the one coil described by predict's flags.
+func flagSheetCoil(opts *sheetOptions) (sheets.Coil, []string, error) {
+	spec, p, err := predictCoil(&opts.coil, opts.stock, opts.freq)
+	if err != nil {
+		return sheets.Coil{}, nil, err
+	}
+	if opts.quantity < 1 || opts.quantity > 10000 {
+		return sheets.Coil{}, nil, usageErrorf("--quantity %d: give how many to build, 1 to 10000", opts.quantity)
+	}
+	lf := newLengthFormatter(sheetOr(opts.units.v, "mm"))
+	c := newSheetCoil(spec, p, lf)
+	c.Name, c.Quantity = opts.name, opts.quantity
+	if opts.tap.set {
+		s, err := coil.Tap(spec.Geometry, opts.tap.v, p.Frequency)
+		if err != nil {
+			return c, nil, &flagError{"tap", err}
+		}
+		c.Tap = sheetTap(s)
+	}
+	return c, sheetWarnings(c.Name, c.Warnings), nil
+}
+
+// jobSheetCoil resolves one job coil: the design search for a target, the
+// tap and the two-gang span when asked for. Errors point into the job file.
+func jobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf lengthFormatter) (sheets.Coil, []string, error) {
+	var c sheets.Coil
+	if jc.Target != nil {
+		cand, res, err := designJobCoil(job, jc, cat)
+		if err != nil {
+			return c, nil, err
+		}
+		spec := candidateSpec(cat, cand)
+		c = newSheetCoil(spec, cand.Prediction, lf)
+		c.Target = &sheets.Target{
+			Description: targetDescription(jc, res),
+			Inductance:  float64(res.Required),
+			Effective:   res.Effective,
+			Tolerance:   res.Tolerance,
+			Rank:        1,
+			Why:         cand.Why,
+		}
+	} else {
+		spec, p, err := predictJobCoil(job, jc, cat)
+		if err != nil {
+			return c, nil, err
+		}
+		c = newSheetCoil(spec, p, lf)
+	}
+	c.Name, c.Quantity, c.Notes, c.HighVoltage = jc.Name, jc.Quantity, jc.Notes, jc.Transmit
+	g, f := c.Prediction.Geometry, c.Prediction.Frequency
+
+	if t := jc.Tap; t != nil {
+		var s coil.Sections
+		var err error
+		key := "tap"
+		if t.Turns != nil {
+			s, err = coil.Tap(g, *t.Turns, f)
+		} else {
+			key = "tap-ratio"
+			var choices []coil.TapChoice
+			choices, err = coil.FindTap(g, f, coil.GoalVoltageRatio, *t.Ratio)
+			if len(choices) > 0 {
+				s = choices[0].Sections
+			}
+		}
+		if err != nil {
+			if errors.Is(err, coil.ErrInfeasible) {
+				return c, nil, fmt.Errorf("job %q: line %d: %s: %s: %w", job.File, jc.KeyLine(key), jc.Label(), key, err)
+			}
+			return c, nil, jobFieldError(job, jc, key, err)
+		}
+		c.Tap = sheetTap(s)
+	}
+	if jc.Span != nil {
+		sp, tap, w, err := spanJobCoil(job, jc, g, c.Tap)
+		if err != nil {
+			return c, nil, err
+		}
+		c.Span = sp
+		if tap != nil {
+			c.Tap = tap
+		}
+		c.Warnings = append(c.Warnings, w...)
+	}
+	return c, sheetWarnings(c.Name, c.Warnings), nil
+}
+
+func sheetWarnings(name string, ws []string) []string {
+	out := make([]string, len(ws))
+	for i, w := range ws {
+		out[i] = fmt.Sprintf("coil %q: %s", name, w)
+	}
+	return out
+}
+
+// newSheetCoil is the page data of a predicted coil.
+func newSheetCoil(spec coilSpec, p coil.Prediction, lf lengthFormatter) sheets.Coil {
+	desc := sheetWire(spec, lf)
+	c := sheets.Coil{
+		Wire:             desc,
+		WireKey:          desc,
+		Support:          spec.SupportKind,
+		SupportName:      spec.SupportName,
+		SpringbackSource: spec.SpringbackSource,
+		SpringbackNote:   spec.SpringbackNote,
+		CloseWound:       spec.PitchSource == "close-wound" || math.Abs(float64(p.Geometry.Pitch)-sheetOverall(p.Geometry)) < 1e-9,
+		Prediction:       p,
+		Warnings:         p.Warnings(),
+	}
+	if p.Frequency > 0 {
+		if p0, err := coil.Predict(p.Geometry, 0); err == nil {
+			c.LowFrequency = float64(p0.Inductance)
+		}
+	}
+	if dl, err := coil.LengthPerPercent(p.Geometry, p.Frequency); err == nil {
+		c.TrimPerPercent = float64(dl)
+	}
+	if least, most, err := coil.Window(p.Geometry, p.Frequency); err == nil {
+		c.TrimLeast, c.TrimMost = float64(least), float64(most)
+	}
+	return c
+}
+
+func sheetOverall(g coil.Geometry) float64 {
+	if g.WireOverall == 0 {
+		return float64(g.WireDiameter)
+	}
+	return float64(g.WireOverall)
+}
+
+// sheetWire says what the wire is: "1.00mm silver-plated bare wire",
+// "22awg copper wire, grade 1 enamel (0.68 mm overall)".
+func sheetWire(s coilSpec, lf lengthFormatter) string {
+	w := s.Wire
+	name := w.Name
+	if w.Origin == "command line" || name == "" {
+		name = lf.fmt(float64(w.Bare))
+	}
+	cond := s.Geometry.Conductor.String()
+	if !strings.Contains(strings.ToLower(name), cond) {
+		name += " " + cond
+	}
+	ins := map[string]string{"grade1": "grade 1 enamel", "grade2": "grade 2 enamel", "grade3": "grade 3 enamel", "custom": "insulated"}[w.Insulation]
+	if w.Insulation == "none" || w.Insulation == "" {
+		return name + " bare wire"
+	}
+	if ins == "" {
+		ins = w.Insulation
+	}
+	return fmt.Sprintf("%s wire, %s (%s overall)", name, ins, lf.fmt(sheetOverall(s.Geometry)))
+}
+
+func sheetTap(s coil.Sections) *sheets.Tap {
+	return &sheets.Tap{
+		Turns:    s.TapTurns,
+		Position: float64(s.TapPosition),
+		Ratio:    s.Ratio,
+		LBelow:   float64(s.LB),
+		LAbove:   float64(s.LA),
+		Mutual:   float64(s.M),
+		Coupling: s.K,
+	}
+}
+
+// designJobCoil runs the design search for a job coil with a target and
+// returns the best candidate.
+func designJobCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog) (coil.Candidate, coil.Result, error) {
+	t, w := jc.Target, jc.Winding
+	o := &designSearchOptions{
+		Support:    t.Support,
+		Mandrel:    w.Mandrel,
+		Former:     w.Former,
+		Insulation: w.Insulation,
+		Conductor:  w.Conductor,
+		Springback: w.Springback,
+		Prefer:     t.Prefer,
+		Top:        1,
+	}
+	if w.Wire != "" {
+		o.Wires = []string{w.Wire}
+	}
+	if t.Inductance != nil {
+		o.Inductance = *t.Inductance
+	}
+	if t.Cap != nil {
+		o.Capacitance = *t.Cap
+	}
+	if t.Stray != nil {
+		o.Stray = *t.Stray
+	}
+	if w.Freq != nil {
+		o.Freq = *w.Freq
+	}
+	if t.Tolerance != nil {
+		o.Tolerance = *t.Tolerance
+	}
+	if w.Leads != nil {
+		o.Leads = *w.Leads
+	}
+	if w.Temp != nil {
+		o.Temp = *w.Temp
+	}
+	if t.MaxLength != nil {
+		o.MaxLength = *t.MaxLength
+	}
+	if t.MaxDiameter != nil {
+		o.MaxDiameter = *t.MaxDiameter
+	}
+	if t.MaxWireLength != nil {
+		o.MaxWireLength = *t.MaxWireLength
+	}
+	if t.MinSRFRatio != nil {
+		o.MinSRFRatio = *t.MinSRFRatio
+	}
+	res, err := runDesignSearch(cat, o)
+	if err != nil {
+		if errors.Is(err, coil.ErrInfeasible) {
+			return coil.Candidate{}, res, fmt.Errorf("job %q: line %d: %s: %w", job.File, jc.Line, jc.Label(), err)
+		}
+		return coil.Candidate{}, res, jobCoilError(job, jc, err)
+	}
+	if len(res.Candidates) == 0 {
+		return coil.Candidate{}, res, fmt.Errorf("job %q: line %d: %s: %w: the design search returned no candidate", job.File, jc.Line, jc.Label(), coil.ErrInfeasible)
+	}
+	return res.Candidates[0], res, nil
+}
+
+// candidateSpec is the coilSpec of a design candidate, its wire looked up
+// in the catalog for the page's description.
+func candidateSpec(cat *forms.Catalog, c coil.Candidate) coilSpec {
+	g := c.Prediction.Geometry
+	kind := "mandrel"
+	if c.Support.OnFormer {
+		kind = "former"
+	}
+	w, err := cat.Wire(c.Wire.Name)
+	if err != nil {
+		w = forms.Wire{Name: c.Wire.Name, Bare: c.Wire.Diameter, Overall: c.Wire.Overall, Insulation: "none", Origin: "design"}
+		if c.Wire.Overall > c.Wire.Diameter {
+			w.Insulation = "custom"
+		}
+	}
+	src := c.SpringbackSource
+	if src == "support" {
+		src = "given"
+	}
+	pitch := "pitch"
+	if math.Abs(float64(g.Pitch)-sheetOverall(g)) < 1e-9 {
+		pitch = "close-wound"
+	}
+	return coilSpec{
+		Geometry: g, Wire: w, SupportKind: kind, SupportName: c.Support.Name,
+		SpringbackSource: src, SpringbackNote: c.Support.SpringbackNote, PitchSource: pitch,
+	}
+}
+
+func targetDescription(jc *forms.JobCoil, res coil.Result) string {
+	t := jc.Target
+	tol := fmt.Sprintf(" ± %.3g %%", res.Tolerance*100)
+	if t.Cap != nil {
+		c := farads(float64(*t.Cap))
+		if t.Stray != nil && *t.Stray > 0 {
+			c += " + " + farads(float64(*t.Stray)) + " stray"
+		}
+		return fmt.Sprintf("resonate with %s at %s%s", c, eng(float64(*jc.Winding.Freq), "Hz", 4), tol)
+	}
+	d := eng(float64(*t.Inductance), "H", 3) + " at the terminals"
+	if jc.Winding.Freq != nil {
+		d += " at " + eng(float64(*jc.Winding.Freq), "Hz", 4)
+	}
+	return d + tol
+}
+
+// spanJobCoil solves the two-gang circuit of a job coil and converts it to
+// the chart's data; with choose-tap it returns the chosen tap too.
+func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets.Tap) (*sheets.Span, *sheets.Tap, []string, error) {
+	js := jc.Span
+	law := js.Law
+	if l := strings.ToLower(law); l != "slc" && l != "slf" && l != "slw" && !filepath.IsAbs(law) {
+		law = filepath.Join(filepath.Dir(job.File), law)
+	}
+	set := spanSettings{
+		GangA: [2]float64{float64(js.GangA.Min), float64(js.GangA.Max)}, GangB: [2]float64{float64(js.GangB.Min), float64(js.GangB.Max)},
+		GangBSet: js.GangBSet, Law: law, TrimA: js.TrimA, TrimB: js.TrimB, StrayA: js.StrayA, StrayB: js.StrayB,
+		Steps: max(js.Steps, 101), LoadedQ: js.LoadedQ, Margin: js.Margin, ChooseTap: js.ChooseTap,
+	}
+	if tap != nil {
+		set.Tap = tap.Turns
+	}
+	for _, b := range js.Bands {
+		set.Bands = append(set.Bands, coil.Band{Name: b.Name, Low: b.Low, High: b.High})
+	}
+	out, err := buildSpan(g, set)
+	var warnings []string
+	if err != nil {
+		if !errors.Is(err, coil.ErrInfeasible) || out.Plan == nil {
+			var fe *flagError
+			if errors.As(err, &fe) {
+				return nil, nil, nil, jobFieldError(job, jc, fe.flag, fe.err)
+			}
+			var ue *usageError
+			if errors.As(err, &ue) {
+				return nil, nil, nil, jobFieldError(job, jc, "gang", errors.New(ue.msg))
+			}
+			return nil, nil, nil, jobFieldError(job, jc, "", err)
+		}
+		// choose-tap found no tap meeting everything: print its best
+		// compromise and say so.
+		warnings = append(warnings, "choose-tap: no tap meets every requirement; the sheet shows the best compromise: "+strings.Join(out.Plan.Conflicts, "; "))
+	}
+	a, b, _ := gangFromSettings(set)
+	sp := out.Span
+	s := &sheets.Span{
+		GangA:   describeGang(a),
+		GangB:   describeGang(b),
+		Law:     describeLaw(a),
+		Overlap: float64(sp.Overlap),
+		Notes:   sp.Warnings,
+	}
+	for _, d := range sp.Dial {
+		s.Dial = append(s.Dial, sheets.DialPoint{Setting: d.Setting, FLow: float64(d.FLow), FHigh: float64(d.FHigh)})
+	}
+	for _, bc := range sp.Bands {
+		sb := sheets.Band{Low: float64(bc.Band.Low), High: float64(bc.Band.High), Label: bc.Band.Name, Range: "none"}
+		var whole []coil.BandOnRange
+		for _, r := range bc.Ranges {
+			if r.Whole {
+				whole = append(whole, r)
+			}
+		}
+		switch {
+		case len(whole) == 2:
+			sb.Range, sb.DialLow, sb.DialHigh = "both", whole[0].SettingAtLow, whole[0].SettingAtHigh
+		case len(whole) == 1:
+			sb.Range, sb.DialLow, sb.DialHigh = whole[0].Range, whole[0].SettingAtLow, whole[0].SettingAtHigh
+		case len(bc.Ranges) > 0:
+			sb.Range, sb.DialLow, sb.DialHigh = "part", bc.Ranges[0].SettingAtLow, bc.Ranges[0].SettingAtHigh
+		}
+		s.Bands = append(s.Bands, sb)
+	}
+	for _, co := range sp.Coincidences {
+		s.Coincidences = append(s.Coincidences, sheets.Coincidence{
+			Setting: co.Setting, Order: co.Order, Band: co.Band,
+			FLow: float64(co.FLow), FHigh: float64(co.FHigh), Depth: co.Depth,
+		})
+	}
+	var chosen *sheets.Tap
+	if out.Plan != nil {
+		chosen = sheetTap(sp.Sections)
+		chosen.Purpose = "tap chosen for the bands (choose-tap)"
+	}
+	return s, chosen, warnings, nil
+}

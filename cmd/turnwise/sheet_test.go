@@ -1,0 +1,448 @@
+package main
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"math"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"strconv"
+	"strings"
+	"testing"
+
+	"github.com/spf13/pflag"
+
+	"turnwise/forms"
+)
+
+// demoJob is the README's example job.
+var demoJob = filepath.Join("..", "..", "testdata", "club-night.toml")
+
+// needPoppler returns the path of a poppler tool, skipping without it
+// unless TURNWISE_REQUIRE_TOOLS=1 (CI), where a missing tool fails.
+func needPoppler(t *testing.T, name string) string {
+	t.Helper()
+	p, err := exec.LookPath(name)
+	if err != nil {
+		if os.Getenv("TURNWISE_REQUIRE_TOOLS") == "1" {
+			t.Fatalf("%s is not installed and TURNWISE_REQUIRE_TOOLS=1: install poppler-utils", name)
+		}
+		t.Skipf("%s not installed (Debian package poppler-utils); skipping", name)
+	}
+	return p
+}
+
+func loadDemo(t *testing.T) (*forms.Job, *forms.Catalog) {
+	t.Helper()
+	job, err := loadJobFile(demoJob)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cat, err := jobCatalog(job, newStockOptions(), false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return job, cat
+}
+
+func TestSheetDemo(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out := filepath.Join(t.TempDir(), "build-sheets.pdf")
+	stdout, stderr, code := runCLI(t, "sheet", demoJob, "-o", out)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	checkGolden(t, "sheet_demo.txt", strings.ReplaceAll(stdout, out, "OUT"))
+	b, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.HasPrefix(string(b), "%PDF-") {
+		t.Fatalf("not a PDF: %q", b[:min(20, len(b))])
+	}
+	pdfinfo := needPoppler(t, "pdfinfo")
+	info, err := exec.Command(pdfinfo, out).Output()
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Cover, five coil pages, one tuning chart.
+	if !regexp.MustCompile(`Pages:\s+7\n`).Match(info) || !strings.Contains(string(info), "A4") {
+		t.Errorf("pdfinfo:\n%s", info)
+	}
+}
+
+// pageText returns the raw text of one page, whitespace collapsed.
+func pageText(t *testing.T, file string, page int) string {
+	t.Helper()
+	pdftotext := needPoppler(t, "pdftotext")
+	out, err := exec.Command(pdftotext, "-raw", "-f", fmt.Sprint(page), "-l", fmt.Sprint(page), file, "-").Output()
+	if err != nil {
+		t.Fatal(err)
+	}
+	return strings.Join(strings.Fields(string(out)), " ")
+}
+
+var siPrefix = map[string]float64{"": 1, "p": 1e-12, "n": 1e-9, "µ": 1e-6, "m": 1e-3, "k": 1e3, "M": 1e6, "G": 1e9}
+
+// printed parses a number as printed, with an optional SI prefix and unit
+// ("82.5 nH", "2.25 mm", "395"), and returns its SI value and half a unit
+// in its last digit: the rounding it carries.
+func printed(t *testing.T, s string) (v, halfULP float64) {
+	t.Helper()
+	m := regexp.MustCompile(`^(-?[\d.]+)\s*(p|n|µ|m|k|M|G)?(H|Hz|F|m|g)?$`).FindStringSubmatch(strings.TrimSpace(s))
+	if m == nil {
+		t.Fatalf("%q is not a printed quantity", s)
+	}
+	x, err := strconv.ParseFloat(m[1], 64)
+	if err != nil {
+		t.Fatal(err)
+	}
+	scale := siPrefix[m[2]]
+	if m[3] == "" && m[2] == "m" { // "2.25 mm" splits as prefix m, unit m; a bare "m" is metres
+		scale = 1
+	}
+	dec := 0
+	if i := strings.IndexByte(m[1], '.'); i >= 0 {
+		dec = len(m[1]) - i - 1
+	}
+	return x * scale, 0.5 * math.Pow(10, -float64(dec)) * scale
+}
+
+// Every value on a coil page matches `turnwise predict --json` for that
+// coil, to the precision printed.
+func TestSheetMatchesPredict(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	file := filepath.Join(t.TempDir(), "demo.pdf")
+	if _, stderr, code := runCLI(t, "sheet", demoJob, "-o", file); code != exitOK {
+		t.Fatalf("sheet: %s", stderr)
+	}
+	job, cat := loadDemo(t)
+	num := `(-?[\d.]+ ?(?:p|n|µ|m|k|M|G)?(?:H|Hz|F|m))`
+	checks := []struct {
+		re   string
+		keys []string // JSON keys, one per group; "lf:" = predict without --freq
+	}{
+		{`L at the terminals ` + num + ` at `, []string{"inductance"}},
+		{`coil \+ leads ` + num + ` \+ ` + num, []string{"inductance_coil_at_f", "inductance_leads"}},
+		{`L effective at f ` + num, []string{"inductance_effective"}},
+		{`on an L meter ` + num, []string{"lf:inductance"}},
+		{`self-resonance ` + num + ` \(` + num + ` … ` + num + `\)`, []string{"srf", "srf_min", "srf_max"}},
+		{`self-capacitance ` + num, []string{"self_capacitance"}},
+		{`Q at [\d.]+ [kMG]?Hz (\d+) \(likely (\d+) … (\d+)\)`, []string{"q", "q_min", "q_max"}},
+		{`wire to cut ` + num, []string{"wire_length"}},
+		{`the winding ` + num, []string{"wire_length_winding"}},
+		{`outside length ` + num + ` over the turns`, []string{"winding_length"}},
+		{`outside dia\. ` + num, []string{"outside_diameter"}},
+		{`bore ` + num, []string{"inside_diameter"}},
+		{`pitch ` + num, []string{"pitch"}},
+		{`lead ` + num, []string{"lead_length"}},
+		{`1 % of L = ` + num + ` of outside length`, []string{"trim_length_per_percent"}},
+	}
+	page := 2
+	for i := range job.Coils {
+		jc := &job.Coils[i]
+		t.Run(jc.Name, func(t *testing.T) {
+			args := predictArgs(t, job, jc, cat)
+			js := predictJSON(t, append(args, "--freq", jc.Raw("freq")))
+			lf := predictJSON(t, args)
+			text := pageText(t, file, page)
+			for _, c := range checks {
+				m := regexp.MustCompile(c.re).FindStringSubmatch(text)
+				if m == nil {
+					t.Errorf("page %d has no %q:\n%s", page, c.re, text)
+					continue
+				}
+				for j, key := range c.keys {
+					src := js
+					if k, ok := strings.CutPrefix(key, "lf:"); ok {
+						src, key = lf, k
+					}
+					want, ok := src[key].(float64)
+					if !ok {
+						t.Fatalf("predict --json has no %s", key)
+					}
+					got, half := printed(t, m[j+1])
+					if math.Abs(got-want) > half*(1+1e-9) {
+						t.Errorf("page %d %s: printed %s, predict says %.6g", page, key, m[j+1], want)
+					}
+				}
+			}
+			if !strings.Contains(text, fmtTurns(js["turns"].(float64))+" turns of ") {
+				t.Errorf("page %d does not say %s turns", page, fmtTurns(js["turns"].(float64)))
+			}
+		})
+		page++
+		if jc.Span != nil {
+			page++
+		}
+	}
+}
+
+// predictArgs are predict's flags for a job coil: the job's own keys for a
+// fixed winding (they are predict's flag names), the design's answer for a
+// target.
+func predictArgs(t *testing.T, job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog) []string {
+	t.Helper()
+	args := []string{"predict"}
+	if jc.Target == nil {
+		for _, k := range []string{"mandrel", "former", "wire", "insulation", "conductor", "springback", "turns", "pitch", "length", "leads", "temp"} {
+			if jc.Has(k) {
+				args = append(args, "--"+k, jc.Raw(k))
+			}
+		}
+		return args
+	}
+	cand, _, err := designJobCoil(job, jc, cat)
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := cand.Prediction.Geometry
+	support := "--mandrel"
+	if cand.Support.OnFormer {
+		support = "--former"
+	}
+	ins := "none"
+	if g.WireOverall > g.WireDiameter {
+		ins = fmt.Sprintf("%.15gmm", float64(g.WireOverall)*1e3)
+	}
+	return append(args, support, fmt.Sprintf("%.15gmm", float64(g.FormerDiameter)*1e3),
+		"--wire", fmt.Sprintf("%.15gmm", float64(g.WireDiameter)*1e3), "--insulation", ins,
+		"--conductor", g.Conductor.String(), "--springback", fmt.Sprintf("%.15g%%", g.Springback*100),
+		"--turns", fmt.Sprint(g.Turns), "--pitch", fmt.Sprintf("%.15gmm", float64(g.Pitch)*1e3),
+		"--leads", jc.Raw("leads"))
+}
+
+func predictJSON(t *testing.T, args []string) map[string]any {
+	t.Helper()
+	out, stderr, code := runCLI(t, append(args, "--json")...)
+	if code != exitOK {
+		t.Fatalf("%v: exit %d: %s", args, code, stderr)
+	}
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	return m
+}
+
+// A job coil resolves to the same geometry as predict's flags with the
+// same names; this is what trim --job relies on.
+func TestResolveJobCoil(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	job, cat := loadDemo(t)
+	for i := range job.Coils {
+		jc := &job.Coils[i]
+		if jc.Target != nil {
+			if _, err := resolveJobCoil(job, jc, cat); err == nil || !strings.Contains(err.Error(), "design target") {
+				t.Errorf("%s: a design target resolved as a winding: %v", jc.Name, err)
+			}
+			continue
+		}
+		spec, err := resolveJobCoil(job, jc, cat)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var o coilOptions
+		fs := pflag.NewFlagSet("predict", pflag.ContinueOnError)
+		o.addFlags(fs)
+		if err := fs.Parse(predictArgs(t, job, jc, cat)[1:]); err != nil {
+			t.Fatal(err)
+		}
+		want, err := o.resolve(cat)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if spec.Geometry != want.Geometry || spec.SupportName != want.SupportName || spec.PitchSource != want.PitchSource {
+			t.Errorf("%s: job gives %+v, flags give %+v", jc.Name, spec, want)
+		}
+	}
+}
+
+// Errors in a job coil point at the key's line and keep their exit codes.
+func TestJobCoilErrors(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	cat, err := forms.BuiltIn()
+	if err != nil {
+		t.Fatal(err)
+	}
+	const head = "title = \"t\"\n[[coil]]\nname = \"L1\"\nleads = \"5mm\"\nturns = 5\n" // lines 1-5
+	cases := []struct {
+		name string
+		body string
+		line int
+		want string
+	}{
+		{"pitch below wire", "mandrel = \"6mm\"\nwire = \"1mm\"\npitch = \"0.5mm\"\n", 8, "pitch: 0.5 mm is less than the wire's overall diameter"},
+		{"unknown wire", "mandrel = \"6mm\"\nwire = \"green spool\"\n", 7, `wire: wire "green spool" not found`},
+		{"unknown mandrel", "mandrel = \"broom handle\"\nwire = \"1mm\"\n", 6, "mandrel:"},
+		{"length too short", "mandrel = \"6mm\"\nwire = \"1mm\"\nlength = \"3mm\"\n", 8, "length:"},
+		{"frequency above SRF", "mandrel = \"6mm\"\nwire = \"1mm\"\nfreq = \"5GHz\"\n", 8, "freq:"},
+	}
+	for _, tc := range cases {
+		t.Run(tc.name, func(t *testing.T) {
+			job, err := forms.LoadJob(strings.NewReader(head+tc.body), "j.toml")
+			if err != nil {
+				t.Fatal(err)
+			}
+			_, _, err = predictJobCoil(job, &job.Coils[0], cat)
+			var pe *forms.ParseError
+			if !errors.As(err, &pe) {
+				t.Fatalf("%v (%T) is not a *forms.ParseError", err, err)
+			}
+			if pe.Line != tc.line || !strings.Contains(err.Error(), tc.want) || exitCode(err) != exitBadInput {
+				t.Errorf("line %d exit %d: %v; want line %d and %q", pe.Line, exitCode(err), err, tc.line, tc.want)
+			}
+			if !strings.HasPrefix(err.Error(), `job "j.toml": line `) {
+				t.Errorf("error %q does not start with the file and line", err)
+			}
+		})
+	}
+}
+
+// A malformed job file: the line and the problem, exit 2, nothing written,
+// an existing output untouched.
+func TestSheetBadJob(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	cases := []struct {
+		name string
+		job  string
+		code int
+		want string
+	}{
+		{"toml syntax", "title = \"t\"\n[[coil]]\nname = L1\n", exitBadInput, "line 3: not valid TOML"},
+		{"unknown key", "title = \"t\"\n[[coil]]\nname = \"L1\"\nmandrel = \"6mm\"\nwire = \"1mm\"\nturns = 5\nleads = \"5mm\"\nturnz = 6\n", exitBadInput, `line 8: coil "L1": unknown key "turnz"; did you mean turns?`},
+		{"model refuses", "title = \"t\"\n[[coil]]\nname = \"L1\"\nmandrel = \"6mm\"\nwire = \"1mm\"\nturns = 5\nleads = \"5mm\"\npitch = \"0.2mm\"\n", exitBadInput, `line 8: coil "L1": pitch:`},
+		{"second coil", "title = \"t\"\n[[coil]]\nname = \"L1\"\nmandrel = \"6mm\"\nwire = \"1mm\"\nturns = 5\nleads = \"5mm\"\n[[coil]]\nname = \"L2\"\nformer = \"pvc 20mm\"\nwire = \"99awg\"\nturns = 5\nleads = \"5mm\"\n", exitBadInput, `line 11: coil "L2": wire:`},
+		{"impossible design", "title = \"t\"\n[[coil]]\nname = \"L1\"\ninductance = \"10uH\"\nfreq = \"145MHz\"\nleads = \"5mm\"\nmandrel = \"6mm drill\"\nwire = \"1mm\"\nmax-length = \"5mm\"\n", exitInfeasible, `line 2: coil "L1": no coil meets`},
+	}
+	for _, tc := range cases {
+		t.Run(tc.name, func(t *testing.T) {
+			jobFile := filepath.Join(dir, strings.ReplaceAll(tc.name, " ", "-")+".toml")
+			if err := os.WriteFile(jobFile, []byte(tc.job), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			out := filepath.Join(dir, "keep.pdf")
+			if err := os.WriteFile(out, []byte("previous"), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			stdout, stderr, code := runCLI(t, "sheet", jobFile, "-o", out)
+			if code != tc.code {
+				t.Errorf("exit %d, want %d: %s", code, tc.code, stderr)
+			}
+			if !strings.Contains(stderr, tc.want) || strings.Count(strings.TrimSpace(stderr), "\n") != 0 {
+				t.Errorf("stderr %q: want one line with %q", stderr, tc.want)
+			}
+			if stdout != "" {
+				t.Errorf("stdout %q", stdout)
+			}
+			if b, _ := os.ReadFile(out); string(b) != "previous" {
+				t.Error("the existing output was changed")
+			}
+			if left, _ := filepath.Glob(filepath.Join(dir, ".keep.pdf.tmp-*")); len(left) > 0 {
+				t.Errorf("temporary files left: %v", left)
+			}
+		})
+	}
+}
+
+func TestSheetFlags(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	coilFlags := []string{"--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm", "--freq", "145MHz"}
+	t.Run("one coil", func(t *testing.T) {
+		out := filepath.Join(dir, "one.pdf")
+		stdout, stderr, code := runCLI(t, append(append([]string{"sheet"}, coilFlags...), "--tap", "1.5", "--name", "L7", "--date", "2026-03-14", "-o", out)...)
+		if code != exitOK {
+			t.Fatalf("exit %d: %s", code, stderr)
+		}
+		checkGolden(t, "sheet_one.txt", strings.ReplaceAll(stdout, out, "OUT"))
+		text := pageText(t, out, 2)
+		for _, want := range []string{"L7", "5 turns of 1.00 mm copper bare wire on the 6mm drill", "TAP: 1½ turns from the cold end", "14 March 2026"} {
+			if !strings.Contains(text, want) {
+				t.Errorf("page 2 lacks %q:\n%s", want, text)
+			}
+		}
+	})
+	t.Run("stdout", func(t *testing.T) {
+		stdout, stderr, code := runCLI(t, append(append([]string{"sheet"}, coilFlags...), "-o", "-")...)
+		if code != exitOK || !strings.HasPrefix(stdout, "%PDF-") || !strings.Contains(stderr, "wrote standard output") {
+			t.Errorf("exit %d, stdout starts %q, stderr %q", code, stdout[:min(8, len(stdout))], stderr)
+		}
+	})
+	bad := []struct {
+		name string
+		args []string
+		want string
+	}{
+		{"no output", append([]string{"sheet"}, coilFlags...), "-o FILE.pdf is required"},
+		{"job and coil flags", []string{"sheet", demoJob, "--turns", "5", "-o", filepath.Join(dir, "x.pdf")}, "--turns describes one coil"},
+		{"two jobs", []string{"sheet", demoJob, demoJob, "-o", filepath.Join(dir, "x.pdf")}, "one job file"},
+		{"missing job", []string{"sheet", filepath.Join(dir, "nope.toml"), "-o", filepath.Join(dir, "x.pdf")}, "does not exist"},
+		{"no directory", append(append([]string{"sheet"}, coilFlags...), "-o", filepath.Join(dir, "no", "such", "x.pdf")), "does not exist"},
+		{"bad date", append(append([]string{"sheet"}, coilFlags...), "--date", "14/3/26", "-o", filepath.Join(dir, "x.pdf")), "--date"},
+		{"bad paper", append(append([]string{"sheet"}, coilFlags...), "--paper", "A3", "-o", filepath.Join(dir, "x.pdf")), "--paper"},
+		{"tap outside", append(append([]string{"sheet"}, coilFlags...), "--tap", "7", "-o", filepath.Join(dir, "x.pdf")), "--tap"},
+	}
+	for _, tc := range bad {
+		t.Run(tc.name, func(t *testing.T) {
+			_, stderr, code := runCLI(t, tc.args...)
+			if code != exitBadInput || !strings.Contains(stderr, tc.want) {
+				t.Errorf("exit %d, stderr %q; want 2 and %q", code, stderr, tc.want)
+			}
+		})
+	}
+	if left, _ := filepath.Glob(filepath.Join(dir, "x.pdf*")); len(left) > 0 {
+		t.Errorf("files written on error: %v", left)
+	}
+}
+
+// A job's stock file is read relative to the job file; a missing one is
+// reported at the stock line.
+func TestJobStock(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	bench, err := os.ReadFile(filepath.Join("..", "..", "testdata", "stock", "bench.toml"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.MkdirAll(filepath.Join(dir, "shelf"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(dir, "shelf", "bench.toml"), bench, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	job := "title = \"t\"\nstock = \"shelf/bench.toml\"\n[[coil]]\nname = \"L1\"\nmandrel = \"brass rod 6\"\nwire = \"green spool\"\nturns = 8\nleads = \"5mm\"\n"
+	jobFile := filepath.Join(dir, "job.toml")
+	if err := os.WriteFile(jobFile, []byte(job), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	j, err := loadJobFile(jobFile)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cat, err := jobCatalog(j, newStockOptions(), false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	spec, err := resolveJobCoil(j, &j.Coils[0], cat)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The bench stock's latest calibration for this pair is 2.8 % (demo value in testdata/stock/bench.toml).
+	if spec.SpringbackSource != "calibration" || math.Abs(spec.Geometry.Springback-0.028) > 1e-12 {
+		t.Errorf("springback %v from %s, want the stock's 2.8 %% calibration", spec.Geometry.Springback, spec.SpringbackSource)
+	}
+
+	missing := filepath.Join(dir, "missing.toml")
+	if err := os.WriteFile(missing, []byte(strings.Replace(job, "shelf/bench.toml", "shelf/none.toml", 1)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	_, stderr, code := runCLI(t, "sheet", missing, "-o", filepath.Join(dir, "x.pdf"))
+	if code != exitBadInput || !strings.Contains(stderr, "line 2: stock:") {
+		t.Errorf("exit %d, stderr %q", code, stderr)
+	}
+}

@@ -1,0 +1,145 @@
+package sheets
+
+import (
+	"time"
+
+	"turnwise/coil"
+)
+
+// Document is a batch of build sheets.
+type Document struct {
+	Title  string
+	Date   time.Time // printed on every page and used as the PDF's dates
+	Paper  string    // "A4" (default) or "Letter"
+	Units  string    // display units: "mm" (default) or "in"
+	Source string    // where the job came from, e.g. the job file's name; may be empty
+	Notes  string    // the organiser's notes, printed on the cover
+
+	// Allowance is the fraction added to the batch's total wire for
+	// mistakes and trimming; zero means DefaultAllowance.
+	Allowance float64
+
+	Coils []Coil
+}
+
+// DefaultAllowance is added to the batch's wire total: one coil in ten
+// goes wrong on a build night (common practice).
+const DefaultAllowance = 0.10
+
+// Coil is one coil to build and everything its page shows.
+type Coil struct {
+	Name     string
+	Quantity int // how many to build; zero counts as one
+	Notes    string
+
+	// Wire says what the wire is in a builder's words, e.g. "1.00mm
+	// silver-plated bare silver-plated wire"; WireKey groups the bill of
+	// materials (two coils with the same key share a spool).
+	Wire    string
+	WireKey string
+
+	Support     string // "mandrel" (slid off, self-supporting) or "former" (stays on)
+	SupportName string // "6mm drill", "pvc 25mm"
+
+	// SpringbackSource is "given", "calibration" or "none"; the note is the
+	// calibration's own.
+	SpringbackSource string
+	SpringbackNote   string
+	CloseWound       bool
+
+	// Prediction is the model's answer for the coil as wound, at the
+	// operating frequency (zero for none).
+	Prediction coil.Prediction
+	// LowFrequency is the terminal inductance at low frequency, what an
+	// inductance meter reads (Predict with no frequency); zero hides it.
+	LowFrequency float64 // H
+
+	// TrimPerPercent is the change of outside length that changes the
+	// terminal inductance by 1 % (coil.LengthPerPercent); zero hides it.
+	TrimPerPercent float64 // m
+	// TrimLeast and TrimMost bound the inductance reachable by spreading
+	// (to the loosest sensible pitch) and squeezing (close-wound) with the
+	// turns held (coil.Window); zero hides them.
+	TrimLeast, TrimMost float64 // H
+
+	Target *Target // nil for a fixed winding
+	Tap    *Tap    // nil when untapped
+	Span   *Span   // nil unless a two-gang capacitor tunes it
+
+	// Warnings from the model and the glue, printed in the cautions box.
+	Warnings []string
+	// HighVoltage marks a tank or coupler coil: the cautions box leads
+	// with RF voltage and burns.
+	HighVoltage bool
+}
+
+// Target is what the design search was asked for.
+type Target struct {
+	Description string  // e.g. "resonate with 22 pF at 137.5 MHz"
+	Inductance  float64 // H: the terminal L at f, or the effective L when Effective
+	Effective   bool    // Inductance is the effective inductance at f
+	Tolerance   float64 // fraction
+	Rank        int     // 1 for the best candidate
+	Why         string  // the search's one-line reason
+}
+
+// Tap is a tap on the coil, counted from the cold (ground) end.
+type Tap struct {
+	Turns    float64 // from the cold end, in quarter turns
+	Position float64 // m, along the axis from the centre of the wire where the winding starts
+	Ratio    float64 // unloaded voltage ratio at the tap, (L_b + M)/L
+	LBelow   float64 // H, section from the cold end to the tap
+	LAbove   float64 // H, section from the tap to the hot end
+	Mutual   float64 // H
+	Coupling float64 // k
+	Purpose  string  // e.g. "50 ohm feed": what the tap is for; may be empty
+}
+
+// Span is a two-gang capacitor tuning the coil: section A across the whole
+// coil, section B from the tap to ground.
+type Span struct {
+	GangA, GangB string // e.g. "12–365 pF"
+	Law          string // e.g. "straight-line capacitance"
+	Dial         []DialPoint
+	Bands        []Band
+	Coincidences []Coincidence
+	Overlap      float64 // Hz by which the ranges overlap; negative for a gap
+	Notes        []string
+}
+
+// DialPoint is both resonances at one dial setting.
+type DialPoint struct {
+	Setting     float64 // 0 plates fully open … 1 fully meshed
+	FLow, FHigh float64 // Hz; FHigh zero when there is no high range
+}
+
+// Band is a band the builder wants to tune.
+type Band struct {
+	Low, High float64 // Hz
+	Label     string  // e.g. "80m"; may be empty
+	// Range is the range that holds the whole band: "low", "high", "both",
+	// or "part" when only some of it is reached, "none" when none is.
+	Range string
+	// DialLow and DialHigh are the settings tuning the band's edges on
+	// that range (the low range's when both).
+	DialLow, DialHigh float64
+}
+
+// Coincidence is a dial setting where a harmonic of the low range falls in
+// the high range's passband.
+type Coincidence struct {
+	Setting     float64 // 0 … 1
+	Order       int     // 2 or 3
+	Band        string  // the listed band the low range is in; may be empty
+	FLow, FHigh float64 // Hz
+	// Depth is how far the harmonic is from the high range's peak in
+	// half-passbands: 0 on the peak, 1 at the −3 dB edge.
+	Depth float64
+}
+
+// Options control the output, not the content.
+type Options struct {
+	// Uncompressed writes page content as plain text: larger files, for
+	// tests and for reading the PDF by eye.
+	Uncompressed bool
+}

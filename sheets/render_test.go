@@ -1,0 +1,401 @@
+package sheets
+
+import (
+	"bytes"
+	"fmt"
+	"image"
+	"image/png"
+	"math"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"strconv"
+	"strings"
+	"testing"
+	"time"
+
+	"turnwise/coil"
+)
+
+// Tolerances.
+const (
+	// implTol: gofpdf writes coordinates rounded to 0.01 pt, so a distance
+	// between two written coordinates is within 0.01 pt of the exact one.
+	implTol = 0.0101 // pt
+)
+
+// Page sizes in PDF points; the point is 1/72 in (ISO 32000-1, default user space unit, from memory).
+var pageSizes = map[string][2]float64{
+	"A4":     {210 / 25.4 * 72, 297 / 25.4 * 72}, // ISO 216 A4, 210 × 297 mm (from memory)
+	"Letter": {8.5 * 72, 11 * 72},                // ANSI/ASME Y14.1 Letter, 8.5 × 11 in (from memory)
+}
+
+func TestRenderGolden(t *testing.T) {
+	for _, paper := range []string{"A4", "Letter"} {
+		t.Run(paper, func(t *testing.T) {
+			got := render(t, testDoc(t, paper), Options{Uncompressed: true})
+			path := goldenPath("sheets-" + strings.ToLower(paper) + ".pdf")
+			if *update {
+				if err := os.WriteFile(path, got, 0o644); err != nil {
+					t.Fatal(err)
+				}
+				return
+			}
+			want, err := os.ReadFile(path)
+			if err != nil {
+				t.Fatalf("golden %s missing (run go test ./sheets -update): %v", path, err)
+			}
+			if !bytes.Equal(got, want) {
+				t.Errorf("%s differs from the golden file; if the change is intended run go test ./sheets -update and look at the PDF", path)
+			}
+		})
+	}
+}
+
+// The same input gives the same bytes, compressed or not.
+func TestRenderDeterministic(t *testing.T) {
+	t.Parallel()
+	for _, opt := range []Options{{}, {Uncompressed: true}} {
+		a := render(t, testDoc(t, "A4"), opt)
+		b := render(t, testDoc(t, "A4"), opt)
+		if !bytes.Equal(a, b) {
+			t.Errorf("options %+v: two renders differ", opt)
+		}
+	}
+}
+
+// The scale bar, the wire of the side view, the outside-length dimension
+// and the pitch template measure what the model says, in PDF units.
+func TestFullSize(t *testing.T) {
+	t.Parallel()
+	const ptPerMM = 72 / 25.4 // the PDF point is 1/72 in; 1 in = 25.4 mm (international inch)
+	for _, paper := range []string{"A4", "Letter"} {
+		doc := testDoc(t, paper)
+		pdf := render(t, doc, Options{Uncompressed: true})
+		streams := pageStreams(pdf)
+		if want := 1 + len(doc.Coils) + 1; len(streams) != want {
+			t.Fatalf("%s: %d content streams, want %d pages", paper, len(streams), want)
+		}
+		mb := regexp.MustCompile(`/MediaBox \[0 0 ([\d.]+) ([\d.]+)\]`).FindSubmatch(pdf)
+		if mb == nil {
+			t.Fatalf("%s: no MediaBox", paper)
+		}
+		w, _ := strconv.ParseFloat(string(mb[1]), 64)
+		h, _ := strconv.ParseFloat(string(mb[2]), 64)
+		if math.Abs(w-pageSizes[paper][0]) > implTol || math.Abs(h-pageSizes[paper][1]) > implTol {
+			t.Errorf("%s: MediaBox %g × %g pt, want %.2f × %.2f", paper, w, h, pageSizes[paper][0], pageSizes[paper][1])
+		}
+		page := 1 // the cover is page 0
+		for _, c := range doc.Coils {
+			s := streams[page]
+			name := fmt.Sprintf("%s %s", paper, c.Name)
+			g := c.Prediction.Geometry
+			do := float64(g.WireOverall)
+			if do == 0 {
+				do = float64(g.WireDiameter)
+			}
+
+			bars := markedPaths(t, s, "TWScaleBar")
+			if len(bars) != 1 || len(bars[0]) != 1 || len(bars[0][0].rects) != 1 {
+				t.Fatalf("%s: scale bar not found once", name)
+			}
+			if bw := bars[0][0].rects[0][2]; math.Abs(bw-50*ptPerMM) > implTol {
+				t.Errorf("%s: scale bar is %.3f pt, want 50 mm = %.3f pt", name, bw, 50*ptPerMM)
+			}
+
+			dots := markedPaths(t, s, "TWWireDots")
+			if len(dots) != 1 {
+				t.Fatalf("%s: wire dots not found once", name)
+			}
+			var xs, ys []float64
+			top := math.Inf(-1)
+			for _, d := range dots[0] {
+				x0, y0, x1, y1 := d.bbox()
+				if math.Abs((x1-x0)-do*1e3*ptPerMM) > implTol || math.Abs((y1-y0)-do*1e3*ptPerMM) > implTol {
+					t.Errorf("%s: a wire dot is %.3f × %.3f pt, want the wire's %.3f pt", name, x1-x0, y1-y0, do*1e3*ptPerMM)
+				}
+				xs, ys = append(xs, (x0+x1)/2), append(ys, (y0+y1)/2)
+				top = max(top, (y0+y1)/2)
+			}
+			// Vertical extent: the outside diameter.
+			lo, hi := math.Inf(1), math.Inf(-1)
+			for _, d := range dots[0] {
+				_, y0, _, y1 := d.bbox()
+				lo, hi = min(lo, y0), max(hi, y1)
+			}
+			if od := float64(c.Prediction.OutsideDiameter) * 1e3 * ptPerMM; math.Abs((hi-lo)-od) > 2*implTol {
+				t.Errorf("%s: drawing is %.3f pt high, want the outside diameter %.3f pt", name, hi-lo, od)
+			}
+			// Top crossings are one pitch apart.
+			var topX []float64
+			for i := range xs {
+				if math.Abs(ys[i]-top) < 0.1 {
+					topX = append(topX, xs[i])
+				}
+			}
+			if len(topX) < int(g.Turns) {
+				t.Fatalf("%s: %d top crossings for %g turns", name, len(topX), g.Turns)
+			}
+			p := float64(g.Pitch) * 1e3 * ptPerMM
+			for i := 1; i < len(topX); i++ {
+				if math.Abs(topX[i]-topX[i-1]-p) > implTol {
+					t.Errorf("%s: crossings %d and %d are %.3f pt apart, want the pitch %.3f pt", name, i-1, i, topX[i]-topX[i-1], p)
+					break
+				}
+			}
+			// For whole turns the bottom row spans the outside length.
+			lout := float64(c.Prediction.WindingLength) * 1e3 * ptPerMM
+			if g.Turns == math.Floor(g.Turns) {
+				bx0, bx1 := math.Inf(1), math.Inf(-1)
+				for _, d := range dots[0] {
+					x0, y0, x1, y1 := d.bbox()
+					if math.Abs((y0+y1)/2-lo-do*1e3*ptPerMM/2) < 0.1 {
+						bx0, bx1 = min(bx0, x0), max(bx1, x1)
+					}
+				}
+				if math.Abs((bx1-bx0)-lout) > implTol {
+					t.Errorf("%s: bottom row spans %.3f pt, want the outside length %.3f pt", name, bx1-bx0, lout)
+				}
+			}
+			dims := markedPaths(t, s, "TWLengthDim")
+			if len(dims) != 1 || len(dims[0]) != 1 {
+				t.Fatalf("%s: length dimension not found once", name)
+			}
+			if x0, _, x1, _ := dims[0][0].bbox(); math.Abs((x1-x0)-lout) > implTol {
+				t.Errorf("%s: length dimension %.3f pt, want %.3f pt", name, x1-x0, lout)
+			}
+			tmpl := markedPaths(t, s, "TWPitchTemplate")
+			if len(tmpl) != 1 || len(tmpl[0]) < 2 {
+				t.Fatalf("%s: pitch template not found", name)
+			}
+			for i := 1; i < len(tmpl[0]); i++ {
+				a, _, _, _ := tmpl[0][i-1].bbox()
+				b, _, _, _ := tmpl[0][i].bbox()
+				if math.Abs(b-a-p) > implTol {
+					t.Errorf("%s: template marks %d and %d are %.3f pt apart, want %.3f pt", name, i-1, i, b-a, p)
+					break
+				}
+			}
+			page++
+			if c.Span != nil {
+				page++
+			}
+		}
+	}
+}
+
+// Poppler reads the PDF: page count and size, text of every coil page,
+// words inside the page, and a rendered page that is not blank.
+func TestPopplerReads(t *testing.T) {
+	t.Parallel()
+	pdfinfo := needTool(t, "pdfinfo")
+	pdftotext := needTool(t, "pdftotext")
+	pdftoppm := needTool(t, "pdftoppm")
+	for _, paper := range []string{"A4", "Letter"} {
+		t.Run(paper, func(t *testing.T) {
+			t.Parallel()
+			dir := t.TempDir()
+			file := filepath.Join(dir, "s.pdf")
+			doc := testDoc(t, paper)
+			if err := os.WriteFile(file, render(t, doc, Options{}), 0o644); err != nil {
+				t.Fatal(err)
+			}
+			info, err := exec.Command(pdfinfo, file).Output()
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !regexp.MustCompile(`Pages:\s+4\n`).Match(info) {
+				t.Errorf("pdfinfo: want 4 pages (cover, two coils, one chart):\n%s", info)
+			}
+			size := fmt.Sprintf("%.2f x %.2f pts", pageSizes[paper][0], pageSizes[paper][1])
+			if paper == "Letter" {
+				size = "612 x 792 pts"
+			}
+			if !strings.Contains(string(info), size) {
+				t.Errorf("pdfinfo: page size is not %s:\n%s", size, info)
+			}
+			text := func(page int) string {
+				out, err := exec.Command(pdftotext, "-f", fmt.Sprint(page), "-l", fmt.Sprint(page), "-raw", file, "-").Output()
+				if err != nil {
+					t.Fatal(err)
+				}
+				return strings.Join(strings.Fields(string(out)), " ")
+			}
+			v := doc.Coils[0].Prediction
+			p2 := text(2)
+			for _, want := range []string{
+				"L1 input", "BUILD × 3", "5 turns", "TAP: 1 turn from the cold end", "pitch 2.25 mm",
+				"outside length " + fmt.Sprintf("%.2f mm", float64(v.WindingLength)*1e3),
+				eng(float64(v.Inductance), "H", 3) + " at 137.5 MHz", // µ and friends survive the encoding
+				"Measure the 50 mm bar first", "CAUTION",
+			} {
+				if !strings.Contains(p2, want) {
+					t.Errorf("page 2 lacks %q:\n%s", want, p2)
+				}
+			}
+			p3 := text(3)
+			for _, want := range []string{"HF front end", "28¼ turns", eng(float64(doc.Coils[1].Prediction.Inductance), "H", 3), "µH", "an invented warning"} {
+				if !strings.Contains(p3, want) {
+					t.Errorf("page 3 lacks %q:\n%s", want, p3)
+				}
+			}
+			p4 := text(4)
+			for _, want := range []string{"tuning chart", "80m", "2nd harmonic", "7.200 MHz"} {
+				if !strings.Contains(p4, want) {
+					t.Errorf("page 4 lacks %q:\n%s", want, p4)
+				}
+			}
+
+			// Every word lies inside the page margins.
+			bbox, err := exec.Command(pdftotext, "-bbox", file, "-").Output()
+			if err != nil {
+				t.Fatal(err)
+			}
+			re := regexp.MustCompile(`<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)</word>`)
+			const marginPt = 12*72/25.4 - 1 // the 12 mm margin, less 1 pt for glyph side bearings
+			for _, m := range re.FindAllStringSubmatch(string(bbox), -1) {
+				var b [4]float64
+				for i := range b {
+					b[i], _ = strconv.ParseFloat(m[i+1], 64)
+				}
+				if b[0] < marginPt || b[2] > pageSizes[paper][0]-marginPt || b[1] < marginPt || b[3] > pageSizes[paper][1]-marginPt {
+					t.Errorf("word %q at %v is outside the margins", m[5], b)
+				}
+			}
+
+			// A rendered coil page is not blank.
+			if out, err := exec.Command(pdftoppm, "-r", "40", "-f", "2", "-l", "2", "-png", file, filepath.Join(dir, "p")).CombinedOutput(); err != nil {
+				t.Fatalf("pdftoppm: %v\n%s", err, out)
+			}
+			pngs, _ := filepath.Glob(filepath.Join(dir, "p*.png"))
+			if len(pngs) != 1 {
+				t.Fatalf("pdftoppm wrote %v", pngs)
+			}
+			f, err := os.Open(pngs[0])
+			if err != nil {
+				t.Fatal(err)
+			}
+			defer f.Close()
+			img, err := png.Decode(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if dark := darkFraction(img); dark < 0.02 || dark > 0.5 {
+				t.Errorf("rendered page 2 is %.1f %% dark: blank or a mess", dark*100)
+			}
+		})
+	}
+}
+
+func darkFraction(img image.Image) float64 {
+	b := img.Bounds()
+	n, dark := 0, 0
+	for y := b.Min.Y; y < b.Max.Y; y++ {
+		for x := b.Min.X; x < b.Max.X; x++ {
+			r, g, bl, _ := img.At(x, y).RGBA()
+			if (r+g+bl)/3 < 0x8000 {
+				dark++
+			}
+			n++
+		}
+	}
+	return float64(dark) / float64(n)
+}
+
+// A coil too large for the page is scaled and says so; the scale bar is
+// still 50 mm.
+func TestLargeCoilScaled(t *testing.T) {
+	t.Parallel()
+	g := coil.Geometry{FormerDiameter: 110e-3, WireDiameter: 2e-3, Turns: 40, Pitch: 5e-3, LeadLength: 50e-3}
+	doc := Document{Title: "Big tank", Date: testDate, Coils: []Coil{{Name: "Tank", Support: "former", SupportName: "pipe", Prediction: predicted(t, g, 3.5e6), HighVoltage: true}}}
+	pdf := render(t, doc, Options{Uncompressed: true})
+	s := pageStreams(pdf)[1]
+	if !strings.Contains(s, "(SIDE VIEW, NOT FULL SIZE: DRAWN AT 1:") {
+		t.Error("the scaled view is not labelled NOT FULL SIZE")
+	}
+	bars := markedPaths(t, s, "TWScaleBar")
+	if bw := bars[0][0].rects[0][2]; math.Abs(bw-50*72/25.4) > implTol {
+		t.Errorf("scale bar %.3f pt", bw)
+	}
+	if !strings.Contains(s, "(In a transmitter tank") {
+		t.Error("a high-voltage coil's cautions do not lead with RF voltage")
+	}
+}
+
+func TestRenderErrors(t *testing.T) {
+	t.Parallel()
+	good := func() Document { return testDoc(t, "A4") }
+	cases := []struct {
+		name string
+		edit func(*Document)
+		want string
+	}{
+		{"paper", func(d *Document) { d.Paper = "A3" }, "paper"},
+		{"units", func(d *Document) { d.Units = "cubits" }, "units"},
+		{"no date", func(d *Document) { d.Date = time.Time{} }, "Date"},
+		{"no title", func(d *Document) { d.Title = " " }, "Title"},
+		{"no coils", func(d *Document) { d.Coils = nil }, "no coils"},
+		{"bad geometry", func(d *Document) { d.Coils[0].Prediction.Geometry.Turns = 0 }, "turns"},
+		{"tap outside", func(d *Document) { d.Coils[0].Tap.Turns = 9 }, "tap"},
+		{"NaN dial", func(d *Document) { d.Coils[1].Span.Dial[3].FLow = math.NaN() }, "dial"},
+		{"allowance", func(d *Document) { d.Allowance = 2 }, "allowance"},
+	}
+	for _, tc := range cases {
+		t.Run(tc.name, func(t *testing.T) {
+			d := good()
+			tc.edit(&d)
+			var b bytes.Buffer
+			err := Render(&b, d, Options{})
+			if err == nil || !strings.Contains(err.Error(), tc.want) {
+				t.Errorf("error %v, want one about %s", err, tc.want)
+			}
+			if b.Len() != 0 {
+				t.Errorf("%d bytes written despite the error", b.Len())
+			}
+		})
+	}
+}
+
+func TestFormat(t *testing.T) {
+	t.Parallel()
+	cases := []struct{ got, want string }{
+		{eng(4.8e-8, "H", 3), "48.0 nH"},
+		{eng(18.5e-6, "H", 3), "18.5 µH"},
+		{eng(137.5e6, "Hz", 4), "137.5 MHz"},
+		{eng(0, "H", 3), "0 H"},
+		{eng(math.NaN(), "H", 3), "n/a"},
+		{farads(0.323e-12), "0.323 pF"},
+		{turns(5.25), "5¼"}, {turns(5.5), "5½"}, {turns(5.75), "5¾"}, {turns(5), "5"},
+		{turnsWord(1), "1 turn"}, {turnsWord(1.25), "1¼ turns"},
+		{lengths{}.of(2.25e-3), "2.25 mm"}, {lengths{inches: true}.of(25.4e-3), "1.000 in"},
+		{lengths{}.of(2.327), "2.327 m"},
+	}
+	for _, c := range cases {
+		if c.got != c.want {
+			t.Errorf("got %q, want %q", c.got, c.want)
+		}
+	}
+}
+
+func BenchmarkRender(b *testing.B) {
+	doc := testDoc(b, "A4")
+	var buf bytes.Buffer
+	for b.Loop() {
+		buf.Reset()
+		if err := Render(&buf, doc, Options{}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkPredictReference is one model evaluation, the yardstick for
+// BenchmarkRender in the same run.
+func BenchmarkPredictReference(b *testing.B) {
+	g := vhfCoil(b).Prediction.Geometry
+	for b.Loop() {
+		if _, err := coil.Predict(g, 137.5e6); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
