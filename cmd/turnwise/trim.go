@@ -1,0 +1,702 @@
+package main
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+
+	"github.com/spf13/cobra"
+	"gonum.org/v1/gonum/unit"
+
+	"turnwise/coil"
+	"turnwise/forms"
+)
+
+// trimOptions holds everything `turnwise trim` needs; no cobra types.
+type trimOptions struct {
+	coil     coilOptions
+	stock    *stockOptions
+	job      string
+	coilName string
+	freq     frequencyFlag
+	target   targetFlag
+
+	// The measurement.
+	measuredL    inductanceFlag
+	meterFreq    frequencyFlag
+	fixtureL     inductanceFlag
+	fixtureLeads lengthFlag
+	meterTol     percentFlag
+	measuredF    frequencyFlag
+	withCap      capacitanceFlag
+	circuitCap   capacitanceFlag
+	stray        capacitanceFlag
+	resonances   resonanceListFlag
+	capTol       capTolFlag
+	freqTol      percentFlag
+	tolerance    percentFlag
+
+	// A tapped coil.
+	tap            turnsFlag
+	tapRatio       ratioFlag
+	measuredBottom inductanceFlag
+	measuredTop    inductanceFlag
+
+	save  bool
+	units *choiceFlag
+	json  bool
+}
+
+func newTrimOptions() *trimOptions {
+	return &trimOptions{
+		stock:     newStockOptions(),
+		units:     newChoice("mm", "mm", "in"),
+		meterTol:  percentFlag{raw: "2%", v: 0.02},
+		capTol:    capTolFlag{raw: "5%", rel: 0.05},
+		freqTol:   percentFlag{raw: "0.1%", v: 0.001},
+		tolerance: percentFlag{raw: "0.5%", v: 0.005},
+	}
+}
+
+func newTrimCmd(g *globalOptions) *cobra.Command {
+	opts := newTrimOptions()
+	cmd := &cobra.Command{
+		Use:   "trim",
+		Short: "Turn a measurement of a wound coil into a squeeze, spread or turns change",
+		Long: strings.TrimSpace(`
+Measure the coil you wound and trim tells you what to change to land on
+target: squeeze or spread it to a new outside length or, when that is not
+enough, add or remove quarter turns; for a tapped coil, where the tap goes.
+It also works out the springback — the effective diameter that makes the
+model agree with your coil — and --save keeps it in your stock file, so
+predict and design get that mandrel and wire right next time.
+
+Describe the coil with the same flags as predict (or --job FILE --coil
+NAME), then give one measurement:
+
+  --measured-l 52nH               an inductance meter (--meter-freq if it
+                                  states its test frequency, --fixture-l
+                                  for its reading with the clips shorted)
+  --measured-f F --with-cap C     one resonance with a known capacitor
+                                  across the coil (--stray for the
+                                  fixture's own capacitance)
+  --measured-f F --circuit-cap C  the resonance in the circuit it was
+                                  designed for, with that circuit's
+                                  capacitance
+  --resonance F1@C1 --resonance F2@C2
+                                  the two-capacitor method: two resonances
+                                  with two capacitors give L and the
+                                  capacitance already across the coil
+                                  (fixture and self-capacitance) together
+
+The reading is compared with the model in its own terms: a low-frequency
+meter reading with the terminal inductance at DC; a reading at a stated
+frequency, or one resonance, with the effective inductance there (the
+coil's self-capacitance included); the two-capacitor line, which measures
+the self-capacitance itself, with the terminal inductance without it.
+
+--target is the inductance wanted at the terminals at --freq (default: the
+model's value for the coil as specified), or a frequency to resonate at
+with --circuit-cap. Each reading carries the accuracy of the meter, the
+capacitors and the frequency (--meter-tol, --cap-tol, --freq-tol); the
+springback comes with the band that follows from them.
+
+Caution: never squeeze a coil in a live circuit. Tank and coupler coils
+carry high RF voltage; switch off and discharge before touching, and follow
+local regulations and licensed practice for anything that transmits.
+` + exitStatusHelp),
+		Example: strings.TrimSpace(`
+  turnwise trim --mandrel 4.6mm --wire 1mm --turns 4 --length 8mm --leads 5mm --measured-l 52nH --target 48nH
+  turnwise trim --former 25mm --wire 22awg --turns 30 --leads 20mm --freq 3.7MHz --resonance 2.0MHz@330pF --resonance 0.9435MHz@1.5nF
+  turnwise trim --job testdata/club-night.toml --coil "L1 filter input" --measured-f 131MHz --circuit-cap 17pF --target 137.5MHz --stock ~/coils/stock.toml --save`),
+		Args: noArgs,
+		RunE: func(cmd *cobra.Command, _ []string) error {
+			return runTrim(cmd.Context(), opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
+		},
+	}
+	fs := cmd.Flags()
+	opts.coil.addFlags(fs)
+	opts.stock.addFlags(fs)
+	fs.StringVar(&opts.job, "job", "", "take the coil from this job file (with --coil NAME) instead of the coil flags")
+	fs.StringVar(&opts.coilName, "coil", "", "the coil's name in the --job file")
+	fs.Var(&opts.freq, "freq", "operating frequency: the target is the inductance at the terminals there (default: low frequency)")
+	fs.Var(&opts.target, "target", "inductance wanted at the terminals at --freq, e.g. 48nH, or a resonance frequency with --circuit-cap, e.g. 145MHz (default: the model's value for the coil as specified)")
+	fs.Var(&opts.measuredL, "measured-l", "an inductance meter's reading, e.g. 52nH")
+	fs.Var(&opts.meterFreq, "meter-freq", "the meter's test frequency, when it states one, e.g. 1MHz (default: low frequency)")
+	fs.Var(&opts.fixtureL, "fixture-l", "subtract the meter's reading with its clips shorted, e.g. 3nH")
+	fs.Var(&opts.fixtureLeads, "fixture-leads", "extra wire on each lead between the coil's solder points and the instrument during the measurement, e.g. 10mm")
+	fs.Var(&opts.meterTol, "meter-tol", "the meter's accuracy, percent")
+	fs.Var(&opts.measuredF, "measured-f", "a resonance frequency, with --with-cap (test fixture) or --circuit-cap (in its circuit), e.g. 98.2MHz")
+	fs.Var(&opts.withCap, "with-cap", "the known capacitor across the coil for --measured-f, e.g. 22pF")
+	fs.Var(&opts.circuitCap, "circuit-cap", "the capacitance across the coil in its design circuit (tuning capacitor plus strays), e.g. 22pF")
+	fs.Var(&opts.stray, "stray", "fixture capacitance across the coil besides the known capacitor (probe, wiring), e.g. 1.5pF; taken as ±50 %")
+	fs.Var(&opts.resonances, "resonance", "a resonance and its capacitor, F@C, e.g. 9.81MHz@100pF; give two or more for the two-capacitor method")
+	fs.Var(&opts.capTol, "cap-tol", "tolerance of the known capacitors: a percentage or an absolute value, e.g. 1% or 0.25pF")
+	fs.Var(&opts.freqTol, "freq-tol", "accuracy of the frequency reading, percent (a dip meter's dial is nearer 2%)")
+	fs.Var(&opts.tolerance, "tolerance", "how close to the target counts as on target, percent")
+	fs.Var(&opts.tap, "tap", "the tap, in turns from the cold (grounded) end, for a tapped coil")
+	fs.Var(&opts.tapRatio, "tap-ratio", "the tap's unloaded voltage ratio to keep, e.g. 0.25 or 1:4 (default: the coil as specified at --tap)")
+	fs.Var(&opts.measuredBottom, "measured-bottom", "meter reading from the cold end to the tap, e.g. 12nH (same meter flags)")
+	fs.Var(&opts.measuredTop, "measured-top", "meter reading from the tap to the hot end, e.g. 30nH (same meter flags)")
+	fs.BoolVar(&opts.save, "save", false, "write the springback into your stock file (--stock) for this mandrel and wire; the old file is kept as FILE.bak")
+	fs.Var(opts.units, "units", "display lengths in mm or in")
+	fs.BoolVar(&opts.json, "json", false, "print JSON (SI units) instead of a table")
+	return cmd
+}
+
+// trimCoil is the coil under test, resolved from flags or a job entry.
+type trimCoil struct {
+	spec     coilSpec
+	freq     unit.Frequency
+	tapTurns *float64 // nil for an untapped coil
+	tapRatio *float64 // the ratio to keep, when given
+	stock    *stockOptions
+	cat      *forms.Catalog
+	// job and jobEntry are set when the coil came from a job file; errors
+	// on the coil then point at its keys.
+	job      *forms.Job
+	jobEntry *forms.JobCoil
+}
+
+// trimResult is everything the command works out, for the table and JSON.
+type trimResult struct {
+	tc             trimCoil
+	meas           coil.Measurement
+	viaFlag        string // the flag the measurement came from
+	spec           coil.Prediction
+	cal            coil.Calibration
+	target         coil.TrimTarget
+	targetFrom     string // "given", "model", "resonance"
+	resonanceF     unit.Frequency
+	resonanceC     unit.Capacitance
+	afterResonance unit.Frequency // resonance with resonanceC after the change
+	tolerance      float64
+	corr           coil.Correction
+	next           coil.Expected
+	nextPred       coil.Prediction // the corrected coil at --freq
+	tap            *tapResult
+	instruction    string
+	warnings       []string
+	saved          *savedCalibration
+	lf             lengthFormatter
+}
+
+type tapResult struct {
+	turns, newTurns       float64
+	wantRatio             float64
+	ratioBefore, ratioNow float64 // as built (with the measured offset), after the change
+	offset                float64 // measured − model ratio; 0 without both sections
+	sections              *coil.SectionCalibration
+}
+
+func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
+	m, via, err := opts.measurement()
+	if err != nil {
+		return err
+	}
+	tc, err := opts.resolveCoil()
+	if err != nil {
+		return err
+	}
+	res, err := trimCompute(opts, tc, m, via)
+	if err != nil {
+		return err
+	}
+	if opts.save {
+		s, err := saveTrimCalibration(tc, res)
+		if err != nil {
+			return err
+		}
+		res.saved = s
+	}
+	if opts.json {
+		return writeTrimJSON(stdout, res)
+	}
+	if err := writeTrimTable(stdout, res); err != nil {
+		return err
+	}
+	for _, w := range res.warnings {
+		fmt.Fprintf(stderr, "warning: %s\n", w)
+	}
+	return nil
+}
+
+// trimCompute runs the calibration, the correction and the tap.
+func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string) (*trimResult, error) {
+	res := &trimResult{tc: tc, meas: m, viaFlag: via, lf: newLengthFormatter(opts.units.v), tolerance: opts.tolerance.v}
+	g := tc.spec.Geometry
+	p, err := coil.Predict(g, tc.freq)
+	if err != nil {
+		return nil, tc.coilError(opts, err)
+	}
+	res.spec = p
+	res.cal, err = coil.Calibrate(g, m)
+	if err != nil {
+		return nil, opts.measureError(via, tc, err)
+	}
+
+	switch {
+	case opts.target.isFreq:
+		if !opts.circuitCap.set {
+			return nil, usageErrorf("--target %s is a frequency: give --circuit-cap, the capacitance it resonates with in the circuit", opts.target.raw)
+		}
+		res.target = coil.ResonanceTarget(opts.target.f, opts.circuitCap.v)
+		res.targetFrom, res.resonanceF, res.resonanceC = "resonance", opts.target.f, opts.circuitCap.v
+	case opts.target.set:
+		res.target = coil.TrimTarget{Inductance: opts.target.l, Frequency: tc.freq}
+		res.targetFrom = "given"
+	default:
+		res.target = coil.TrimTarget{Inductance: p.Inductance, Frequency: tc.freq}
+		res.targetFrom = "model"
+	}
+	res.corr, err = coil.Correct(res.cal.Geometry, res.target, coil.CorrectOptions{
+		Tolerance:   opts.tolerance.v,
+		LengthSteps: lengthSteps(res.lf),
+	})
+	if err != nil {
+		var ie *coil.InputError
+		switch {
+		case errors.As(err, &ie) && ie.Param == "target":
+			return nil, &flagError{"target", err}
+		case errors.As(err, &ie) && ie.Param == "frequency":
+			return nil, &flagError{"freq", err}
+		case errors.Is(err, coil.ErrInfeasible):
+			return nil, fmt.Errorf("no squeeze, spread or turns change reaches the target: %w", err)
+		}
+		return nil, err
+	}
+	res.next, err = coil.ExpectedReading(res.corr.Geometry, res.cal, m)
+	if err != nil {
+		return nil, opts.measureError(via, tc, err)
+	}
+	res.nextPred, err = coil.Predict(res.corr.Geometry, tc.freq)
+	if err != nil {
+		return nil, &flagError{"freq", err}
+	}
+	if res.targetFrom == "resonance" {
+		if f, err := coil.ResonanceWith(res.corr.Geometry, res.resonanceC); err == nil {
+			res.afterResonance = f
+		}
+	}
+	if tc.tapTurns != nil {
+		if res.tap, err = opts.trimTap(tc, res); err != nil {
+			return nil, err
+		}
+	}
+	res.instruction = trimInstruction(res)
+	res.warnings = trimWarnings(res)
+	return res, nil
+}
+
+// measurement builds the coil.Measurement from the flags and checks their
+// combination. via is the flag the reading came from.
+func (o *trimOptions) measurement() (coil.Measurement, string, error) {
+	var m coil.Measurement
+	given := 0
+	for _, set := range []bool{o.measuredL.set, o.measuredF.set, len(o.resonances.v) > 0} {
+		if set {
+			given++
+		}
+	}
+	switch {
+	case given == 0:
+		return m, "", usageErrorf("give a measurement: --measured-l 52nH (an inductance meter), --measured-f F with --with-cap C (a test capacitor) or --circuit-cap C (in its circuit), or --resonance F1@C1 --resonance F2@C2 (two-capacitor method)")
+	case given > 1:
+		return m, "", usageErrorf("give one measurement: --measured-l, --measured-f or --resonance, not several")
+	}
+	for _, t := range []struct {
+		flag string
+		f    *percentFlag
+		max  float64
+	}{{"meter-tol", &o.meterTol, 0.5}, {"freq-tol", &o.freqTol, 0.2}, {"tolerance", &o.tolerance, 0.2}} {
+		if t.f.v < 0 || t.f.v > t.max {
+			return m, "", usageErrorf("--%s %s is outside 0 … %g%%", t.flag, t.f.raw, t.max*100)
+		}
+	}
+	if o.capTol.rel < 0 || o.capTol.rel > 0.5 || o.capTol.abs < 0 || o.capTol.abs > 1e-9 {
+		return m, "", usageErrorf("--cap-tol %s is not a sensible tolerance; use e.g. 5%% or 0.25pF", o.capTol.raw)
+	}
+	sections := o.measuredBottom.set || o.measuredTop.set
+	meterOnly := []struct {
+		name string
+		set  bool
+	}{{"meter-freq", o.meterFreq.set}, {"fixture-l", o.fixtureL.set}}
+	m.MeterTolerance = o.meterTol.v
+	m.CapacitorTolerance, m.CapacitorToleranceAbs = o.capTol.rel, unit.Capacitance(o.capTol.abs)
+	m.FrequencyTolerance = o.freqTol.v
+	m.FixtureLeadLength = o.fixtureLeads.v
+	via := ""
+	switch {
+	case o.measuredL.set:
+		m.Kind, m.Inductance, via = coil.MeasureDirect, o.measuredL.v, "measured-l"
+		m.TestFrequency, m.FixtureInductance = o.meterFreq.v, o.fixtureL.v
+		if o.stray.set {
+			return m, "", usageErrorf("--stray belongs to a resonance (--measured-f or --resonance); an inductance meter reading does not need it")
+		}
+	case o.measuredF.set:
+		via = "measured-f"
+		for _, f := range meterOnly {
+			if f.set && !sections {
+				return m, "", usageErrorf("--%s belongs to an inductance meter reading (--measured-l); drop it for a resonance", f.name)
+			}
+		}
+		switch {
+		case o.withCap.set:
+			m.Kind = coil.MeasureResonance
+			m.Resonances = []coil.Resonance{{Frequency: o.measuredF.v, Capacitance: o.withCap.v}}
+			m.Stray, m.StrayTolerance = o.stray.v, o.stray.v/2
+		case o.circuitCap.set:
+			if o.stray.set {
+				return m, "", usageErrorf("--stray belongs to a test fixture (--with-cap); --circuit-cap already includes the circuit's strays")
+			}
+			m.Kind = coil.MeasureInCircuit
+			m.Resonances = []coil.Resonance{{Frequency: o.measuredF.v, Capacitance: o.circuitCap.v}}
+		default:
+			return m, "", usageErrorf("--measured-f needs the capacitance it resonated with: --with-cap C (a known capacitor across the coil) or --circuit-cap C (the coil in its circuit)")
+		}
+	default:
+		via = "resonance"
+		for _, f := range meterOnly {
+			if f.set && !sections {
+				return m, "", usageErrorf("--%s belongs to an inductance meter reading (--measured-l); drop it for a resonance", f.name)
+			}
+		}
+		m.Resonances = o.resonances.v
+		m.Kind = coil.MeasureTwoCapacitor
+		if len(o.resonances.v) == 1 {
+			m.Kind = coil.MeasureResonance
+		}
+		m.Stray, m.StrayTolerance = o.stray.v, o.stray.v/2
+	}
+	if o.withCap.set && !o.measuredF.set {
+		return m, "", usageErrorf("--with-cap is the capacitor of a --measured-f resonance; give --measured-f too, or use --resonance F@C")
+	}
+	if sections && !o.tap.set && o.job == "" {
+		return m, "", usageErrorf("--measured-bottom and --measured-top are readings of a tapped coil's sections: give --tap, the tap in turns from the cold end")
+	}
+	if o.tapRatio.set && !o.tap.set && o.job == "" {
+		return m, "", usageErrorf("--tap-ratio needs --tap, where the tap is now")
+	}
+	return m, via, nil
+}
+
+// resolveCoil finds the coil under test: the coil flags, or --job/--coil.
+func (o *trimOptions) resolveCoil() (trimCoil, error) {
+	tc := trimCoil{stock: o.stock, freq: o.freq.v}
+	if o.tap.set {
+		v := o.tap.v
+		tc.tapTurns = &v
+	}
+	if o.tapRatio.set {
+		v := o.tapRatio.v
+		tc.tapRatio = &v
+	}
+	if o.job == "" {
+		if o.coilName != "" {
+			return tc, usageErrorf("--coil names a coil of a job file: give --job FILE too, or describe the coil with --mandrel/--former, --wire, --turns")
+		}
+		so, err := o.saveStockOptionsFor(o.stock)
+		if err != nil {
+			return tc, err
+		}
+		cat, err := so.load()
+		if err != nil {
+			return tc, err
+		}
+		spec, err := o.coil.resolve(cat)
+		if err != nil {
+			return tc, err
+		}
+		tc.spec, tc.cat, tc.stock = spec, cat, so
+		return tc, nil
+	}
+
+	if o.coilName == "" {
+		return tc, usageErrorf("--job needs --coil NAME, the coil of the job file you measured")
+	}
+	if f := o.coil.firstSet(); f != "" {
+		return tc, usageErrorf("--job takes the coil from the job file; drop --%s (or drop --job and describe the coil with flags)", f)
+	}
+	job, err := loadJobFile(o.job)
+	if err != nil {
+		return tc, err
+	}
+	entry, err := job.Coil(o.coilName)
+	if err != nil {
+		return tc, &flagError{"coil", err}
+	}
+	// --stock or --use on the command line win over the job's own stock.
+	flagsGiven := o.stock.path != os.Getenv("TURNWISE_STOCK") || o.stock.use.v != ""
+	so := jobStockOptions(job, o.stock, flagsGiven)
+	saveSo, err := o.saveStockOptionsFor(so)
+	if err != nil {
+		return tc, err
+	}
+	var cat *forms.Catalog
+	if saveSo != so {
+		cat, err = saveSo.load() // the stock file is new: built-in rows only
+	} else {
+		cat, err = jobCatalog(job, o.stock, flagsGiven)
+	}
+	if err != nil {
+		return tc, err
+	}
+	spec, err := resolveJobCoil(job, entry, cat)
+	if err != nil {
+		return tc, err
+	}
+	tc.spec, tc.cat, tc.stock, tc.job, tc.jobEntry = spec, cat, saveSo, job, entry
+	if !o.freq.set {
+		tc.freq = jobFreq(entry).v
+	}
+	if entry.Tap != nil && !o.tap.set {
+		switch {
+		case entry.Tap.Turns != nil:
+			v := *entry.Tap.Turns
+			tc.tapTurns = &v
+		case entry.Tap.Ratio != nil:
+			// The sheet put the tap at the quarter turn nearest the ratio.
+			choice, err := coil.MoveTap(spec.Geometry, tc.freq, *entry.Tap.Ratio)
+			if err != nil && choice.TapTurns == 0 {
+				return tc, jobFieldError(job, entry, "tap-ratio", err)
+			}
+			v := choice.TapTurns
+			tc.tapTurns = &v
+			if tc.tapRatio == nil {
+				r := *entry.Tap.Ratio
+				tc.tapRatio = &r
+			}
+		}
+	}
+	if tc.tapTurns == nil && (o.measuredBottom.set || o.measuredTop.set) {
+		return tc, usageErrorf("--measured-bottom and --measured-top are readings of a tapped coil's sections; coil %q has no tap: give --tap", entry.Name)
+	}
+	return tc, nil
+}
+
+// saveStockOptionsFor returns the stock selection to load. With --save it
+// needs a stock file; when that file does not exist yet, the built-in
+// catalog alone is loaded (the save creates the file).
+func (o *trimOptions) saveStockOptionsFor(so *stockOptions) (*stockOptions, error) {
+	if !o.save {
+		return so, nil
+	}
+	if so.path == "" {
+		return nil, usageErrorf("--save needs your stock file: give --stock FILE (created if missing) or set TURNWISE_STOCK")
+	}
+	if _, err := os.Stat(so.path); errors.Is(err, os.ErrNotExist) {
+		if so.use.v == "mine" {
+			return nil, usageErrorf("--use mine: %q does not exist yet; drop --use to start it with --save", so.path)
+		}
+		out := newStockOptions()
+		out.path, out.use.v = so.path, "builtin"
+		return out, nil
+	}
+	return so, nil
+}
+
+// firstSet names the first coil flag given, or "".
+func (o *coilOptions) firstSet() string {
+	for _, f := range []struct {
+		name string
+		set  bool
+	}{
+		{"mandrel", o.mandrel != ""}, {"former", o.former != ""}, {"wire", o.wire != ""},
+		{"insulation", o.insulation != ""}, {"conductor", o.conductor != ""},
+		{"springback", o.springback.set}, {"turns", o.turns.set}, {"pitch", o.pitch.set},
+		{"length", o.length.set}, {"leads", o.leads.set}, {"temp", o.temp.set},
+	} {
+		if f.set {
+			return f.name
+		}
+	}
+	return ""
+}
+
+// coilError names the flag (or job key) a model error on the coil belongs to.
+func (tc trimCoil) coilError(o *trimOptions, err error) error {
+	var ie *coil.InputError
+	if errors.As(err, &ie) && ie.Param == "frequency" {
+		return &flagError{"freq", err}
+	}
+	if tc.job != nil {
+		return jobCoilError(tc.job, tc.jobEntry, o.coil.attachFlag(err, tc.spec.SupportKind, tc.spec.PitchSource))
+	}
+	return o.coil.attachFlag(err, tc.spec.SupportKind, tc.spec.PitchSource)
+}
+
+// measureError names the flag a measurement error belongs to.
+func (o *trimOptions) measureError(via string, tc trimCoil, err error) error {
+	var ie *coil.InputError
+	if !errors.As(err, &ie) {
+		return err
+	}
+	flag := map[string]string{
+		"measured_inductance": via,
+		"resonance":           via,
+		"capacitance":         via,
+		"measurement":         via,
+		"fixture_inductance":  "fixture-l",
+		"test_frequency":      "meter-freq",
+		"stray":               "stray",
+		"tolerance":           "cap-tol",
+		"fixture_lead_length": "fixture-leads",
+		"measured_bottom":     "measured-bottom",
+		"measured_top":        "measured-top",
+		"tap_turns":           "tap",
+	}[ie.Param]
+	if flag == "" {
+		return tc.coilError(o, err)
+	}
+	return &flagError{flag, err}
+}
+
+// trimTap calibrates the sections and finds where the tap goes.
+func (o *trimOptions) trimTap(tc trimCoil, res *trimResult) (*tapResult, error) {
+	n := *tc.tapTurns
+	g := tc.spec.Geometry
+	if n <= 0 || n >= g.Turns {
+		return nil, &flagError{"tap", fmt.Errorf("%g is not on the winding: the tap goes between 0 and %g turns from the cold end", n, g.Turns)}
+	}
+	specTap, err := coil.Tap(g, n, tc.freq)
+	if err != nil {
+		return nil, trimTapError(err)
+	}
+	t := &tapResult{turns: n, wantRatio: specTap.Ratio}
+	if tc.tapRatio != nil {
+		t.wantRatio = *tc.tapRatio
+	}
+	section := func(f inductanceFlag) *coil.Measurement {
+		if !f.set {
+			return nil
+		}
+		return &coil.Measurement{Kind: coil.MeasureDirect, Inductance: f.v, TestFrequency: o.meterFreq.v,
+			FixtureInductance: o.fixtureL.v, MeterTolerance: o.meterTol.v, FixtureLeadLength: o.fixtureLeads.v}
+	}
+	bottom, top := section(o.measuredBottom), section(o.measuredTop)
+	if bottom != nil || top != nil {
+		sc, err := coil.CalibrateSections(res.cal, n, bottom, top)
+		if err != nil {
+			return nil, o.measureError("measured-bottom", tc, err)
+		}
+		t.sections = &sc
+		if sc.MeasuredRatio != 0 {
+			t.offset = sc.MeasuredRatio - sc.ModelRatio
+		}
+	}
+	built, err := coil.Tap(res.cal.Geometry, n, tc.freq)
+	if err != nil {
+		return nil, trimTapError(err)
+	}
+	t.ratioBefore = built.Ratio + t.offset
+	want := t.wantRatio - t.offset
+	if !(want > 0 && want < 1) {
+		return nil, &flagError{"tap-ratio", fmt.Errorf("the ratio %.3g less the measured offset %+.3g is outside 0 … 1", t.wantRatio, t.offset)}
+	}
+	choice, err := coil.MoveTap(res.corr.Geometry, tc.freq, want)
+	if err != nil && choice.TapTurns == 0 {
+		return nil, trimTapError(err)
+	}
+	t.newTurns, t.ratioNow = choice.TapTurns, choice.Ratio+t.offset
+	return t, nil
+}
+
+func trimTapError(err error) error {
+	var ie *coil.InputError
+	if errors.As(err, &ie) && ie.Param == "tap_turns" {
+		return &flagError{"tap", err}
+	}
+	if errors.As(err, &ie) && ie.Param == "target" {
+		return &flagError{"tap-ratio", err}
+	}
+	return err
+}
+
+// lengthSteps are the resolutions a builder sets an outside length to,
+// coarsest first: 0.1 mm with calipers on a springy coil, finer only when
+// the coil is so sensitive that 0.1 mm misses the tolerance.
+func lengthSteps(lf lengthFormatter) []unit.Length {
+	if lf.inches {
+		return []unit.Length{0.005 * 0.0254, 0.002 * 0.0254, 0.001 * 0.0254}
+	}
+	return []unit.Length{0.1e-3, 0.05e-3, 0.02e-3, 0.01e-3}
+}
+
+// targetFlag takes an inductance (48nH) or a resonance frequency (145MHz).
+type targetFlag struct {
+	raw    string
+	l      unit.Inductance
+	f      unit.Frequency
+	isFreq bool
+	set    bool
+}
+
+func (f *targetFlag) String() string { return f.raw }
+func (f *targetFlag) Type() string   { return "L|F" }
+func (f *targetFlag) Set(s string) error {
+	if l, err := forms.ParseInductance(s); err == nil {
+		*f = targetFlag{raw: s, l: l, set: true}
+		return nil
+	}
+	if fr, err := forms.ParseFrequency(s); err == nil {
+		*f = targetFlag{raw: s, f: fr, isFreq: true, set: true}
+		return nil
+	}
+	return fmt.Errorf("%q is neither an inductance (48nH) nor a resonance frequency (145MHz, with --circuit-cap)", s)
+}
+
+// resonanceListFlag collects --resonance F@C readings.
+type resonanceListFlag struct {
+	raw []string
+	v   []coil.Resonance
+}
+
+func (f *resonanceListFlag) String() string { return strings.Join(f.raw, ",") }
+func (f *resonanceListFlag) Type() string   { return "F@C" }
+func (f *resonanceListFlag) Set(s string) error {
+	fs, cs, ok := strings.Cut(s, "@")
+	if !ok {
+		return fmt.Errorf("%q: write a resonance and its capacitor as F@C, e.g. 9.81MHz@100pF", s)
+	}
+	fr, err := forms.ParseFrequency(strings.TrimSpace(fs))
+	if err != nil {
+		return fmt.Errorf("%q: %w", s, err)
+	}
+	c, err := forms.ParseCapacitance(strings.TrimSpace(cs))
+	if err != nil {
+		return fmt.Errorf("%q: %w", s, err)
+	}
+	f.raw = append(f.raw, s)
+	f.v = append(f.v, coil.Resonance{Frequency: fr, Capacitance: c})
+	return nil
+}
+
+// capTolFlag is a capacitor tolerance: relative (5%) or absolute (0.25pF).
+type capTolFlag struct {
+	raw string
+	rel float64
+	abs float64 // farads
+}
+
+func (f *capTolFlag) String() string { return f.raw }
+func (f *capTolFlag) Type() string   { return "percent|C" }
+func (f *capTolFlag) Set(s string) error {
+	t := strings.TrimSpace(s)
+	if strings.HasSuffix(strings.ToLower(t), "f") {
+		c, err := forms.ParseCapacitance(t)
+		if err != nil {
+			return err
+		}
+		*f = capTolFlag{raw: s, abs: float64(c)}
+		return nil
+	}
+	v, err := forms.ParsePercent(t)
+	if err != nil {
+		return err
+	}
+	*f = capTolFlag{raw: s, rel: v}
+	return nil
+}

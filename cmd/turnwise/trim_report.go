@@ -1,0 +1,565 @@
+package main
+
+import (
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+	"text/tabwriter"
+
+	"gonum.org/v1/gonum/unit"
+
+	"turnwise/coil"
+	"turnwise/forms"
+)
+
+// The output of `turnwise trim`: the one-line instruction, the warnings,
+// the table and the JSON document.
+
+// fmtLenStep prints a length to the resolution it was rounded to (0.1 mm
+// as "9.1 mm"), or to lf's usual precision when exact.
+func fmtLenStep(lf lengthFormatter, m float64, step unit.Length) string {
+	if step <= 0 {
+		return lf.fmt(m)
+	}
+	if lf.inches {
+		return fmt.Sprintf("%.3f in", m/0.0254)
+	}
+	dec := int(math.Max(0, math.Ceil(-math.Log10(float64(step)*1e3)-1e-9)))
+	if float64(step)*1e3*math.Pow(10, float64(dec)) > 1+1e-9 {
+		dec++ // 0.05 mm needs two decimals
+	}
+	return fmt.Sprintf("%.*f mm", dec, m*1e3)
+}
+
+// sbPct prints a springback with two decimals: "4.12 %".
+func sbPct(s float64) string {
+	if math.Abs(s) < 0.00005 {
+		s = 0
+	}
+	return fmt.Sprintf("%.2f %%", s*100)
+}
+
+// turnsWord prints a number of turns with its noun: "1 turn", "3¼ turns".
+func turnsWord(n float64) string {
+	if n == 1 {
+		return "1 turn"
+	}
+	return fmtTurns(n) + " turns"
+}
+
+// quarterTurns prints a turns difference: "¼ turn", "1½ turns".
+func quarterTurns(d float64) string {
+	d = math.Abs(d)
+	if d == 1 {
+		return "1 turn"
+	}
+	s := fmtTurns(d)
+	if strings.HasPrefix(s, "0") {
+		s = strings.TrimPrefix(s, "0")
+		return s + " turn"
+	}
+	return s + " turns"
+}
+
+// expectText is the predicted value after the change, in the target's terms.
+func expectText(res *trimResult) string {
+	c := res.corr
+	if res.targetFrom == "resonance" && res.afterResonance > 0 {
+		return fmt.Sprintf("resonance at %s", eng(float64(res.afterResonance), "Hz", 4))
+	}
+	if f := res.target.Frequency; f > 0 {
+		return eng(float64(c.After), "H", 3) + " at " + eng(float64(f), "Hz", 4)
+	}
+	return eng(float64(c.After), "H", 3)
+}
+
+// trimInstruction is the one clear sentence a builder acts on.
+func trimInstruction(res *trimResult) string {
+	c := res.corr
+	lf := res.lf
+	step := c.LengthStep
+	var s string
+	switch c.Action {
+	case coil.ActionNone:
+		miss := float64(c.Before)/float64(c.Target) - 1
+		if math.Abs(miss) <= res.tolerance {
+			s = fmt.Sprintf("leave it: %s is within %s of the target %s", eng(float64(c.Before), "H", 3), pct(res.tolerance), eng(float64(c.Target), "H", 3))
+		} else {
+			s = fmt.Sprintf("leave it: the change is smaller than you can set; %s is %+.1f %% from the target", eng(float64(c.Before), "H", 3), miss*100)
+		}
+	case coil.ActionSqueeze, coil.ActionSpread:
+		s = fmt.Sprintf("%s from %s to %s outside length; expect %s", c.Action, fmtLenStep(lf, float64(c.LengthBefore), step),
+			fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
+	case coil.ActionAddTurns:
+		s = fmt.Sprintf("rewind with %s (%s more) at %s outside length; expect %s", turnsWord(c.Geometry.Turns),
+			quarterTurns(c.Geometry.Turns-res.cal.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
+	case coil.ActionRemoveTurns:
+		s = fmt.Sprintf("remove %s (%s left) and set %s outside length; expect %s", quarterTurns(res.cal.Geometry.Turns-c.Geometry.Turns),
+			turnsWord(c.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
+	}
+	if t := res.tap; t != nil && t.newTurns != t.turns {
+		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", fmtTurns(t.turns), turnsWord(t.newTurns))
+	}
+	return s
+}
+
+// nextText says what the same measurement should read after the change.
+func nextText(res *trimResult) string {
+	m, e := res.meas, res.next
+	switch m.Kind {
+	case coil.MeasureDirect:
+		s := "the meter should read " + eng(float64(e.Inductance), "H", 3)
+		if m.TestFrequency > 0 {
+			s += " at " + eng(float64(m.TestFrequency), "Hz", 3)
+		}
+		if m.FixtureInductance > 0 || m.FixtureLeadLength > 0 {
+			s += " with the same fixture"
+		}
+		return s
+	case coil.MeasureResonance:
+		return fmt.Sprintf("it should resonate at %s with the same %s", eng(float64(e.Resonances[0].Frequency), "Hz", 4), farads(float64(e.Resonances[0].Capacitance)))
+	case coil.MeasureInCircuit:
+		return fmt.Sprintf("the circuit should resonate at %s", eng(float64(e.Resonances[0].Frequency), "Hz", 4))
+	}
+	var parts []string
+	for _, r := range e.Resonances {
+		parts = append(parts, fmt.Sprintf("%s with %s", eng(float64(r.Frequency), "Hz", 4), farads(float64(r.Capacitance))))
+	}
+	return "expect " + strings.Join(parts, ", ")
+}
+
+// trimWarnings collects what the builder should know, most important first.
+func trimWarnings(res *trimResult) []string {
+	var w []string
+	cal, r := res.cal, res.cal.Reading
+	kind := res.tc.spec.SupportKind
+	switch {
+	case kind == "mandrel" && (cal.Springback < -0.02 || cal.Springback > 0.15):
+		w = append(w, fmt.Sprintf("the fitted springback %s is unusual for wire released from a mandrel (a few percent is typical; common practice): check --turns, --length, --leads and the fixture before trusting or saving it", pct(cal.Springback)))
+	case kind == "former" && math.Abs(cal.Springback) > 0.03:
+		w = append(w, fmt.Sprintf("a coil left on its former does not spring back: the fitted %s stands for model and measurement error (leads, uneven pitch, fixture); check them before saving it", pct(cal.Springback)))
+	}
+	miss := float64(res.corr.Before)/float64(res.corr.Target) - 1
+	if res.corr.Action != coil.ActionNone && math.Abs(miss) < r.Uncertainty {
+		w = append(w, fmt.Sprintf("the coil misses the target by %+.1f %%, less than the measurement's own uncertainty (±%.1f %%): the change may not be needed; measure more precisely first", miss*100, r.Uncertainty*100))
+	}
+	if res.meas.Kind == coil.MeasureResonance && res.meas.Stray == 0 {
+		w = append(w, "no fixture stray given (--stray): 0 pF assumed; a probe or fixture adds some pF, which matters with a small test capacitor; the two-capacitor method (--resonance twice) measures it")
+	}
+	if r.Kind == coil.MeasureTwoCapacitor && r.TotalStray < 0 {
+		w = append(w, fmt.Sprintf("the capacitance across the coil came out slightly negative (%s ± %s), within the readings' uncertainty: treat it as zero", farads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
+	}
+	if r.Kind == coil.MeasureTwoCapacitor && r.FitResidual > 3*res.meas.FrequencyTolerance && r.FitResidual > 0.002 {
+		w = append(w, fmt.Sprintf("the resonances scatter by %.2g %% about the fitted line, more than the frequency readings' accuracy: recheck the capacitor values", r.FitResidual*100))
+	}
+	if f := float64(r.Frequency); f > 0 {
+		if p, err := coil.Predict(cal.Geometry, r.Frequency); err == nil && f > float64(p.SRF)/3 {
+			w = append(w, fmt.Sprintf("the reading at %s is above a third of the coil's self-resonance (%s): it leans on the self-capacitance estimate; a lower-frequency reading (a larger capacitor) calibrates better",
+				eng(f, "Hz", 3), eng(float64(p.SRF), "Hz", 3)))
+		}
+	}
+	if t := res.tap; t != nil && t.sections != nil {
+		for _, s := range []struct {
+			name string
+			fit  *coil.SectionFit
+		}{{"bottom (cold end to tap)", t.sections.Bottom}, {"top (tap to hot end)", t.sections.Top}} {
+			if s.fit == nil {
+				continue
+			}
+			if u := math.Hypot(s.fit.Reading.Uncertainty, r.Uncertainty); math.Abs(s.fit.Residual) > u {
+				w = append(w, fmt.Sprintf("the %s section reads %+.1f %% against the rest of the coil, more than the readings' uncertainty: its turns are closer or wider than the rest, or the tap is not at %s turns",
+					s.name, -s.fit.Residual/(1+s.fit.Residual)*100, turnsWord(t.turns)))
+			}
+		}
+	}
+	if res.corr.Action == coil.ActionAddTurns {
+		w = append(w, fmt.Sprintf("adding turns means winding a new coil: cut %s of wire", res.lf.fmt(float64(res.nextPred.WireLength))))
+	}
+	w = append(w, res.nextPred.Warnings()...)
+	if w == nil {
+		w = []string{}
+	}
+	return w
+}
+
+func kindText(k coil.MeasurementKind) string {
+	switch k {
+	case coil.MeasureDirect:
+		return "inductance meter"
+	case coil.MeasureResonance:
+		return "resonance with a known capacitor"
+	case coil.MeasureInCircuit:
+		return "resonance in its circuit"
+	}
+	return "two-capacitor method"
+}
+
+func senseText(r coil.Reading) string {
+	switch {
+	case r.Kind == coil.MeasureTwoCapacitor:
+		return fmt.Sprintf("at the terminals near %s, self-capacitance separated", eng(float64(r.Frequency), "Hz", 3))
+	case r.Effective:
+		return "effective at " + eng(float64(r.Frequency), "Hz", 4) + ", self-capacitance included"
+	}
+	return "at the terminals, low frequency"
+}
+
+func targetSenseText(t coil.TrimTarget) string {
+	switch {
+	case t.Effective:
+		return "effective at " + eng(float64(t.Frequency), "Hz", 4)
+	case t.Frequency > 0:
+		return "at the terminals at " + eng(float64(t.Frequency), "Hz", 4)
+	}
+	return "at the terminals, low frequency"
+}
+
+func writeTrimTable(w io.Writer, res *trimResult) error {
+	lf := res.lf
+	cal, r, c, m := res.cal, res.cal.Reading, res.corr, res.meas
+	g := res.tc.spec.Geometry
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
+
+	fmt.Fprintf(tw, "Trim: %s turns of %s on %s (%s)\n\n", fmtTurns(g.Turns), describeWire(res.tc.spec, lf), res.tc.spec.SupportName,
+		map[string]string{"mandrel": "slid off: self-supporting", "former": "stays on the former"}[res.tc.spec.SupportKind])
+	fmt.Fprintf(tw, "→ %s\n", res.instruction)
+
+	fmt.Fprintf(tw, "\nMEASUREMENT (%s)\n", kindText(r.Kind))
+	switch m.Kind {
+	case coil.MeasureDirect:
+		v := eng(float64(m.Inductance), "H", 4)
+		if m.FixtureInductance > 0 {
+			v += " − fixture " + eng(float64(m.FixtureInductance), "H", 3)
+		}
+		if m.TestFrequency > 0 {
+			v += " at " + eng(float64(m.TestFrequency), "Hz", 3)
+		}
+		row("reading", v)
+	case coil.MeasureResonance, coil.MeasureInCircuit:
+		rs := m.Resonances[0]
+		v := fmt.Sprintf("%s with %s", eng(float64(rs.Frequency), "Hz", 4), farads(float64(rs.Capacitance)))
+		if m.Stray > 0 {
+			v += " + " + farads(float64(m.Stray)) + " stray"
+		}
+		row("reading", v)
+	default:
+		var parts []string
+		for _, rs := range m.Resonances {
+			parts = append(parts, fmt.Sprintf("%s with %s", eng(float64(rs.Frequency), "Hz", 4), farads(float64(rs.Capacitance))))
+		}
+		row("readings", strings.Join(parts, ", "))
+	}
+	if m.FixtureLeadLength > 0 {
+		row("fixture leads", "2 × "+lf.fmt(float64(m.FixtureLeadLength))+" of extra wire (in the model for the reading)")
+	}
+	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", eng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
+	if r.Kind == coil.MeasureTwoCapacitor {
+		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", farads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
+		sc := fmt.Sprintf("Medhurst %s", farads(float64(cal.SelfCapacitance)))
+		if m.Stray > 0 {
+			u := math.Hypot(float64(r.TotalStrayUncertainty), float64(m.StrayTolerance))
+			sc = fmt.Sprintf("%s ± %s measured (less --stray %s); %s", farads(float64(cal.MeasuredSelfCapacitance)), farads(u), farads(float64(m.Stray)), sc)
+		}
+		row("self-capacitance", sc)
+		if len(m.Resonances) > 2 {
+			row("fit", fmt.Sprintf("the resonances lie within %.2g %% (rms) of the line", r.FitResidual*100))
+		}
+	}
+	sbNote := "no springback assumed"
+	switch res.tc.spec.SpringbackSource {
+	case "given":
+		sbNote = "springback " + sbPct(g.Springback) + " as given"
+	case "calibration":
+		sbNote = "your saved springback " + sbPct(g.Springback)
+	}
+	row("the model expected", fmt.Sprintf("%s  (%s): the coil reads %+.1f %%", eng(float64(cal.ModelBefore), "H", 4), sbNote,
+		(float64(r.Inductance)/float64(cal.ModelBefore)-1)*100))
+
+	fmt.Fprintln(tw, "\nTHE COIL AS BUILT")
+	row("springback", fmt.Sprintf("%s  (%s … %s within the reading's uncertainty)", sbPct(cal.Springback), sbPct(cal.SpringbackLow), sbPct(cal.SpringbackHigh)))
+	row("effective diameter", fmt.Sprintf("%s wire-centre, bore %s", lf.fmt(float64(cal.EffectiveDiameter)), lf.fmt(float64(cal.Geometry.InsideDiameter()))))
+	row("inductance", fmt.Sprintf("%s  (%s)", eng(float64(c.Before), "H", 4), targetSenseText(res.target)))
+
+	fmt.Fprintln(tw, "\nCORRECTION")
+	tgt := eng(float64(c.Target), "H", 4) + " " + targetSenseText(res.target)
+	switch res.targetFrom {
+	case "model":
+		tgt += " (the model's value for the coil as specified)"
+	case "resonance":
+		tgt = fmt.Sprintf("resonance at %s with %s: %s", eng(float64(res.resonanceF), "Hz", 4), farads(float64(res.resonanceC)), tgt)
+	}
+	row("target", tgt)
+	tight, loose := float64(g.WireOverall), 0.0
+	if tight == 0 {
+		tight = float64(g.WireDiameter)
+	}
+	loose = math.Max(coil.LoosestPitchFactor*tight, float64(g.Pitch))
+	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", eng(float64(c.WindowLeast), "H", 3), lf.fmt(loose),
+		eng(float64(c.WindowMost), "H", 3), fmtTurns(g.Turns)))
+	ng := c.Geometry
+	switch c.Action {
+	case coil.ActionNone:
+		row("action", "none")
+	default:
+		row("action", c.Action.String())
+		if ng.Turns != g.Turns {
+			row("turns", fmt.Sprintf("%s, was %s", fmtTurns(ng.Turns), fmtTurns(g.Turns)))
+		}
+		row("outside length", fmt.Sprintf("%s (pitch %s), was %s", fmtLenStep(lf, float64(c.LengthAfter), c.LengthStep), lf.fmt(float64(ng.Pitch)), fmtLenStep(lf, float64(c.LengthBefore), c.LengthStep)))
+		row("predicted", fmt.Sprintf("%s  (%+.2f %% from the target)", eng(float64(c.After), "H", 4), (float64(c.After)/float64(c.Target)-1)*100))
+	}
+	if c.LengthPerPercent > 0 {
+		row("fine trim", fmt.Sprintf("%s of outside length per 1 %% of L", lf.fmt(float64(c.LengthPerPercent))))
+	}
+	if t := res.tap; t != nil {
+		tapLine := fmt.Sprintf("%s from the cold end, voltage ratio %.3f (as built) → %.3f; wanted %.3f", turnsWord(t.newTurns), t.ratioBefore, t.ratioNow, t.wantRatio)
+		if t.newTurns != t.turns {
+			tapLine = "move from " + fmtTurns(t.turns) + " to " + tapLine
+		} else {
+			tapLine = "stays at " + tapLine
+		}
+		row("tap", tapLine)
+		if s := t.sections; s != nil {
+			for _, sec := range []struct {
+				name string
+				fit  *coil.SectionFit
+			}{{"bottom section", s.Bottom}, {"top section", s.Top}} {
+				if sec.fit == nil {
+					continue
+				}
+				row(sec.name, fmt.Sprintf("%s ± %.1f %% measured, %s in the model; springback %s alone",
+					eng(float64(sec.fit.Reading.Inductance), "H", 3), sec.fit.Reading.Uncertainty*100, eng(float64(sec.fit.Model), "H", 3), pct(sec.fit.Springback)))
+			}
+			if s.MeasuredRatio != 0 {
+				row("tap ratio, measured", fmt.Sprintf("%.3f (model %.3f): the offset is kept when the tap moves", s.MeasuredRatio, s.ModelRatio))
+			}
+		}
+	}
+	row("then measure again", nextText(res))
+	if res.meas.Kind == coil.MeasureInCircuit {
+		row("caution", "switch the circuit off and discharge it before squeezing the coil")
+	}
+
+	if s := res.saved; s != nil {
+		fmt.Fprintln(tw, "\nSAVED")
+		row("calibration", fmt.Sprintf("springback %s for %s and %s in %s", forms.SpringbackText(s.Springback), s.Mandrel, s.Wire, s.Path))
+		if s.Backup != "" {
+			row("previous file", "kept as "+s.Backup)
+		}
+		for _, a := range s.Added {
+			row("added", a)
+		}
+		if s.Superseded != nil {
+			row("supersedes", fmt.Sprintf("springback %s (%s)", pct(s.Superseded.Springback), s.Superseded.Note))
+		}
+		row("from now on", "predict and design use it for this mandrel and wire (unless --springback is given)")
+	}
+	return tw.Flush()
+}
+
+// JSON.
+
+type resonanceJSON struct {
+	Frequency   float64 `json:"frequency"`
+	Capacitance float64 `json:"capacitance"`
+}
+
+type trimMeasurementJSON struct {
+	Kind              string          `json:"kind"`
+	Reading           float64         `json:"reading,omitempty"` // meter reading (direct)
+	TestFrequency     float64         `json:"test_frequency,omitempty"`
+	FixtureInductance float64         `json:"fixture_inductance,omitempty"`
+	FixtureLeadLength float64         `json:"fixture_lead_length,omitempty"`
+	Resonances        []resonanceJSON `json:"resonances,omitempty"`
+	Stray             float64         `json:"stray,omitempty"`
+	MeterTolerance    float64         `json:"meter_tolerance"`
+	CapTolerance      float64         `json:"capacitor_tolerance"`
+	CapToleranceAbs   float64         `json:"capacitor_tolerance_abs"`
+	FreqTolerance     float64         `json:"frequency_tolerance"`
+}
+
+type trimTapJSON struct {
+	TapTurns      float64      `json:"tap_turns"`
+	NewTapTurns   float64      `json:"new_tap_turns"`
+	RatioWanted   float64      `json:"ratio_wanted"`
+	RatioAsBuilt  float64      `json:"ratio_as_built"`
+	RatioAfter    float64      `json:"ratio_after"`
+	RatioOffset   float64      `json:"ratio_offset"`
+	MeasuredRatio *float64     `json:"measured_ratio,omitempty"`
+	Bottom        *sectionJSON `json:"bottom,omitempty"`
+	Top           *sectionJSON `json:"top,omitempty"`
+}
+
+type sectionJSON struct {
+	MeasuredInductance float64 `json:"measured_inductance"`
+	Uncertainty        float64 `json:"measured_inductance_uncertainty"`
+	ModelInductance    float64 `json:"model_inductance"`
+	Residual           float64 `json:"residual"`
+	Springback         float64 `json:"springback"`
+	EffectiveDiameter  float64 `json:"effective_diameter"`
+}
+
+type savedJSON struct {
+	StockFile  string   `json:"stock_file"`
+	Backup     string   `json:"backup,omitempty"`
+	Mandrel    string   `json:"mandrel"`
+	Wire       string   `json:"wire"`
+	Springback float64  `json:"springback"`
+	Note       string   `json:"note"`
+	Added      []string `json:"added,omitempty"`
+}
+
+type trimJSON struct {
+	Schema      int                 `json:"schema"`
+	Instruction string              `json:"instruction"`
+	Measurement trimMeasurementJSON `json:"measurement"`
+
+	MeasuredInductance            float64  `json:"measured_inductance"`
+	MeasuredInductanceUncertainty float64  `json:"measured_inductance_uncertainty"`
+	MeasuredSense                 string   `json:"measured_sense"`
+	MeasurementFrequency          float64  `json:"measurement_frequency"`
+	StrayCapacitance              *float64 `json:"stray_capacitance,omitempty"`
+	StrayCapacitanceUncertainty   *float64 `json:"stray_capacitance_uncertainty,omitempty"`
+	SelfCapacitanceMeasured       *float64 `json:"self_capacitance_measured,omitempty"`
+	SelfCapacitanceModel          float64  `json:"self_capacitance_model"`
+	FitResidual                   *float64 `json:"fit_residual,omitempty"`
+	ModelInductance               float64  `json:"model_inductance"`
+	InductanceTerminal            float64  `json:"inductance_terminal"`
+
+	SpringbackBefore        float64 `json:"springback_before"`
+	SpringbackSource        string  `json:"springback_source"`
+	Springback              float64 `json:"springback"`
+	SpringbackLow           float64 `json:"springback_low"`
+	SpringbackHigh          float64 `json:"springback_high"`
+	EffectiveDiameter       float64 `json:"effective_diameter"`
+	EffectiveInsideDiameter float64 `json:"effective_inside_diameter"`
+	Residual                float64 `json:"residual"`
+
+	TargetInductance  float64  `json:"target_inductance"`
+	TargetFrequency   float64  `json:"target_frequency"`
+	TargetSense       string   `json:"target_sense"`
+	TargetSource      string   `json:"target_source"`
+	TargetResonance   *float64 `json:"target_resonance,omitempty"`
+	TargetCapacitance *float64 `json:"target_capacitance,omitempty"`
+	InductanceAsBuilt float64  `json:"inductance_as_built"`
+	WindowLeast       float64  `json:"window_least"`
+	WindowMost        float64  `json:"window_most"`
+
+	Action               string   `json:"action"`
+	Turns                float64  `json:"turns"`
+	NewTurns             float64  `json:"new_turns"`
+	Pitch                float64  `json:"pitch"`
+	NewPitch             float64  `json:"new_pitch"`
+	WindingLength        float64  `json:"winding_length"`
+	NewWindingLength     float64  `json:"new_winding_length"`
+	LengthStep           float64  `json:"length_step"`
+	PredictedInductance  float64  `json:"predicted_inductance"`
+	PredictedResonance   *float64 `json:"predicted_resonance,omitempty"`
+	TrimLengthPerPercent float64  `json:"trim_length_per_percent"`
+	NewWireLength        float64  `json:"new_wire_length"`
+
+	NextMeasurement struct {
+		Inductance float64         `json:"inductance,omitempty"`
+		Resonances []resonanceJSON `json:"resonances,omitempty"`
+	} `json:"next_measurement"`
+
+	Tap      *trimTapJSON `json:"tap,omitempty"`
+	Saved    *savedJSON   `json:"saved,omitempty"`
+	Coil     coilRecord   `json:"coil"`
+	Warnings []string     `json:"warnings"`
+}
+
+func ptr(v float64) *float64 { return &v }
+
+func writeTrimJSON(w io.Writer, res *trimResult) error {
+	cal, r, c, m := res.cal, res.cal.Reading, res.corr, res.meas
+	g := res.tc.spec.Geometry
+	d := trimJSON{Schema: schemaVersion, Instruction: res.instruction}
+	d.Measurement = trimMeasurementJSON{
+		Kind: m.Kind.String(), TestFrequency: float64(m.TestFrequency), FixtureInductance: float64(m.FixtureInductance),
+		FixtureLeadLength: float64(m.FixtureLeadLength), Stray: float64(m.Stray),
+		MeterTolerance: m.MeterTolerance, CapTolerance: m.CapacitorTolerance, CapToleranceAbs: float64(m.CapacitorToleranceAbs),
+		FreqTolerance: m.FrequencyTolerance,
+	}
+	if m.Kind == coil.MeasureDirect {
+		d.Measurement.Reading = float64(m.Inductance)
+	}
+	for _, rs := range m.Resonances {
+		d.Measurement.Resonances = append(d.Measurement.Resonances, resonanceJSON{float64(rs.Frequency), float64(rs.Capacitance)})
+	}
+	d.MeasuredInductance = float64(r.Inductance)
+	d.MeasuredInductanceUncertainty = r.Uncertainty
+	d.MeasuredSense = map[bool]string{true: "effective", false: "terminal"}[r.Effective]
+	d.MeasurementFrequency = float64(r.Frequency)
+	if r.Kind == coil.MeasureTwoCapacitor {
+		d.StrayCapacitance = ptr(float64(r.TotalStray))
+		d.StrayCapacitanceUncertainty = ptr(float64(r.TotalStrayUncertainty))
+		if m.Stray > 0 {
+			d.SelfCapacitanceMeasured = ptr(float64(cal.MeasuredSelfCapacitance))
+		}
+		if len(m.Resonances) > 2 {
+			d.FitResidual = ptr(r.FitResidual)
+		}
+	}
+	d.SelfCapacitanceModel = float64(cal.SelfCapacitance)
+	d.ModelInductance = float64(cal.ModelBefore)
+	d.InductanceTerminal = float64(cal.Measured)
+	d.SpringbackBefore, d.SpringbackSource = g.Springback, res.tc.spec.SpringbackSource
+	d.Springback, d.SpringbackLow, d.SpringbackHigh = cal.Springback, cal.SpringbackLow, cal.SpringbackHigh
+	d.EffectiveDiameter = float64(cal.EffectiveDiameter)
+	d.EffectiveInsideDiameter = float64(cal.Geometry.InsideDiameter())
+	d.Residual = cal.Residual
+
+	d.TargetInductance, d.TargetFrequency = float64(c.Target), float64(res.target.Frequency)
+	d.TargetSense = map[bool]string{true: "effective", false: "terminal"}[res.target.Effective]
+	d.TargetSource = res.targetFrom
+	if res.targetFrom == "resonance" {
+		d.TargetResonance, d.TargetCapacitance = ptr(float64(res.resonanceF)), ptr(float64(res.resonanceC))
+		if res.afterResonance > 0 {
+			d.PredictedResonance = ptr(float64(res.afterResonance))
+		}
+	}
+	d.InductanceAsBuilt = float64(c.Before)
+	d.WindowLeast, d.WindowMost = float64(c.WindowLeast), float64(c.WindowMost)
+
+	d.Action = c.Action.String()
+	d.Turns, d.NewTurns = g.Turns, c.Geometry.Turns
+	d.Pitch, d.NewPitch = float64(g.Pitch), float64(c.Geometry.Pitch)
+	d.WindingLength, d.NewWindingLength = float64(c.LengthBefore), float64(c.LengthAfter)
+	d.LengthStep = float64(c.LengthStep)
+	d.PredictedInductance = float64(c.After)
+	d.TrimLengthPerPercent = float64(c.LengthPerPercent)
+	d.NewWireLength = float64(res.nextPred.WireLength)
+	d.NextMeasurement.Inductance = float64(res.next.Inductance)
+	for _, rs := range res.next.Resonances {
+		d.NextMeasurement.Resonances = append(d.NextMeasurement.Resonances, resonanceJSON{float64(rs.Frequency), float64(rs.Capacitance)})
+	}
+	if t := res.tap; t != nil {
+		tj := &trimTapJSON{TapTurns: t.turns, NewTapTurns: t.newTurns, RatioWanted: t.wantRatio, RatioAsBuilt: t.ratioBefore,
+			RatioAfter: t.ratioNow, RatioOffset: t.offset}
+		if s := t.sections; s != nil {
+			if s.MeasuredRatio != 0 {
+				tj.MeasuredRatio = ptr(s.MeasuredRatio)
+			}
+			sec := func(f *coil.SectionFit) *sectionJSON {
+				if f == nil {
+					return nil
+				}
+				return &sectionJSON{float64(f.Reading.Inductance), f.Reading.Uncertainty, float64(f.Model), f.Residual, f.Springback, float64(f.EffectiveDiameter)}
+			}
+			tj.Bottom, tj.Top = sec(s.Bottom), sec(s.Top)
+		}
+		d.Tap = tj
+	}
+	if s := res.saved; s != nil {
+		d.Saved = &savedJSON{StockFile: s.Path, Backup: s.Backup, Mandrel: s.Mandrel, Wire: s.Wire, Springback: s.Springback, Note: s.Note, Added: s.Added}
+	}
+	d.Coil = newCoilRecord(res.tc.spec, res.spec)
+	d.Warnings = res.warnings
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(d)
+}

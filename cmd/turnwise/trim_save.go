@@ -1,0 +1,117 @@
+package main
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"io/fs"
+	"os"
+
+	"turnwise/coil"
+	"turnwise/forms"
+)
+
+// savedCalibration is what `trim --save` wrote.
+type savedCalibration struct {
+	Path, Backup string // the stock file; its previous version ("" when it is new)
+	Mandrel      string // the mandrel or former, as named in the file
+	Wire         string
+	Springback   float64
+	Note         string
+	Added        []string           // rows added so that the calibration's names resolve
+	Superseded   *forms.Calibration // the calibration in effect before, if any
+}
+
+// saveTrimCalibration appends the calibration to the stock file: the old
+// file is copied to FILE.bak first, then the new text replaces it
+// atomically; comments and layout are kept because the edit is text-level
+// (forms.AppendStock).
+func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error) {
+	path := tc.stock.path
+	orig, err := os.ReadFile(path)
+	existed := err == nil
+	var mode fs.FileMode = 0o644
+	switch {
+	case existed:
+		if st, err := os.Stat(path); err == nil {
+			mode = st.Mode().Perm()
+		}
+	case errors.Is(err, os.ErrNotExist):
+		orig = nil
+	default:
+		return nil, fmt.Errorf("--save: read %s: %w", path, err)
+	}
+
+	// Names must resolve in the file (or the built-in catalog) once saved:
+	// a mandrel or wire given as a bare size becomes a row of its own.
+	mine, err := forms.LoadStock(bytes.NewReader(orig), path)
+	if err != nil {
+		return nil, fmt.Errorf("--save: %w", err)
+	}
+	builtIn, err := forms.BuiltIn()
+	if err != nil {
+		return nil, err
+	}
+	lookup := forms.Merge(builtIn, mine)
+	spec := res.tc.spec
+	g := spec.Geometry
+	add := &forms.Catalog{}
+	s := &savedCalibration{Path: path, Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.cal.Springback}
+	const source = "given on the command line; added by turnwise trim --save"
+	if spec.SupportKind == "mandrel" {
+		if _, err := lookup.Mandrel(spec.SupportName); err != nil {
+			add.Mandrels = append(add.Mandrels, forms.Mandrel{Name: spec.SupportName, Diameter: g.FormerDiameter, Kind: "rod", Source: source})
+			s.Added = append(s.Added, fmt.Sprintf("mandrel %q (%s)", spec.SupportName, res.lf.fmt(float64(g.FormerDiameter))))
+		}
+	} else if _, err := lookup.Former(spec.SupportName); err != nil {
+		add.Formers = append(add.Formers, forms.Former{Name: spec.SupportName, Diameter: g.FormerDiameter, Kind: "former", Source: source})
+		s.Added = append(s.Added, fmt.Sprintf("former %q (%s)", spec.SupportName, res.lf.fmt(float64(g.FormerDiameter))))
+	}
+	if _, err := lookup.Wire(spec.Wire.Name); err != nil {
+		w := spec.Wire
+		w.Source = source
+		add.Wires = append(add.Wires, w)
+		s.Added = append(s.Added, fmt.Sprintf("wire %q", w.Name))
+	}
+	if prev, ok := lookup.Springback(spec.SupportName, spec.Wire.Name); ok {
+		s.Superseded = &prev
+	}
+	s.Note = calibrationNote(res)
+	add.Calibrations = []forms.Calibration{{Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.cal.Springback, Note: s.Note}}
+
+	text, err := forms.AppendStock(orig, path, add)
+	if err != nil {
+		return nil, fmt.Errorf("--save: %w", err)
+	}
+	if existed {
+		s.Backup = path + ".bak"
+		if err := writeFileAtomic(s.Backup, nil, func(w io.Writer) error { _, err := w.Write(orig); return err }); err != nil {
+			return nil, fmt.Errorf("--save: keep the old stock file: %w", err)
+		}
+		os.Chmod(s.Backup, mode)
+	}
+	if err := writeFileAtomic(path, nil, func(w io.Writer) error { _, err := w.Write(text); return err }); err != nil {
+		return nil, fmt.Errorf("--save: %w", err)
+	}
+	os.Chmod(path, mode) // keep the file's own permissions (writeFileAtomic makes 0644)
+	return s, nil
+}
+
+// calibrationNote records where a saved springback came from.
+func calibrationNote(res *trimResult) string {
+	r := res.cal.Reading
+	g := res.tc.spec.Geometry
+	var how string
+	switch r.Kind {
+	case coil.MeasureDirect:
+		how = "meter " + eng(float64(r.Inductance), "H", 3)
+	case coil.MeasureResonance, coil.MeasureInCircuit:
+		rs := res.meas.Resonances[0]
+		how = fmt.Sprintf("resonance %s with %s", eng(float64(rs.Frequency), "Hz", 4), farads(float64(rs.Capacitance)))
+	default:
+		how = fmt.Sprintf("two-capacitor method, L %s", eng(float64(r.Inductance), "H", 3))
+	}
+	return fmt.Sprintf("trim: %s ±%.1f %% on %s turns, %s long (springback %s … %s)", how, r.Uncertainty*100,
+		fmtTurns(g.Turns), res.lf.fmt(float64(g.WindingLength())), pct(res.cal.SpringbackLow), pct(res.cal.SpringbackHigh))
+}

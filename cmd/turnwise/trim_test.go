@@ -1,0 +1,465 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// trimData is this command's own test data.
+var trimData = filepath.Join("..", "..", "testdata", "trim")
+
+// trimDoneWhen is the issue's acceptance case: a coil designed for 48 nH
+// that measures 52 nH. The coil: 4 turns of 1 mm bare copper on a 4.6 mm
+// rod, 8 mm long outside, 5 mm leads, for which the model gives 47.8 nH.
+var trimDoneWhen = []string{"trim", "--mandrel", "4.6mm", "--wire", "1mm", "--turns", "4", "--length", "8mm", "--leads", "5mm",
+	"--measured-l", "52nH", "--target", "48nH"}
+
+// vhfTrim is the README's VHF coil at 145 MHz.
+var vhfTrim = []string{"trim", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm", "--freq", "145MHz"}
+
+func with(base []string, more ...string) []string {
+	return append(append([]string{}, base...), more...)
+}
+
+func TestTrimGolden(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	job := filepath.Join(trimData, "job.toml")
+	tests := []struct {
+		name   string
+		args   []string
+		golden string
+	}{
+		{"done when", trimDoneWhen, "trim_done.txt"},
+		{"done when json", with(trimDoneWhen, "--json"), "trim_done.json"},
+		{"resonance with a test capacitor", with(vhfTrim, "--measured-f", "101.5MHz", "--with-cap", "22pF", "--stray", "1.5pF"), "trim_resonance.txt"},
+		{"two capacitors", []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz",
+			"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF", "--cap-tol", "1%", "--stray", "3pF"}, "trim_two_cap.txt"},
+		{"add turns, inches", with(vhfTrim, "--measured-l", "101nH", "--target", "130nH", "--units", "in"), "trim_add_turns_in.txt"},
+		{"remove turns", with(vhfTrim, "--measured-l", "101nH", "--target", "60nH"), "trim_remove_turns.txt"},
+		{"job, tapped, sections", []string{"trim", "--job", job, "--coil", "input", "--measured-l", "92nH", "--measured-bottom", "14nH", "--measured-top", "69nH"}, "trim_job_tap.txt"},
+		{"job, in circuit, resonance target", []string{"trim", "--job", job, "--coil", "output", "--measured-f", "131MHz", "--circuit-cap", "17pF", "--target", "137.5MHz"}, "trim_in_circuit.txt"},
+		{"on target", with(vhfTrim, "--measured-l", "101.6nH"), "trim_none.txt"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, tc.args...)
+			if code != exitOK {
+				t.Fatalf("exit %d: %s", code, errOut)
+			}
+			checkGolden(t, tc.golden, out)
+		})
+	}
+}
+
+// trimJSON runs trim with --json and decodes the document.
+func trimDoc(t *testing.T, args ...string) map[string]any {
+	t.Helper()
+	out, errOut, code := runCLI(t, with(args, "--json")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	return doc
+}
+
+func num(t *testing.T, doc map[string]any, key string) float64 {
+	t.Helper()
+	v, ok := doc[key].(float64)
+	if !ok || math.IsNaN(v) || math.IsInf(v, 0) {
+		t.Fatalf("key %q = %v, not a finite number", key, doc[key])
+	}
+	return v
+}
+
+// The issue's Done-when: one clear instruction that spreads the coil and
+// lands within 0.5 % of 48 nH, and every key the issue lists.
+func TestTrimDoneWhen(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	doc := trimDoc(t, trimDoneWhen...)
+	if doc["action"] != "spread" {
+		t.Errorf("action %v, want spread", doc["action"])
+	}
+	ins, _ := doc["instruction"].(string)
+	if !strings.HasPrefix(ins, "spread from 8.0 mm to ") || !strings.Contains(ins, "outside length; expect 48") {
+		t.Errorf("instruction %q", ins)
+	}
+	if got := num(t, doc, "predicted_inductance"); math.Abs(got/48e-9-1) > 0.005 { // the issue's 0.5 %
+		t.Errorf("predicted %g, want 48 nH within 0.5 %%", got)
+	}
+	if l0, l1 := num(t, doc, "winding_length"), num(t, doc, "new_winding_length"); !(l1 > l0) {
+		t.Errorf("spread from %g to %g", l0, l1)
+	}
+	if got := num(t, doc, "measured_inductance"); got != 52e-9 {
+		t.Errorf("measured_inductance %g, want the 52 nH reading", got)
+	}
+	for _, k := range []string{"effective_diameter", "springback", "new_turns", "predicted_inductance", "trim_length_per_percent"} {
+		if num(t, doc, k) <= 0 {
+			t.Errorf("%s is not positive", k)
+		}
+	}
+	if _, ok := doc["warnings"].([]any); !ok {
+		t.Error("warnings is not an array")
+	}
+	if doc["schema"] != float64(schemaVersion) {
+		t.Error("schema missing")
+	}
+	// stray_capacitance appears with two resonances only.
+	if _, ok := doc["stray_capacitance"]; ok {
+		t.Error("stray_capacitance without a two-capacitor measurement")
+	}
+	two := trimDoc(t, "trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm",
+		"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF")
+	if c := num(t, two, "stray_capacitance"); c <= 0 || c > 20e-12 {
+		t.Errorf("stray_capacitance %g", c)
+	}
+}
+
+// The two-capacitor hand-worked example of coil/trim_test.go through the
+// command line: L = 2.2782 µH and C0 = 11.184 pF (hand calculation there).
+func TestTrimTwoCapacitorHandWorked(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	// A coil near 2.3 µH: 10 turns of 22awg close-wound on a 20 mm former.
+	doc := trimDoc(t, "trim", "--former", "20mm", "--wire", "22awg", "--turns", "10", "--leads", "10mm",
+		"--resonance", "10MHz@100pF", "--resonance", "5.2MHz@400pF")
+	const handTol = 5e-5 // five significant figures in the hand arithmetic
+	if l := num(t, doc, "measured_inductance"); math.Abs(l/2.2782e-6-1) > handTol {
+		t.Errorf("L %g, want 2.2782 µH", l)
+	}
+	if c := num(t, doc, "stray_capacitance"); math.Abs(c/11.184e-12-1) > handTol {
+		t.Errorf("C0 %g, want 11.184 pF", c)
+	}
+}
+
+// Bad input: one line naming the flag, exit 2, nothing on stdout.
+func TestTrimBadInput(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	job := filepath.Join(trimData, "job.toml")
+	coilFlags := []string{"trim", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm"}
+	tests := []struct {
+		name     string
+		args     []string
+		wantText string
+	}{
+		{"larger capacitor higher resonance", with(coilFlags, "--resonance", "98MHz@22pF", "--resonance", "120MHz@47pF"), "--resonance: the larger capacitor (47 pF) gave the same or a higher resonance"},
+		{"same capacitor twice", with(coilFlags, "--resonance", "98MHz@22pF", "--resonance", "97MHz@22pF"), "--resonance"},
+		{"no measurement", coilFlags, "give a measurement"},
+		{"two measurements", with(coilFlags, "--measured-l", "90nH", "--resonance", "98MHz@22pF"), "give one measurement"},
+		{"frequency without a capacitor", with(coilFlags, "--measured-f", "98MHz"), "--measured-f needs"},
+		{"capacitor without a frequency", with(coilFlags, "--measured-l", "90nH", "--with-cap", "22pF"), "--with-cap"},
+		{"resonance without @", with(coilFlags, "--resonance", "98MHz"), "--resonance"},
+		{"resonance with a bad unit", with(coilFlags, "--resonance", "98MHz@22nH"), "--resonance"},
+		{"frequency target without a circuit", with(coilFlags, "--measured-l", "90nH", "--target", "145MHz"), "--circuit-cap"},
+		{"target neither L nor f", with(coilFlags, "--measured-l", "90nH", "--target", "22pF"), "--target"},
+		{"fixture above the reading", with(coilFlags, "--measured-l", "90nH", "--fixture-l", "95nH"), "--fixture-l"},
+		{"reading no coil like this gives", with(coilFlags, "--measured-l", "5uH"), "--measured-l"},
+		{"reading in henries", with(coilFlags, "--measured-l", "90"), "--measured-l"},
+		{"resonance above the self-resonance", with(coilFlags, "--measured-f", "5GHz", "--with-cap", "0.1pF"), "--measured-f"},
+		{"stray with a meter", with(coilFlags, "--measured-l", "90nH", "--stray", "2pF"), "--stray"},
+		{"meter frequency with a resonance", with(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--meter-freq", "1MHz"), "--meter-freq"},
+		{"capacitor tolerance too wide", with(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--cap-tol", "80%"), "--cap-tol"},
+		{"save without a stock file", with(coilFlags, "--measured-l", "90nH", "--save"), "--save"},
+		{"sections without a tap", with(coilFlags, "--measured-l", "90nH", "--measured-bottom", "20nH"), "--tap"},
+		{"tap beyond the coil", with(coilFlags, "--measured-l", "90nH", "--tap", "9"), "--tap"},
+		{"tap ratio above one", with(coilFlags, "--measured-l", "90nH", "--tap", "1", "--tap-ratio", "1.5"), "--tap-ratio"},
+		{"job without coil", []string{"trim", "--job", job, "--measured-l", "90nH"}, "--coil"},
+		{"job and coil flags", []string{"trim", "--job", job, "--coil", "input", "--turns", "6", "--measured-l", "90nH"}, "--turns"},
+		{"coil without job", with(coilFlags, "--coil", "input", "--measured-l", "90nH"), "--job"},
+		{"unknown job coil", []string{"trim", "--job", job, "--coil", "inptu", "--measured-l", "90nH"}, "did you mean input"},
+		{"job coil is a design target", []string{"trim", "--job", job, "--coil", "middle", "--measured-l", "90nH"}, "design target"},
+		{"missing job file", []string{"trim", "--job", "nope.toml", "--coil", "input", "--measured-l", "90nH"}, "nope.toml"},
+		{"pitch below wire", with(coilFlags, "--measured-l", "90nH", "--pitch", "0.5mm"), "--pitch"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, tc.args...)
+			if code != exitBadInput {
+				t.Errorf("exit %d, want %d; stderr %q", code, exitBadInput, errOut)
+			}
+			if out != "" {
+				t.Errorf("stdout not empty: %q", out)
+			}
+			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
+				t.Errorf("error is not one line: %q", errOut)
+			}
+			if !strings.Contains(errOut, tc.wantText) {
+				t.Errorf("error %q does not say %q", errOut, tc.wantText)
+			}
+			if strings.Contains(errOut, "goroutine") || strings.Contains(errOut, "NaN") || strings.Contains(errOut, "Inf") {
+				t.Errorf("stack trace or non-finite number: %q", errOut)
+			}
+		})
+	}
+}
+
+// A target no turns change reaches is exit 3, saying what binds.
+func TestTrimInfeasible(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out, errOut, code := runCLI(t, with(vhfTrim, "--measured-l", "101nH", "--target", "5uH")...)
+	if code != exitInfeasible || out != "" || !strings.Contains(errOut, "self-resonance") {
+		t.Errorf("exit %d, stdout %q, stderr %q", code, out, errOut)
+	}
+}
+
+// copyFile copies testdata into a temporary directory with mode perm.
+func copyFile(t *testing.T, src, dst string, perm os.FileMode) []byte {
+	t.Helper()
+	b, err := os.ReadFile(src)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(dst, b, perm); err != nil {
+		t.Fatal(err)
+	}
+	return b
+}
+
+// predictDoc runs predict --json.
+func predictDoc(t *testing.T, args ...string) map[string]any {
+	t.Helper()
+	out, errOut, code := runCLI(t, with(append([]string{"predict"}, args...), "--json")...)
+	if code != exitOK {
+		t.Fatalf("predict exit %d: %s", code, errOut)
+	}
+	var doc map[string]any
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	return doc
+}
+
+// --save round trip: predict a coil with a known springback, feed its
+// inductance to trim as the reading, save; the stock file keeps its text
+// and comments, the old one is kept as .bak, and predict then uses the
+// saved springback and says so.
+func TestTrimSave(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	stock := filepath.Join(dir, "stock.toml")
+	orig := copyFile(t, filepath.Join(trimData, "stock.toml"), stock, 0o600)
+	coilArgs := []string{"--mandrel", "steel rod", "--wire", "bench copper", "--turns", "6", "--length", "11mm", "--leads", "5mm", "--stock", stock}
+
+	const sb = 0.045
+	truth := predictDoc(t, with(coilArgs, "--springback", "4.5%")...)
+	reading := num(t, truth, "inductance")
+	before := predictDoc(t, coilArgs...)
+	if before["springback_source"] != "calibration" || num(t, before, "springback") != 0.02 {
+		t.Fatalf("the test stock's own calibration (2 %%) is not in use: %v %v", before["springback_source"], before["springback"])
+	}
+
+	args := append([]string{"trim"}, with(coilArgs, "--measured-l", strconv.FormatFloat(reading*1e9, 'g', 12, 64)+"nH", "--save")...)
+	out, errOut, code := runCLI(t, args...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	for _, want := range []string{"SAVED", "springback 4.50% for steel rod and bench copper in " + stock, "kept as " + stock + ".bak", "supersedes"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("output lacks %q:\n%s", want, out)
+		}
+	}
+	got, err := os.ReadFile(stock)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.HasPrefix(got, orig) {
+		t.Error("the stock file's text and comments were not kept")
+	}
+	if !bytes.Contains(got, []byte(`springback = "4.50%"`)) {
+		t.Errorf("no saved springback in:\n%s", got)
+	}
+	if bak, err := os.ReadFile(stock + ".bak"); err != nil || !bytes.Equal(bak, orig) {
+		t.Errorf("backup: %v (equal %v)", err, bytes.Equal(bak, orig))
+	}
+	if st, err := os.Stat(stock); err != nil || st.Mode().Perm() != 0o600 {
+		t.Errorf("permissions not kept: %v %v", st.Mode(), err)
+	}
+	ents, _ := os.ReadDir(dir)
+	if len(ents) != 2 {
+		t.Errorf("files left in the directory: %v", ents)
+	}
+
+	after := predictDoc(t, coilArgs...)
+	if after["springback_source"] != "calibration" || math.Abs(num(t, after, "springback")-sb) > 0.00005 {
+		t.Errorf("predict after save: springback %v from %v, want 4.5 %% from the calibration", after["springback"], after["springback_source"])
+	}
+	if math.Abs(num(t, after, "inductance")/reading-1) > 1e-3 { // 4.50 % is saved to two decimals
+		t.Errorf("predict after save gives %g, the reading was %g", num(t, after, "inductance"), reading)
+	}
+	table, _, _ := runCLI(t, append([]string{"predict"}, coilArgs...)...)
+	if !strings.Contains(table, "4.5 % (your saved calibration: trim: meter") {
+		t.Errorf("predict does not say it uses the saved calibration:\n%s", table)
+	}
+}
+
+// --save into a file that does not exist yet creates it; a mandrel and a
+// wire given as bare sizes become rows of their own so that the next
+// predict with the same flags finds the calibration.
+func TestTrimSaveNewFile(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	stock := filepath.Join(t.TempDir(), "new.toml")
+	out, errOut, code := runCLI(t, with(trimDoneWhen, "--stock", stock, "--save")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	if strings.Contains(out, "kept as") || !strings.Contains(out, `mandrel "4.6mm rod"`) {
+		t.Errorf("a new file has no backup, and the rod is added:\n%s", out)
+	}
+	doc := predictDoc(t, "--mandrel", "4.6mm", "--wire", "1mm", "--turns", "4", "--length", "8mm", "--leads", "5mm", "--stock", stock)
+	if doc["springback_source"] != "calibration" || num(t, doc, "springback") <= 0.05 {
+		t.Errorf("predict: springback %v from %v", doc["springback"], doc["springback_source"])
+	}
+	if _, err := os.Stat(stock + ".bak"); !os.IsNotExist(err) {
+		t.Errorf("backup of a file that did not exist: %v", err)
+	}
+	// CRLF files stay CRLF.
+	crlf := filepath.Join(t.TempDir(), "crlf.toml")
+	copyFile(t, filepath.Join(trimData, "stock-crlf.toml"), crlf, 0o644)
+	if _, errOut, code := runCLI(t, "trim", "--mandrel", "steel rod", "--wire", "1mm", "--turns", "5", "--length", "9mm", "--leads", "5mm",
+		"--measured-l", "110nH", "--stock", crlf, "--save"); code != exitOK {
+		t.Fatalf("crlf: exit %d: %s", code, errOut)
+	}
+	b, _ := os.ReadFile(crlf)
+	if n := bytes.Count(b, []byte("\n")) - bytes.Count(b, []byte("\r\n")); n != 0 {
+		t.Errorf("%d bare line feeds in a CRLF file", n)
+	}
+}
+
+// A stock file turnwise cannot append to is left alone: exit 2, no
+// backup, no temporary file, and nothing on stdout.
+func TestTrimSaveRefused(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	stock := filepath.Join(dir, "inline.toml")
+	orig := copyFile(t, filepath.Join(trimData, "stock-inline.toml"), stock, 0o644)
+	out, errOut, code := runCLI(t, with(vhfTrim, "--measured-l", "97nH", "--stock", stock, "--save")...)
+	if code != exitBadInput || out != "" || !strings.Contains(errOut, "inline array") {
+		t.Errorf("exit %d, stdout %q, stderr %q", code, out, errOut)
+	}
+	if b, _ := os.ReadFile(stock); !bytes.Equal(b, orig) {
+		t.Error("the stock file changed")
+	}
+	if ents, _ := os.ReadDir(dir); len(ents) != 1 {
+		t.Errorf("files left behind: %v", ents)
+	}
+}
+
+// The parse seam: flags land in the options struct as typed values.
+func TestNewCmdTrim(t *testing.T) {
+	cmd := newTrimCmd(&globalOptions{stdout: &bytes.Buffer{}, stderr: &bytes.Buffer{}})
+	if err := cmd.ParseFlags([]string{"--resonance", "9.81MHz@100pF", "--resonance", "5.2MHz @ 400pF", "--cap-tol", "0.25pF",
+		"--target", "145MHz", "--tap-ratio", "1:4", "--meter-tol", "1%"}); err != nil {
+		t.Fatal(err)
+	}
+	// The options are reachable through the command's flags only; check
+	// their printed values.
+	for flag, want := range map[string]string{"resonance": "9.81MHz@100pF,5.2MHz @ 400pF", "cap-tol": "0.25pF", "target": "145MHz", "tap-ratio": "1:4", "meter-tol": "1%", "freq-tol": "0.1%", "tolerance": "0.5%"} {
+		if got := cmd.Flags().Lookup(flag).Value.String(); got != want {
+			t.Errorf("--%s = %q, want %q", flag, got, want)
+		}
+	}
+	o := newTrimOptions()
+	if err := o.resonances.Set("9.81MHz@100pF"); err != nil || len(o.resonances.v) != 1 || o.resonances.v[0].Frequency != 9.81e6 || o.resonances.v[0].Capacitance != 100e-12 {
+		t.Errorf("resonance flag: %+v %v", o.resonances.v, err)
+	}
+	if err := o.capTol.Set("0.25pF"); err != nil || o.capTol.abs != 0.25e-12 || o.capTol.rel != 0 {
+		t.Errorf("cap-tol: %+v %v", o.capTol, err)
+	}
+	if err := o.target.Set("48nH"); err != nil || o.target.isFreq || math.Abs(float64(o.target.l)/48e-9-1) > 1e-12 {
+		t.Errorf("target: %+v %v", o.target, err)
+	}
+}
+
+// The help's examples are real invocations: each runs and succeeds (the
+// stock file of --save goes to a temporary directory).
+func TestTrimExamplesRun(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	cmd := newTrimCmd(&globalOptions{stdout: &bytes.Buffer{}, stderr: &bytes.Buffer{}})
+	stock := filepath.Join(t.TempDir(), "stock.toml")
+	lines := strings.Split(cmd.Example, "\n")
+	if len(lines) < 2 {
+		t.Fatalf("%d examples, want at least two", len(lines))
+	}
+	for _, line := range lines {
+		args := splitShell(strings.TrimSpace(line))
+		if len(args) < 2 || args[0] != "turnwise" {
+			t.Fatalf("example %q does not start with turnwise", line)
+		}
+		for i, a := range args {
+			switch {
+			case a == "~/coils/stock.toml":
+				args[i] = stock
+			case strings.HasPrefix(a, "testdata/"):
+				args[i] = filepath.Join("..", "..", a)
+			}
+		}
+		if _, errOut, code := runCLI(t, args[1:]...); code != exitOK {
+			t.Errorf("%s: exit %d: %s", line, code, errOut)
+		}
+	}
+}
+
+// splitShell splits a command line on blanks, keeping "double quoted"
+// words together.
+func splitShell(s string) []string {
+	var out []string
+	var cur strings.Builder
+	quoted, started := false, false
+	for _, r := range s {
+		switch {
+		case r == '"':
+			quoted, started = !quoted, true
+		case r == ' ' && !quoted:
+			if started {
+				out = append(out, cur.String())
+				cur.Reset()
+				started = false
+			}
+		default:
+			cur.WriteRune(r)
+			started = true
+		}
+	}
+	if started {
+		out = append(out, cur.String())
+	}
+	return out
+}
+
+// After --save the design search uses the saved springback for that
+// mandrel and wire (through the same glue the design command calls).
+func TestTrimSaveFeedsDesignSearch(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	stock := filepath.Join(t.TempDir(), "stock.toml")
+	if _, errOut, code := runCLI(t, with(trimDoneWhen, "--stock", stock, "--save")...); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	so := newStockOptions()
+	so.path = stock
+	cat, err := so.load()
+	if err != nil {
+		t.Fatal(err)
+	}
+	saved, ok := cat.Springback("4.6mm", "1mm")
+	if !ok {
+		t.Fatal("no saved calibration")
+	}
+	res, err := runDesignSearch(cat, &designSearchOptions{Inductance: 48e-9, Leads: 5e-3, Mandrel: "4.6mm", Wires: []string{"1mm"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(res.Candidates) == 0 {
+		t.Fatal("no candidates")
+	}
+	c := res.Candidates[0]
+	if c.SpringbackSource != "calibration" || c.Support.Springback != saved.Springback {
+		t.Errorf("design uses springback %g from %q, want the saved %g", c.Support.Springback, c.SpringbackSource, saved.Springback)
+	}
+}

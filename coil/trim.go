@@ -1,0 +1,233 @@
+package coil
+
+import (
+	"errors"
+	"math"
+
+	"gonum.org/v1/gonum/unit"
+)
+
+// Trimming a built coil: a measurement (trim_measure.go) says what the coil
+// is; Calibrate finds the springback — the effective diameter — that makes
+// the model agree with it; Correct (trim_correct.go) finds the squeeze,
+// spread or turns change that brings the calibrated coil to a target.
+//
+// Which model value a reading is compared with:
+//
+//   - a meter reading at low frequency: the terminal inductance at DC
+//     (coil + leads, full internal inductance); self-capacitance is
+//     negligible far below the self-resonance;
+//   - a meter reading at a stated test frequency, or one resonance: the
+//     effective inductance at that frequency, which includes the coil's
+//     Medhurst self-capacitance and the skin effect at that frequency. A
+//     resonance with C_total across the terminals satisfies
+//     ω²·L_eff(ω)·C_total = 1, so 1/(ω²C_total) is L_eff;
+//   - the two-capacitor method: its line already separates the capacitance
+//     across the coil (self-capacitance included) from L, so the slope is
+//     compared with the terminal inductance at the readings' frequency,
+//     without the model's self-capacitance — counting it again would
+//     count it twice.
+
+// sense is a way of reading the model: the inductance at f, with or
+// without the self-capacitance.
+type sense struct {
+	freq      unit.Frequency
+	effective bool
+}
+
+func (r Reading) sense() sense { return sense{r.Frequency, r.Effective} }
+
+// of evaluates the model for g in this sense.
+func (s sense) of(g Geometry) (float64, error) {
+	p, err := Predict(g, s.freq)
+	if err != nil {
+		return 0, err
+	}
+	if s.effective {
+		return float64(p.InductanceEffective), nil
+	}
+	return float64(p.Inductance), nil
+}
+
+// Calibration is what a measurement says about the coil as built.
+type Calibration struct {
+	Reading Reading
+	// Geometry is the coil as built (its own leads, no fixture) with the
+	// fitted springback.
+	Geometry Geometry
+	// Springback is the fitted springback: the one that makes the model
+	// agree with the reading. It stands for everything the model does not
+	// see (the bore's real growth, lead bends, uneven pitch), folded into
+	// one effective diameter.
+	Springback float64
+	// SpringbackLow and SpringbackHigh are the fits at the ends of the
+	// reading's uncertainty band (clamped to MinSpringback … MaxSpringback).
+	SpringbackLow, SpringbackHigh float64
+	// EffectiveDiameter is the wire-centre diameter D = D_f·(1+s) + d_o
+	// with the fitted springback.
+	EffectiveDiameter unit.Length
+	// ModelBefore is the model's value, in the reading's sense, for the
+	// coil as specified (its given springback) — what it expected to read.
+	ModelBefore unit.Inductance
+	// Measured is the coil's terminal inductance (its own leads, no
+	// fixture, no self-capacitance) at the reading's frequency, as the
+	// calibrated model gives it.
+	Measured unit.Inductance
+	// Residual is the relative difference between the calibrated model and
+	// the reading (model/reading − 1); with one reading and one unknown it
+	// is zero to the solver's precision.
+	Residual float64
+	// SelfCapacitance is Medhurst's self-capacitance of the calibrated coil.
+	SelfCapacitance unit.Capacitance
+	// MeasuredSelfCapacitance (two-capacitor method only) is the measured
+	// total capacitance across the coil less the given fixture stray: a
+	// check of Medhurst's figure. Zero otherwise.
+	MeasuredSelfCapacitance unit.Capacitance
+}
+
+// Calibrate reduces the measurement of the coil g (its Springback the
+// builder's assumption) and fits the springback that makes the model
+// agree. A reading no springback in MinSpringback … MaxSpringback can
+// explain is an *InputError: the coil description or the reading is wrong.
+func Calibrate(g Geometry, m Measurement) (Calibration, error) {
+	var c Calibration
+	if err := g.Validate(); err != nil {
+		return c, err
+	}
+	r, err := m.Reduce()
+	if err != nil {
+		return c, err
+	}
+	c.Reading = r
+	gm := g
+	gm.LeadLength += m.FixtureLeadLength
+	if err := gm.Validate(); err != nil {
+		return c, inputErrorf("fixture_lead_length", "the leads with the fixture's wire are too long: %v", err)
+	}
+	sn := r.sense()
+	before, err := sn.of(gm)
+	if err != nil {
+		return c, readingError(r, err)
+	}
+	c.ModelBefore = unit.Inductance(before)
+
+	want := float64(r.Inductance)
+	s, err := fitSpringback(gm, sn, want)
+	if err != nil {
+		return c, err
+	}
+	c.Springback = s
+	c.SpringbackLow = fitSpringbackClamped(gm, sn, want*(1-r.Uncertainty))
+	c.SpringbackHigh = fitSpringbackClamped(gm, sn, want*(1+r.Uncertainty))
+
+	gm.Springback = s
+	got, err := sn.of(gm)
+	if err != nil {
+		return c, readingError(r, err)
+	}
+	c.Residual = got/want - 1
+
+	cal := g
+	cal.Springback = s
+	c.Geometry = cal
+	c.EffectiveDiameter = cal.MeanDiameter()
+	p, err := Predict(cal, r.Frequency)
+	if err != nil {
+		return c, readingError(r, err)
+	}
+	c.Measured = p.Inductance
+	c.SelfCapacitance = p.SelfCapacitance
+	if r.Kind == MeasureTwoCapacitor {
+		c.MeasuredSelfCapacitance = r.TotalStray - m.Stray
+	}
+	return c, nil
+}
+
+// readingError explains a model failure at the reading's frequency.
+func readingError(r Reading, err error) error {
+	var ie *InputError
+	if errors.As(err, &ie) && ie.Param == "frequency" {
+		return inputErrorf("resonance", "the reading at %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use it; measure with a larger capacitor (a lower frequency)", fmtHz(float64(r.Frequency)))
+	}
+	return err
+}
+
+// springbackValue evaluates the model at springback s; a frequency at or
+// above the self-resonance (large s) counts as +Inf, where the apparent
+// inductance is heading.
+func springbackValue(g Geometry, sn sense, s float64) float64 {
+	g.Springback = s
+	v, err := sn.of(g)
+	if err != nil {
+		return math.Inf(1)
+	}
+	return v
+}
+
+// fitSpringback solves model(s) = want for s; the model grows with s (a
+// larger diameter, more inductance and self-capacitance).
+func fitSpringback(g Geometry, sn sense, want float64) (float64, error) {
+	return bisectSpringback(func(s float64) float64 { return springbackValue(g, sn, s) }, want, "measured_inductance")
+}
+
+// bisectSpringback solves value(s) = want for s in MinSpringback …
+// MaxSpringback, value rising with s. A want outside the range is an
+// *InputError for param.
+func bisectSpringback(value func(s float64) float64, want float64, param string) (float64, error) {
+	lo, hi := MinSpringback, MaxSpringback
+	vlo, vhi := value(lo), value(hi)
+	if want < vlo {
+		return 0, inputErrorf(param, "%s is less than this coil can be even if its bore were 20 %% smaller than the mandrel (%s): check the turns, length and leads, and the reading's unit",
+			fmtH(want), fmtH(vlo))
+	}
+	if want > vhi {
+		return 0, inputErrorf(param, "%s is more than this coil can be even with 50 %% springback (%s): check the turns, length and leads, and the reading's unit",
+			fmtH(want), fmtH(vhi))
+	}
+	for range 100 {
+		mid := (lo + hi) / 2
+		if value(mid) < want {
+			lo = mid
+		} else {
+			hi = mid
+		}
+		if hi-lo < 1e-13 {
+			break
+		}
+	}
+	return (lo + hi) / 2, nil
+}
+
+// fitSpringbackClamped is fitSpringback held to the springback limits.
+func fitSpringbackClamped(g Geometry, sn sense, want float64) float64 {
+	s, err := fitSpringback(g, sn, want)
+	if err == nil {
+		return s
+	}
+	if want < springbackValue(g, sn, MinSpringback) {
+		return MinSpringback
+	}
+	return MaxSpringback
+}
+
+// TrimTarget is the inductance a trim aims for, read in one sense of the
+// model: the terminal inductance at Frequency (zero for low frequency) or,
+// when Effective, the effective inductance there (self-capacitance
+// included), which is what a resonance with a fixed capacitor depends on.
+type TrimTarget struct {
+	Inductance unit.Inductance
+	Frequency  unit.Frequency
+	Effective  bool
+}
+
+// ResonanceTarget is the target that makes a coil resonate at f with c
+// across its terminals: an effective inductance of 1/(ω²c) at f.
+func ResonanceTarget(f unit.Frequency, c unit.Capacitance) TrimTarget {
+	return TrimTarget{Inductance: InductanceForResonance(f, c), Frequency: f, Effective: true}
+}
+
+// Of is the model's value for g in the target's sense.
+func (t TrimTarget) Of(g Geometry) (unit.Inductance, error) {
+	v, err := sense{t.Frequency, t.Effective}.of(g)
+	return unit.Inductance(v), err
+}

@@ -1,0 +1,417 @@
+package coil
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/unit"
+)
+
+// Action is the change a correction asks of the builder.
+type Action int
+
+const (
+	ActionNone Action = iota
+	ActionSqueeze
+	ActionSpread
+	ActionAddTurns
+	ActionRemoveTurns
+)
+
+// String is the JSON name: none, squeeze, spread, add_turns, remove_turns.
+func (a Action) String() string {
+	return [...]string{"none", "squeeze", "spread", "add_turns", "remove_turns"}[a]
+}
+
+// CorrectOptions tune Correct.
+type CorrectOptions struct {
+	// Tolerance is the relative miss accepted as on target: a coil within
+	// it is left alone, and a rounded length must land within it.
+	Tolerance float64
+	// LengthSteps are the resolutions the builder can set an outside
+	// length to, coarsest first (e.g. 0.1 mm, 0.05 mm, 0.02 mm, 0.01 mm).
+	// The first whose rounding keeps the prediction within Tolerance is
+	// used, else the last. Empty: the exact length.
+	LengthSteps []unit.Length
+}
+
+// Correction is the change that brings a calibrated coil to its target.
+type Correction struct {
+	Action Action
+	// Target, Before and After are in the target's sense: the aim, the
+	// coil as built, and the coil after the change.
+	Target, Before, After unit.Inductance
+	// Geometry is the coil after the change (turns and pitch).
+	Geometry Geometry
+	// LengthBefore and LengthAfter are outside winding lengths.
+	LengthBefore, LengthAfter unit.Length
+	// LengthStep is the resolution LengthAfter was rounded to; zero when
+	// exact.
+	LengthStep unit.Length
+	// WindowLeast and WindowMost are what squeezing and spreading can
+	// reach with the coil's present turns (see Window), in the target's
+	// sense.
+	WindowLeast, WindowMost unit.Inductance
+	// LengthPerPercent is the length change per 1 % of inductance around
+	// the corrected coil, for the final touch (see LengthPerPercent).
+	LengthPerPercent unit.Length
+}
+
+// infeasibleError is a valid request no coil meets; errors.Is finds
+// ErrInfeasible.
+type infeasibleError struct{ msg string }
+
+func (e *infeasibleError) Error() string        { return e.msg }
+func (e *infeasibleError) Is(target error) bool { return target == ErrInfeasible }
+
+// windowPitches are the tightest and loosest pitch of the squeeze/spread
+// window, as Window defines them: close-wound, and LoosestPitchFactor·d_o
+// or the present pitch if that is looser.
+func windowPitches(g Geometry) (tight, loose float64) {
+	do := g.overall()
+	return do, math.Max(LoosestPitchFactor*do, float64(g.Pitch))
+}
+
+// Correct finds, for the calibrated coil g, the change that brings it to
+// t, in the order a builder prefers: leave it (within Tolerance); squeeze
+// or spread to a new outside length inside the window; else add or remove
+// quarter turns, with the new length. A target no number of turns reaches
+// (the self-resonance falls below the target's frequency first, or even
+// one turn is too much) wraps ErrInfeasible.
+func Correct(g Geometry, t TrimTarget, opt CorrectOptions) (Correction, error) {
+	var c Correction
+	if err := g.Validate(); err != nil {
+		return c, err
+	}
+	if tl := float64(t.Inductance); !finite(tl) || tl <= 0 {
+		return c, inputErrorf("target", "must be a positive inductance, e.g. 48nH")
+	}
+	if !finite(opt.Tolerance) || opt.Tolerance < 0 || opt.Tolerance > 0.5 {
+		return c, inputErrorf("tolerance", "%.3g %% is outside 0 … 50 %%", opt.Tolerance*100)
+	}
+	want := float64(t.Inductance)
+	before, err := t.Of(g)
+	if err != nil {
+		return c, err
+	}
+	tight, loose := windowPitches(g)
+	most, err := t.Of(withPitch(g, tight))
+	if err != nil {
+		return c, err
+	}
+	least, err := t.Of(withPitch(g, loose))
+	if err != nil {
+		return c, err
+	}
+	c.Target, c.Before = t.Inductance, before
+	c.WindowLeast, c.WindowMost = least, most
+	c.LengthBefore = g.WindingLength()
+	c.Geometry, c.After, c.LengthAfter = g, before, c.LengthBefore
+
+	switch {
+	case math.Abs(float64(before)/want-1) <= opt.Tolerance:
+		c.Action = ActionNone
+	case want <= float64(most) && want >= float64(least):
+		c.set(solvePitch(g, t, opt))
+		c.After, err = t.Of(c.Geometry)
+		if err != nil {
+			return c, err
+		}
+		switch {
+		case c.LengthAfter < c.LengthBefore:
+			c.Action = ActionSqueeze
+		case c.LengthAfter > c.LengthBefore:
+			c.Action = ActionSpread
+		default:
+			// The nearest settable length is the present one.
+			c.Action = ActionNone
+		}
+	default:
+		n, err := findTurns(g, t, want > float64(most))
+		if err != nil {
+			return c, err
+		}
+		c.set(solvePitch(rewound(g, n), t, opt))
+		c.After, err = t.Of(c.Geometry)
+		if err != nil {
+			return c, err
+		}
+		c.Action = ActionRemoveTurns
+		if n > g.Turns {
+			c.Action = ActionAddTurns
+		}
+	}
+	if c.Action == ActionNone {
+		c.Geometry, c.After, c.LengthAfter, c.LengthStep = g, before, c.LengthBefore, 0
+	}
+	dl, err := LengthPerPercent(c.Geometry, t.Frequency)
+	if err == nil {
+		c.LengthPerPercent = dl
+	}
+	return c, nil
+}
+
+// set records the corrected geometry and the length step it was rounded to.
+func (c *Correction) set(ng Geometry, step unit.Length) {
+	c.Geometry, c.LengthStep = ng, step
+	c.LengthAfter = ng.WindingLength()
+}
+
+// rewound is g wound again with n turns: its pitch is brought inside the
+// standard window (a new winding starts from LoosestPitchFactor·d_o at
+// most, whatever the old one was).
+func rewound(g Geometry, n float64) Geometry {
+	g.Turns = n
+	do := g.overall()
+	g.Pitch = unit.Length(math.Max(do, math.Min(float64(g.Pitch), LoosestPitchFactor*do)))
+	return g
+}
+
+func withPitch(g Geometry, p float64) Geometry {
+	g.Pitch = unit.Length(p)
+	return g
+}
+
+// valueAtPitch evaluates the target's sense at pitch p; a model failure
+// (the frequency above the self-resonance) counts as +Inf.
+func valueAtPitch(g Geometry, t TrimTarget, p float64) float64 {
+	v, err := t.Of(withPitch(g, p))
+	if err != nil {
+		return math.Inf(1)
+	}
+	return float64(v)
+}
+
+// solvePitch finds the pitch within g's window that brings g to t (the
+// nearest end when t is outside it), then rounds the outside length to the
+// coarsest of opt.LengthSteps that keeps the prediction within
+// opt.Tolerance, and returns the step used (zero for exact).
+func solvePitch(g Geometry, t TrimTarget, opt CorrectOptions) (Geometry, unit.Length) {
+	want := float64(t.Inductance)
+	tight, loose := windowPitches(g)
+	lo, hi := tight, loose // value falls from lo to hi
+	switch {
+	case valueAtPitch(g, t, lo) <= want:
+		return withPitch(g, lo), 0
+	case valueAtPitch(g, t, hi) >= want:
+		return withPitch(g, hi), 0
+	}
+	for range 100 {
+		mid := (lo + hi) / 2
+		if valueAtPitch(g, t, mid) > want {
+			lo = mid
+		} else {
+			hi = mid
+		}
+		if hi-lo < 1e-12*loose {
+			break
+		}
+	}
+	exact := withPitch(g, (lo+hi)/2)
+	if g.Turns <= 1 || len(opt.LengthSteps) == 0 {
+		return exact, 0
+	}
+	// Round the outside length, keeping the pitch inside the window.
+	do := g.overall()
+	minLen, maxLen := g.Turns*do, (g.Turns-1)*loose+do
+	ex := float64(exact.WindingLength())
+	best, bestStep := exact, unit.Length(0)
+	for i, step := range opt.LengthSteps {
+		st := float64(step)
+		if !(st > 0) {
+			continue
+		}
+		l := math.Round(ex/st) * st
+		if l < minLen*(1-1e-12) {
+			l = math.Ceil(minLen/st-1e-9) * st
+		}
+		if l > maxLen*(1+1e-12) {
+			l = math.Floor(maxLen/st+1e-9) * st
+		}
+		if l < minLen*(1-1e-12) || l > maxLen*(1+1e-12) {
+			continue // the window is narrower than the step
+		}
+		rg := withPitch(g, math.Max((l-do)/(g.Turns-1), do))
+		v, err := t.Of(rg)
+		if err != nil {
+			continue
+		}
+		best, bestStep = rg, step
+		if math.Abs(float64(v)/want-1) <= opt.Tolerance || i == len(opt.LengthSteps)-1 {
+			break
+		}
+	}
+	return best, bestStep
+}
+
+// findTurns returns the quarter-turn count nearest g's whose window
+// reaches t: more turns when more is set, fewer otherwise.
+func findTurns(g Geometry, t TrimTarget, more bool) (float64, error) {
+	want := float64(t.Inductance)
+	tight, _ := windowPitches(g)
+	withTurns := func(n float64) Geometry { return rewound(g, n) }
+	// reaches reports whether n turns can reach the target from the side
+	// it lies on: close-wound gives at least want (more), or the loosest
+	// pitch at most want (fewer).
+	reaches := func(n float64) (bool, error) {
+		h := withTurns(n)
+		if more {
+			v, err := t.Of(withPitch(h, tight))
+			if err != nil {
+				return false, err
+			}
+			return float64(v) >= want, nil
+		}
+		_, loose := windowPitches(h)
+		v, err := t.Of(withPitch(h, loose))
+		if err != nil {
+			return false, err
+		}
+		return float64(v) <= want, nil
+	}
+	q0 := math.Round(g.Turns * 4)
+	if more {
+		// Exponential then binary search over quarter turns.
+		lastBad := q0
+		step := 1.0
+		var q float64
+		for {
+			q = q0 + step
+			if q > MaxTurns*4 {
+				q = MaxTurns * 4
+			}
+			ok, err := reaches(q / 4)
+			if err != nil {
+				return 0, &infeasibleError{fmt.Sprintf("the target %s needs more turns than %s, and with %g turns the coil's self-resonance is already too close to %s; use a larger diameter, which needs fewer turns",
+					fmtH(want), fmtTurnsPlain(g.Turns), q/4, fmtHz(float64(t.Frequency)))}
+			}
+			if ok {
+				break
+			}
+			if q == MaxTurns*4 {
+				return 0, &infeasibleError{fmt.Sprintf("the target %s is out of reach: even %d close-wound turns are not enough", fmtH(want), MaxTurns)}
+			}
+			lastBad = q
+			step *= 2
+		}
+		lo, hi := lastBad, q // lo fails, hi reaches
+		for hi-lo > 1 {
+			mid := math.Floor((lo + hi) / 2)
+			ok, err := reaches(mid / 4)
+			if err == nil && ok {
+				hi = mid
+			} else {
+				lo = mid
+			}
+		}
+		return hi / 4, nil
+	}
+	// Fewer turns: the value falls with n, so search down to one turn.
+	if ok, err := reaches(1); err != nil || !ok {
+		_, loose := windowPitches(withTurns(1))
+		v, _ := t.Of(withPitch(withTurns(1), loose))
+		return 0, &infeasibleError{fmt.Sprintf("the target %s is below what a single turn of this wire on this diameter gives (%s at its loosest): use a smaller diameter",
+			fmtH(want), fmtH(float64(v)))}
+	}
+	lo, hi := 4.0, q0 // lo reaches, hi does not
+	for hi-lo > 1 {
+		mid := math.Ceil((lo + hi) / 2)
+		ok, err := reaches(mid / 4)
+		if err == nil && ok {
+			lo = mid
+		} else {
+			hi = mid
+		}
+	}
+	return lo / 4, nil
+}
+
+// fmtTurnsPlain prints turns for messages.
+func fmtTurnsPlain(n float64) string { return fmt.Sprintf("%g", n) }
+
+// Expected is what the next measurement, made the same way, should read.
+type Expected struct {
+	// Inductance (MeasureDirect) is the meter's reading, fixture included.
+	Inductance unit.Inductance
+	// Resonances are the frequencies expected with the same capacitors.
+	Resonances []Resonance
+}
+
+// ExpectedReading predicts the reading of m on the coil g (calibrated and
+// corrected), given the calibration cal that came from m.
+func ExpectedReading(g Geometry, cal Calibration, m Measurement) (Expected, error) {
+	var e Expected
+	gm := g
+	gm.LeadLength += m.FixtureLeadLength
+	r := cal.Reading
+	switch m.Kind {
+	case MeasureDirect:
+		v, err := r.sense().of(gm)
+		if err != nil {
+			return e, err
+		}
+		e.Inductance = unit.Inductance(v) + m.FixtureInductance
+	case MeasureResonance, MeasureInCircuit:
+		res := m.Resonances[0]
+		f, err := ResonanceWith(gm, r.Capacitance)
+		if err != nil {
+			return e, err
+		}
+		e.Resonances = []Resonance{{Frequency: f, Capacitance: res.Capacitance}}
+	case MeasureTwoCapacitor:
+		p, err := Predict(gm, r.Frequency)
+		if err != nil {
+			return e, err
+		}
+		// The measured total stray, with the self-capacitance's change.
+		c0 := float64(r.TotalStray) + float64(p.SelfCapacitance) - float64(cal.SelfCapacitance)
+		for _, res := range m.Resonances {
+			e.Resonances = append(e.Resonances, Resonance{
+				Frequency:   ResonantFrequency(p.Inductance, res.Capacitance+unit.Capacitance(c0)),
+				Capacitance: res.Capacitance,
+			})
+		}
+	}
+	return e, nil
+}
+
+// ResonanceWith is the frequency at which the coil g resonates with c
+// across its terminals: the root of ω²·L_eff(ω)·c = 1, with the model's
+// effective inductance (leads, skin effect and self-capacitance at ω). The
+// effective inductance grows with frequency, so the root is unique below
+// the self-resonance; a c too small to resonate below 90 % of it is an
+// *InputError.
+func ResonanceWith(g Geometry, capacitance unit.Capacitance) (unit.Frequency, error) {
+	c := float64(capacitance)
+	if !finite(c) || c <= 0 {
+		return 0, inputErrorf("capacitance", "must be positive, e.g. 22pF")
+	}
+	p0, err := Predict(g, 0)
+	if err != nil {
+		return 0, err
+	}
+	h := func(f float64) float64 {
+		p, err := Predict(g, unit.Frequency(f))
+		if err != nil {
+			return math.Inf(1)
+		}
+		return f - 1/(twoPi*math.Sqrt(float64(p.InductanceEffective)*c))
+	}
+	hi := 0.9 * float64(p0.SRF)
+	lo := 0.5 / (twoPi * math.Sqrt(float64(p0.Inductance)*c))
+	if lo >= hi || h(hi) < 0 {
+		return 0, inputErrorf("resonance", "%s across this coil does not resonate below 90 %% of its self-resonance; use a larger capacitor", fmtF(c))
+	}
+	for range 200 {
+		mid := (lo + hi) / 2
+		if h(mid) < 0 {
+			lo = mid
+		} else {
+			hi = mid
+		}
+		if hi-lo < 1e-12*hi {
+			break
+		}
+	}
+	return unit.Frequency((lo + hi) / 2), nil
+}

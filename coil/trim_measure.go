@@ -1,0 +1,382 @@
+package coil
+
+import (
+	"fmt"
+	"math"
+	"slices"
+
+	"gonum.org/v1/gonum/unit"
+)
+
+// MeasurementKind is how a built coil was measured.
+type MeasurementKind int
+
+const (
+	// MeasureDirect is an inductance meter's reading.
+	MeasureDirect MeasurementKind = iota + 1
+	// MeasureResonance is one resonance with a known capacitor across the
+	// coil in a test fixture (grid-dip meter, signal generator and probe).
+	MeasureResonance
+	// MeasureInCircuit is the resonance of the coil in the circuit it was
+	// designed for, with that circuit's capacitance.
+	MeasureInCircuit
+	// MeasureTwoCapacitor is two or more resonances with different known
+	// capacitors, which give both L and the total capacitance already
+	// across the coil (fixture stray plus the coil's self-capacitance).
+	MeasureTwoCapacitor
+)
+
+// String is the name used in JSON: direct, resonance, in_circuit,
+// two_capacitor.
+func (k MeasurementKind) String() string {
+	switch k {
+	case MeasureDirect:
+		return "direct"
+	case MeasureResonance:
+		return "resonance"
+	case MeasureInCircuit:
+		return "in_circuit"
+	case MeasureTwoCapacitor:
+		return "two_capacitor"
+	}
+	return "unknown"
+}
+
+// Resonance is one reading: the coil resonated at Frequency with
+// Capacitance across its terminals.
+type Resonance struct {
+	Frequency   unit.Frequency
+	Capacitance unit.Capacitance
+}
+
+// Measurement is what the builder read, with the accuracy of each
+// instrument. Tolerances are bands (a part's tolerance class, a meter's
+// stated accuracy), combined root-sum-square as independent errors; zero
+// means exact.
+type Measurement struct {
+	Kind MeasurementKind
+
+	// Inductance is the meter's reading (MeasureDirect).
+	Inductance unit.Inductance
+	// TestFrequency is the meter's test frequency; zero when it is low
+	// (kHz) or unknown. A reading at a stated frequency includes the
+	// coil's self-capacitance, as the effective inductance does.
+	TestFrequency unit.Frequency
+	// FixtureInductance is subtracted from the reading: the meter's reading
+	// with its clips shorted together (common practice).
+	FixtureInductance unit.Inductance
+	// MeterTolerance is the meter's relative accuracy.
+	MeterTolerance float64
+
+	// Resonances: one for MeasureResonance and MeasureInCircuit, two or
+	// more with at least two different capacitors for MeasureTwoCapacitor.
+	Resonances []Resonance
+	// Stray is capacitance across the coil besides the known capacitor:
+	// fixture wiring, a probe, a dip meter's loop. For MeasureTwoCapacitor
+	// it is not needed (the method measures it together with the
+	// self-capacitance); when given it is subtracted from the measured
+	// total to compare the coil's self-capacitance with Medhurst's.
+	Stray unit.Capacitance
+	// StrayTolerance is the uncertainty of Stray in farads.
+	StrayTolerance unit.Capacitance
+	// CapacitorTolerance is the known capacitors' relative tolerance;
+	// CapacitorToleranceAbs, when set, is an absolute one (small
+	// capacitors are specified as ±0.25 pF, ±0.5 pF) and the larger of the
+	// two applies to each capacitor.
+	CapacitorTolerance    float64
+	CapacitorToleranceAbs unit.Capacitance
+	// FrequencyTolerance is the frequency reading's relative accuracy.
+	FrequencyTolerance float64
+
+	// FixtureLeadLength is extra straight wire on each lead between the
+	// coil's solder points and the instrument during the measurement; the
+	// model adds it to the leads when it compares.
+	FixtureLeadLength unit.Length
+}
+
+// Reading is a measurement reduced to one inductance with its uncertainty.
+type Reading struct {
+	Kind MeasurementKind
+	// Inductance is what the measurement says about the coil: the meter's
+	// reading less the fixture, 1/(ω²C) for a resonance, or the slope of
+	// the two-capacitor line.
+	Inductance unit.Inductance
+	// Uncertainty is relative, from the instrument tolerances.
+	Uncertainty float64
+	// Frequency is where the reading applies; zero for a low-frequency
+	// meter reading. For the two-capacitor method it is the geometric
+	// mean of the resonances.
+	Frequency unit.Frequency
+	// Effective reports that Inductance includes the coil's
+	// self-capacitance (the apparent inductance at Frequency, as a meter
+	// or a single resonance sees it). The two-capacitor method measures
+	// the self-capacitance separately, so its inductance is the terminal
+	// inductance without it.
+	Effective bool
+	// Capacitance is the total capacitance the coil resonated with in a
+	// single-resonance reading: the known capacitor plus Stray.
+	Capacitance unit.Capacitance
+	// TotalStray (MeasureTwoCapacitor) is the capacitance already across
+	// the coil: fixture stray plus the coil's self-capacitance, with its
+	// uncertainty in farads.
+	TotalStray            unit.Capacitance
+	TotalStrayUncertainty unit.Capacitance
+	// FitResidual (MeasureTwoCapacitor, three or more resonances) is the
+	// rms relative deviation of the resonances from the fitted line.
+	FitResidual float64
+}
+
+// Reduce turns the measurement into an inductance. Inconsistent or
+// impossible readings return an *InputError naming the field:
+// "measured_inductance", "fixture_inductance", "resonance", "stray",
+// "tolerance".
+func (m Measurement) Reduce() (Reading, error) {
+	if err := m.validateTolerances(); err != nil {
+		return Reading{}, err
+	}
+	switch m.Kind {
+	case MeasureDirect:
+		return m.reduceDirect()
+	case MeasureResonance, MeasureInCircuit:
+		return m.reduceResonance()
+	case MeasureTwoCapacitor:
+		return m.reduceLine()
+	}
+	return Reading{}, inputErrorf("measurement", "no measurement given: give an inductance reading or a resonance")
+}
+
+func (m *Measurement) validateTolerances() error {
+	for _, t := range []struct {
+		name string
+		v    float64
+		max  float64
+	}{
+		{"meter", m.MeterTolerance, 0.5},
+		{"capacitor", m.CapacitorTolerance, 0.5},
+		{"frequency", m.FrequencyTolerance, 0.2},
+	} {
+		if !finite(t.v) || t.v < 0 || t.v > t.max {
+			return inputErrorf("tolerance", "%s tolerance %.3g %% is outside 0 … %g %%", t.name, t.v*100, t.max*100)
+		}
+	}
+	for _, c := range []struct {
+		name string
+		v    unit.Capacitance
+	}{{"capacitor", m.CapacitorToleranceAbs}, {"stray", m.StrayTolerance}} {
+		if !finite(float64(c.v)) || c.v < 0 || c.v > 1e-6 {
+			return inputErrorf("tolerance", "%s tolerance %s is not a sensible capacitance", c.name, fmtF(float64(c.v)))
+		}
+	}
+	if !finite(float64(m.Stray)) || m.Stray < 0 || m.Stray > 1e-6 {
+		return inputErrorf("stray", "must be zero or a small positive capacitance, e.g. 2pF")
+	}
+	if fl := float64(m.FixtureLeadLength); !finite(fl) || fl < 0 || fl > MaxLeadLength {
+		return inputErrorf("fixture_lead_length", "must be zero or a length up to %s", mm(MaxLeadLength))
+	}
+	return nil
+}
+
+// capSigma is the uncertainty of one known capacitor.
+func (m *Measurement) capSigma(c float64) float64 {
+	return math.Max(m.CapacitorTolerance*c, float64(m.CapacitorToleranceAbs))
+}
+
+func (m *Measurement) reduceDirect() (Reading, error) {
+	l, fix := float64(m.Inductance), float64(m.FixtureInductance)
+	switch {
+	case !finite(l) || l <= 0:
+		return Reading{}, inputErrorf("measured_inductance", "must be a positive inductance, e.g. 52nH")
+	case l > 1:
+		return Reading{}, inputErrorf("measured_inductance", "%s is not the reading of a single-layer air coil; check the unit (nH, uH)", fmtH(l))
+	case !finite(fix) || fix < 0:
+		return Reading{}, inputErrorf("fixture_inductance", "must be zero or positive: the meter's reading with its clips shorted")
+	case fix >= l:
+		return Reading{}, inputErrorf("fixture_inductance", "%s is not less than the reading %s: the fixture allowance is the meter's reading with its clips shorted together, well below the coil's",
+			fmtH(fix), fmtH(l))
+	}
+	if f := float64(m.TestFrequency); !finite(f) || f < 0 || f > MaxFrequency {
+		return Reading{}, inputErrorf("test_frequency", "must be between 0 and 10 GHz, e.g. 1MHz")
+	}
+	net := l - fix
+	return Reading{
+		Kind:        MeasureDirect,
+		Inductance:  unit.Inductance(net),
+		Uncertainty: m.MeterTolerance * l / net,
+		Frequency:   m.TestFrequency,
+		Effective:   m.TestFrequency > 0,
+	}, nil
+}
+
+func (m *Measurement) checkResonance(i int, r Resonance) error {
+	f, c := float64(r.Frequency), float64(r.Capacitance)
+	switch {
+	case !finite(f) || f <= 0 || f > MaxFrequency:
+		return inputErrorf("resonance", "reading %d: the frequency must be between 0 and 10 GHz, e.g. 9.81MHz", i+1)
+	case !finite(c) || c <= 0 || c > 1e-3:
+		return inputErrorf("resonance", "reading %d: the capacitance must be positive, e.g. 100pF", i+1)
+	}
+	return nil
+}
+
+func (m *Measurement) reduceResonance() (Reading, error) {
+	if len(m.Resonances) != 1 {
+		return Reading{}, inputErrorf("resonance", "a single-resonance measurement takes one reading, got %d", len(m.Resonances))
+	}
+	r := m.Resonances[0]
+	if err := m.checkResonance(0, r); err != nil {
+		return Reading{}, err
+	}
+	f := float64(r.Frequency)
+	c := float64(r.Capacitance) + float64(m.Stray)
+	sc := math.Hypot(m.capSigma(float64(r.Capacitance)), float64(m.StrayTolerance))
+	w := twoPi * f
+	return Reading{
+		Kind:        m.Kind,
+		Inductance:  unit.Inductance(1 / (w * w * c)),
+		Uncertainty: math.Hypot(2*m.FrequencyTolerance, sc/c),
+		Frequency:   r.Frequency,
+		Effective:   true,
+		Capacitance: unit.Capacitance(c),
+	}, nil
+}
+
+// reduceLine is the two-capacitor method. At resonance with a known C and
+// a fixed unknown C0 already across the coil (fixture stray and the coil's
+// self-capacitance),
+//
+//	1/ω² = L·C + L·C0,
+//
+// a straight line in C: its slope is L and its intercept on the C axis is
+// −C0. Two readings give both; more are fitted by least squares. The
+// method is common practice for measuring a coil's self-capacitance
+// (described, from memory, in F. E. Terman, Radio Engineers' Handbook,
+// McGraw-Hill, 1943, under the distributed capacitance of coils).
+func (m *Measurement) reduceLine() (Reading, error) {
+	rs := m.Resonances
+	if len(rs) < 2 {
+		return Reading{}, inputErrorf("resonance", "the two-capacitor method needs two readings with different capacitors, got %d", len(rs))
+	}
+	for i, r := range rs {
+		if err := m.checkResonance(i, r); err != nil {
+			return Reading{}, err
+		}
+	}
+	// A larger capacitor always tunes lower: any pair that does not is a
+	// reading paired with the wrong capacitor, or a wrong value.
+	distinct := false
+	for i := range rs {
+		for j := range rs {
+			ci, cj := rs[i].Capacitance, rs[j].Capacitance
+			if ci < cj {
+				distinct = true
+				if rs[i].Frequency <= rs[j].Frequency {
+					return Reading{}, inputErrorf("resonance", "the larger capacitor (%s) gave the same or a higher resonance (%s) than the smaller one (%s at %s); a larger capacitor always tunes lower: check which reading goes with which capacitor",
+						fmtF(float64(cj)), fmtHz(float64(rs[j].Frequency)), fmtF(float64(ci)), fmtHz(float64(rs[i].Frequency)))
+				}
+			}
+		}
+	}
+	if !distinct {
+		return Reading{}, inputErrorf("resonance", "all readings use the same capacitance (%s); the method needs two different capacitors, ideally 1:4 apart",
+			fmtF(float64(rs[0].Capacitance)))
+	}
+	l, c0, resid := fitLine(rs)
+
+	// Uncertainty: move each input by its tolerance, one at a time, and
+	// add the changes root-sum-square.
+	var varL, varC0 float64
+	work := slices.Clone(rs)
+	for i, r := range rs {
+		work[i].Capacitance = r.Capacitance + unit.Capacitance(m.capSigma(float64(r.Capacitance)))
+		l1, c1, _ := fitLine(work)
+		varL += (l1 - l) * (l1 - l)
+		varC0 += (c1 - c0) * (c1 - c0)
+		work[i] = r
+		work[i].Frequency = r.Frequency * unit.Frequency(1+m.FrequencyTolerance)
+		l1, c1, _ = fitLine(work)
+		varL += (l1 - l) * (l1 - l)
+		varC0 += (c1 - c0) * (c1 - c0)
+		work[i] = r
+	}
+	uC0 := math.Sqrt(varC0)
+	if c0 < -(uC0 + 0.1e-12) {
+		return Reading{}, inputErrorf("resonance", "the readings imply a negative capacitance across the coil (%s ± %s); a frequency or a capacitor value is off: measure the capacitors and read the resonances again",
+			fmtF(c0), fmtF(uC0))
+	}
+	for _, r := range rs {
+		if float64(r.Capacitance)+c0 <= 0 {
+			return Reading{}, inputErrorf("resonance", "the readings are inconsistent: the fitted stray (%s) cancels the %s capacitor", fmtF(c0), fmtF(float64(r.Capacitance)))
+		}
+	}
+	logSum := 0.0
+	for _, r := range rs {
+		logSum += math.Log(float64(r.Frequency))
+	}
+	return Reading{
+		Kind:                  MeasureTwoCapacitor,
+		Inductance:            unit.Inductance(l),
+		Uncertainty:           math.Sqrt(varL) / l,
+		Frequency:             unit.Frequency(math.Exp(logSum / float64(len(rs)))),
+		Effective:             false,
+		TotalStray:            unit.Capacitance(c0),
+		TotalStrayUncertainty: unit.Capacitance(uC0),
+		FitResidual:           resid,
+	}, nil
+}
+
+// fitLine fits 1/ω² = L·C + L·C0 by least squares and returns L, C0 and
+// the rms relative frequency residual (zero for two readings).
+func fitLine(rs []Resonance) (l, c0, resid float64) {
+	n := float64(len(rs))
+	var sx, sy float64
+	for _, r := range rs {
+		w := twoPi * float64(r.Frequency)
+		sx += float64(r.Capacitance)
+		sy += 1 / (w * w)
+	}
+	mx, my := sx/n, sy/n
+	var sxx, sxy float64
+	for _, r := range rs {
+		w := twoPi * float64(r.Frequency)
+		dx := float64(r.Capacitance) - mx
+		sxx += dx * dx
+		sxy += dx * (1/(w*w) - my)
+	}
+	l = sxy / sxx
+	b := my - l*mx
+	c0 = b / l
+	if len(rs) > 2 {
+		var ss float64
+		for _, r := range rs {
+			w := twoPi * float64(r.Frequency)
+			y := 1 / (w * w)
+			fit := l * (float64(r.Capacitance) + c0)
+			// y ∝ 1/f², so a relative error e in y is e/2 in frequency.
+			e := (y/fit - 1) / 2
+			ss += e * e
+		}
+		resid = math.Sqrt(ss / n)
+	}
+	return l, c0, resid
+}
+
+// fmtH and fmtF format an inductance and a capacitance for messages.
+func fmtH(h float64) string {
+	switch a := math.Abs(h); {
+	case a >= 1e-3:
+		return fmt.Sprintf("%.4g mH", h*1e3)
+	case a >= 1e-6:
+		return fmt.Sprintf("%.4g µH", h*1e6)
+	}
+	return fmt.Sprintf("%.4g nH", h*1e9)
+}
+
+func fmtF(c float64) string {
+	switch a := math.Abs(c); {
+	case a >= 1e-6:
+		return fmt.Sprintf("%.4g µF", c*1e6)
+	case a >= 1e-9:
+		return fmt.Sprintf("%.4g nF", c*1e9)
+	}
+	return fmt.Sprintf("%.4g pF", c*1e12)
+}
