@@ -68,4 +68,22 @@
 //     1.7241e-8 Ω·m at 20 °C, temperature coefficient 0.00393 /K, density
 //     8890 kg/m³).
 //   - CODATA 2018 recommended values (μ0).
+//   - J. C. Maxwell, A Treatise on Electricity and Magnetism, 1873, §701–705
+//     (mutual inductance of coaxial circles; thin-ring self-inductance), used
+//     for tapped sections and partial turns.
+//   - R. M. Foster, "A reactance theorem", Bell System Technical Journal 3,
+//     259–267, 1924 (the two-gang circuit's resonances alternate with its
+//     zeros).
+//
+// # Beyond the single coil
+//
+// Tapped coils (tap.go) split the winding into two coaxial coils from the
+// same model, with M = (L − L_a − L_b)/2. The two-gang circuit (gang.go,
+// span.go) solves the generalized eigenproblem of the two-node network with
+// gonum/mat. The design search (design*.go) inverts the model: it starts
+// from Wheeler's closed form solved for the turns, brackets the pitch that
+// hits the target, and prunes supports, wires and turns by bounds on the
+// score. Trim (trim*.go) fits the springback that makes the model agree
+// with a measurement (the two-capacitor method is common practice; Terman
+// 1943 describes it) and corrects pitch, turns or tap.
 package coil

@@ -30,6 +30,21 @@
 // syntax errors only, so forms finds the lines of keys by scanning the text
 // itself (tomlindex.go).
 //
+// # Job file
+//
+// A TOML file describing a batch of coils for build sheets (LoadJob): a
+// title, paper, units, the stock to use, and [[coil]] sections that hold
+// either a fixed winding (the same keys as predict's flags) or a design
+// target (design's keys), with an optional tap and two-gang span. Unknown
+// keys are errors, and every error carries its line.
+//
+// # Other inputs
+//
+// Band lists (LoadBands, ParseBand) and measured capacitor laws
+// (LoadGangTable) for the two-gang span; AppendCalibration and AppendStock
+// add springback calibrations to a stock file's text without disturbing its
+// comments or layout (the caller writes the file).
+//
 // # References
 //
 // Values marked "from memory" were recalled, not read from the standard; the

@@ -99,20 +99,24 @@ func runPredict(_ context.Context, opts *predictOptions, stdout, stderr io.Write
 	return nil
 }
 
-// describeWire says what the wire is in a builder's words.
+// describeWire says what the wire is in a builder's words, e.g.
+// "1.00 mm bare copper wire" or "22awg copper wire, grade 1 enamel (0.68 mm overall)".
 func describeWire(s coilSpec, lf lengthFormatter) string {
 	w := s.Wire
 	desc := w.Name
 	if w.System == "user" && w.Origin == "command line" {
 		desc = lf.fmt(float64(w.Bare))
 	}
-	ins := map[string]string{"none": "bare", "grade1": "grade 1 enamel", "grade2": "grade 2 enamel", "grade3": "grade 3 enamel", "custom": "insulated"}[w.Insulation]
+	cond := s.Geometry.Conductor.String()
+	if w.Insulation == "none" || w.Insulation == "" {
+		if strings.Contains(desc, cond) {
+			return desc + " bare wire"
+		}
+		return fmt.Sprintf("%s bare %s wire", desc, cond)
+	}
+	ins := map[string]string{"grade1": "grade 1 enamel", "grade2": "grade 2 enamel", "grade3": "grade 3 enamel", "custom": "insulated"}[w.Insulation]
 	if ins == "" {
 		ins = w.Insulation
-	}
-	cond := s.Geometry.Conductor.String()
-	if w.Insulation == "none" || ins == "bare" {
-		return fmt.Sprintf("%s %s %s wire", desc, "bare", cond)
 	}
 	return fmt.Sprintf("%s %s wire, %s (%s overall)", desc, cond, ins, lf.fmt(float64(w.Overall)))
 }

@@ -42,6 +42,10 @@ Every command prints a table, or JSON with --json (SI units: H, F, Hz, m, Ω).
 		newPredictCmd(g),
 		newStockCmd(g),
 		newVersionCmd(g),
+		newTapCmd(g), newSpanCmd(g),
+		newSheetCmd(g),
+		newTrimCmd(g),
+		newDesignCmd(g),
 	)
 	return root
 }

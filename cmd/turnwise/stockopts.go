@@ -19,7 +19,7 @@ func newStockOptions() *stockOptions {
 }
 
 func (o *stockOptions) addFlags(fs *pflag.FlagSet) {
-	fs.StringVar(&o.path, "stock", os.Getenv("TURNWISE_STOCK"), "your stock file (TOML; default $TURNWISE_STOCK); `turnwise stock --template` prints a starting point")
+	fs.StringVar(&o.path, "stock", os.Getenv("TURNWISE_STOCK"), "your stock file (TOML; default $TURNWISE_STOCK); turnwise stock --template prints a starting point")
 	fs.Var(o.use, "use", "which stock to draw on: builtin, mine or both (default both when a stock file is given, else builtin)")
 }
 

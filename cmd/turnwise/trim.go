@@ -619,7 +619,7 @@ func trimTapError(err error) error {
 // coarsest first: 0.1 mm with calipers on a springy coil, finer only when
 // the coil is so sensitive that 0.1 mm misses the tolerance.
 func lengthSteps(lf lengthFormatter) []unit.Length {
-	if lf.inches {
+	if lf.Inches {
 		return []unit.Length{0.005 * 0.0254, 0.002 * 0.0254, 0.001 * 0.0254}
 	}
 	return []unit.Length{0.1e-3, 0.05e-3, 0.02e-3, 0.01e-3}

@@ -23,7 +23,7 @@ func fmtLenStep(lf lengthFormatter, m float64, step unit.Length) string {
 	if step <= 0 {
 		return lf.fmt(m)
 	}
-	if lf.inches {
+	if lf.Inches {
 		return fmt.Sprintf("%.3f in", m/0.0254)
 	}
 	dec := int(math.Max(0, math.Ceil(-math.Log10(float64(step)*1e3)-1e-9)))

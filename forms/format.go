@@ -1,0 +1,88 @@
+package forms
+
+import (
+	"fmt"
+	"math"
+)
+
+// Printing quantities is the mirror of parsing them: the command tables and
+// the build sheets both print through these, so a sheet and `turnwise
+// predict` agree digit for digit.
+
+// FormatEng prints v with an SI prefix and sig significant figures:
+// FormatEng(4.8e-8, "H", 3) = "48.0 nH". Non-finite values print "n/a".
+func FormatEng(v float64, unitSym string, sig int) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return "n/a"
+	}
+	if v == 0 {
+		return "0 " + unitSym
+	}
+	prefixes := []struct {
+		exp int
+		sym string
+	}{{12, "T"}, {9, "G"}, {6, "M"}, {3, "k"}, {0, ""}, {-3, "m"}, {-6, "µ"}, {-9, "n"}, {-12, "p"}, {-15, "f"}}
+	a := math.Abs(v)
+	for _, p := range prefixes {
+		scale := math.Pow(10, float64(p.exp))
+		if a >= scale*(1-1e-12) || p.exp == -15 {
+			x := v / scale
+			digits := max(sig-1-int(math.Floor(math.Log10(math.Abs(x)))), 0)
+			return fmt.Sprintf("%.*f %s%s", digits, x, p.sym, unitSym)
+		}
+	}
+	return fmt.Sprintf("%g %s", v, unitSym)
+}
+
+// FormatCapacitance prints a capacitance in pF below 1 nF, the unit
+// builders think in, else with an SI prefix.
+func FormatCapacitance(c float64) string {
+	if c > 0 && c < 1e-9 {
+		return fmt.Sprintf("%.3g pF", c*1e12)
+	}
+	return FormatEng(c, "F", 3)
+}
+
+// LengthFormat prints lengths in a display unit: millimetres (the zero
+// value) or inches.
+type LengthFormat struct{ Inches bool }
+
+// Format prints a length in metres: mm with two decimals (µm below 0.1 mm,
+// m from 1 m), or inches with three (one from 10 in, mil below 0.01 in).
+func (f LengthFormat) Format(m float64) string {
+	if f.Inches {
+		in := m / inch
+		switch {
+		case in != 0 && math.Abs(in) < 0.01:
+			return fmt.Sprintf("%.2f mil", in*1000)
+		case math.Abs(in) >= 10:
+			return fmt.Sprintf("%.1f in", in)
+		}
+		return fmt.Sprintf("%.3f in", in)
+	}
+	if m != 0 && math.Abs(m) < 0.1e-3 {
+		return fmt.Sprintf("%.1f µm", m*1e6)
+	}
+	if math.Abs(m) >= 1 {
+		return fmt.Sprintf("%.3f m", m)
+	}
+	return fmt.Sprintf("%.2f mm", m*1e3)
+}
+
+// FormatTurns prints quarter turns as a builder says them: 5, 5¼, 5½, 5¾.
+func FormatTurns(n float64) string {
+	whole := math.Floor(n + 1e-9)
+	switch frac := n - whole; {
+	case frac < 0.125:
+		return fmt.Sprintf("%.0f", whole)
+	case frac < 0.375:
+		return fmt.Sprintf("%.0f¼", whole)
+	case frac < 0.625:
+		return fmt.Sprintf("%.0f½", whole)
+	}
+	return fmt.Sprintf("%.0f¾", whole)
+}
+
+// FormatPercent prints a fraction as a percentage with three significant
+// figures: 0.031 → "3.1 %".
+func FormatPercent(x float64) string { return fmt.Sprintf("%.3g %%", x*100) }
