@@ -1,7 +1,6 @@
 package coil
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -39,10 +38,11 @@ type TapPlan struct {
 	// harmonic from the high range's peak, in half-passbands: above 1 the
 	// harmonic is outside the passband. ClearanceNone when none applies.
 	Clearance float64
-	// Tried counts the candidates evaluated; Covering, Overlapping and
-	// Clean count how many of them met each requirement on its own, and
-	// CoveringOverlapping both of the first two: together they say which
-	// requirement is the one that conflicts.
+	// Tried counts the quarter-turn taps evaluated at the requested pitch
+	// (the pitch search's own candidates are not counted); Covering,
+	// Overlapping and Clean count how many of them met each requirement on
+	// its own, and CoveringOverlapping both of the first two: together they
+	// say which requirement is the one that conflicts.
 	Tried, Covering, Overlapping, Clean, CoveringOverlapping int
 }
 
@@ -103,7 +103,7 @@ func ChooseTap(spec SpanSpec, search TapSearch) (TapPlan, error) {
 	}
 	geom := spec.Geometry
 	if search.VaryPitch {
-		g, s, err := searchPitch(spec, margin, &plan)
+		g, s, err := searchPitch(spec, margin)
 		if err != nil {
 			return TapPlan{}, err
 		}
@@ -121,10 +121,24 @@ func ChooseTap(spec SpanSpec, search TapSearch) (TapPlan, error) {
 	plan.Clearance = math.Min(best.clearance, ClearanceNone)
 	plan.Conflicts = describeConflicts(&sp, best, margin)
 	if !plan.Feasible {
-		return plan, fmt.Errorf("%w: no tap meets every requirement (%s); of %d candidates %d cover every band, %d overlap, %d are free of harmonic coincidences and %d both cover and overlap; the best compromise is shown",
-			ErrInfeasible, strings.Join(plan.Conflicts, "; "), plan.Tried, plan.Covering, plan.Overlapping, plan.Clean, plan.CoveringOverlapping)
+		return plan, fmt.Errorf("%w: no tap meets every requirement: %s; of the %d quarter-turn taps at the requested pitch %d cover every band, %d overlap, %d are free of harmonic coincidences and %d both cover and overlap; the best compromise, at %g turns, misses: %s",
+			ErrInfeasible, plan.binding(), plan.Tried, plan.Covering, plan.Overlapping, plan.Clean, plan.CoveringOverlapping, plan.TapTurns, strings.Join(plan.Conflicts, "; "))
 	}
 	return plan, nil
+}
+
+// binding words which requirement conflicts, from the counts over the
+// taps tried.
+func (p *TapPlan) binding() string {
+	switch {
+	case p.Covering == 0:
+		return "no tap covers every band with the margin (the bands need more than the two ranges span)"
+	case p.Overlapping == 0:
+		return "no tap makes the ranges overlap by the margin"
+	case p.CoveringOverlapping == 0:
+		return "covering every band and overlapping the ranges conflict: the taps that cover every band leave too little overlap, and those that overlap miss a band"
+	}
+	return "every tap that covers the bands and overlaps puts a 2nd or 3rd harmonic inside the high range's passband"
 }
 
 // bestTap tries every quarter-turn tap of g and returns the lowest cost.
@@ -196,30 +210,25 @@ func scoreTap(spec SpanSpec, margin float64) (tapScore, error) {
 		s.overShort = 1
 		return s, nil
 	}
+	// The same rows and runs as SolveSpan's coincidences, so that the
+	// verdict here is the one the chosen span reports.
 	for _, w := range c.lowWindows(spec.Bands, low) {
-		n := int(math.Ceil((w.to-w.from)*spanScan/2)) + 1
-		if n < 2 {
-			n = 2
+		rows, err := c.windowRows(w)
+		if err != nil {
+			return tapScore{}, err
 		}
-		depth := map[int]float64{2: math.Inf(1), 3: math.Inf(1)}
-		for i := range n {
-			r, err := c.at(w.from + (w.to-w.from)*float64(i)/float64(n-1))
-			if err != nil {
-				return tapScore{}, err
+		for _, m := range []int{2, 3} {
+			runs := c.runs(w.band, m, rows)
+			for _, co := range runs {
+				s.clearance = math.Min(s.clearance, co.Depth)
+				s.coincidence += math.Max(1-co.Depth, 1e-9) // 1e-9: on the passband edge
 			}
-			for m := range depth {
-				depth[m] = math.Min(depth[m], c.measure(w.band, m, r).Depth)
-			}
-		}
-		for _, d := range depth {
-			s.clearance = math.Min(s.clearance, d)
-			if d <= 1 {
-				s.coincidence += 1 - d
+			if len(runs) == 0 {
+				for _, r := range rows {
+					s.clearance = math.Min(s.clearance, c.measure(w.band, m, r).Depth)
+				}
 			}
 		}
-	}
-	if s.coincidence == 0 && s.clearance <= 1 {
-		s.coincidence = 1e-9 // exactly on the passband edge
 	}
 	return s, nil
 }
@@ -238,7 +247,7 @@ func rangeRoom(b Band, rg FreqRange) float64 {
 //
 // and at each pitch every tap is tried. A coarse scan of nine pitches picks
 // the starting point, since the best tap switches as the pitch moves.
-func searchPitch(spec SpanSpec, margin float64, plan *TapPlan) (Geometry, tapScore, error) {
+func searchPitch(spec SpanSpec, margin float64) (Geometry, tapScore, error) {
 	g0 := spec.Geometry
 	do := g0.overall()
 	pitchOf := func(u float64) unit.Length {
@@ -279,16 +288,10 @@ func searchPitch(spec SpanSpec, margin float64, plan *TapPlan) (Geometry, tapSco
 	if firstErr != nil {
 		return Geometry{}, tapScore{}, firstErr
 	}
-	// A run stopped by its evaluation budget still holds a usable best
-	// point; anything else is a failure of the search, not of the coil.
-	if err != nil && !errors.Is(err, optimize.ErrLinesearcherFailure) {
-		if res == nil || res.Status != optimize.FunctionEvaluationLimit {
-			return bestG, bestS, nil
-		}
-	}
-	if res != nil && res.F < bestCost {
+	// A run stopped by its evaluation budget returns no error and still
+	// holds a usable best point; a failed run leaves the coarse scan's.
+	if err == nil && res != nil && res.F < bestCost {
 		g, s := eval(res.X[0])
-		plan.Tried += int(res.FuncEvaluations)
 		return g, s, nil
 	}
 	return bestG, bestS, nil
@@ -309,8 +312,8 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 			continue
 		}
 		edge := fmt.Sprintf("the %s range runs %s to %s", name, fmtHz(float64(rg.Min)), fmtHz(float64(rg.Max)))
-		out = append(out, fmt.Sprintf("band %s (%s–%s) is not inside either range with %.0f %% to spare (%s)",
-			bandLabel(b.Band), fmtHz(float64(b.Band.Low)), fmtHz(float64(b.Band.High)), margin*100, edge))
+		out = append(out, fmt.Sprintf("band %s is not inside either range with %.0f %% to spare (%s)",
+			bandWithEdges(b.Band), margin*100, edge))
 	}
 	if !sp.HasHigh {
 		out = append(out, "the circuit has no high range")

@@ -3,6 +3,7 @@ package coil
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -112,5 +113,28 @@ func TestChooseTapNeedsBands(t *testing.T) {
 	var ie *InputError
 	if !errors.As(err, &ie) || ie.Param != "band" {
 		t.Errorf("err = %v, want band InputError", err)
+	}
+}
+
+// The binding requirement follows from the counts over the taps tried.
+func TestTapPlanBinding(t *testing.T) {
+	t.Parallel()
+	tests := []struct {
+		name string
+		plan TapPlan
+		want string
+	}{
+		{"nothing covers", TapPlan{Tried: 10, Overlapping: 5, Clean: 10}, "no tap covers every band"},
+		{"nothing overlaps", TapPlan{Tried: 10, Covering: 4, Clean: 10}, "no tap makes the ranges overlap"},
+		{"cover or overlap", TapPlan{Tried: 10, Covering: 4, Overlapping: 5, Clean: 10}, "conflict"},
+		{"harmonics", TapPlan{Tried: 10, Covering: 4, Overlapping: 5, CoveringOverlapping: 2, Clean: 8}, "harmonic"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			t.Parallel()
+			if got := tc.plan.binding(); !strings.Contains(got, tc.want) {
+				t.Errorf("binding() = %q, want it to say %q", got, tc.want)
+			}
+		})
 	}
 }

@@ -38,7 +38,8 @@ type Target struct {
 	Frequency unit.Frequency
 	// Tolerance is the fraction the predicted value may differ from the
 	// target (the search hits it to 1e-5; the band is the acceptance test
-	// and the builder's trim goal). Zero means DefaultTolerance.
+	// and the builder's trim goal), from MinTolerance to 0.5. Zero means
+	// DefaultTolerance.
 	Tolerance float64
 }
 
@@ -142,6 +143,10 @@ type Constraints struct {
 // Defaults for the zero values of Target and Constraints.
 const (
 	DefaultTolerance = 0.02
+	// MinTolerance: a tighter band means nothing on the bench (the model
+	// and the meter are good to a few per cent) and is below what the
+	// pitch solve resolves.
+	MinTolerance = 1e-4
 	// DefaultSRFRatio: keep the SRF at least three times the operating
 	// frequency (common practice), where L and Q are still close to their
 	// low-frequency values.
@@ -201,7 +206,8 @@ type Result struct {
 	Frequency unit.Frequency
 	Tolerance float64
 	// Candidates, best first: at most one per support and wire, and no two
-	// within 3 % of each other in both support and wire diameter.
+	// of the same kind (mandrel or former) within 7 % of each other in both
+	// support and wire diameter (nearDuplicate).
 	Candidates []Candidate
 	// Pareto is the Q-versus-size front, smallest first: coils that no
 	// other beats on both Q (higher) and outside volume (smaller), thinned
@@ -379,6 +385,8 @@ func resolveDesign(t Target, c Constraints) (designSettings, error) {
 		return s, inputErrorf("frequency", "must be at most 10 GHz")
 	case t.Tolerance > 0.5:
 		return s, inputErrorf("tolerance", "%.3g %% is too loose; use at most 50 %%", t.Tolerance*100)
+	case t.Tolerance > 0 && t.Tolerance < MinTolerance:
+		return s, inputErrorf("tolerance", "%.3g %% is tighter than any coil can be wound or measured; use at least %g %%", t.Tolerance*100, MinTolerance*100)
 	}
 	s.tol = t.Tolerance
 	if s.tol == 0 {
@@ -437,14 +445,13 @@ func resolveDesign(t Target, c Constraints) (designSettings, error) {
 			return s, inputErrorf("free_diameter", "the range %s … %s is not a range", mm(float64(fd.Min)), mm(float64(fd.Max)))
 		}
 	}
-	for i, sp := range c.Supports {
+	for _, sp := range c.Supports {
 		if !finite(float64(sp.Diameter)) || sp.Diameter <= 0 {
 			return s, inputErrorf("supports", "%q: diameter %s is not a diameter", sp.Name, mm(float64(sp.Diameter)))
 		}
 		if !finite(sp.Springback) || sp.Springback < MinSpringback || sp.Springback > MaxSpringback {
 			return s, inputErrorf("springback", "%q: %.3g %% is outside %g … %g %%", sp.Name, sp.Springback*100, MinSpringback*100, MaxSpringback*100)
 		}
-		_ = i
 	}
 	for _, w := range c.Wires {
 		d, do := float64(w.Diameter), float64(w.Overall)

@@ -27,6 +27,9 @@ type dsMissLog struct {
 	near  map[string]dsNear
 	small *dsNear // smallest inductance reachable, value in H
 	large *dsPair // a pair that needed more than MaxTurns
+	// selfResonant: a pair's fewest turns, spread to the loosest pitch,
+	// self-resonate within 5 % of the resonance (effective target).
+	selfResonant bool
 }
 
 func (m *dsMissLog) note(constraint string, ratio float64, p *dsPair, n, pitch float64) {
@@ -185,6 +188,11 @@ func (x *dsSearch) infeasible() error {
 			"no coil puts %s inside its squeeze/spread window with a %.3g %% margin; nearest: %s; use a smaller trim margin",
 			x.targetWords(), s.margin*100, x.describe(n))}
 	}
+	if x.miss.selfResonant && x.miss.small == nil {
+		return &InfeasibleError{Constraint: "min_srf_ratio", Message: fmt.Sprintf(
+			"no coil in the stock reaches %s below its own self-resonance: at %s every one that could resonates by itself; use more capacitance (less inductance), a smaller support, or a strip line",
+			x.targetWords(), fmtHz(s.matchF))}
+	}
 	if len(binds) == 0 && x.multipleLimits() {
 		return &InfeasibleError{Constraint: "limits", Message: fmt.Sprintf(
 			"no coil meets %s under all the limits together, though each alone can be met; relax more than one of them", x.targetWords())}
@@ -223,7 +231,7 @@ func (x *dsSearch) bindMessage(name string, n dsNear) string {
 	case "max_length":
 		msg := fmt.Sprintf("no coil reaches %s within %s outside length: the shortest that does is %s (%s); allow %s",
 			tw, shortMM(float64(c.MaxLength)), shortMM(n.value), x.describe(n), shortMM(math.Ceil(n.value*2e3)/2e3))
-		if l, nn, ok := x.mostWithin(n.pair, float64(c.MaxLength)); ok {
+		if l, nn, ok := x.mostWithin(n.pair, float64(c.MaxLength)); ok && l < s.required*(1-s.tol) {
 			msg += fmt.Sprintf(", or accept %s from %s turns close-wound on the same support", fmtInductance(l), dsTurns(nn))
 		}
 		return msg
@@ -241,11 +249,12 @@ func (x *dsSearch) bindMessage(name string, n dsNear) string {
 	return "no coil meets " + tw
 }
 
-// mostWithin is the terminal inductance of the most whole quarter turns of
-// close-wound wire that fit within length on pair p.
+// mostWithin is the matched value of the most quarter turns of
+// close-wound wire that fit within length on pair p; false when fewer
+// than the least turns the search allows fit.
 func (x *dsSearch) mostWithin(p *dsPair, length float64) (float64, float64, bool) {
 	n := math.Floor(length/p.do*4+1e-9) / 4
-	if n < 1 {
+	if n < x.s.minTurns {
 		return 0, 0, false
 	}
 	return x.matched(p, n, p.do), n, true

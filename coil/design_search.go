@@ -284,7 +284,6 @@ func (x *dsSearch) makePairs() {
 	for i, si := range sups {
 		diam[i] = float64(c.Supports[si].Diameter)
 	}
-	count := 0
 	type span struct{ wi, lo, hi int }
 	var spans []span
 	for _, wi := range wires {
@@ -295,9 +294,10 @@ func (x *dsSearch) makePairs() {
 		d := float64(w.Diameter)
 		lo := sort.SearchFloat64s(diam, BendRatio*d*(1-1e-9))
 		spans = append(spans, span{wi, lo, len(diam)})
-		count += len(diam) - lo
 	}
-	count = 0
+	// Count first: the pairs are stored in one slice whose elements the
+	// search points to, so it must not grow.
+	count := 0
 	for _, sp := range spans {
 		w := c.Wires[sp.wi]
 		for _, si := range sups[sp.lo:sp.hi] {

@@ -43,6 +43,11 @@ func (x *dsSearch) turnsLow(p *dsPair) (nLo, vLoose float64, ok bool) {
 		nLo = quarterBisect(a, b, closeOK)
 	}
 	vLoose = x.matched(p, nLo, loose)
+	if math.IsInf(vLoose, 1) {
+		// Past its own resonance even spread out: too much coil for f.
+		x.miss.selfResonant = true
+		return 0, 0, false
+	}
 	if vLoose > lo {
 		if nLo == s.minTurns {
 			x.miss.tooSmall(vLoose, p, nLo)

@@ -80,7 +80,13 @@
 // Tapped coils (tap.go) split the winding into two coaxial coils from the
 // same model, with M = (L − L_a − L_b)/2. The two-gang circuit (gang.go,
 // span.go) solves the generalized eigenproblem of the two-node network with
-// gonum/mat. The design search (design*.go) inverts the model: it starts
+// gonum/mat, the coil's self-capacitance across the whole coil. A harmonic
+// coincidence is a dial setting where the 2nd or 3rd harmonic of the low
+// range falls inside the high range's passband (f/Q_loaded); the dial is
+// scanned at 0.25 % steps and every sign change of m·f_low − f_high is
+// bisected, so a crossing is found even when the passband is narrower than
+// a step. ChooseTap (choosetap.go) scores every quarter-turn tap with the
+// same scan. The design search (design*.go) inverts the model: it starts
 // from Wheeler's closed form solved for the turns, brackets the pitch that
 // hits the target, and prunes supports, wires and turns by bounds on the
 // score. Trim (trim*.go) fits the springback that makes the model agree

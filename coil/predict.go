@@ -227,6 +227,9 @@ func evaluate(p *Prediction, g *Geometry, f float64) {
 	gr := 1 - rr*rr
 	p.InductanceEffective = unit.Inductance(leads + lCoil/gr)
 
+	// Medhurst's Φ holds once the skin effect is developed; scaling its
+	// excess by (F_s − 1)/F_s makes it vanish at DC as x⁴, as proximity loss
+	// does, and reach Φ at high frequency (our interpolation, part of Q's band).
 	phiMax := ProximityFactor(ld, d/pitch)
 	prox := 1 + (phiMax-1)*(fs-1)/fs
 	lambda := SpeedOfLight / f

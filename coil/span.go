@@ -107,6 +107,13 @@ type Coincidence struct {
 	AttenuationDB float64
 }
 
+// OnPeak reports whether the harmonic sits on the high range's peak to
+// within a thousandth of the passband: there an offset in hertz is only
+// the bisection's rounding and should not be printed as a distance.
+func (co Coincidence) OnPeak() bool {
+	return math.Abs(float64(co.Offset)) <= 1e-3*float64(co.Passband)
+}
+
 // Span is the two-gang circuit across the dial.
 type Span struct {
 	Sections        Sections
@@ -116,11 +123,18 @@ type Span struct {
 	HasHigh         bool // false when the circuit has one resonance only
 	// Overlap is Low.Max − High.Min: positive when the ranges overlap,
 	// negative for a gap.
-	Overlap      unit.Frequency
-	Bands        []BandCoverage
-	Coincidences []Coincidence
-	Margin       float64
-	Warnings     []string
+	Overlap unit.Frequency
+	// When the ranges leave a gap: the quarter-turn tap on the winding whose
+	// ranges overlap most (or leave the smallest gap), and its overlap.
+	// The overlap is not monotonic in the tap: the high range is lowest
+	// with the tap near the middle and rises towards either end. Zero
+	// when the ranges already overlap.
+	WidestOverlapTap float64
+	WidestOverlap    unit.Frequency
+	Bands            []BandCoverage
+	Coincidences     []Coincidence
+	Margin           float64
+	Warnings         []string
 }
 
 // spanScan is the internal dial resolution for coincidences: 0.25 % of
@@ -156,6 +170,13 @@ func (c *spanCircuit) at(x float64) (DialRow, error) {
 // frequency): across an HF range the skin effect moves them by well under
 // 1 %. The coil's self-capacitance (Medhurst, one end grounded) is put
 // across the whole coil, in parallel with section A.
+//
+// Coincidences are searched where the low range is in a listed band (the
+// whole dial when none is listed), at 0.25 % steps of the dial; every
+// sign change of m·f_low − f_high between two steps is bisected, so a
+// harmonic crossing the high range's peak is found even when the passband
+// is narrower than a step. When the ranges leave a gap, every quarter-turn
+// tap is tried for the one that closes it (WidestOverlapTap).
 func SolveSpan(spec SpanSpec) (Span, error) {
 	c, err := newSpanCircuit(spec)
 	if err != nil {
@@ -261,8 +282,42 @@ func (c *spanCircuit) solve(spec SpanSpec) (Span, error) {
 		}
 		sp.Coincidences = co
 	}
+	if sp.HasHigh && sp.Overlap < 0 {
+		sp.WidestOverlapTap, sp.WidestOverlap = widestOverlapTap(spec)
+	}
 	sp.Warnings = c.warnings(&sp)
 	return sp, nil
+}
+
+// widestOverlapTap tries every quarter-turn tap on spec's winding and
+// returns the one whose ranges overlap most, relative to the bottom of the
+// high range (as the margin is), or, when none overlaps, the one leaving
+// the smallest gap in hertz; and that overlap in hertz (negative: a gap).
+func widestOverlapTap(spec SpanSpec) (float64, unit.Frequency) {
+	bestTap, bestHz := 0.0, math.Inf(-1)
+	bestRel := math.Inf(-1) // among taps that overlap
+	steps := int(math.Round(spec.Geometry.Turns * 4))
+	for i := 1; i < steps; i++ {
+		spec.TapTurns = float64(i) / 4
+		c, err := newSpanCircuit(spec)
+		if err != nil {
+			continue
+		}
+		open, err1 := c.at(0)
+		meshed, err2 := c.at(1)
+		if err1 != nil || err2 != nil || !(meshed.FHigh > 0) {
+			continue
+		}
+		ov := float64(open.FLow - meshed.FHigh)
+		rel := ov / float64(meshed.FHigh)
+		if (ov >= 0 && rel > bestRel) || (bestRel == math.Inf(-1) && ov > bestHz) {
+			bestTap, bestHz = spec.TapTurns, ov
+			if ov >= 0 {
+				bestRel = rel
+			}
+		}
+	}
+	return bestTap, unit.Frequency(bestHz)
 }
 
 // freq returns the low or high range's frequency at x.
@@ -359,31 +414,34 @@ func (c *spanCircuit) lowWindows(bands []Band, low FreqRange) []window {
 	return w
 }
 
+// windowRows evaluates the circuit across a dial stretch at the scan
+// resolution. SolveSpan and ChooseTap scan the same rows, so that a tap
+// ChooseTap calls clean is reported clean.
+func (c *spanCircuit) windowRows(w window) ([]DialRow, error) {
+	n := max(int(math.Ceil((w.to-w.from)*spanScan))+1, 2)
+	rows := make([]DialRow, n)
+	for i := range rows {
+		var err error
+		if rows[i], err = c.at(w.from + (w.to-w.from)*float64(i)/float64(n-1)); err != nil {
+			return nil, err
+		}
+	}
+	return rows, nil
+}
+
 // coincidences scans the stretches of the dial where the low range is in a
 // listed band for harmonics of order 2 and 3 inside the high range's
 // passband.
 func (c *spanCircuit) coincidences(bands []Band) ([]Coincidence, error) {
-	open, err := c.at(0)
+	low, err := c.lowRange()
 	if err != nil {
 		return nil, err
 	}
-	meshed, err := c.at(1)
-	if err != nil {
-		return nil, err
-	}
-	low := FreqRange{Min: meshed.FLow, Max: open.FLow}
 	var out []Coincidence
 	for _, w := range c.lowWindows(bands, low) {
-		n := int(math.Ceil((w.to-w.from)*spanScan)) + 1
-		if n < 2 {
-			n = 2
-		}
-		rows := make([]DialRow, n)
-		for i := range rows {
-			x := w.from + (w.to-w.from)*float64(i)/float64(n-1)
-			if rows[i], err = c.at(x); err != nil {
-				return nil, err
-			}
+		rows, err := c.windowRows(w)
+		if err != nil {
+			return nil, err
 		}
 		for _, m := range []int{2, 3} {
 			out = append(out, c.runs(w.band, m, rows)...)
@@ -396,6 +454,19 @@ func (c *spanCircuit) coincidences(bands []Band) ([]Coincidence, error) {
 		return out[i].Order < out[j].Order
 	})
 	return out, nil
+}
+
+// lowRange is the low range from plates open to fully meshed.
+func (c *spanCircuit) lowRange() (FreqRange, error) {
+	open, err := c.at(0)
+	if err != nil {
+		return FreqRange{}, err
+	}
+	meshed, err := c.at(1)
+	if err != nil {
+		return FreqRange{}, err
+	}
+	return FreqRange{Min: meshed.FLow, Max: open.FLow}, nil
 }
 
 // measure describes the harmonic of order m at one dial row.
@@ -414,40 +485,41 @@ func (c *spanCircuit) measure(band string, m int, r DialRow) Coincidence {
 }
 
 // runs groups consecutive rows whose harmonic is inside the passband and
-// reports each group at its closest point; a sign change of the offset
-// inside a group is refined by bisection to the exact crossing.
+// reports each group at its closest point. Where the offset changes sign
+// between two rows the harmonic crosses the high range's peak: the
+// crossing is found by bisection and reported even when both rows are
+// outside the passband (a high loaded Q gives a passband narrower than
+// the scan step).
 func (c *spanCircuit) runs(band string, m int, rows []DialRow) []Coincidence {
 	var out []Coincidence
 	var cur *Coincidence
 	var prev Coincidence
 	for i, r := range rows {
 		h := c.measure(band, m, r)
-		inside := h.Depth <= 1
-		if inside {
-			if cur == nil {
-				h2 := h
-				cur = &h2
-			} else {
-				if h.Depth < cur.Depth {
-					from := cur.SettingFrom
-					*cur = h
-					cur.SettingFrom = from
-				}
-				cur.SettingTo = r.Setting
-				if (h.Offset > 0) != (prev.Offset > 0) {
-					if x, ok := c.crossing(m, prev.Setting, r.Setting); ok {
-						e, err := c.at(x)
-						if err == nil {
-							best := c.measure(band, m, e)
-							from, to := cur.SettingFrom, cur.SettingTo
-							*cur = best
-							cur.SettingFrom, cur.SettingTo = from, to
-						}
+		if i > 0 && (h.Offset > 0) != (prev.Offset > 0) {
+			if x, ok := c.crossing(m, prev.Setting, r.Setting); ok {
+				if e, err := c.at(x); err == nil {
+					best := c.measure(band, m, e)
+					if cur != nil {
+						best.SettingFrom = cur.SettingFrom
 					}
+					cur = &best
 				}
 			}
 		}
-		if (!inside || i == len(rows)-1) && cur != nil {
+		if h.Depth <= 1 {
+			switch {
+			case cur == nil:
+				cur = &h
+			case h.Depth < cur.Depth:
+				from := cur.SettingFrom
+				*cur = h
+				cur.SettingFrom = from
+			default:
+				cur.SettingTo = r.Setting
+			}
+		}
+		if cur != nil && (h.Depth > 1 || i == len(rows)-1) {
 			out = append(out, *cur)
 			cur = nil
 		}
@@ -497,35 +569,56 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 	if sp.HasHigh {
 		top = float64(sp.High.Max)
 	}
-	if top > srf/3 {
+	name := map[bool]string{true: "high", false: "low"}[sp.HasHigh]
+	switch {
+	case top > srf:
+		w = append(w, fmt.Sprintf("the top of the %s range, %s, is above the coil's self-resonance %s: the lumped circuit does not hold there and the real range will fall well short; move the tap or use a coil with fewer turns",
+			name, fmtHz(top), fmtHz(srf)))
+	case top > srf/3:
 		w = append(w, fmt.Sprintf("the top of the %s range, %s, is above a third of the coil's self-resonance %s (common practice limit): expect the real range to fall short there",
-			map[bool]string{true: "high", false: "low"}[sp.HasHigh], fmtHz(top), fmtHz(srf)))
+			name, fmtHz(top), fmtHz(srf)))
 	}
 	if !sp.HasHigh {
 		w = append(w, "the circuit has one resonance only (section B at zero capacitance, or the tap at an end of the coil): there is no high range")
 	}
 	if sp.HasHigh && sp.Overlap < 0 {
-		w = append(w, fmt.Sprintf("the ranges do not meet: a gap from %s to %s that neither range tunes; move the tap towards the cold end to bring the high range down",
-			fmtHz(float64(sp.Low.Max)), fmtHz(float64(sp.High.Min))))
+		w = append(w, fmt.Sprintf("the ranges do not meet: a gap from %s to %s that neither range tunes; %s",
+			fmtHz(float64(sp.Low.Max)), fmtHz(float64(sp.High.Min)), sp.GapAdvice()))
 	}
 	for _, b := range sp.Bands {
 		if !b.Covered {
-			w = append(w, fmt.Sprintf("band %s (%s–%s) is not wholly inside either range", bandLabel(b.Band), fmtHz(float64(b.Band.Low)), fmtHz(float64(b.Band.High))))
+			w = append(w, fmt.Sprintf("band %s is not wholly inside either range", bandWithEdges(b.Band)))
 		}
 	}
 	for _, co := range sp.Coincidences {
-		w = append(w, fmt.Sprintf("harmonic coincidence at %.1f %% of the dial: low range at %s%s, its %s harmonic %s is %s from the high range's peak %s, inside its %s passband (only %.1f dB down)",
-			co.Setting*100, fmtHz(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), fmtHz(float64(co.Harmonic)),
-			fmtHz(math.Abs(float64(co.Offset))), fmtHz(float64(co.FHigh)), fmtHz(float64(co.Passband)), co.AttenuationDB))
+		where := fmt.Sprintf("is %s from the high range's peak %s, inside its %s passband (only %.1f dB down)",
+			fmtHz(math.Abs(float64(co.Offset))), fmtHz(float64(co.FHigh)), fmtHz(float64(co.Passband)), co.AttenuationDB)
+		if co.OnPeak() {
+			where = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband", fmtHz(float64(co.Passband)))
+		}
+		w = append(w, fmt.Sprintf("harmonic coincidence at %.1f %% of the dial (0 %% = plates open): low range at %s%s, its %s harmonic %s %s",
+			co.Setting*100, fmtHz(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), fmtHz(float64(co.Harmonic)), where))
 	}
 	return w
 }
 
-func bandLabel(b Band) string {
-	if b.Name != "" {
-		return b.Name
+// GapAdvice says which tap closes a gap between the ranges, or that none
+// on this winding does.
+func (sp *Span) GapAdvice() string {
+	if sp.WidestOverlap >= 0 {
+		return fmt.Sprintf("a tap %g turns from the cold end makes them overlap by %s", sp.WidestOverlapTap, fmtHz(float64(sp.WidestOverlap)))
 	}
-	return fmt.Sprintf("%s–%s", fmtHz(float64(b.Low)), fmtHz(float64(b.High)))
+	return fmt.Sprintf("no tap on this winding closes it (the best, %g turns from the cold end, still leaves %s): the capacitance swing, maximum to minimum with the strays, is too small", sp.WidestOverlapTap, fmtHz(-float64(sp.WidestOverlap)))
+}
+
+// bandWithEdges is "80m (3.5 MHz–3.8 MHz)", or the edges alone for a
+// band without a name.
+func bandWithEdges(b Band) string {
+	edges := fmt.Sprintf("%s–%s", fmtHz(float64(b.Low)), fmtHz(float64(b.High)))
+	if b.Name == "" {
+		return edges
+	}
+	return b.Name + " (" + edges + ")"
 }
 
 func inBand(name string) string {

@@ -2,6 +2,7 @@ package coil
 
 import (
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -194,5 +195,132 @@ func TestSolveSpanBadInput(t *testing.T) {
 				t.Errorf("err = %v, want InputError %s", err, tc.param)
 			}
 		})
+	}
+}
+
+// A loaded Q so high that the passband is narrower than the dial scan's
+// step: the harmonic still crosses the high range's peak, and that
+// crossing must be reported (a scan that only tests rows for "inside"
+// misses it). The crossing is located independently by a fine scan of
+// 3·f_low − f_high for a sign change.
+func TestSpanCoincidenceNarrowPassband(t *testing.T) {
+	t.Parallel()
+	for _, q := range []float64{1e4, 1e5} {
+		spec := SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), LoadedQ: q}
+		sp, err := SolveSpan(spec)
+		if err != nil {
+			t.Fatal(err)
+		}
+		c, _ := newSpanCircuit(spec)
+		const n = 20000
+		var crossings []float64
+		prev := math.NaN()
+		for i := 0; i <= n; i++ {
+			x := float64(i) / n
+			g := 3*c.freq(x, false) - c.freq(x, true)
+			if i > 0 && (g > 0) != (prev > 0) {
+				crossings = append(crossings, x)
+			}
+			prev = g
+		}
+		if len(crossings) == 0 {
+			t.Fatal("the example has no 3rd-harmonic crossing to test")
+		}
+		for _, x := range crossings {
+			found := false
+			for _, co := range sp.Coincidences {
+				if co.Order == 3 && math.Abs(co.Setting-x) <= 1.0/n && co.Depth <= 1 {
+					found = true
+				}
+			}
+			if !found {
+				t.Errorf("Q %g: the 3rd harmonic crosses the high range's peak at %.4f of the dial, reported %+v", q, x, sp.Coincidences)
+			}
+		}
+	}
+}
+
+// A gap between the ranges comes with the tap that closes it. The overlap
+// is not monotonic in the tap (the high range rises towards both ends), so
+// the advice cannot be a fixed direction: from a tap a quarter turn above
+// the cold end the fix is to move up, from one near the top to move down.
+func TestSpanGapAdvice(t *testing.T) {
+	t.Parallel()
+	g := hfTapExample()
+	overlapAt := func(spec SpanSpec, tap float64) float64 {
+		spec.TapTurns = tap
+		c, err := newSpanCircuit(spec)
+		if err != nil {
+			t.Fatal(err)
+		}
+		open, _ := c.at(0)
+		meshed, _ := c.at(1)
+		return float64(open.FLow - meshed.FHigh)
+	}
+	for _, tap := range []float64{0.25, g.Turns - 1} {
+		spec := SpanSpec{Geometry: g, TapTurns: tap, A: hfGang(), B: hfGang(), Steps: 2}
+		sp, err := SolveSpan(spec)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if sp.Overlap >= 0 {
+			t.Fatalf("tap %g: the ranges overlap (%v); the test needs a gap", tap, sp.Overlap)
+		}
+		if !(sp.WidestOverlap >= 0) || !strings.Contains(sp.GapAdvice(), "overlap by") {
+			t.Fatalf("tap %g: advice %q, widest overlap %v", tap, sp.GapAdvice(), sp.WidestOverlap)
+		}
+		if (sp.WidestOverlapTap > tap) != (tap < g.Turns/2) {
+			t.Errorf("tap %g: advised tap %g is on the wrong side", tap, sp.WidestOverlapTap)
+		}
+		// The advised tap's own span has that overlap, and no quarter-turn
+		// tap overlaps more (relative to the high range's bottom).
+		fix := spec
+		fix.TapTurns = sp.WidestOverlapTap
+		got, err := SolveSpan(fix)
+		if err != nil || relErr(float64(got.Overlap), float64(sp.WidestOverlap)) > implTol {
+			t.Errorf("tap %g: span at the advised tap overlaps %v, advice says %v (%v)", tap, got.Overlap, sp.WidestOverlap, err)
+		}
+		best := float64(got.Overlap) / float64(got.High.Min)
+		for i := 1; i < int(g.Turns*4); i++ {
+			x := float64(i) / 4
+			spec.TapTurns = x
+			c, _ := newSpanCircuit(spec)
+			meshed, _ := c.at(1)
+			if rel := overlapAt(spec, x) / float64(meshed.FHigh); rel > best+1e-12 {
+				t.Errorf("tap %g overlaps by %.4f, more than the advised %g's %.4f", x, rel, sp.WidestOverlapTap, best)
+			}
+		}
+	}
+	// A capacitor with too little swing: no tap closes the gap, and the
+	// advice says so.
+	spec := SpanSpec{Geometry: g, TapTurns: 17, A: GangSection{Min: 100e-12, Max: 365e-12}, B: GangSection{Min: 100e-12, Max: 365e-12}, Steps: 2}
+	sp, err := SolveSpan(spec)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if sp.Overlap >= 0 || sp.WidestOverlap >= 0 || !strings.Contains(sp.GapAdvice(), "no tap on this winding closes it") {
+		t.Errorf("100–365 pF: overlap %v, widest %v, advice %q", sp.Overlap, sp.WidestOverlap, sp.GapAdvice())
+	}
+	for i := 1; i < int(g.Turns*4); i++ {
+		if ov := overlapAt(spec, float64(i)/4); ov > float64(sp.WidestOverlap)+1e-6 {
+			t.Errorf("tap %g leaves a gap of %g Hz, smaller than the advised %v", float64(i)/4, -ov, -sp.WidestOverlap)
+		}
+	}
+}
+
+// A high range reaching past the coil's self-resonance is flagged as
+// outside the lumped model, not only as past a third of it.
+func TestSpanAboveSRFWarning(t *testing.T) {
+	t.Parallel()
+	sp, err := SolveSpan(SpanSpec{Geometry: hfTapExample(), TapTurns: 0.25, A: hfGang(), B: hfGang(), Steps: 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, _ := Predict(hfTapExample(), 0)
+	if !(sp.High.Max > p.SRF) {
+		t.Fatalf("high range top %v is below the SRF %v; the test needs it above", sp.High.Max, p.SRF)
+	}
+	if !strings.Contains(strings.Join(sp.Warnings, "\n"), "lumped circuit does not hold") {
+		t.Errorf("warnings %q", sp.Warnings)
 	}
 }

@@ -57,8 +57,11 @@ type TapChoice struct {
 // (one of them when the target is at or beyond an end), nearest first.
 // Every quarter-turn tap on the winding (not the terminals) is evaluated,
 // so the answer does not rely on the goal rising monotonically with the
-// tap. A target the coil cannot reach is an error wrapping ErrInfeasible
-// that names the nearest tap.
+// tap. A bottom-section inductance at or above the whole coil's is an
+// error wrapping ErrInfeasible that names the nearest tap (the choices
+// are returned with it). A ratio beyond every tap on the winding is not an
+// error: the one choice returned is the end tap, and its Error says how
+// far it misses.
 func FindTap(g Geometry, f unit.Frequency, goal TapGoal, target float64) ([]TapChoice, error) {
 	if err := g.Validate(); err != nil {
 		return nil, err
@@ -118,7 +121,7 @@ func FindTap(g Geometry, f unit.Frequency, goal TapGoal, target float64) ([]TapC
 
 func goalString(g TapGoal, v float64) string {
 	if g == GoalBottomInductance {
-		return fmt.Sprintf("%.4g µH", v*1e6)
+		return fmtInductance(v)
 	}
 	return fmt.Sprintf("%.4g", v)
 }

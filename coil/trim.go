@@ -77,8 +77,16 @@ type Calibration struct {
 	// the reading (model/reading − 1); with one reading and one unknown it
 	// is zero to the solver's precision.
 	Residual float64
-	// SelfCapacitance is Medhurst's self-capacitance of the calibrated coil.
+	// SelfCapacitance is Medhurst's self-capacitance of the calibrated coil,
+	// across the winding.
 	SelfCapacitance unit.Capacitance
+	// SelfCapacitanceAtTerminals is SelfCapacitance as the instrument sees
+	// it through the leads (fixture wire included), which sit in series
+	// outside it: to first order in ω²LC the effective inductance
+	// L_leads + L_coil/(1 − ω²·L_coil·C_s) is L·(1 + ω²·L·C_t) with
+	// C_t ≈ C_s·(L_coil/L)². The two-capacitor line measures C_t (plus the
+	// fixture stray), not C_s; with short leads the two agree.
+	SelfCapacitanceAtTerminals unit.Capacitance
 	// MeasuredSelfCapacitance (two-capacitor method only) is the measured
 	// total capacitance across the coil less the given fixture stray: a
 	// check of Medhurst's figure. Zero otherwise.
@@ -126,6 +134,11 @@ func Calibrate(g Geometry, m Measurement) (Calibration, error) {
 		return c, readingError(r, err)
 	}
 	c.Residual = got/want - 1
+	pm, err := Predict(gm, r.Frequency)
+	if err != nil {
+		return c, readingError(r, err)
+	}
+	c.SelfCapacitanceAtTerminals = terminalSelfCapacitance(pm)
 
 	cal := g
 	cal.Springback = s
@@ -143,10 +156,25 @@ func Calibrate(g Geometry, m Measurement) (Calibration, error) {
 	return c, nil
 }
 
+// terminalSelfCapacitance is p's self-capacitance as seen at the
+// terminals through the leads, at p's frequency (see
+// Calibration.SelfCapacitanceAtTerminals). With Predict's
+// L_eff = L_leads + L_coil/(1 − (f/SRF)²), the first-order term is
+// ω²·L_coil/ω_SRF², so C_t = L_coil/(L·ω_SRF)², which is C_s·(L_coil/L)²
+// up to the skin effect's change of L_coil between f and the SRF.
+func terminalSelfCapacitance(p Prediction) unit.Capacitance {
+	ws := twoPi * float64(p.SRF)
+	l := float64(p.Inductance)
+	return unit.Capacitance(float64(p.InductanceCoilAtF) / (l * l * ws * ws))
+}
+
 // readingError explains a model failure at the reading's frequency.
 func readingError(r Reading, err error) error {
 	var ie *InputError
 	if errors.As(err, &ie) && ie.Param == "frequency" {
+		if r.Kind == MeasureDirect {
+			return inputErrorf("test_frequency", "the meter's test frequency %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use the reading; measure at a lower test frequency", fmtHz(float64(r.Frequency)))
+		}
 		return inputErrorf("resonance", "the reading at %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use it; measure with a larger capacitor (a lower frequency)", fmtHz(float64(r.Frequency)))
 	}
 	return err
@@ -167,22 +195,22 @@ func springbackValue(g Geometry, sn sense, s float64) float64 {
 // fitSpringback solves model(s) = want for s; the model grows with s (a
 // larger diameter, more inductance and self-capacitance).
 func fitSpringback(g Geometry, sn sense, want float64) (float64, error) {
-	return bisectSpringback(func(s float64) float64 { return springbackValue(g, sn, s) }, want, "measured_inductance")
+	return bisectSpringback(func(s float64) float64 { return springbackValue(g, sn, s) }, want, "measured_inductance", "this coil")
 }
 
 // bisectSpringback solves value(s) = want for s in MinSpringback …
 // MaxSpringback, value rising with s. A want outside the range is an
-// *InputError for param.
-func bisectSpringback(value func(s float64) float64, want float64, param string) (float64, error) {
+// *InputError for param; what names the thing measured ("this coil").
+func bisectSpringback(value func(s float64) float64, want float64, param, what string) (float64, error) {
 	lo, hi := MinSpringback, MaxSpringback
 	vlo, vhi := value(lo), value(hi)
 	if want < vlo {
-		return 0, inputErrorf(param, "%s is less than this coil can be even if its bore were 20 %% smaller than the mandrel (%s): check the turns, length and leads, and the reading's unit",
-			fmtH(want), fmtH(vlo))
+		return 0, inputErrorf(param, "%s is less than %s can be even if its bore were 20 %% smaller than the mandrel (%s): check the turns, length and leads, and the reading's unit",
+			fmtH(want), what, fmtH(vlo))
 	}
 	if want > vhi {
-		return 0, inputErrorf(param, "%s is more than this coil can be even with 50 %% springback (%s): check the turns, length and leads, and the reading's unit",
-			fmtH(want), fmtH(vhi))
+		return 0, inputErrorf(param, "%s is more than %s can be even with 50 %% springback (%s): check the turns, length and leads, and the reading's unit",
+			fmtH(want), what, fmtH(vhi))
 	}
 	for range 100 {
 		mid := (lo + hi) / 2

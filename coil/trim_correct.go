@@ -363,8 +363,9 @@ func ExpectedReading(g Geometry, cal Calibration, m Measurement) (Expected, erro
 		if err != nil {
 			return e, err
 		}
-		// The measured total stray, with the self-capacitance's change.
-		c0 := float64(r.TotalStray) + float64(p.SelfCapacitance) - float64(cal.SelfCapacitance)
+		// The measured total stray, with the change of the self-capacitance
+		// the terminals see.
+		c0 := float64(r.TotalStray) + float64(terminalSelfCapacitance(p)) - float64(cal.SelfCapacitanceAtTerminals)
 		for _, res := range m.Resonances {
 			e.Resonances = append(e.Resonances, Resonance{
 				Frequency:   ResonantFrequency(p.Inductance, res.Capacitance+unit.Capacitance(c0)),

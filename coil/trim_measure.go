@@ -146,6 +146,10 @@ func (m Measurement) Reduce() (Reading, error) {
 }
 
 func (m *Measurement) validateTolerances() error {
+	// The stray first: its tolerance follows from it in the command.
+	if !finite(float64(m.Stray)) || m.Stray < 0 || m.Stray > 1e-6 {
+		return inputErrorf("stray", "must be zero or a small positive capacitance, e.g. 2pF")
+	}
 	for _, t := range []struct {
 		name string
 		v    float64
@@ -166,9 +170,6 @@ func (m *Measurement) validateTolerances() error {
 		if !finite(float64(c.v)) || c.v < 0 || c.v > 1e-6 {
 			return inputErrorf("tolerance", "%s tolerance %s is not a sensible capacitance", c.name, fmtF(float64(c.v)))
 		}
-	}
-	if !finite(float64(m.Stray)) || m.Stray < 0 || m.Stray > 1e-6 {
-		return inputErrorf("stray", "must be zero or a small positive capacitance, e.g. 2pF")
 	}
 	if fl := float64(m.FixtureLeadLength); !finite(fl) || fl < 0 || fl > MaxLeadLength {
 		return inputErrorf("fixture_lead_length", "must be zero or a length up to %s", mm(MaxLeadLength))
@@ -282,23 +283,30 @@ func (m *Measurement) reduceLine() (Reading, error) {
 	}
 	l, c0, resid := fitLine(rs)
 
-	// Uncertainty: move each input by its tolerance, one at a time, and
-	// add the changes root-sum-square.
+	// Uncertainty: first-order propagation, each input's sensitivity (from
+	// a small relative step) times its tolerance, added root-sum-square as
+	// independent errors. A step of a whole tolerance would give a secant
+	// instead, several percent low for a 5 % capacitor.
+	const step = 1e-6
 	var varL, varC0 float64
 	work := slices.Clone(rs)
-	for i, r := range rs {
-		work[i].Capacitance = r.Capacitance + unit.Capacitance(m.capSigma(float64(r.Capacitance)))
+	add := func(i int, sigmaPerStep float64) {
 		l1, c1, _ := fitLine(work)
-		varL += (l1 - l) * (l1 - l)
-		varC0 += (c1 - c0) * (c1 - c0)
-		work[i] = r
-		work[i].Frequency = r.Frequency * unit.Frequency(1+m.FrequencyTolerance)
-		l1, c1, _ = fitLine(work)
-		varL += (l1 - l) * (l1 - l)
-		varC0 += (c1 - c0) * (c1 - c0)
-		work[i] = r
+		varL += sq((l1 - l) * sigmaPerStep)
+		varC0 += sq((c1 - c0) * sigmaPerStep)
+		work[i] = rs[i]
 	}
-	uC0 := math.Sqrt(varC0)
+	for i, r := range rs {
+		c := float64(r.Capacitance)
+		work[i].Capacitance = r.Capacitance * (1 + step)
+		add(i, m.capSigma(c)/(step*c))
+		work[i].Frequency = r.Frequency * (1 + step)
+		add(i, m.FrequencyTolerance/step)
+	}
+	uC0, uL := math.Sqrt(varC0), math.Sqrt(varL)/l
+	if uL > maxLineUncertainty {
+		return Reading{}, inputErrorf("resonance", "the readings cannot fix L: ±%.0f %% from the capacitor and frequency tolerances; use capacitors further apart (ideally 1:4) or closer tolerances (--cap-tol)", uL*100)
+	}
 	if c0 < -(uC0 + 0.1e-12) {
 		return Reading{}, inputErrorf("resonance", "the readings imply a negative capacitance across the coil (%s ± %s); a frequency or a capacitor value is off: measure the capacitors and read the resonances again",
 			fmtF(c0), fmtF(uC0))
@@ -315,7 +323,7 @@ func (m *Measurement) reduceLine() (Reading, error) {
 	return Reading{
 		Kind:                  MeasureTwoCapacitor,
 		Inductance:            unit.Inductance(l),
-		Uncertainty:           math.Sqrt(varL) / l,
+		Uncertainty:           uL,
 		Frequency:             unit.Frequency(math.Exp(logSum / float64(len(rs)))),
 		Effective:             false,
 		TotalStray:            unit.Capacitance(c0),
@@ -323,6 +331,13 @@ func (m *Measurement) reduceLine() (Reading, error) {
 		FitResidual:           resid,
 	}, nil
 }
+
+// maxLineUncertainty is the largest relative uncertainty of L from the
+// two-capacitor line that is still a reading: beyond it the capacitors are
+// too close together for their tolerances (the same bound as a meter's).
+const maxLineUncertainty = 0.5
+
+func sq(x float64) float64 { return x * x }
 
 // fitLine fits 1/ω² = L·C + L·C0 by least squares and returns L, C0 and
 // the rms relative frequency residual (zero for two readings).
@@ -363,6 +378,8 @@ func fitLine(rs []Resonance) (l, c0, resid float64) {
 // fmtH and fmtF format an inductance and a capacitance for messages.
 func fmtH(h float64) string {
 	switch a := math.Abs(h); {
+	case a >= 1:
+		return fmt.Sprintf("%.4g H", h)
 	case a >= 1e-3:
 		return fmt.Sprintf("%.4g mH", h*1e3)
 	case a >= 1e-6:

@@ -72,7 +72,7 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 		return sc, err
 	}
 	sc.ModelRatio = whole.Ratio
-	fit := func(m *Measurement, param string, pick func(Sections) unit.Inductance) (*SectionFit, error) {
+	fit := func(m *Measurement, param, what string, pick func(Sections) unit.Inductance) (*SectionFit, error) {
 		if m == nil {
 			return nil, nil
 		}
@@ -99,7 +99,7 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 			return float64(pick(sec))
 		}
 		want := float64(r.Inductance)
-		s, err := bisectSpringback(value, want, param)
+		s, err := bisectSpringback(value, want, param, what)
 		if err != nil {
 			return nil, err
 		}
@@ -117,10 +117,10 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 			Residual:          model/want - 1,
 		}, nil
 	}
-	if sc.Bottom, err = fit(bottom, "measured_bottom", func(s Sections) unit.Inductance { return s.LB }); err != nil {
+	if sc.Bottom, err = fit(bottom, "measured_bottom", "the bottom section (cold end to tap)", func(s Sections) unit.Inductance { return s.LB }); err != nil {
 		return sc, err
 	}
-	if sc.Top, err = fit(top, "measured_top", func(s Sections) unit.Inductance { return s.LA }); err != nil {
+	if sc.Top, err = fit(top, "measured_top", "the top section (tap to hot end)", func(s Sections) unit.Inductance { return s.LA }); err != nil {
 		return sc, err
 	}
 	if sc.Bottom != nil && sc.Top != nil {

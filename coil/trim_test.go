@@ -157,6 +157,11 @@ func TestReduceRefusesInconsistent(t *testing.T) {
 		{"NaN frequency", Measurement{Kind: MeasureResonance, Resonances: []Resonance{{unit.Frequency(math.NaN()), 100e-12}}}, "resonance"},
 		{"negative capacitor", Measurement{Kind: MeasureResonance, Resonances: []Resonance{{10e6, -1e-12}}}, "resonance"},
 		{"huge tolerance", Measurement{Kind: MeasureDirect, Inductance: 50e-9, MeterTolerance: 2}, "tolerance"},
+		// 22 pF and 22.5 pF at 5 %: the line's slope is lost in the tolerances.
+		{"capacitors too close", Measurement{Kind: MeasureTwoCapacitor, CapacitorTolerance: 0.05,
+			Resonances: []Resonance{{ResonantFrequency(1e-6, 24e-12), 22e-12}, {ResonantFrequency(1e-6, 24.5e-12), 22.5e-12}}}, "resonance"},
+		{"negative stray names the stray", Measurement{Kind: MeasureResonance, Resonances: []Resonance{{10e6, 100e-12}},
+			Stray: -1e-12, StrayTolerance: -0.5e-12}, "stray"},
 		{"no kind", Measurement{}, "measurement"},
 	}
 	for _, tc := range tests {
@@ -511,5 +516,100 @@ func TestCorrectInfeasible(t *testing.T) {
 	_, err = Correct(g, TrimTarget{Inductance: 0.1e-9}, CorrectOptions{Tolerance: 0.005})
 	if !errors.Is(err, ErrInfeasible) {
 		t.Errorf("err = %v, want ErrInfeasible", err)
+	}
+}
+
+// With a 5 % capacitor the line's uncertainty is still the first-order
+// (linear) propagation, not the secant of a whole-tolerance step, which
+// comes out several percent low for L (issue #5 review).
+func TestReduceUncertaintyFirstOrder(t *testing.T) {
+	t.Parallel()
+	const (
+		capTol  = 0.05
+		freqTol = 0.001
+		linTol  = 1e-4 // relative: a 1e-6 step against the analytic derivative
+	)
+	m := Measurement{Kind: MeasureTwoCapacitor, Resonances: []Resonance{{10e6, 100e-12}, {5.2e6, 400e-12}},
+		CapacitorTolerance: capTol, FrequencyTolerance: freqTol}
+	r, err := m.Reduce()
+	if err != nil {
+		t.Fatal(err)
+	}
+	// With y = 1/ω², L = (y2 − y1)/ΔC and C0 = (C2·y1 − C1·y2)/(y2 − y1):
+	//   ∂L/∂C1 = L/ΔC, ∂L/∂C2 = −L/ΔC, ∂L/∂y1 = −1/ΔC, ∂L/∂y2 = 1/ΔC;
+	//   ∂C0/∂C1 = −y2/(y2−y1), ∂C0/∂C2 = y1/(y2−y1),
+	//   ∂C0/∂y1 = y2·ΔC/(y2−y1)², ∂C0/∂y2 = −y1·ΔC/(y2−y1)²;
+	// σ_y = 2·freqTol·y.
+	w1, w2 := 2*math.Pi*10e6, 2*math.Pi*5.2e6
+	y1, y2 := 1/(w1*w1), 1/(w2*w2)
+	c1, c2 := 100e-12, 400e-12
+	dc, dy := c2-c1, y2-y1
+	l := dy / dc
+	sL := math.Sqrt(sq(l/dc*capTol*c1) + sq(l/dc*capTol*c2) + sq(2*freqTol*y1/dc) + sq(2*freqTol*y2/dc))
+	sC0 := math.Sqrt(sq(y2/dy*capTol*c1) + sq(y1/dy*capTol*c2) + sq(y2*dc/(dy*dy)*2*freqTol*y1) + sq(y1*dc/(dy*dy)*2*freqTol*y2))
+	if e := relErr(r.Uncertainty, sL/l); e > linTol {
+		t.Errorf("σ_L/L = %g, first order gives %g (rel err %.2g)", r.Uncertainty, sL/l, e)
+	}
+	if e := relErr(float64(r.TotalStrayUncertainty), sC0); e > linTol {
+		t.Errorf("σ_C0 = %g, first order gives %g (rel err %.2g)", float64(r.TotalStrayUncertainty), sC0, e)
+	}
+}
+
+// The two-capacitor line sees the self-capacitance through the leads: on a
+// coil with long leads it measures C_s·(L_coil/L)², well below Medhurst's
+// C_s across the winding.
+func TestSelfCapacitanceAtTerminals(t *testing.T) {
+	t.Parallel()
+	// 3 turns on 5 mm with 25 mm leads: the leads are half the inductance.
+	g := Geometry{FormerDiameter: 5e-3, WireDiameter: 1e-3, Turns: 3, Pitch: 2e-3, LeadLength: 25e-3}
+	p0, err := Predict(g, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Independent route: C_t from the effective inductance at a frequency
+	// far below the SRF, (L_eff/L − 1)/(ω²L), whose next term is of order
+	// (f/SRF)² = 1e-4.
+	f := float64(p0.SRF) / 100
+	p, err := Predict(g, unit.Frequency(f))
+	if err != nil {
+		t.Fatal(err)
+	}
+	w := 2 * math.Pi * f
+	ct := (float64(p.InductanceEffective)/float64(p.Inductance) - 1) / (w * w * float64(p.Inductance))
+	if e := relErr(float64(terminalSelfCapacitance(p)), ct); e > 1e-3 {
+		t.Errorf("C_t %g, from L_eff %g (rel err %.2g)", float64(terminalSelfCapacitance(p)), ct, e)
+	}
+
+	// Readings the model gives with 10 pF and 40 pF and no fixture stray:
+	// the line's capacitance is C_t, not C_s.
+	var rs []Resonance
+	for _, c := range []float64{10e-12, 40e-12} {
+		rs = append(rs, Resonance{unit.Frequency(resonanceFixedPoint(t, g, c)), unit.Capacitance(c)})
+	}
+	cal, err := Calibrate(g, Measurement{Kind: MeasureTwoCapacitor, Resonances: rs})
+	if err != nil {
+		t.Fatal(err)
+	}
+	const lineTol = 0.2 // the small intercept of a line through 10–40 pF; see TestTrimRoundTrip
+	if e := relErr(float64(cal.MeasuredSelfCapacitance), float64(cal.SelfCapacitanceAtTerminals)); e > lineTol {
+		t.Errorf("measured %v, at the terminals %v (rel err %.2g)", cal.MeasuredSelfCapacitance, cal.SelfCapacitanceAtTerminals, e)
+	}
+	if r := float64(cal.SelfCapacitanceAtTerminals / cal.SelfCapacitance); r > 0.5 {
+		t.Errorf("with leads half of L, C_t/C_s = %.2g; want about (1/2)²", r)
+	}
+}
+
+// A meter reading at a test frequency near the self-resonance names the
+// meter's frequency, not a capacitor.
+func TestCalibrateMeterFrequencyTooHigh(t *testing.T) {
+	t.Parallel()
+	p, err := Predict(vhfExample(), 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, err = Calibrate(vhfExample(), Measurement{Kind: MeasureDirect, Inductance: p.Inductance, TestFrequency: p.SRF, MeterTolerance: 0.02})
+	var ie *InputError
+	if !errors.As(err, &ie) || ie.Param != "test_frequency" {
+		t.Errorf("err = %v, want *InputError for test_frequency", err)
 	}
 }

@@ -24,7 +24,7 @@ func (p *Prediction) Warnings() []string {
 	var w []string
 	f := float64(p.Frequency)
 	if p.Flags&FlagNearSRF != 0 {
-		w = append(w, fmt.Sprintf("operating frequency %s is above a third of the self-resonance %s (common practice limit): L and Q depend strongly on stray capacitance; prefer fewer turns or a smaller coil",
+		w = append(w, fmt.Sprintf("operating frequency %s is above a third of the self-resonance (SRF %s, one end grounded; SRF/3 is the common-practice limit): L and Q depend strongly on stray capacitance; prefer fewer turns or a smaller coil",
 			fmtHz(f), fmtHz(float64(p.SRF))))
 	}
 	if p.Flags&FlagLongWire != 0 {

@@ -69,20 +69,61 @@ func (f LengthFormat) Format(m float64) string {
 	return fmt.Sprintf("%.2f mm", m*1e3)
 }
 
-// FormatTurns prints quarter turns as a builder says them: 5, 5¼, 5½, 5¾.
+// FormatTurns prints quarter turns as a builder says them: 5, 5¼, 5½, 5¾,
+// and ¾ (not 0¾) below one turn.
 func FormatTurns(n float64) string {
 	whole := math.Floor(n + 1e-9)
-	switch frac := n - whole; {
-	case frac < 0.125:
-		return fmt.Sprintf("%.0f", whole)
-	case frac < 0.375:
-		return fmt.Sprintf("%.0f¼", whole)
-	case frac < 0.625:
-		return fmt.Sprintf("%.0f½", whole)
+	w := fmt.Sprintf("%.0f", whole)
+	frac := n - whole
+	if whole == 0 && frac >= 0.125 {
+		w = ""
 	}
-	return fmt.Sprintf("%.0f¾", whole)
+	switch {
+	case frac < 0.125:
+		return w
+	case frac < 0.375:
+		return w + "¼"
+	case frac < 0.625:
+		return w + "½"
+	}
+	return w + "¾"
 }
 
 // FormatPercent prints a fraction as a percentage with three significant
 // figures: 0.031 → "3.1 %".
 func FormatPercent(x float64) string { return fmt.Sprintf("%.3g %%", x*100) }
+
+// Lengths the builder cuts (wire, leads, a former) are printed to what a
+// ruler gives at the bench, not to the model's digits: "139 mm", not
+// "138.53 mm". Dimensions checked with calipers keep Format's precision.
+
+// CutStep is the resolution of a length to cut: 1 mm, or 0.01 in.
+func (f LengthFormat) CutStep() float64 {
+	if f.Inches {
+		return inch / 100
+	}
+	return 1e-3
+}
+
+// RoundCut rounds a length to cut to CutStep, half away from zero.
+func (f LengthFormat) RoundCut(m float64) float64 {
+	st := f.CutStep()
+	return math.Round(m/st) * st
+}
+
+// FormatCut prints a length to cut: whole millimetres ("139 mm", from 1 m
+// "2.327 m"), or inches to 0.01 in (0.1 in from 10 in).
+func (f LengthFormat) FormatCut(m float64) string {
+	m = f.RoundCut(m)
+	if f.Inches {
+		in := m / inch
+		if math.Abs(in) >= 10 {
+			return fmt.Sprintf("%.1f in", in)
+		}
+		return fmt.Sprintf("%.2f in", in)
+	}
+	if math.Abs(m) >= 1 {
+		return fmt.Sprintf("%.3f m", m)
+	}
+	return fmt.Sprintf("%.0f mm", m*1e3)
+}

@@ -17,8 +17,13 @@ func TestFormat(t *testing.T) {
 		{"m", LengthFormat{}.Format(2.327), "2.327 m"},
 		{"in", LengthFormat{Inches: true}.Format(0.0254), "1.000 in"}, // 1 in = 25.4 mm exactly (1959)
 		{"mil", LengthFormat{Inches: true}.Format(0.0254e-3 * 5), "5.00 mil"},
+		{"cut mm", LengthFormat{}.FormatCut(138.53e-3), "139 mm"},
+		{"cut m", LengthFormat{}.FormatCut(2.32684), "2.327 m"},
+		{"cut in", LengthFormat{Inches: true}.FormatCut(138.53e-3), "5.45 in"},
 		{"turns", FormatTurns(5.25), "5¼"},
 		{"half", FormatTurns(8.5), "8½"},
+		{"quarter", FormatTurns(0.25), "¼"},
+		{"none", FormatTurns(0), "0"},
 		{"percent", FormatPercent(0.031), "3.1 %"},
 	}
 	for _, tc := range tests {

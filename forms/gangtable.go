@@ -105,6 +105,10 @@ func LoadGangTable(r io.Reader, file string) (GangTable, error) {
 		return fail("needs at least two rows, at 0 %% and 100 %%")
 	}
 	if last := t.Points[len(t.Points)-1]; math.Abs(last.Setting-1) > 1e-12 {
+		if last.Setting <= 0.01 {
+			// Settings written as fractions of the rotation, 0 … 1.
+			return fail("the last row must be at 100 %% (plates fully meshed); settings are percentages, so a bare 1 means 1 %%: write 100%%")
+		}
 		return fail("the last row must be at 100 %% (plates fully meshed)")
 	}
 	t.Points[len(t.Points)-1].Setting = 1

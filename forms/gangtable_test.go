@@ -40,6 +40,7 @@ func TestLoadGangTable(t *testing.T) {
 		{"too many", "0 1pF 2pF 3pF\n", 1, "fields"},
 		{"one row", "0 10pF\n", 1, "two rows"},
 		{"over 100", "0 10pF\n120% 50pF\n", 2, "outside"},
+		{"fractions", "0 10pF\n0.5 100pF\n1 300pF\n", 3, "a bare 1 means 1 %"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()

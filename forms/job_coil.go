@@ -55,13 +55,7 @@ func (l *jobLoader) coil(i int, m map[string]any) JobCoil {
 	if s, ok := e.str("notes", false, `"wind on the 6 mm drill"`); ok {
 		c.Notes = s
 	}
-	if v, present := m["transmit"]; present {
-		b, isBool := v.(bool)
-		if !isBool {
-			e.fail("transmit", "transmit", fmt.Errorf("is a %s; write transmit = true", tomlType(v)))
-		}
-		c.Transmit = b
-	}
+	c.Transmit, _ = e.boolean("transmit")
 	l.winding(e, &c)
 	l.target(e, &c)
 	l.tap(e, &c)
@@ -300,14 +294,13 @@ func (l *jobLoader) span(e *jobEntry, c *JobCoil) {
 		}
 		s.Margin = *m
 	}
-	if v, present := e.m["choose-tap"]; present {
-		b, isBool := v.(bool)
-		if !isBool {
-			e.fail("choose-tap", "choose-tap", fmt.Errorf("is a %s; write choose-tap = true", tomlType(v)))
-			ok = false
-		}
-		s.ChooseTap = b
+	chooseTap, chooseOK := e.boolean("choose-tap")
+	_, chooseGiven := e.m["choose-tap"]
+	chooseBad := chooseGiven && !chooseOK // reported; the tap's absence may be its doing
+	if chooseBad {
+		ok = false
 	}
+	s.ChooseTap = chooseTap
 	if v, present := e.m["bands"]; present {
 		list, isList := v.([]any)
 		if !isList {
@@ -335,10 +328,10 @@ func (l *jobLoader) span(e *jobEntry, c *JobCoil) {
 	case s.ChooseTap && hasTap:
 		e.fail("choose-tap", "choose-tap", errors.New("choose-tap picks the tap itself; remove tap (or tap-ratio), or choose-tap"))
 		ok = false
-	case s.ChooseTap && len(s.Bands) == 0:
+	case s.ChooseTap && e.m["bands"] == nil:
 		e.fail("choose-tap", "choose-tap", errors.New(`choose-tap needs the bands to cover: add bands = ["80m=3.5-3.8MHz", ...]`))
 		ok = false
-	case !s.ChooseTap && !hasTap:
+	case !s.ChooseTap && !hasTap && !chooseBad:
 		key := "gang"
 		if !hasGang {
 			key = "law"

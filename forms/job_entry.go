@@ -104,6 +104,24 @@ func (e *jobEntry) number(key, example string) (float64, bool) {
 	return x, true
 }
 
+// boolean reads key as true or false; ok is false when absent or not a
+// boolean.
+func (e *jobEntry) boolean(key string) (v, ok bool) {
+	x, present := e.m[key]
+	if !present {
+		return false, false
+	}
+	switch x := x.(type) {
+	case bool:
+		return x, true
+	case string:
+		e.fail(key, key, fmt.Errorf("%q is text; write %s = true or false, without quotes", x, key))
+	default:
+		e.fail(key, key, fmt.Errorf("is a %s; write %s = true or false", tomlType(x), key))
+	}
+	return false, false
+}
+
 // integer reads key as a whole number within [lo, hi].
 func (e *jobEntry) integer(key string, lo, hi int, example string) (int, bool) {
 	x, ok := e.number(key, example)

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"slices"
 	"strings"
+
+	"turnwise/coil"
 )
 
 // The bill of materials: batch totals of what the coil pages ask for.
@@ -16,7 +18,7 @@ const formerMargin = 10e-3 // m
 type wireLine struct {
 	key, desc string
 	uses      []string // "L1 × 3"
-	total     float64  // m, cut lengths × quantities
+	total     float64  // m: the cut lengths as printed on the coil pages × quantities
 }
 
 // supportLine is one mandrel or former.
@@ -41,7 +43,9 @@ func (s *sheet) bomLines() ([]*wireLine, []*supportLine, []string) {
 			i = len(wires) - 1
 		}
 		wires[i].uses = append(wires[i].uses, fmt.Sprintf("%s × %d", c.Name, c.Quantity))
-		wires[i].total += float64(p.WireLength) * float64(c.Quantity)
+		// The builder cuts what the page prints, so the total adds up by
+		// hand from the coil pages.
+		wires[i].total += s.u.cutRound(float64(p.WireLength)) * float64(c.Quantity)
 
 		j := slices.IndexFunc(supports, func(m *supportLine) bool { return m.kind == c.Support && m.name == c.SupportName })
 		if j < 0 {
@@ -53,10 +57,12 @@ func (s *sheet) bomLines() ([]*wireLine, []*supportLine, []string) {
 		supports[j].longest = max(supports[j].longest, float64(p.WindingLength))
 
 		if sp := c.Span; sp != nil {
-			gang := "A " + sp.GangA
-			if sp.GangB != "" && sp.GangB != sp.GangA {
-				gang += ", B " + sp.GangB
-			} else {
+			gang := sp.Capacitor
+			switch {
+			case gang != "":
+			case sp.GangB != "" && sp.GangB != sp.GangA:
+				gang = "A " + sp.GangA + ", B " + sp.GangB
+			default:
 				gang = sp.GangA + " per section"
 			}
 			parts = append(parts, fmt.Sprintf("two-gang variable capacitor, %s, for %s: %d", gang, c.Name, c.Quantity))
@@ -80,11 +86,11 @@ func (s *sheet) billOfMaterials(x, y, w float64) float64 {
 	y += 4.2
 	for _, wl := range wires {
 		s.font("", bodySize)
-		cells := []string{wl.desc, strings.Join(wl.uses, ", "), s.u.of(wl.total), s.u.of(wl.total * (1 + allow))}
+		cells := []string{wl.desc, strings.Join(wl.uses, ", "), s.u.cut(wl.total), s.u.stock(wl.total * (1 + allow))}
 		y = s.wrappedRow(x, y, cols, cells, 3)
 	}
 	s.font("", smallSize)
-	y = s.para(x, y+0.6, w, fmt.Sprintf("Cut lengths include the leads and %s per coil for stripping and soldering. The allowance covers a coil that goes wrong; it is common practice, not a rule.", s.u.of(0.02)))
+	y = s.para(x, y+0.6, w, fmt.Sprintf("Batch total: each coil page's wire to cut × how many to build. Cut lengths include the leads and %s per coil for stripping and soldering. The allowance covers a coil that goes wrong, rounded up; it is common practice, not a rule.", s.u.lead(float64(coil.CutAllowance))))
 
 	// Mandrels and formers.
 	y += 2.5
@@ -96,7 +102,7 @@ func (s *sheet) billOfMaterials(x, y, w float64) float64 {
 		s.font("", bodySize)
 		need := "1 to share (the coil slides off)"
 		if m.kind == "former" {
-			need = fmt.Sprintf("%d, each at least %s long", m.count, s.u.of(m.longest+2*formerMargin))
+			need = fmt.Sprintf("%d, each at least %s long", m.count, s.u.cut(s.u.cutUp(m.longest+2*formerMargin)))
 		}
 		kind := "mandrel"
 		if m.kind == "former" {

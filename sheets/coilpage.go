@@ -136,37 +136,46 @@ func (s *sheet) coilHeader(c *Coil, y, x, w float64) float64 {
 	return y + 4
 }
 
-// windingSteps are the instructions, in order.
+// windingSteps are the instructions, in order. Lengths to cut are to the
+// millimetre; lengths to check with calipers keep predict's precision.
 func (s *sheet) windingSteps(c *Coil) []string {
 	p := c.Prediction
 	g := p.Geometry
 	u := s.u
-	lead := u.of(float64(g.LeadLength))
+	lead := u.lead(float64(g.LeadLength))
 	enamel := float64(g.WireOverall) > float64(g.WireDiameter)*1.0001
 	st := []string{fmt.Sprintf("Cut %s of wire: the winding %s, two leads of %s and %s to strip and solder.",
-		u.of(float64(p.WireLength)), u.of(float64(p.HelixWire)), lead, u.of(float64(coil.CutAllowance)))}
+		u.cut(float64(p.WireLength)), u.cut(float64(p.HelixWire)), lead, u.lead(float64(coil.CutAllowance)))}
 	if enamel {
-		st = append(st, "Strip 10 mm of enamel at each end (scrape, or a solder pot for solderable enamel) and tin the ends.")
+		st = append(st, fmt.Sprintf("Strip %s of enamel at each end (scrape, or a solder pot for solderable enamel) and tin the ends.", u.lead(float64(coil.CutAllowance)/2)))
 	}
 	if c.Support == "former" {
 		st = append(st, fmt.Sprintf("Fix the cold end on the %s (two small holes, or tape), leaving %s of lead plus the strip allowance.", c.SupportName, lead))
 	} else {
 		st = append(st, fmt.Sprintf("Clamp the %s in a vice by its tip, plain shank out. Leave %s of lead plus the strip allowance at the cold end.", c.SupportName, lead))
 	}
-	if c.CloseWound {
+	// A tap on touching turns cannot be soldered afterwards without
+	// bridging its neighbours: it is made while winding, as a loop.
+	loopTap := c.Tap != nil && c.CloseWound
+	switch {
+	case c.CloseWound && loopTap:
+		st = append(st, fmt.Sprintf("Wind %s close together, each turn touching the last, pulled snug. At %s from the cold end, twist a small loop of wire out for the tap, then carry on.",
+			turnsWord(g.Turns), turnsWord(c.Tap.Turns)))
+	case c.CloseWound:
 		st = append(st, fmt.Sprintf("Wind %s close together, each turn touching the last, pulled snug.", turnsWord(g.Turns)))
-	} else {
+	default:
 		st = append(st, fmt.Sprintf("Wind %s, pulled snug, the same way round as the drawing. Count them on the top, as its numbers do.", turnsWord(g.Turns)))
 	}
 	if c.Support != "former" {
-		sb := "Slide the coil off; it springs open a little."
+		bore := u.of(float64(p.InsideDiameter))
 		switch {
 		case c.SpringbackSource == "calibration":
-			sb = fmt.Sprintf("Slide the coil off; your calibration says the bore opens %s.", pct(g.Springback))
+			st = append(st, fmt.Sprintf("Slide the coil off; your calibration says the bore opens %s. Expect a bore of %s.", pct(g.Springback), bore))
 		case g.Springback != 0:
-			sb = fmt.Sprintf("Slide the coil off; the bore should open by %s.", pct(g.Springback))
+			st = append(st, fmt.Sprintf("Slide the coil off; the bore should open by %s. Expect a bore of %s.", pct(g.Springback), bore))
+		default:
+			st = append(st, fmt.Sprintf("Slide the coil off and measure the bore. This sheet assumes it stays %s; a coil that springs open measures more L (turnwise trim --save learns your springback).", bore))
 		}
-		st = append(st, sb+" Expect a bore of "+u.of(float64(p.InsideDiameter))+".")
 	}
 	if c.CloseWound {
 		st = append(st, fmt.Sprintf("Check the outside length: %s over the turns.", u.of(float64(p.WindingLength))))
@@ -175,15 +184,17 @@ func (s *sheet) windingSteps(c *Coil) []string {
 			u.of(float64(g.Pitch)), u.of(float64(p.WindingLength))))
 	}
 	if t := c.Tap; t != nil {
-		tap := fmt.Sprintf("Count %s from the cold end (ringed on the drawing).", turnsWord(t.Turns))
-		if enamel {
-			tap += " Scrape 2 mm of enamel there"
-		} else {
-			tap += " Clean the wire there"
+		var tap string
+		switch {
+		case loopTap:
+			tap = fmt.Sprintf("Check the tap loop is %s from the cold end (ringed on the drawing). Scrape and tin it, then solder the tap lead to it.", turnsWord(t.Turns))
+		case enamel:
+			tap = fmt.Sprintf("Count %s from the cold end (ringed on the drawing). Scrape %s of enamel there and solder a short tap lead, hot and quick.", turnsWord(t.Turns), u.lead(2e-3))
+		default:
+			tap = fmt.Sprintf("Count %s from the cold end (ringed on the drawing). Clean the wire there and solder a short tap lead, hot and quick.", turnsWord(t.Turns))
 		}
-		tap += " and solder a short tap lead, hot and quick."
 		if t.Purpose != "" {
-			tap += " The " + t.Purpose + "."
+			tap += " " + t.Purpose
 		}
 		st = append(st, tap)
 	}
@@ -248,7 +259,7 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 	if f > 0 {
 		r = append(r, [2]string{"Q at " + hz(f), fmt.Sprintf("%.0f (likely %.0f … %.0f)", p.Q, p.QMin, p.QMax)})
 	}
-	r = append(r, [2]string{"wire to cut", s.u.of(float64(p.WireLength))})
+	r = append(r, [2]string{"wire to cut", s.u.cut(float64(p.WireLength))})
 	if t := c.Tap; t != nil {
 		v := turnsWord(t.Turns) + " from the cold end"
 		r = append(r, [2]string{"tap", v})
@@ -321,6 +332,9 @@ func (s *sheet) checkBlock(x, y, w float64, c *Coil) float64 {
 	ty := y + 16
 	s.font("B", 9)
 	head := "Measure the 50 mm bar first."
+	if s.u.inches {
+		head = "Measure the 50 mm (1.97 in) bar first."
+	}
 	s.text(x, ty, head)
 	hw := s.width(head) + 2
 	s.font("", bodySize)

@@ -28,6 +28,15 @@
 // resistance is written "ohm". Black on white, no colour, no fills lighter
 // than mid grey: the sheets survive a black-and-white photocopier.
 //
+// # Numbers
+//
+// Predicted values and the dimensions checked with calipers are printed as
+// `turnwise predict` prints them. Lengths the builder cuts are rounded to
+// what a ruler gives: the wire to cut and the leads to the millimetre (0.01
+// in), and the bill of materials totals those printed lengths times the
+// quantities, so it adds up by hand; the stock to have, with its allowance,
+// is rounded up to 10 mm (1 in).
+//
 // # Side view
 //
 // The wire is drawn as a helix seen from the side with its true pitch: the

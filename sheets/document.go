@@ -86,19 +86,19 @@ type Target struct {
 // Tap is a tap on the coil, counted from the cold (ground) end.
 type Tap struct {
 	Turns    float64 // from the cold end, in quarter turns
-	Position float64 // m, along the axis from the centre of the wire where the winding starts
 	Ratio    float64 // unloaded voltage ratio at the tap, (L_b + M)/L
 	LBelow   float64 // H, section from the cold end to the tap
 	LAbove   float64 // H, section from the tap to the hot end
 	Mutual   float64 // H
 	Coupling float64 // k
-	Purpose  string  // e.g. "50 ohm feed": what the tap is for; may be empty
+	Purpose  string  // a sentence on why the tap is where it is, ending the tap step; may be empty
 }
 
 // Span is a two-gang capacitor tuning the coil: section A across the whole
 // coil, section B from the tap to ground.
 type Span struct {
-	GangA, GangB string // e.g. "12–365 pF"
+	GangA, GangB string // e.g. "12 pF–365 pF + stray 6 pF": each section as the circuit sees it
+	Capacitor    string // the part to buy, e.g. "12 pF–365 pF per section"; empty: from GangA and GangB
 	Law          string // e.g. "straight-line capacitance"
 	Dial         []DialPoint
 	Bands        []Band

@@ -86,18 +86,6 @@ func (v *view) setScale(sc float64) {
 // top crossing or on the front), where its label goes above the coil.
 func (v *view) tapOnTop() bool { return math.Cos(2*math.Pi*v.tap) > -0.5 }
 
-// fit picks the largest scale at which the view fits w × h; ok is false
-// when even the smallest does not.
-func (v *view) fit(w, h float64) bool {
-	for _, sc := range scales {
-		v.setScale(sc)
-		if v.totalW <= w && v.height <= h {
-			return true
-		}
-	}
-	return false
-}
-
 func (v *view) x(theta float64) float64 {
 	return v.x0 + v.sc*(v.do/2+v.p*theta/(2*math.Pi))
 }
@@ -131,7 +119,8 @@ func (s *sheet) sideView(v *view, c *Coil, x, y, w float64) {
 	pdf.Line(xStart-5, v.ya, xEnd+5, v.ya)
 	idT, idB := v.ya-v.id*v.sc/2, v.ya+v.id*v.sc/2
 	if c.Support == "former" {
-		// The former: a tube running on past the winding.
+		// The former: a tube running on past the winding, solid.
+		s.dashed()
 		ext := math.Min(10, v.leadDrawn+2)
 		pdf.SetLineWidth(0.3)
 		pdf.Rect(xStart-ext, idT, xEnd-xStart+2*ext, idB-idT, "D")
@@ -219,7 +208,7 @@ func (s *sheet) sideView(v *view, c *Coil, x, y, w float64) {
 	s.textCenter(xc, yd+7.2, "over the turns, as calipers measure it")
 
 	// Ends and leads, under the coil beside the length dimension.
-	leadText := "lead " + s.u.short(v.lead/1e3)
+	leadText := "lead " + s.u.lead(v.lead/1e3)
 	if v.lead*v.sc > maxLeadDraw+1e-9 {
 		leadText += ", drawn short"
 	}
@@ -326,7 +315,7 @@ func (s *sheet) pitchDim(v *view, top float64) {
 		pdf.Line(x1, y, x2, y)
 	}
 	s.font("", smallSize)
-	label := "pitch " + s.u.short(v.p/1e3)
+	label := "pitch " + s.u.of(v.p/1e3)
 	if math.Abs(v.p-v.do) < 1e-6 {
 		label += " (close-wound)"
 	}
@@ -350,9 +339,9 @@ func (s *sheet) verticalDims(v *view, xl, xr float64) {
 	s.arrow(xr, idT, xr, idB, v.id*v.sc > 4.5)
 	s.font("B", smallSize)
 	s.textRight(xl-1.5, v.ya-0.5, "outside dia.")
-	s.textRight(xl-1.5, v.ya+2.7, s.u.short(v.od/1e3))
+	s.textRight(xl-1.5, v.ya+2.7, s.u.of(v.od/1e3))
 	s.text(xr+1.5, v.ya-0.5, "bore")
-	s.text(xr+1.5, v.ya+2.7, s.u.short(v.id/1e3))
+	s.text(xr+1.5, v.ya+2.7, s.u.of(v.id/1e3))
 }
 
 // tapMark rings the tap on the drawing and labels it.

@@ -69,7 +69,7 @@ func vhfCoil(t testing.TB) Coil {
 		Wire: "1.00mm silver-plated bare wire", WireKey: "1.00mm silver-plated bare wire",
 		Support: "mandrel", SupportName: "6mm drill", SpringbackSource: "none",
 		Prediction: p, TrimPerPercent: float64(dl), TrimLeast: float64(least), TrimMost: float64(most),
-		Tap: &Tap{Turns: s.TapTurns, Position: float64(s.TapPosition), Ratio: s.Ratio,
+		Tap: &Tap{Turns: s.TapTurns, Ratio: s.Ratio,
 			LBelow: float64(s.LB), LAbove: float64(s.LA), Mutual: float64(s.M), Coupling: s.K},
 	}
 }

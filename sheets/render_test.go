@@ -367,9 +367,16 @@ func TestFormat(t *testing.T) {
 		{eng(math.NaN(), "H", 3), "n/a"},
 		{farads(0.323e-12), "0.323 pF"},
 		{turns(5.25), "5¼"}, {turns(5.5), "5½"}, {turns(5.75), "5¾"}, {turns(5), "5"},
-		{turnsWord(1), "1 turn"}, {turnsWord(1.25), "1¼ turns"},
+		{turnsWord(1), "1 turn"}, {turnsWord(1.25), "1¼ turns"}, {turnsWord(0.25), "¼ turn"}, {turnsWord(0.75), "¾ turn"},
 		{lengths{}.of(2.25e-3), "2.25 mm"}, {lengths{inches: true}.of(25.4e-3), "1.000 in"},
 		{lengths{}.of(2.327), "2.327 m"},
+		// Cut lengths: to the millimetre, half away from zero.
+		{lengths{}.cut(138.53e-3), "139 mm"}, {lengths{}.cut(138.5e-3), "139 mm"}, {lengths{}.cut(2.32684), "2.327 m"},
+		{lengths{inches: true}.cut(138.53e-3), "5.45 in"}, {lengths{inches: true}.cut(0.5), "19.7 in"},
+		{lengths{}.lead(4e-3), "4 mm"}, {lengths{}.lead(4.5e-3), "4.5 mm"}, {lengths{inches: true}.lead(4e-3), "0.16 in"},
+		// Stock to have: rounded up, never down.
+		{lengths{}.stock(2.6994), "2.70 m"}, {lengths{}.stock(2.70), "2.70 m"}, {lengths{}.stock(0.8412), "850 mm"},
+		{lengths{inches: true}.stock(1), "40 in"},
 	}
 	for _, c := range cases {
 		if c.got != c.want {
@@ -398,4 +405,45 @@ func BenchmarkPredictReference(b *testing.B) {
 			b.Fatal(err)
 		}
 	}
+}
+
+// The wire to cut is printed to the millimetre, the steps add up, and the
+// bill of materials totals what the pages print, so an organiser can check
+// it by hand.
+func TestCutLengths(t *testing.T) {
+	t.Parallel()
+	doc := testDoc(t, "A4")
+	if err := check(&doc); err != nil {
+		t.Fatal(err)
+	}
+	s := newSheet(&doc, Options{})
+	// Helix wire N·√((πD)² + p²), D the wire-centre diameter: an
+	// independent route to the model's HelixWire, then rounded by hand.
+	helix := func(c Coil) float64 {
+		g := c.Prediction.Geometry
+		do := float64(g.WireOverall)
+		if do == 0 {
+			do = float64(g.WireDiameter)
+		}
+		return g.Turns * math.Hypot(math.Pi*(float64(g.FormerDiameter)+do), float64(g.Pitch))
+	}
+	vhf := doc.Coils[0]                       // 5 turns at 2.25 mm pitch, 7 mm wire-centre diameter, 4 mm leads
+	wantHelix := math.Round(helix(vhf) * 1e3) // 110.53 mm → 111
+	wantCut := wantHelix + 2*4 + 20           // leads and coil.CutAllowance, both whole mm
+	want := fmt.Sprintf("Cut %.0f mm of wire: the winding %.0f mm, two leads of 4 mm and 20 mm to strip and solder.", wantCut, wantHelix)
+	if got := s.windingSteps(&vhf)[0]; got != want {
+		t.Errorf("first step\n got %q\nwant %q", got, want)
+	}
+
+	wires, _, _ := s.bomLines()
+	if len(wires) != 2 {
+		t.Fatalf("%d wire lines, want 2", len(wires))
+	}
+	for i, c := range doc.Coils {
+		cut := math.Round((helix(c)+2*float64(c.Prediction.Geometry.LeadLength)+0.020)*1e3) / 1e3
+		if got, want := wires[i].total, cut*float64(c.Quantity); math.Abs(got-want) > 1e-9 {
+			t.Errorf("%s: batch total %.6f m, want %d × %.3f m = %.6f m", c.Name, got, c.Quantity, cut, want)
+		}
+	}
+
 }

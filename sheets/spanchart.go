@@ -1,6 +1,7 @@
 package sheets
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"slices"
@@ -29,7 +30,7 @@ func (s *sheet) spanPage(c *Coil) {
 		tapTurns = "the tap (" + turns(c.Tap.Turns) + " turns from the cold end)"
 	}
 	desc := fmt.Sprintf("Two-gang capacitor on one shaft: section A (%s) across the whole coil, section B (%s) from %s to ground. Law: %s. Every dial setting tunes two frequencies at once, a low range and a high range.",
-		sp.GangA, cmpOr(sp.GangB, sp.GangA), tapTurns, cmpOr(sp.Law, "as given"))
+		sp.GangA, cmp.Or(sp.GangB, sp.GangA), tapTurns, cmp.Or(sp.Law, "as given"))
 	y = s.para(x, y, w, desc)
 
 	y = s.heading(x, y+sectionGap, w, "Both ranges across the dial")
@@ -46,13 +47,6 @@ func (s *sheet) spanPage(c *Coil) {
 	s.font("", bodySize)
 	yr = s.bullets(rx, yr, rw, s.spanFindings(sp))
 	_ = yr
-}
-
-func cmpOr(a, b string) string {
-	if a != "" {
-		return a
-	}
-	return b
 }
 
 // freqAxis maps frequency to the chart's y on a log scale.
@@ -151,7 +145,7 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 	// Band labels at the right edge.
 	s.font("", 6.5)
 	for _, b := range sp.Bands {
-		l := cmpOr(b.Label, eng(b.Low, "Hz", 3)+"–"+eng(b.High, "Hz", 3))
+		l := cmp.Or(b.Label, eng(b.Low, "Hz", 3)+"–"+eng(b.High, "Hz", 3))
 		s.text(right+1.5, (ax.y(b.Low)+ax.y(b.High))/2+0.9, s.fit(l, x+w-right-2))
 	}
 	// Coincidences: the harmonic on the high range, joined to its
@@ -252,7 +246,7 @@ func (s *sheet) spanFindings(sp *Span) []string {
 		out = append(out, fmt.Sprintf("Gap of %s between the top of the low range and the bottom of the high range: frequencies there cannot be tuned.", hz(-sp.Overlap)))
 	}
 	for _, b := range sp.Bands {
-		name := cmpOr(b.Label, eng(b.Low, "Hz", 3)+" – "+eng(b.High, "Hz", 3))
+		name := cmp.Or(b.Label, eng(b.Low, "Hz", 3)+" – "+eng(b.High, "Hz", 3))
 		switch b.Range {
 		case "low", "high", "both":
 			r := b.Range + " range"

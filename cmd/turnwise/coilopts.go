@@ -50,8 +50,8 @@ type coilOptions struct {
 func (o *coilOptions) addFlags(fs *pflag.FlagSet) {
 	fs.StringVar(&o.mandrel, "mandrel", "", "wind on this mandrel and slide it out (self-supporting): a stock name or a diameter, e.g. 6mm or 1/4in")
 	fs.StringVar(&o.former, "former", "", "wind on this former and leave the coil on it: a stock name or an outside diameter, e.g. 20mm")
-	fs.StringVar(&o.wire, "wire", "", "a gauge (22awg, 18swg), a bare diameter (1mm, bare copper) or a stock wire name")
-	fs.StringVar(&o.insulation, "insulation", "", "none, grade1, grade2, grade3 (enamel) or the diameter over the insulation, e.g. 1.06mm (default: the stock row's, or none for a plain diameter)")
+	fs.StringVar(&o.wire, "wire", "", "a gauge (22awg, 18swg), a diameter (1mm: bare copper unless --insulation says otherwise) or a stock wire name")
+	fs.StringVar(&o.insulation, "insulation", "", "none, grade1, grade2 (enamel) or the diameter over the insulation, e.g. 1.06mm (default: the stock row's, or none for a plain diameter)")
 	fs.StringVar(&o.conductor, "conductor", "", "copper, silver-plated or tinned (default: the stock row's, or copper)")
 	fs.Var(&o.springback, "springback", "growth of the bore when released from the mandrel, percent (default: your saved calibration for this mandrel and wire, else 0)")
 	fs.Var(&o.turns, "turns", "number of turns, in quarter turns (5, 5.25, 5.5)")

@@ -137,7 +137,7 @@ and 1/15 of the mandrel diameter, so that they keep their shape; any coil
 needs a support at least twice the wire diameter; hand winding takes wire
 from 0.2 mm to 4.2 mm (common practice).
 ` + exitStatusHelp),
-		Example: strings.TrimSpace(`
+		Example: exampleText(`
   turnwise design --freq 145MHz --cap 22pF --leads 5mm --max-length 15mm
   turnwise design --inductance 4.7uH --freq 7MHz --leads 15mm --support former --json`),
 		Args: noArgs,
@@ -189,8 +189,8 @@ func (o *designOptions) searchOptions(srfGiven bool) (*designSearchOptions, []st
 		return nil, nil, usageErrorf("--tolerance %s: give a positive percentage, e.g. 2%%", o.tolerance.raw)
 	case o.trimMargin.set && !(o.trimMargin.v > 0):
 		return nil, nil, usageErrorf("--trim-margin %s: give a positive percentage, e.g. 5%%", o.trimMargin.raw)
-	case math.IsNaN(o.minSRFRatio) || math.IsInf(o.minSRFRatio, 0):
-		return nil, nil, usageErrorf("--min-srf-ratio: give a number such as 3")
+	case math.IsNaN(o.minSRFRatio) || math.IsInf(o.minSRFRatio, 0) || srfGiven && o.minSRFRatio == 0:
+		return nil, nil, usageErrorf("--min-srf-ratio %g: give a ratio from 1.2 to 100, such as 3 (common practice)", o.minSRFRatio)
 	}
 	if srfGiven {
 		so.MinSRFRatio = o.minSRFRatio
@@ -445,7 +445,7 @@ func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c c
 	}
 	build := fmt.Sprintf("pitch %s (%.2f × wire), outside length %s, bore %s, outside %s, wire to cut %s",
 		lf.fmt(float64(g.Pitch)), float64(g.Pitch)/overall, lf.fmt(float64(p.WindingLength)),
-		lf.fmt(float64(p.InsideDiameter)), lf.fmt(float64(p.OutsideDiameter)), lf.fmt(float64(p.WireLength)))
+		lf.fmt(float64(p.InsideDiameter)), lf.fmt(float64(p.OutsideDiameter)), lf.FormatCut(float64(p.WireLength)))
 	switch c.SpringbackSource {
 	case "calibration":
 		build += fmt.Sprintf("; springback %s from your calibration (%s)", pct(g.Springback), c.Support.SpringbackNote)

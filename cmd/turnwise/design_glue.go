@@ -79,6 +79,17 @@ func runDesignSearch(cat *forms.Catalog, o *designSearchOptions) (coil.Result, e
 
 // designTarget turns the target flags into a coil.Target.
 func designTarget(o *designSearchOptions) (coil.Target, error) {
+	for _, q := range []struct {
+		flag, example string
+		v             float64
+	}{
+		{"inductance", "48nH", float64(o.Inductance)}, {"cap", "22pF", float64(o.Capacitance)},
+		{"stray", "3pF", float64(o.Stray)}, {"freq", "145MHz", float64(o.Freq)},
+	} {
+		if q.v < 0 {
+			return coil.Target{}, usageErrorf("--%s: give a positive value, e.g. %s", q.flag, q.example)
+		}
+	}
 	switch {
 	case o.Inductance > 0 && o.Capacitance > 0:
 		return coil.Target{}, usageErrorf("--inductance and --cap cannot be used together: give an inductance, or a capacitance with the --freq it must resonate at")
@@ -145,6 +156,9 @@ func designConstraints(cat *forms.Catalog, o *designSearchOptions) (coil.Constra
 
 // designSupports lists the mandrels and formers the search may use.
 func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support, error) {
+	if sb := o.Springback; sb != nil && !(*sb >= coil.MinSpringback && *sb <= coil.MaxSpringback) {
+		return nil, &flagError{"springback", fmt.Errorf("%s is outside %s … %s", pct(*sb), pct(coil.MinSpringback), pct(coil.MaxSpringback))}
+	}
 	kind := o.Support
 	switch kind {
 	case "", "any", "mandrel", "former":
@@ -168,6 +182,9 @@ func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support,
 		if err != nil {
 			return nil, err
 		}
+		if !(d > 0) {
+			return nil, &flagError{"mandrel", fmt.Errorf("%q is not a diameter; give a positive one, e.g. 6mm", o.Mandrel)}
+		}
 		return []coil.Support{withSpring(coil.Support{Name: name, Diameter: d})}, nil
 	case o.Former != "":
 		if kind == "mandrel" {
@@ -176,6 +193,9 @@ func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support,
 		d, name, err := resolveFormer(cat, o.Former)
 		if err != nil {
 			return nil, err
+		}
+		if !(d > 0) {
+			return nil, &flagError{"former", fmt.Errorf("%q is not a diameter; give a positive one, e.g. 20mm", o.Former)}
 		}
 		return []coil.Support{{Name: name, Diameter: d, OnFormer: true}}, nil
 	}

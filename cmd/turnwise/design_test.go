@@ -130,6 +130,7 @@ func TestDesignInfeasibleExit(t *testing.T) {
 		{"leads alone", []string{"design", "--inductance", "1nH", "--freq", "145MHz", "--leads", "5mm"}, []string{"leads alone"}},
 		{"srf", []string{"design", "--inductance", "10uH", "--freq", "30MHz", "--leads", "5mm", "--min-srf-ratio", "10"}, []string{"--min-srf-ratio", "self-resonance"}},
 		{"too slim", []string{"design", "--inductance", "48nH", "--freq", "145MHz", "--leads", "5mm", "--max-diameter", "2mm"}, []string{"--max-diameter", "slimmest"}},
+		{"past its own resonance", []string{"design", "--freq", "10GHz", "--cap", "0.01pF", "--leads", "0mm"}, []string{"self-resonance", "--min-srf-ratio"}},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
@@ -147,6 +148,9 @@ func TestDesignInfeasibleExit(t *testing.T) {
 				if !strings.Contains(errOut, w) {
 					t.Errorf("%q lacks %q", errOut, w)
 				}
+			}
+			if strings.Contains(errOut, "Inf") || strings.Contains(errOut, "NaN") {
+				t.Errorf("%q has a non-finite number", errOut)
 			}
 		})
 	}
@@ -179,6 +183,15 @@ func TestDesignBadInput(t *testing.T) {
 		{"tolerance", []string{"--tolerance", "90%"}, "--tolerance"},
 		{"missing stock", []string{"--stock", "/nonexistent/stock.toml"}, "--stock"},
 		{"positional", []string{"extra"}, "no arguments"},
+		// Review of issue 3: these were exit 1, a message naming no flag or
+		// the wrong one, or a silent default.
+		{"negative inductance", []string{"--inductance", "-5nH"}, "--inductance"},
+		{"negative freq", []string{"--freq", "-1MHz"}, "--freq"},
+		{"tolerance too tight", []string{"--tolerance", "1e-9%"}, "--tolerance"},
+		{"zero srf ratio", []string{"--min-srf-ratio", "0"}, "--min-srf-ratio"},
+		{"zero mandrel", []string{"--mandrel", "0mm"}, "--mandrel"},
+		{"negative former", []string{"--former", "-3mm"}, "--former"},
+		{"springback range", []string{"--springback", "200%"}, "--springback"},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {

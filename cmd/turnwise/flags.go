@@ -136,6 +136,10 @@ func (f *choiceFlag) Set(s string) error {
 	return fmt.Errorf("%q is not one of %s", s, strings.Join(f.choices, ", "))
 }
 
+// exampleText trims the blank lines around a command's examples but keeps
+// their indentation (strings.TrimSpace would unindent the first line).
+func exampleText(s string) string { return strings.Trim(s, "\n") }
+
 // noArgs refuses positional arguments as a usage error (exit 2).
 func noArgs(cmd *cobra.Command, args []string) error {
 	if len(args) > 0 {

@@ -38,7 +38,7 @@ The SRF is for a coil with one end grounded (Medhurst's mounting); floating
 at both ends the same coil resonates 1.3–1.6× higher. Q is an estimate and
 is printed with its uncertainty band.
 ` + exitStatusHelp),
-		Example: strings.TrimSpace(`
+		Example: exampleText(`
   turnwise predict --mandrel 6mm --wire 1mm --turns 5 --length 8mm --leads 5mm --freq 145MHz
   turnwise predict --former 25mm --wire 22awg --turns 30 --leads 20mm --freq 3.7MHz --json`),
 		Args: noArgs,
@@ -151,7 +151,7 @@ func writePredictTable(w io.Writer, s coilSpec, p coil.Prediction, rec coilRecor
 	row("bore / outside dia.", lf.fmt(float64(p.InsideDiameter))+" / "+lf.fmt(float64(p.OutsideDiameter)))
 	row("leads", "2 × "+lf.fmt(float64(g.LeadLength)))
 	row("wire to cut", fmt.Sprintf("%s (winding %s + leads + %s for stripping), %.2f g copper",
-		lf.fmt(float64(p.WireLength)), lf.fmt(float64(p.HelixWire)), lf.fmt(float64(coil.CutAllowance)), float64(p.CopperMass)*1e3))
+		lf.FormatCut(float64(p.WireLength)), lf.FormatCut(float64(p.HelixWire)), lf.FormatCut(float64(coil.CutAllowance)), float64(p.CopperMass)*1e3))
 
 	f := float64(p.Frequency)
 	fmt.Fprintln(tw, "\nINDUCTANCE")

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"cmp"
 	"context"
 	"errors"
 	"fmt"
@@ -87,7 +88,7 @@ Print at 100 % ("actual size"). Every coil page carries a 50 mm bar:
 measure it before trusting the drawing. The PDF is written to a temporary
 file and renamed, so an existing FILE is replaced only by a complete one.
 ` + exitStatusHelp),
-		Example: strings.TrimSpace(`
+		Example: exampleText(`
   turnwise sheet testdata/club-night.toml -o build-sheets.pdf
   turnwise sheet --mandrel 6mm --wire 1mm --turns 5 --length 8mm --leads 5mm --freq 145MHz --name "L1 145 MHz" -o l1.pdf`),
 		Args: func(cmd *cobra.Command, args []string) error {
@@ -135,11 +136,11 @@ func runSheet(_ context.Context, opts *sheetOptions, stdout, stderr io.Writer) e
 	if err != nil {
 		return err
 	}
-	err = writeFileAtomic(opts.output, stdout, func(w io.Writer) error {
+	err = writeFileAtomic(opts.output, 0o644, stdout, func(w io.Writer) error {
 		return sheets.Render(w, doc, sheets.Options{Uncompressed: opts.uncompressed})
 	})
 	if err != nil {
-		return err
+		return fmt.Errorf("-o %w", err)
 	}
 	for _, w := range warnings {
 		fmt.Fprintf(stderr, "warning: %s\n", w)
@@ -221,7 +222,7 @@ func sheetDocument(opts *sheetOptions) (sheets.Document, []string, error) {
 		doc.Notes = job.Notes
 		doc.Source = filepath.Base(job.File)
 		for i := range job.Coils {
-			c, w, err := jobSheetCoil(job, &job.Coils[i], cat, newLengthFormatter(sheetOr(doc.Units, "mm")))
+			c, w, err := jobSheetCoil(job, &job.Coils[i], cat, newLengthFormatter(cmp.Or(doc.Units, "mm")))
 			if err != nil {
 				return doc, nil, err
 			}
@@ -229,20 +230,13 @@ func sheetDocument(opts *sheetOptions) (sheets.Document, []string, error) {
 			warnings = append(warnings, w...)
 		}
 	}
-	doc.Paper, doc.Units = sheetOr(doc.Paper, "A4"), sheetOr(doc.Units, "mm")
+	doc.Paper, doc.Units = cmp.Or(doc.Paper, "A4"), cmp.Or(doc.Units, "mm")
 	if date.IsZero() {
 		now := opts.now()
 		date = time.Date(now.Year(), now.Month(), now.Day(), 0, 0, 0, 0, time.UTC)
 	}
 	doc.Date = date
 	return doc, warnings, nil
-}
-
-func sheetOr(a, b string) string {
-	if a != "" {
-		return a
-	}
-	return b
 }
 
 // flagSheetCoil is the one coil described by predict's flags.
@@ -254,10 +248,16 @@ func flagSheetCoil(opts *sheetOptions) (sheets.Coil, []string, error) {
 	if opts.quantity < 1 || opts.quantity > 10000 {
 		return sheets.Coil{}, nil, usageErrorf("--quantity %d: give how many to build, 1 to 10000", opts.quantity)
 	}
-	lf := newLengthFormatter(sheetOr(opts.units.v, "mm"))
+	if strings.TrimSpace(opts.name) == "" {
+		return sheets.Coil{}, nil, usageErrorf("--name is empty; name the coil as the builder will call it, e.g. --name L1")
+	}
+	lf := newLengthFormatter(cmp.Or(opts.units.v, "mm"))
 	c := newSheetCoil(spec, p, lf)
-	c.Name, c.Quantity = opts.name, opts.quantity
+	c.Name, c.Quantity = strings.TrimSpace(opts.name), opts.quantity
 	if opts.tap.set {
+		if opts.tap.v <= 0 {
+			return c, nil, usageErrorf("--tap %s: a tap at the cold end is no tap; give the turns from the cold (grounded) end, e.g. --tap 1.5", opts.tap.raw)
+		}
 		s, err := coil.Tap(spec.Geometry, opts.tap.v, p.Frequency)
 		if err != nil {
 			return c, nil, &flagError{"tap", err}
@@ -299,6 +299,7 @@ func jobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf leng
 	if t := jc.Tap; t != nil {
 		var s coil.Sections
 		var err error
+		var miss float64 // (achieved − asked)/asked for a tap-ratio
 		key := "tap"
 		if t.Turns != nil {
 			s, err = coil.Tap(g, *t.Turns, f)
@@ -307,7 +308,7 @@ func jobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf leng
 			var choices []coil.TapChoice
 			choices, err = coil.FindTap(g, f, coil.GoalVoltageRatio, *t.Ratio)
 			if len(choices) > 0 {
-				s = choices[0].Sections
+				s, miss = choices[0].Sections, choices[0].Error
 			}
 		}
 		if err != nil {
@@ -317,6 +318,15 @@ func jobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf leng
 			return c, nil, jobFieldError(job, jc, key, err)
 		}
 		c.Tap = sheetTap(s)
+		if t.Ratio != nil {
+			off := fmt.Sprintf("%+.1f %%", miss*100)
+			if math.Abs(miss) >= 0.1 {
+				off = fmt.Sprintf("%+.0f %%", miss*100)
+				c.Warnings = append(c.Warnings, fmt.Sprintf("tap-ratio %.3g: the nearest quarter-turn tap, at turn %s from the cold end, gives %.3g (%s); change the turns or the pitch to come closer",
+					*t.Ratio, strings.TrimPrefix(fmtTurns(s.TapTurns), "0"), s.Ratio, off))
+			}
+			c.Tap.Purpose = fmt.Sprintf("This is the quarter turn nearest the voltage ratio %.3g asked for (%s).", *t.Ratio, off)
+		}
 	}
 	if jc.Span != nil {
 		sp, tap, w, err := spanJobCoil(job, jc, g, c.Tap)
@@ -400,7 +410,6 @@ func sheetWire(s coilSpec, lf lengthFormatter) string {
 func sheetTap(s coil.Sections) *sheets.Tap {
 	return &sheets.Tap{
 		Turns:    s.TapTurns,
-		Position: float64(s.TapPosition),
 		Ratio:    s.Ratio,
 		LBelow:   float64(s.LB),
 		LAbove:   float64(s.LA),
@@ -503,7 +512,7 @@ func candidateSpec(cat *forms.Catalog, c coil.Candidate) coilSpec {
 
 func targetDescription(jc *forms.JobCoil, res coil.Result) string {
 	t := jc.Target
-	tol := fmt.Sprintf(" ± %.3g %%", res.Tolerance*100)
+	tol := fmt.Sprintf(", L within ± %.3g %%", res.Tolerance*100)
 	if t.Cap != nil {
 		c := farads(float64(*t.Cap))
 		if t.Stray != nil && *t.Stray > 0 {
@@ -522,6 +531,9 @@ func targetDescription(jc *forms.JobCoil, res coil.Result) string {
 // the chart's data; with choose-tap it returns the chosen tap too.
 func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets.Tap) (*sheets.Span, *sheets.Tap, []string, error) {
 	js := jc.Span
+	if l := strings.ToLower(js.Law); js.GangA.Max == 0 && (l == "" || l == "slc" || l == "slf" || l == "slw") {
+		return nil, nil, nil, jobFieldError(job, jc, "gang", errors.New("a gang of 0 pF leaves section A with no capacitor; give the capacitor's minimum and maximum per section, e.g. 15-365pF"))
+	}
 	law := js.Law
 	if l := strings.ToLower(law); l != "slc" && l != "slf" && l != "slw" && !filepath.IsAbs(law) {
 		law = filepath.Join(filepath.Dir(job.File), law)
@@ -541,15 +553,7 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 	var warnings []string
 	if err != nil {
 		if !errors.Is(err, coil.ErrInfeasible) || out.Plan == nil {
-			var fe *flagError
-			if errors.As(err, &fe) {
-				return nil, nil, nil, jobFieldError(job, jc, fe.flag, fe.err)
-			}
-			var ue *usageError
-			if errors.As(err, &ue) {
-				return nil, nil, nil, jobFieldError(job, jc, "gang", errors.New(ue.msg))
-			}
-			return nil, nil, nil, jobFieldError(job, jc, "", err)
+			return nil, nil, nil, spanJobError(job, jc, err)
 		}
 		// choose-tap found no tap meeting everything: print its best
 		// compromise and say so.
@@ -558,11 +562,12 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 	a, b, _ := gangFromSettings(set)
 	sp := out.Span
 	s := &sheets.Span{
-		GangA:   describeGang(a),
-		GangB:   describeGang(b),
-		Law:     describeLaw(a),
-		Overlap: float64(sp.Overlap),
-		Notes:   sp.Warnings,
+		GangA:     describeGang(a),
+		GangB:     describeGang(b),
+		Capacitor: sheetCapacitor(a, b),
+		Law:       describeLaw(a),
+		Overlap:   float64(sp.Overlap),
+		Notes:     sp.Warnings,
 	}
 	for _, d := range sp.Dial {
 		s.Dial = append(s.Dial, sheets.DialPoint{Setting: d.Setting, FLow: float64(d.FLow), FHigh: float64(d.FHigh)})
@@ -594,7 +599,43 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 	var chosen *sheets.Tap
 	if out.Plan != nil {
 		chosen = sheetTap(sp.Sections)
-		chosen.Purpose = "tap chosen for the bands (choose-tap)"
+		chosen.Purpose = "The tap was chosen for the bands (choose-tap)."
 	}
 	return s, chosen, warnings, nil
+}
+
+// spanJobError reports an error of the two-gang glue, which speaks in
+// span's flags, at the job file's key of the same name: "--law: ..." is
+// reported at law = with the dashes dropped, and a bad capacitor table at
+// the law key.
+func spanJobError(job *forms.Job, jc *forms.JobCoil, err error) error {
+	var fe *flagError
+	if errors.As(err, &fe) {
+		return jobFieldError(job, jc, fe.flag, fe.err)
+	}
+	key := ""
+	if l := strings.ToLower(jc.Span.Law); l != "slc" && l != "slf" && l != "slw" {
+		key = "law"
+	}
+	var ue *usageError
+	if errors.As(err, &ue) {
+		msg := ue.msg
+		if rest, ok := strings.CutPrefix(msg, "--"); ok {
+			if i := strings.IndexAny(rest, " :"); i > 0 && jc.Has(rest[:i]) {
+				key, msg = rest[:i], strings.TrimLeft(rest[i:], ": ")
+			}
+		}
+		return jobFieldError(job, jc, key, errors.New(strings.ReplaceAll(msg, "--", "")))
+	}
+	return jobFieldError(job, jc, key, err)
+}
+
+// sheetCapacitor is the two-gang capacitor to buy, without the board's
+// stray capacitance.
+func sheetCapacitor(a, b coil.GangSection) string {
+	a.Stray, b.Stray = 0, 0
+	if describeGang(b) == describeGang(a) {
+		return describeGang(a) + " per section"
+	}
+	return "A " + describeGang(a) + ", B " + describeGang(b)
 }

@@ -307,6 +307,10 @@ func TestJobCoilErrors(t *testing.T) {
 func TestSheetBadJob(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
 	dir := t.TempDir()
+	// A measured capacitor table (invented values) for the law cases.
+	if err := os.WriteFile(filepath.Join(dir, "table.csv"), []byte("0% 12pF\n100% 365pF\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
 	cases := []struct {
 		name string
 		job  string
@@ -317,6 +321,9 @@ func TestSheetBadJob(t *testing.T) {
 		{"unknown key", "title = \"t\"\n[[coil]]\nname = \"L1\"\nmandrel = \"6mm\"\nwire = \"1mm\"\nturns = 5\nleads = \"5mm\"\nturnz = 6\n", exitBadInput, `line 8: coil "L1": unknown key "turnz"; did you mean turns?`},
 		{"model refuses", "title = \"t\"\n[[coil]]\nname = \"L1\"\nmandrel = \"6mm\"\nwire = \"1mm\"\nturns = 5\nleads = \"5mm\"\npitch = \"0.2mm\"\n", exitBadInput, `line 8: coil "L1": pitch:`},
 		{"second coil", "title = \"t\"\n[[coil]]\nname = \"L1\"\nmandrel = \"6mm\"\nwire = \"1mm\"\nturns = 5\nleads = \"5mm\"\n[[coil]]\nname = \"L2\"\nformer = \"pvc 20mm\"\nwire = \"99awg\"\nturns = 5\nleads = \"5mm\"\n", exitBadInput, `line 11: coil "L2": wire:`},
+		{"law file missing", "title = \"t\"\n[[coil]]\nname = \"L1\"\nformer = \"pvc 25mm\"\nwire = \"0.5mm\"\nturns = 28\nleads = \"30mm\"\ntap = 8\nlaw = \"nothere.csv\"\n", exitBadInput, `line 9: coil "L1": law: "`},
+		{"law table and gang", "title = \"t\"\n[[coil]]\nname = \"L1\"\nformer = \"pvc 25mm\"\nwire = \"0.5mm\"\nturns = 28\nleads = \"30mm\"\ntap = 8\ngang = \"12-365pF\"\nlaw = \"table.csv\"\n", exitBadInput, `line 10: coil "L1": law: `},
+		{"gang of nothing", "title = \"t\"\n[[coil]]\nname = \"L1\"\nformer = \"pvc 25mm\"\nwire = \"0.5mm\"\nturns = 28\nleads = \"30mm\"\ntap = 8\ngang = \"0-0pF\"\n", exitBadInput, `line 9: coil "L1": gang: a gang of 0 pF`},
 		{"impossible design", "title = \"t\"\n[[coil]]\nname = \"L1\"\ninductance = \"10uH\"\nfreq = \"145MHz\"\nleads = \"5mm\"\nmandrel = \"6mm drill\"\nwire = \"1mm\"\nmax-length = \"5mm\"\n", exitInfeasible, `line 2: coil "L1": no coil meets`},
 	}
 	for _, tc := range cases {
@@ -338,6 +345,9 @@ func TestSheetBadJob(t *testing.T) {
 			}
 			if stdout != "" {
 				t.Errorf("stdout %q", stdout)
+			}
+			if strings.Contains(stderr, " --") {
+				t.Errorf("stderr %q names a flag; a job file has keys", stderr)
 			}
 			if b, _ := os.ReadFile(out); string(b) != "previous" {
 				t.Error("the existing output was changed")
@@ -386,6 +396,8 @@ func TestSheetFlags(t *testing.T) {
 		{"bad date", append(append([]string{"sheet"}, coilFlags...), "--date", "14/3/26", "-o", filepath.Join(dir, "x.pdf")), "--date"},
 		{"bad paper", append(append([]string{"sheet"}, coilFlags...), "--paper", "A3", "-o", filepath.Join(dir, "x.pdf")), "--paper"},
 		{"tap outside", append(append([]string{"sheet"}, coilFlags...), "--tap", "7", "-o", filepath.Join(dir, "x.pdf")), "--tap"},
+		{"tap at the cold end", append(append([]string{"sheet"}, coilFlags...), "--tap", "0", "-o", filepath.Join(dir, "x.pdf")), "--tap 0"},
+		{"blank name", append(append([]string{"sheet"}, coilFlags...), "--name", " ", "-o", filepath.Join(dir, "x.pdf")), "--name"},
 	}
 	for _, tc := range bad {
 		t.Run(tc.name, func(t *testing.T) {
@@ -444,5 +456,36 @@ func TestJobStock(t *testing.T) {
 	_, stderr, code := runCLI(t, "sheet", missing, "-o", filepath.Join(dir, "x.pdf"))
 	if code != exitBadInput || !strings.Contains(stderr, "line 2: stock:") {
 		t.Errorf("exit %d, stderr %q", code, stderr)
+	}
+}
+
+// A tap by voltage ratio says how near the quarter turn comes, and warns
+// when no quarter turn comes within 10 %.
+func TestSheetTapRatio(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	const job = "title = \"t\"\n[[coil]]\nname = \"L1\"\nmandrel = \"6mm\"\nwire = \"1mm\"\nleads = \"5mm\"\nturns = 5\nfreq = \"100MHz\"\ntap-ratio = %g\n"
+	for _, tc := range []struct {
+		ratio float64
+		warn  bool
+	}{
+		{0.2, false}, // inside the range of the quarter-turn taps: one comes within 10 %
+		{0.01, true}, // below what the ¼-turn tap gives: nothing comes near
+	} {
+		jobFile := filepath.Join(dir, fmt.Sprintf("r%g.toml", tc.ratio))
+		if err := os.WriteFile(jobFile, []byte(fmt.Sprintf(job, tc.ratio)), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		out := filepath.Join(dir, fmt.Sprintf("r%g.pdf", tc.ratio))
+		_, stderr, code := runCLI(t, "sheet", jobFile, "-o", out)
+		if code != exitOK {
+			t.Fatalf("ratio %g: exit %d: %s", tc.ratio, code, stderr)
+		}
+		if got := strings.Contains(stderr, fmt.Sprintf("tap-ratio %g: the nearest quarter-turn tap", tc.ratio)); got != tc.warn {
+			t.Errorf("ratio %g: warning %v, want %v: %q", tc.ratio, got, tc.warn, stderr)
+		}
+		if text := pageText(t, out, 2); !strings.Contains(text, fmt.Sprintf("nearest the voltage ratio %g asked for (", tc.ratio)) {
+			t.Errorf("ratio %g: page 2 does not say how near the tap comes:\n%s", tc.ratio, text)
+		}
 	}
 }

@@ -69,9 +69,6 @@ func gangFromSettings(s spanSettings) (a, b coil.GangSection, err error) {
 	case "slw":
 		a.Law, b.Law = coil.LawSLW, coil.LawSLW
 	default:
-		if s.GangA != [2]float64{} || s.GangBSet {
-			return a, b, usageErrorf("--law %s: a measured table gives the capacitance itself; drop --gang and --gang-b", s.Law)
-		}
 		f, err := os.Open(s.Law)
 		if err != nil {
 			if errors.Is(err, os.ErrNotExist) {
@@ -80,6 +77,9 @@ func gangFromSettings(s spanSettings) (a, b coil.GangSection, err error) {
 			return a, b, fmt.Errorf("--law: %w", err)
 		}
 		defer f.Close()
+		if s.GangA != [2]float64{} || s.GangBSet {
+			return a, b, usageErrorf("--law %s: a measured table gives the capacitance itself; drop --gang and --gang-b", s.Law)
+		}
 		t, err := forms.LoadGangTable(f, s.Law)
 		if err != nil {
 			return a, b, err
@@ -200,7 +200,7 @@ Caution: a tank driven by a transmitter carries high RF voltage at the
 hot end and across the capacitor; use a capacitor rated for it and follow
 local regulations and licensed practice.
 ` + exitStatusHelp),
-		Example: strings.TrimSpace(`
+		Example: exampleText(`
   turnwise span --former "pvc 20mm" --wire 0.5mm --turns 40 --pitch 1mm --leads 20mm --tap 17 --gang 15-365pF --stray-a 5pF --stray-b 5pF --band 80m=3.5-3.8MHz --band 40m=7.0-7.2MHz --band 31m=9.4-9.9MHz
   turnwise span --former "pvc 20mm" --wire 0.5mm --turns 40 --pitch 1mm --leads 20mm --gang 15-365pF --bands testdata/span/hf-listening.txt --choose-tap --json`),
 		Args: noArgs,
@@ -257,6 +257,9 @@ func (o *spanOptions) settings() (spanSettings, error) {
 		lo, hi, err := forms.ParseCapacitanceRange(o.gang)
 		if err != nil {
 			return s, &flagError{"gang", err}
+		}
+		if hi == 0 {
+			return s, usageErrorf("--gang %s leaves section A, across the whole coil, without a capacitor; give the capacitor's minimum and maximum per section, e.g. --gang 15-365pF", o.gang)
 		}
 		s.GangA = [2]float64{float64(lo), float64(hi)}
 	}
@@ -384,7 +387,11 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		if set.VaryPitch {
 			row("chosen pitch", fmt.Sprintf("%s, outside length %s (you asked for %s)", lf.fmt(float64(p.Geometry.Pitch)), lf.fmt(float64(p.Geometry.WindingLength())), lf.fmt(float64(s.Geometry.Pitch))))
 		}
-		row("candidates tried", fmt.Sprintf("%d: %d cover every band, %d overlap, %d keep harmonics out, %d cover and overlap",
+		tried := "candidates tried"
+		if set.VaryPitch {
+			tried = "taps tried at your pitch"
+		}
+		row(tried, fmt.Sprintf("%d: %d cover every band, %d overlap, %d keep harmonics out, %d cover and overlap",
 			p.Tried, p.Covering, p.Overlapping, p.Clean, p.CoveringOverlapping))
 		if p.Clearance >= coil.ClearanceNone {
 			row("harmonic clearance", "no listed band lies on the low range's dial where a harmonic could reach the high range")
@@ -432,8 +439,8 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 			row("overlap", fmt.Sprintf("%s to %s (%s, %.1f %%): everything from %s to %s tunes on one range or the other",
 				hz(sp.High.Min), hz(sp.Low.Max), hz(sp.Overlap), float64(sp.Overlap)/float64(sp.High.Min)*100, hz(sp.Low.Min), hz(sp.High.Max)))
 		default:
-			row("gap", fmt.Sprintf("%s to %s (%s) is on neither range: move the tap towards the cold end to close it",
-				hz(sp.Low.Max), hz(sp.High.Min), hz(-sp.Overlap)))
+			row("gap", fmt.Sprintf("%s to %s (%s) is on neither range: %s",
+				hz(sp.Low.Max), hz(sp.High.Min), hz(-sp.Overlap), sp.GapAdvice()))
 		}
 	} else {
 		row("high range", "none: the circuit has one resonance")
@@ -480,8 +487,13 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		if c.Band != "" {
 			where = " in " + c.Band
 		}
-		row("dial "+span, fmt.Sprintf("low range at %s%s: its %s harmonic %s is %s from the high range's peak %s, inside the %s passband (Q %.0f), %.1f dB down; strong signals near %s get through",
-			hz(c.FLow), where, ordinalWord(c.Order), hz(c.Harmonic), hz(unit.Frequency(math.Abs(float64(c.Offset)))), hz(c.FHigh), hz(c.Passband), c.LoadedQ, c.AttenuationDB, hz(c.FHigh)))
+		inside := fmt.Sprintf("is %s from the high range's peak %s, inside the %s passband (Q %.0f), %.1f dB down",
+			hz(unit.Frequency(math.Abs(float64(c.Offset)))), hz(c.FHigh), hz(c.Passband), c.LoadedQ, c.AttenuationDB)
+		if c.OnPeak() {
+			inside = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband (Q %.0f)", hz(c.Passband), c.LoadedQ)
+		}
+		row("dial "+span, fmt.Sprintf("low range at %s%s: its %s harmonic %s %s; strong signals near %s get through",
+			hz(c.FLow), where, ordinalWord(c.Order), hz(c.Harmonic), inside, hz(c.FHigh)))
 	}
 	row("passband rule", passbandRule(set.LoadedQ))
 	if err := tw.Flush(); err != nil {
@@ -779,6 +791,7 @@ func writeSpanChart(w io.Writer, sp coil.Span) error {
 	}
 	fmt.Fprintf(w, "%10s +%s\n", "", strings.Repeat("-", width))
 	fmt.Fprintf(w, "%10s  0 %%%s50 %%%s100 %% dial\n", "", strings.Repeat(" ", width/2-5), strings.Repeat(" ", width/2-6))
+	fmt.Fprintf(w, "%10s  plates open%smeshed\n", "", strings.Repeat(" ", width-16))
 	_, err := fmt.Fprintln(w, "           L low range, H high range, - listed bands, * harmonic coincidence")
 	return err
 }

@@ -137,6 +137,8 @@ func TestSpanBadInput(t *testing.T) {
 		{"tap beyond", []string{"--tap", "41"}, "--tap"},
 		{"tap third", []string{"--tap", "3.3"}, "--tap"},
 		{"gang upside down", []string{"--gang", "365-15pF"}, "--gang"},
+		{"gang zero", []string{"--gang", "0-0pF"}, "--gang 0-0pF leaves section A"},
+		{"law unknown with gang", []string{"--law", "slx"}, "neither slc, slf, slw nor an existing table file"},
 		{"gang no unit", []string{"--gang", "15-365"}, "--gang"},
 		{"gang-b nonsense", []string{"--gang-b", "big"}, "--gang-b"},
 		{"band upside down", []string{"--band", "3.8-3.5MHz"}, "--band"},
@@ -176,5 +178,25 @@ func TestSpanBadInput(t *testing.T) {
 				t.Errorf("error %q does not name %s", errOut, tc.wantFlag)
 			}
 		})
+	}
+}
+
+// Where the harmonic crosses the high range's peak the offset is only the
+// bisection's rounding: the table says "on the peak" instead of printing
+// a distance in nanohertz. The SLF law keeps f_high/f_low near 3 over a
+// long stretch of the dial, so the example's crossing is found there.
+func TestSpanCoincidenceOnPeakWording(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out, errOut, code := runCLI(t, withArgs(spanArgs, "--tap", "17", "--law", "slf")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	if !strings.Contains(out, "is on the high range's peak") || !strings.Contains(errOut, "is on the high range's peak") {
+		t.Errorf("no on-peak coincidence in the table or warnings:\n%s\n%s", out, errOut)
+	}
+	for _, silly := range []string{"nHz", "pHz", "e-0"} {
+		if strings.Contains(out+errOut, silly) {
+			t.Errorf("output prints %q:\n%s\n%s", silly, out, errOut)
+		}
 	}
 }

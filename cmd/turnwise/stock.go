@@ -36,7 +36,7 @@ fractional-inch drill shanks as mandrels; PVC pipe as formers) and your own
 stock file, with the source of every row. Your stock file is TOML; print a
 commented starting point with --template.
 ` + exitStatusHelp),
-		Example: strings.TrimSpace(`
+		Example: exampleText(`
   turnwise stock --kind mandrel
   turnwise stock --template > ~/coils/stock.toml
   turnwise stock --stock ~/coils/stock.toml --use mine --json`),

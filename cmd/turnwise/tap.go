@@ -3,6 +3,7 @@ package main
 import (
 	"context"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"math"
@@ -109,7 +110,7 @@ light; a heavy load on a loosely coupled tap transforms less.
 Caution: a tank driven by a transmitter carries high RF voltage at its
 hot end; follow local regulations and licensed practice.
 ` + exitStatusHelp),
-		Example: strings.TrimSpace(`
+		Example: exampleText(`
   turnwise tap --former "pvc 20mm" --wire 0.5mm --turns 40 --pitch 1mm --leads 20mm --impedance-ratio 1:50 --freq 7.1MHz
   turnwise tap --mandrel 6mm --wire 1mm --turns 5 --length 8mm --leads 5mm --ratio 0.25 --freq 145MHz --json`),
 		Args: noArgs,
@@ -183,28 +184,28 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 	g := spec.Geometry
 	var goal coil.TapGoal
 	var target float64
-	goalKey := "at"
+	goalKey, goalFlag := "at", "at"
 	switch {
 	case opts.ratio.set:
-		goal, target, goalKey = coil.GoalVoltageRatio, opts.ratio.v, "voltage_ratio"
+		goal, target, goalKey, goalFlag = coil.GoalVoltageRatio, opts.ratio.v, "voltage_ratio", "ratio"
 	case opts.impedance.set:
-		goal, target, goalKey = coil.GoalImpedanceRatio, opts.impedance.v, "impedance_ratio"
+		goal, target, goalKey, goalFlag = coil.GoalImpedanceRatio, opts.impedance.v, "impedance_ratio", "impedance-ratio"
 	case opts.bottomL.set:
-		goal, target, goalKey = coil.GoalBottomInductance, float64(opts.bottomL.v), "bottom_inductance"
+		goal, target, goalKey, goalFlag = coil.GoalBottomInductance, float64(opts.bottomL.v), "bottom_inductance", "bottom-l"
 	}
 	var choices []coil.TapChoice
 	var findErr error
 	if opts.at.set {
 		s, err := coil.Tap(g, opts.at.v, opts.freq.v)
 		if err != nil {
-			return tapFlagError(err)
+			return tapFlagError(err, goalFlag)
 		}
 		target = opts.at.v
 		choices = []coil.TapChoice{{Sections: s}}
 	} else {
 		choices, findErr = coil.FindTap(g, opts.freq.v, goal, target)
 		if findErr != nil && len(choices) == 0 {
-			return tapFlagError(findErr)
+			return tapFlagError(findErr, goalFlag)
 		}
 	}
 	rec := tapRecord{
@@ -215,6 +216,11 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 	}
 	for _, c := range choices {
 		rec.Choices = append(rec.Choices, newTapChoiceRecord(c))
+	}
+	if goalKey != "at" && findErr == nil && len(choices) == 1 && math.Abs(choices[0].Error) > 0.05 {
+		end := choices[0]
+		rec.Warnings = append(rec.Warnings, fmt.Sprintf("no quarter-turn tap on the winding reaches the target: the nearest, %s turns from the cold end, gives %s; for a finer tap near that end use more turns",
+			fmtTurns(end.TapTurns), tapGoalValue(goal, end.Achieved)))
 	}
 	if g.Turns < 4 && goalKey != "at" {
 		rec.Warnings = append(rec.Warnings, "a coil this short has few tap positions: a quarter turn moves the ratio a lot; consider more turns")
@@ -236,13 +242,11 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 	return findErr
 }
 
-// tapFlagError names the flag of a tap error.
-func tapFlagError(err error) error {
+// tapFlagError names the flag of a tap error; goalFlag is the flag that
+// gave the target.
+func tapFlagError(err error, goalFlag string) error {
 	var ie *coil.InputError
-	if e, ok := err.(*coil.InputError); ok {
-		ie = e
-	}
-	if ie == nil {
+	if !errors.As(err, &ie) {
 		return err
 	}
 	switch ie.Param {
@@ -251,7 +255,7 @@ func tapFlagError(err error) error {
 	case "frequency":
 		return &flagError{"freq", err}
 	case "target":
-		return &flagError{"ratio", err}
+		return &flagError{goalFlag, err}
 	}
 	return err
 }
@@ -281,11 +285,11 @@ func writeTapTable(w io.Writer, s coilSpec, p coil.Prediction, goal coil.TapGoal
 	}
 	fmt.Fprintln(tw, header)
 	for _, c := range choices {
-		line := fmt.Sprintf("  %s turns\t%s\t%s\t%s\t%s\t%.3f\t%.4f (1:%.3g)\t%.4g (1:%.3g)",
+		line := fmt.Sprintf("  %s turns\t%s\t%s\t%s\t%s\t%.3f\t%s\t%s",
 			fmtTurns(c.TapTurns), lf.fmt(float64(c.TapPosition)), eng(float64(c.LB), "H", 3), eng(float64(c.LA), "H", 3),
-			eng(float64(c.M), "H", 3), c.K, c.Ratio, 1/c.Ratio, c.ImpedanceRatio(), 1/c.ImpedanceRatio())
+			eng(float64(c.M), "H", 3), c.K, ratioCell("%.4f", c.Ratio), ratioCell("%.4g", c.ImpedanceRatio()))
 		if goalKey != "at" {
-			line += fmt.Sprintf("\t%+.1f %%", c.Error*100)
+			line += "\t" + missCell(c.Error)
 		}
 		fmt.Fprintln(tw, line)
 	}
@@ -301,4 +305,31 @@ func writeTapTable(w io.Writer, s coilSpec, p coil.Prediction, goal coil.TapGoal
 	}
 	fmt.Fprintln(tw, "  caution: the hot end of a transmitting tank carries high RF voltage; follow local regulations and licensed practice")
 	return tw.Flush()
+}
+
+// ratioCell prints a ratio with its 1:N form; a tap at the cold terminal
+// has ratio 0 and no 1:N.
+func ratioCell(format string, r float64) string {
+	if r <= 0 {
+		return fmt.Sprintf(format, 0.0) + " (cold end)"
+	}
+	return fmt.Sprintf(format+" (1:%.3g)", r, 1/r)
+}
+
+// missCell prints how far a tap misses its target; a miss of more than
+// 1000 % reads better as a factor.
+func missCell(e float64) string {
+	if math.Abs(e) >= 10 {
+		return fmt.Sprintf("%.3g× target", e+1)
+	}
+	return fmt.Sprintf("%+.1f %%", e*100)
+}
+
+// tapGoalValue prints a goal's quantity: a ratio with its 1:N form, or an
+// inductance.
+func tapGoalValue(goal coil.TapGoal, v float64) string {
+	if goal == coil.GoalBottomInductance {
+		return eng(v, "H", 3) + " below the tap"
+	}
+	return fmt.Sprintf("%s %.4g (1:%.3g)", goal, v, 1/v)
 }

@@ -91,6 +91,8 @@ func TestTapBadInput(t *testing.T) {
 		{"tap third", withArgs(tapHFArgs, "--at", "2.3"), exitBadInput, "--at"},
 		{"bottom L not L", withArgs(tapHFArgs, "--bottom-l", "5pF"), exitBadInput, "--bottom-l"},
 		{"bottom L beyond coil", withArgs(tapHFArgs, "--bottom-l", "1mH"), exitInfeasible, "whole coil"},
+		{"bottom L negative", withArgs(tapHFArgs, "--bottom-l", "-1uH"), exitBadInput, "--bottom-l"},
+		{"bottom L huge", withArgs(tapHFArgs, "--bottom-l", "1H"), exitInfeasible, "1 H needs more"},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
@@ -105,5 +107,20 @@ func TestTapBadInput(t *testing.T) {
 				t.Errorf("error %q does not say %s", errOut, tc.wantText)
 			}
 		})
+	}
+}
+
+// The ends of the winding: a tap at the cold terminal has no 1:N ratio
+// (no Inf printed), and a target below what the first quarter turn gives
+// is answered with that tap and a warning, its miss as a factor.
+func TestTapEnds(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out, errOut, code := runCLI(t, withArgs(tapHFArgs, "--at", "0")...)
+	if code != exitOK || strings.Contains(out, "Inf") || !strings.Contains(out, "(cold end)") {
+		t.Errorf("--at 0: exit %d\n%s\n%s", code, out, errOut)
+	}
+	out, errOut, code = runCLI(t, withArgs(tapHFArgs, "--ratio", "1e-6")...)
+	if code != exitOK || !strings.Contains(errOut, "no quarter-turn tap on the winding reaches the target") || !strings.Contains(out, "× target") {
+		t.Errorf("--ratio 1e-6: exit %d\n%s\n%s", code, out, errOut)
 	}
 }

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -108,7 +109,7 @@ Caution: never squeeze a coil in a live circuit. Tank and coupler coils
 carry high RF voltage; switch off and discharge before touching, and follow
 local regulations and licensed practice for anything that transmits.
 ` + exitStatusHelp),
-		Example: strings.TrimSpace(`
+		Example: exampleText(`
   turnwise trim --mandrel 4.6mm --wire 1mm --turns 4 --length 8mm --leads 5mm --measured-l 52nH --target 48nH
   turnwise trim --former 25mm --wire 22awg --turns 30 --leads 20mm --freq 3.7MHz --resonance 2.0MHz@330pF --resonance 0.9435MHz@1.5nF
   turnwise trim --job testdata/club-night.toml --coil "L1 filter input" --measured-f 131MHz --circuit-cap 17pF --target 137.5MHz --stock ~/coils/stock.toml --save`),
@@ -189,6 +190,7 @@ type tapResult struct {
 	wantRatio             float64
 	ratioBefore, ratioNow float64 // as built (with the measured offset), after the change
 	offset                float64 // measured − model ratio; 0 without both sections
+	outOfReach            bool    // wantRatio lies beyond every quarter-turn tap
 	sections              *coil.SectionCalibration
 }
 
@@ -243,6 +245,9 @@ func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string)
 		if !opts.circuitCap.set {
 			return nil, usageErrorf("--target %s is a frequency: give --circuit-cap, the capacitance it resonates with in the circuit", opts.target.raw)
 		}
+		if !(opts.target.f > 0) {
+			return nil, usageErrorf("--target %s: a resonance to aim for must be a positive frequency, e.g. 145MHz", opts.target.raw)
+		}
 		res.target = coil.ResonanceTarget(opts.target.f, opts.circuitCap.v)
 		res.targetFrom, res.resonanceF, res.resonanceC = "resonance", opts.target.f, opts.circuitCap.v
 	case opts.target.set:
@@ -260,6 +265,8 @@ func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string)
 		var ie *coil.InputError
 		switch {
 		case errors.As(err, &ie) && ie.Param == "target":
+			return nil, &flagError{"target", err}
+		case errors.As(err, &ie) && ie.Param == "frequency" && res.targetFrom == "resonance":
 			return nil, &flagError{"target", err}
 		case errors.As(err, &ie) && ie.Param == "frequency":
 			return nil, &flagError{"freq", err}
@@ -370,6 +377,9 @@ func (o *trimOptions) measurement() (coil.Measurement, string, error) {
 			m.Kind = coil.MeasureResonance
 		}
 		m.Stray, m.StrayTolerance = o.stray.v, o.stray.v/2
+	}
+	if o.circuitCap.set && m.Kind != coil.MeasureInCircuit && !o.target.isFreq {
+		return m, "", usageErrorf("--circuit-cap is the capacitance of the coil's own circuit: it goes with --measured-f (a resonance in that circuit) or with a resonance --target such as 145MHz; drop it, or give one of those")
 	}
 	if o.withCap.set && !o.measuredF.set {
 		return m, "", usageErrorf("--with-cap is the capacitor of a --measured-f resonance; give --measured-f too, or use --resonance F@C")
@@ -488,6 +498,9 @@ func (o *trimOptions) saveStockOptionsFor(so *stockOptions) (*stockOptions, erro
 		return nil, usageErrorf("--save needs your stock file: give --stock FILE (created if missing) or set TURNWISE_STOCK")
 	}
 	if _, err := os.Stat(so.path); errors.Is(err, os.ErrNotExist) {
+		if dir := filepath.Dir(so.path); !isDir(dir) {
+			return nil, usageErrorf("--save: the stock file's directory %s does not exist; create it first or give another --stock", dir)
+		}
 		if so.use.v == "mine" {
 			return nil, usageErrorf("--use mine: %q does not exist yet; drop --use to start it with --save", so.path)
 		}
@@ -496,6 +509,11 @@ func (o *trimOptions) saveStockOptionsFor(so *stockOptions) (*stockOptions, erro
 		return out, nil
 	}
 	return so, nil
+}
+
+func isDir(path string) bool {
+	st, err := os.Stat(path)
+	return err == nil && st.IsDir()
 }
 
 // firstSet names the first coil flag given, or "".
@@ -559,7 +577,7 @@ func (o *trimOptions) trimTap(tc trimCoil, res *trimResult) (*tapResult, error) 
 	n := *tc.tapTurns
 	g := tc.spec.Geometry
 	if n <= 0 || n >= g.Turns {
-		return nil, &flagError{"tap", fmt.Errorf("%g is not on the winding: the tap goes between 0 and %g turns from the cold end", n, g.Turns)}
+		return nil, &flagError{"tap", fmt.Errorf("%g is not on the winding: a tap goes more than 0 and less than %g turns from the cold end", n, g.Turns)}
 	}
 	specTap, err := coil.Tap(g, n, tc.freq)
 	if err != nil {
@@ -601,6 +619,9 @@ func (o *trimOptions) trimTap(tc trimCoil, res *trimResult) (*tapResult, error) 
 		return nil, trimTapError(err)
 	}
 	t.newTurns, t.ratioNow = choice.TapTurns, choice.Ratio+t.offset
+	// FindTap returns an end tap for a ratio beyond every tap on the winding.
+	last := res.corr.Geometry.Turns - 0.25
+	t.outOfReach = (choice.TapTurns <= 0.25 && want < choice.Ratio) || (choice.TapTurns >= last && want > choice.Ratio)
 	return t, nil
 }
 

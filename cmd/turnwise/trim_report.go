@@ -26,10 +26,8 @@ func fmtLenStep(lf lengthFormatter, m float64, step unit.Length) string {
 	if lf.Inches {
 		return fmt.Sprintf("%.3f in", m/0.0254)
 	}
+	// The fewest decimals that show the step: 0.1 mm one, 0.05 mm two.
 	dec := int(math.Max(0, math.Ceil(-math.Log10(float64(step)*1e3)-1e-9)))
-	if float64(step)*1e3*math.Pow(10, float64(dec)) > 1+1e-9 {
-		dec++ // 0.05 mm needs two decimals
-	}
 	return fmt.Sprintf("%.*f mm", dec, m*1e3)
 }
 
@@ -41,27 +39,35 @@ func sbPct(s float64) string {
 	return fmt.Sprintf("%.2f %%", s*100)
 }
 
-// turnsWord prints a number of turns with its noun: "1 turn", "3¼ turns".
-func turnsWord(n float64) string {
-	if n == 1 {
-		return "1 turn"
+// signedFarads prints a capacitance that may come out below zero (a fitted
+// intercept) in the same unit as its positive neighbours.
+func signedFarads(c float64) string {
+	if c < 0 {
+		return "−" + farads(-c)
 	}
-	return fmtTurns(n) + " turns"
+	return farads(c)
+}
+
+// turnsNum prints a number of turns without a leading zero: "¼", "3¼".
+func turnsNum(n float64) string {
+	s := fmtTurns(n)
+	if len(s) > 1 && s[0] == '0' {
+		return s[1:]
+	}
+	return s
+}
+
+// turnsWord prints a number of turns with its noun: "¾ turn", "1 turn",
+// "3¼ turns".
+func turnsWord(n float64) string {
+	if n <= 1 {
+		return turnsNum(n) + " turn"
+	}
+	return turnsNum(n) + " turns"
 }
 
 // quarterTurns prints a turns difference: "¼ turn", "1½ turns".
-func quarterTurns(d float64) string {
-	d = math.Abs(d)
-	if d == 1 {
-		return "1 turn"
-	}
-	s := fmtTurns(d)
-	if strings.HasPrefix(s, "0") {
-		s = strings.TrimPrefix(s, "0")
-		return s + " turn"
-	}
-	return s + " turns"
-}
+func quarterTurns(d float64) string { return turnsWord(math.Abs(d)) }
 
 // expectText is the predicted value after the change, in the target's terms.
 func expectText(res *trimResult) string {
@@ -69,10 +75,16 @@ func expectText(res *trimResult) string {
 	if res.targetFrom == "resonance" && res.afterResonance > 0 {
 		return fmt.Sprintf("resonance at %s", eng(float64(res.afterResonance), "Hz", 4))
 	}
-	if f := res.target.Frequency; f > 0 {
-		return eng(float64(c.After), "H", 3) + " at " + eng(float64(f), "Hz", 4)
+	// Three figures, but at least one decimal: "131 nH" for 130.6 nH would
+	// read as a 0.8 % miss of a 130 nH target that the 0.5 % rounding met.
+	after := eng(float64(c.After), "H", 3)
+	if !strings.Contains(after, ".") {
+		after = eng(float64(c.After), "H", 4)
 	}
-	return eng(float64(c.After), "H", 3)
+	if f := res.target.Frequency; f > 0 {
+		return after + " at " + eng(float64(f), "Hz", 4)
+	}
+	return after
 }
 
 // trimInstruction is the one clear sentence a builder acts on.
@@ -96,11 +108,15 @@ func trimInstruction(res *trimResult) string {
 		s = fmt.Sprintf("rewind with %s (%s more) at %s outside length; expect %s", turnsWord(c.Geometry.Turns),
 			quarterTurns(c.Geometry.Turns-res.cal.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	case coil.ActionRemoveTurns:
-		s = fmt.Sprintf("remove %s (%s left) and set %s outside length; expect %s", quarterTurns(res.cal.Geometry.Turns-c.Geometry.Turns),
+		end := ""
+		if res.tap != nil {
+			end = " at the hot end" // the tap counts from the cold end
+		}
+		s = fmt.Sprintf("remove %s%s (%s left) and set %s outside length; expect %s", quarterTurns(res.cal.Geometry.Turns-c.Geometry.Turns), end,
 			turnsWord(c.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	}
 	if t := res.tap; t != nil && t.newTurns != t.turns {
-		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", fmtTurns(t.turns), turnsWord(t.newTurns))
+		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", turnsNum(t.turns), turnsWord(t.newTurns))
 	}
 	return s
 }
@@ -149,7 +165,7 @@ func trimWarnings(res *trimResult) []string {
 		w = append(w, "no fixture stray given (--stray): 0 pF assumed; a probe or fixture adds some pF, which matters with a small test capacitor; the two-capacitor method (--resonance twice) measures it")
 	}
 	if r.Kind == coil.MeasureTwoCapacitor && r.TotalStray < 0 {
-		w = append(w, fmt.Sprintf("the capacitance across the coil came out slightly negative (%s ± %s), within the readings' uncertainty: treat it as zero", farads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
+		w = append(w, fmt.Sprintf("the capacitance across the coil came out slightly negative (%s ± %s), within the readings' uncertainty: treat it as zero", signedFarads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
 	}
 	if r.Kind == coil.MeasureTwoCapacitor && r.FitResidual > 3*res.meas.FrequencyTolerance && r.FitResidual > 0.002 {
 		w = append(w, fmt.Sprintf("the resonances scatter by %.2g %% about the fitted line, more than the frequency readings' accuracy: recheck the capacitor values", r.FitResidual*100))
@@ -169,10 +185,13 @@ func trimWarnings(res *trimResult) []string {
 				continue
 			}
 			if u := math.Hypot(s.fit.Reading.Uncertainty, r.Uncertainty); math.Abs(s.fit.Residual) > u {
-				w = append(w, fmt.Sprintf("the %s section reads %+.1f %% against the rest of the coil, more than the readings' uncertainty: its turns are closer or wider than the rest, or the tap is not at %s turns",
+				w = append(w, fmt.Sprintf("the %s section reads %+.1f %% against the rest of the coil, more than the readings' uncertainty: its turns are closer or wider than the rest, or the tap is not at %s",
 					s.name, -s.fit.Residual/(1+s.fit.Residual)*100, turnsWord(t.turns)))
 			}
 		}
+	}
+	if t := res.tap; t != nil && t.outOfReach {
+		w = append(w, fmt.Sprintf("no quarter-turn tap gives the voltage ratio %.3f: the nearest, %s from the cold end, gives %.3f", t.wantRatio, turnsWord(t.newTurns), t.ratioNow))
 	}
 	if res.corr.Action == coil.ActionAddTurns {
 		w = append(w, fmt.Sprintf("adding turns means winding a new coil: cut %s of wire", res.lf.fmt(float64(res.nextPred.WireLength))))
@@ -257,11 +276,15 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	}
 	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", eng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
 	if r.Kind == coil.MeasureTwoCapacitor {
-		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", farads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
+		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", signedFarads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
 		sc := fmt.Sprintf("Medhurst %s", farads(float64(cal.SelfCapacitance)))
+		if ct := cal.SelfCapacitanceAtTerminals; math.Abs(float64(ct/cal.SelfCapacitance)-1) > 0.05 {
+			// Long leads: the line sees the self-capacitance through them.
+			sc = fmt.Sprintf("Medhurst %s across the winding, %s at the terminals through the leads", farads(float64(cal.SelfCapacitance)), farads(float64(ct)))
+		}
 		if m.Stray > 0 {
 			u := math.Hypot(float64(r.TotalStrayUncertainty), float64(m.StrayTolerance))
-			sc = fmt.Sprintf("%s ± %s measured (less --stray %s); %s", farads(float64(cal.MeasuredSelfCapacitance)), farads(u), farads(float64(m.Stray)), sc)
+			sc = fmt.Sprintf("%s ± %s measured (less --stray %s); %s", signedFarads(float64(cal.MeasuredSelfCapacitance)), farads(u), farads(float64(m.Stray)), sc)
 		}
 		row("self-capacitance", sc)
 		if len(m.Resonances) > 2 {
@@ -317,7 +340,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	if t := res.tap; t != nil {
 		tapLine := fmt.Sprintf("%s from the cold end, voltage ratio %.3f (as built) → %.3f; wanted %.3f", turnsWord(t.newTurns), t.ratioBefore, t.ratioNow, t.wantRatio)
 		if t.newTurns != t.turns {
-			tapLine = "move from " + fmtTurns(t.turns) + " to " + tapLine
+			tapLine = "move from " + turnsNum(t.turns) + " to " + tapLine
 		} else {
 			tapLine = "stays at " + tapLine
 		}
@@ -425,6 +448,7 @@ type trimJSON struct {
 	StrayCapacitanceUncertainty   *float64 `json:"stray_capacitance_uncertainty,omitempty"`
 	SelfCapacitanceMeasured       *float64 `json:"self_capacitance_measured,omitempty"`
 	SelfCapacitanceModel          float64  `json:"self_capacitance_model"`
+	SelfCapacitanceModelTerminal  *float64 `json:"self_capacitance_model_terminal,omitempty"`
 	FitResidual                   *float64 `json:"fit_residual,omitempty"`
 	ModelInductance               float64  `json:"model_inductance"`
 	InductanceTerminal            float64  `json:"inductance_terminal"`
@@ -500,6 +524,7 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 		if m.Stray > 0 {
 			d.SelfCapacitanceMeasured = ptr(float64(cal.MeasuredSelfCapacitance))
 		}
+		d.SelfCapacitanceModelTerminal = ptr(float64(cal.SelfCapacitanceAtTerminals))
 		if len(m.Resonances) > 2 {
 			d.FitResidual = ptr(r.FitResidual)
 		}

@@ -7,6 +7,7 @@ import (
 	"io"
 	"io/fs"
 	"os"
+	"path/filepath"
 
 	"turnwise/coil"
 	"turnwise/forms"
@@ -29,6 +30,13 @@ type savedCalibration struct {
 // (forms.AppendStock).
 func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error) {
 	path := tc.stock.path
+	// A stock file kept behind a symbolic link is updated where it lives;
+	// renaming over the link would replace it with a copy.
+	if st, err := os.Lstat(path); err == nil && st.Mode()&fs.ModeSymlink != 0 {
+		if real, err := filepath.EvalSymlinks(path); err == nil {
+			path = real
+		}
+	}
 	orig, err := os.ReadFile(path)
 	existed := err == nil
 	var mode fs.FileMode = 0o644
@@ -57,7 +65,7 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error
 	spec := res.tc.spec
 	g := spec.Geometry
 	add := &forms.Catalog{}
-	s := &savedCalibration{Path: path, Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.cal.Springback}
+	s := &savedCalibration{Path: tc.stock.path, Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.cal.Springback}
 	const source = "given on the command line; added by turnwise trim --save"
 	if spec.SupportKind == "mandrel" {
 		if _, err := lookup.Mandrel(spec.SupportName); err != nil {
@@ -86,15 +94,14 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error
 	}
 	if existed {
 		s.Backup = path + ".bak"
-		if err := writeFileAtomic(s.Backup, nil, func(w io.Writer) error { _, err := w.Write(orig); return err }); err != nil {
+		if err := writeFileAtomic(s.Backup, mode, nil, func(w io.Writer) error { _, err := w.Write(orig); return err }); err != nil {
 			return nil, fmt.Errorf("--save: keep the old stock file: %w", err)
 		}
-		os.Chmod(s.Backup, mode)
 	}
-	if err := writeFileAtomic(path, nil, func(w io.Writer) error { _, err := w.Write(text); return err }); err != nil {
+	// The stock file keeps its own permissions.
+	if err := writeFileAtomic(path, mode, nil, func(w io.Writer) error { _, err := w.Write(text); return err }); err != nil {
 		return nil, fmt.Errorf("--save: %w", err)
 	}
-	os.Chmod(path, mode) // keep the file's own permissions (writeFileAtomic makes 0644)
 	return s, nil
 }
 

@@ -9,6 +9,8 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/gonum/unit"
 )
 
 // trimData is this command's own test data.
@@ -177,6 +179,15 @@ func TestTrimBadInput(t *testing.T) {
 		{"job coil is a design target", []string{"trim", "--job", job, "--coil", "middle", "--measured-l", "90nH"}, "design target"},
 		{"missing job file", []string{"trim", "--job", "nope.toml", "--coil", "input", "--measured-l", "90nH"}, "nope.toml"},
 		{"pitch below wire", with(coilFlags, "--measured-l", "90nH", "--pitch", "0.5mm"), "--pitch"},
+		// Review of issue #5: each names the flag that is wrong.
+		{"circuit capacitance unused", with(coilFlags, "--measured-l", "90nH", "--circuit-cap", "22pF"), "--circuit-cap"},
+		{"circuit capacitance beside a test capacitor", with(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--circuit-cap", "22pF"), "--circuit-cap"},
+		{"resonance target of zero", with(coilFlags, "--measured-l", "90nH", "--target", "0MHz", "--circuit-cap", "22pF"), "--target 0MHz"},
+		{"resonance target above the self-resonance", with(coilFlags, "--measured-l", "90nH", "--target", "2GHz", "--circuit-cap", "22pF"), "--target"},
+		{"negative stray", with(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--stray", "-1pF"), "--stray"},
+		{"meter frequency near the self-resonance", with(coilFlags, "--measured-l", "90nH", "--meter-freq", "1GHz"), "--meter-freq: the meter's test frequency"},
+		{"capacitors too close", with(coilFlags, "--resonance", "100MHz@22pF", "--resonance", "99.9MHz@22.05pF"), "capacitors further apart"},
+		{"save into a missing directory", with(coilFlags, "--measured-l", "90nH", "--stock", filepath.Join("no-such-dir", "s.toml"), "--save"), "no-such-dir does not exist"},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
@@ -461,5 +472,96 @@ func TestTrimSaveFeedsDesignSearch(t *testing.T) {
 	c := res.Candidates[0]
 	if c.SpringbackSource != "calibration" || c.Support.Springback != saved.Springback {
 		t.Errorf("design uses springback %g from %q, want the saved %g", c.Support.Springback, c.SpringbackSource, saved.Springback)
+	}
+}
+
+// Lengths print to the resolution they were rounded to (review of #5:
+// 0.05 mm printed three decimals).
+func TestFmtLenStep(t *testing.T) {
+	t.Parallel()
+	mm := newLengthFormatter("mm")
+	tests := []struct {
+		name   string
+		length float64
+		step   float64
+		want   string
+	}{
+		{"tenth", 9.7e-3, 0.1e-3, "9.7 mm"},
+		{"twentieth", 5.45e-3, 0.05e-3, "5.45 mm"},
+		{"fiftieth", 5.46e-3, 0.02e-3, "5.46 mm"},
+		{"hundredth", 5.47e-3, 0.01e-3, "5.47 mm"},
+		{"whole", 12e-3, 1e-3, "12 mm"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			t.Parallel()
+			if got := fmtLenStep(mm, tc.length, unit.Length(tc.step)); got != tc.want {
+				t.Errorf("got %q, want %q", got, tc.want)
+			}
+		})
+	}
+}
+
+// A tapped coil loses turns at the hot end (the tap counts from the cold
+// end), and the section warning names the tap once.
+func TestTrimTappedRemoveTurns(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	job := filepath.Join(trimData, "job.toml")
+	out, errOut, code := runCLI(t, "trim", "--job", job, "--coil", "input", "--measured-l", "80nH", "--measured-bottom", "14nH",
+		"--measured-top", "69nH", "--target", "60nH", "--freq", "0Hz")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	if !strings.Contains(out, "→ remove ¾ turn at the hot end (4¼ turns left)") {
+		t.Errorf("instruction does not say which end:\n%s", out)
+	}
+	if !strings.Contains(errOut, "or the tap is not at 1 turn\n") || strings.Contains(errOut, "turn turns") {
+		t.Errorf("section warning:\n%s", errOut)
+	}
+}
+
+// --save through a symbolic link updates the file it points to and leaves
+// the link in place.
+func TestTrimSaveThroughSymlink(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	real := filepath.Join(dir, "real.toml")
+	orig := copyFile(t, filepath.Join(trimData, "stock.toml"), real, 0o644)
+	link := filepath.Join(dir, "link.toml")
+	if err := os.Symlink("real.toml", link); err != nil {
+		t.Skipf("no symbolic links here: %v", err)
+	}
+	if _, errOut, code := runCLI(t, with(trimDoneWhen, "--stock", link, "--save")...); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	if st, err := os.Lstat(link); err != nil || st.Mode()&os.ModeSymlink == 0 {
+		t.Errorf("the link was replaced: %v %v", st, err)
+	}
+	got, _ := os.ReadFile(real)
+	if !bytes.HasPrefix(got, orig) || !bytes.Contains(got, []byte("[[calibration]]\nmandrel = \"4.6mm rod\"")) {
+		t.Errorf("the linked file did not get the calibration:\n%s", got)
+	}
+	if bak, err := os.ReadFile(real + ".bak"); err != nil || !bytes.Equal(bak, orig) {
+		t.Errorf("backup beside the real file: %v", err)
+	}
+}
+
+// A tap ratio beyond every quarter-turn tap is flagged, and a tap under
+// one turn reads "¼ turn", not "0¼ turns".
+func TestTrimTapOutOfReach(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	out, errOut, code := runCLI(t, with(vhfTrim, "--measured-l", "101nH", "--tap", "1", "--tap-ratio", "0.01")...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	if !strings.Contains(out, "move the tap from 1 to ¼ turn from the cold end") {
+		t.Errorf("instruction:\n%s", out)
+	}
+	if !strings.Contains(errOut, "no quarter-turn tap gives the voltage ratio 0.010") {
+		t.Errorf("no out-of-reach warning:\n%s", errOut)
+	}
+	_, errOut, _ = runCLI(t, with(vhfTrim, "--measured-l", "101nH", "--tap", "1", "--tap-ratio", "0.5")...)
+	if strings.Contains(errOut, "no quarter-turn tap") {
+		t.Errorf("a reachable ratio flagged:\n%s", errOut)
 	}
 }

@@ -18,7 +18,7 @@ func TestWriteFileAtomic(t *testing.T) {
 	}
 	// A failing writer leaves the old file and no temporary behind.
 	boom := errors.New("boom")
-	err := writeFileAtomic(path, nil, func(w io.Writer) error {
+	err := writeFileAtomic(path, 0o644, nil, func(w io.Writer) error {
 		io.WriteString(w, "half")
 		return boom
 	})
@@ -32,19 +32,22 @@ func TestWriteFileAtomic(t *testing.T) {
 		t.Errorf("temporary file left behind: %v", ents)
 	}
 	// A good writer replaces it.
-	if err := writeFileAtomic(path, nil, func(w io.Writer) error { _, err := io.WriteString(w, "new"); return err }); err != nil {
+	if err := writeFileAtomic(path, 0o644, nil, func(w io.Writer) error { _, err := io.WriteString(w, "new"); return err }); err != nil {
 		t.Fatal(err)
 	}
 	if b, _ := os.ReadFile(path); string(b) != "new" {
 		t.Errorf("file is %q, want new", b)
 	}
+	if st, err := os.Stat(path); err != nil || st.Mode().Perm() != 0o644 {
+		t.Errorf("permissions %v, %v; want 0644", st.Mode().Perm(), err)
+	}
 	// "-" goes to stdout.
 	var out bytes.Buffer
-	if err := writeFileAtomic("-", &out, func(w io.Writer) error { _, err := io.WriteString(w, "x"); return err }); err != nil || out.String() != "x" {
+	if err := writeFileAtomic("-", 0o644, &out, func(w io.Writer) error { _, err := io.WriteString(w, "x"); return err }); err != nil || out.String() != "x" {
 		t.Errorf("stdout: %q, %v", out.String(), err)
 	}
 	// A missing directory is bad input, named.
-	err = writeFileAtomic(filepath.Join(dir, "nope", "f.pdf"), nil, func(io.Writer) error { return nil })
+	err = writeFileAtomic(filepath.Join(dir, "nope", "f.pdf"), 0o644, nil, func(io.Writer) error { return nil })
 	if exitCode(err) != exitBadInput {
 		t.Errorf("missing dir: %v (exit %d)", err, exitCode(err))
 	}
