@@ -89,6 +89,15 @@ func FormatTurns(n float64) string {
 	return w + "¾"
 }
 
+// FormatTurnsWord prints turns with their noun: "¾ turn", "1 turn",
+// "5¼ turns".
+func FormatTurnsWord(n float64) string {
+	if n <= 1 {
+		return FormatTurns(n) + " turn"
+	}
+	return FormatTurns(n) + " turns"
+}
+
 // FormatPercent prints a fraction as a percentage with three significant
 // figures: 0.031 → "3.1 %".
 func FormatPercent(x float64) string { return fmt.Sprintf("%.3g %%", x*100) }

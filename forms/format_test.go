@@ -24,6 +24,9 @@ func TestFormat(t *testing.T) {
 		{"half", FormatTurns(8.5), "8½"},
 		{"quarter", FormatTurns(0.25), "¼"},
 		{"none", FormatTurns(0), "0"},
+		{"word quarter", FormatTurnsWord(0.75), "¾ turn"},
+		{"word one", FormatTurnsWord(1), "1 turn"},
+		{"word many", FormatTurnsWord(5.25), "5¼ turns"},
 		{"percent", FormatPercent(0.031), "3.1 %"},
 	}
 	for _, tc := range tests {

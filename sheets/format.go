@@ -70,13 +70,7 @@ func (u lengths) stock(m float64) string {
 func turns(n float64) string { return forms.FormatTurns(n) }
 
 // turnsWord is "¼ turn", "1 turn", "1½ turns", "5 turns".
-func turnsWord(n float64) string {
-	t := turns(n)
-	if t == "1" || n < 1 {
-		return strings.TrimPrefix(t, "0") + " turn"
-	}
-	return t + " turns"
-}
+func turnsWord(n float64) string { return forms.FormatTurnsWord(n) }
 
 func plural(n int, one, many string) string {
 	if n == 1 {

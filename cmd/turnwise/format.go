@@ -15,6 +15,9 @@ func farads(c float64) string { return forms.FormatCapacitance(c) }
 
 func fmtTurns(n float64) string { return forms.FormatTurns(n) }
 
+// turnsWord prints turns with their noun: "¾ turn", "1 turn", "3¼ turns".
+func turnsWord(n float64) string { return forms.FormatTurnsWord(n) }
+
 func pct(x float64) string { return forms.FormatPercent(x) }
 
 // lengthFormatter prints lengths in the user's display unit.

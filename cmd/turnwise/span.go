@@ -374,8 +374,8 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
-	fmt.Fprintf(tw, "%s turns of %s on %s, pitch %s, tapped %s turns from the cold end\n\n",
-		fmtTurns(g.Turns), describeWire(s, lf), s.SupportName, lf.fmt(float64(g.Pitch)), fmtTurns(sec.TapTurns))
+	fmt.Fprintf(tw, "%s of %s on %s, pitch %s, tapped %s from the cold end\n\n",
+		turnsWord(g.Turns), describeWire(s, lf), s.SupportName, lf.fmt(float64(g.Pitch)), turnsWord(sec.TapTurns))
 
 	if p := out.Plan; p != nil {
 		fmt.Fprintln(tw, "TAP CHOICE")
@@ -383,7 +383,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		if !p.Feasible {
 			verdict = "no tap meets every requirement: this is the best compromise"
 		}
-		row("chosen tap", fmt.Sprintf("%s turns from the cold end (%s)", fmtTurns(p.TapTurns), verdict))
+		row("chosen tap", fmt.Sprintf("%s from the cold end (%s)", turnsWord(p.TapTurns), verdict))
 		if set.VaryPitch {
 			row("chosen pitch", fmt.Sprintf("%s, outside length %s (you asked for %s)", lf.fmt(float64(p.Geometry.Pitch)), lf.fmt(float64(p.Geometry.WindingLength())), lf.fmt(float64(s.Geometry.Pitch))))
 		}
@@ -409,8 +409,8 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 	row("section B", describeGang(b)+", "+describeLaw(b)+": tap to ground")
 	row("coil self-capacitance", farads(float64(sp.SelfCapacitance))+" across the whole coil (Medhurst)")
 	fmt.Fprintln(tw, "\nTAP")
-	row("where", fmt.Sprintf("%s turns up from the cold (grounded) end, %s along the coil from where the winding starts",
-		fmtTurns(sec.TapTurns), lf.fmt(float64(sec.TapPosition))))
+	row("where", fmt.Sprintf("%s up from the cold (grounded) end, %s along the coil from where the winding starts",
+		turnsWord(sec.TapTurns), lf.fmt(float64(sec.TapPosition))))
 	at := "low frequency"
 	if sec.Frequency > 0 {
 		at = hz(sec.Frequency)

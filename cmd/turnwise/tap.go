@@ -219,8 +219,8 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 	}
 	if goalKey != "at" && findErr == nil && len(choices) == 1 && math.Abs(choices[0].Error) > 0.05 {
 		end := choices[0]
-		rec.Warnings = append(rec.Warnings, fmt.Sprintf("no quarter-turn tap on the winding reaches the target: the nearest, %s turns from the cold end, gives %s; for a finer tap near that end use more turns",
-			fmtTurns(end.TapTurns), tapGoalValue(goal, end.Achieved)))
+		rec.Warnings = append(rec.Warnings, fmt.Sprintf("no quarter-turn tap on the winding reaches the target: the nearest, %s from the cold end, gives %s; for a finer tap near that end use more turns",
+			turnsWord(end.TapTurns), tapGoalValue(goal, end.Achieved)))
 	}
 	if g.Turns < 4 && goalKey != "at" {
 		rec.Warnings = append(rec.Warnings, "a coil this short has few tap positions: a quarter turn moves the ratio a lot; consider more turns")
@@ -285,8 +285,8 @@ func writeTapTable(w io.Writer, s coilSpec, p coil.Prediction, goal coil.TapGoal
 	}
 	fmt.Fprintln(tw, header)
 	for _, c := range choices {
-		line := fmt.Sprintf("  %s turns\t%s\t%s\t%s\t%s\t%.3f\t%s\t%s",
-			fmtTurns(c.TapTurns), lf.fmt(float64(c.TapPosition)), eng(float64(c.LB), "H", 3), eng(float64(c.LA), "H", 3),
+		line := fmt.Sprintf("  %s\t%s\t%s\t%s\t%s\t%.3f\t%s\t%s",
+			turnsWord(c.TapTurns), lf.fmt(float64(c.TapPosition)), eng(float64(c.LB), "H", 3), eng(float64(c.LA), "H", 3),
 			eng(float64(c.M), "H", 3), c.K, ratioCell("%.4f", c.Ratio), ratioCell("%.4g", c.ImpedanceRatio()))
 		if goalKey != "at" {
 			line += "\t" + missCell(c.Error)
@@ -295,8 +295,8 @@ func writeTapTable(w io.Writer, s coilSpec, p coil.Prediction, goal coil.TapGoal
 	}
 	best := choices[0]
 	fmt.Fprintln(tw, "\nHOW TO PLACE IT")
-	fmt.Fprintf(tw, "  count %s turns up from the cold (grounded) end and solder the tap there: %s along the axis from the centre of the wire where the winding starts\n",
-		fmtTurns(best.TapTurns), lf.fmt(float64(best.TapPosition)))
+	fmt.Fprintf(tw, "  count %s up from the cold (grounded) end and solder the tap there: %s along the axis from the centre of the wire where the winding starts\n",
+		turnsWord(best.TapTurns), lf.fmt(float64(best.TapPosition)))
 	fmt.Fprintf(tw, "  turns ratio alone would say %.3f; the coupled sections give %.3f\n", best.TapTurns/g.Turns, best.Ratio)
 	fmt.Fprintln(tw, "\nNOTES")
 	fmt.Fprintln(tw, "  the cold lead is counted below the tap and the hot lead above it; the tap wire is not modelled: keep it short")

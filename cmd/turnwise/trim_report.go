@@ -48,24 +48,6 @@ func signedFarads(c float64) string {
 	return farads(c)
 }
 
-// turnsNum prints a number of turns without a leading zero: "¼", "3¼".
-func turnsNum(n float64) string {
-	s := fmtTurns(n)
-	if len(s) > 1 && s[0] == '0' {
-		return s[1:]
-	}
-	return s
-}
-
-// turnsWord prints a number of turns with its noun: "¾ turn", "1 turn",
-// "3¼ turns".
-func turnsWord(n float64) string {
-	if n <= 1 {
-		return turnsNum(n) + " turn"
-	}
-	return turnsNum(n) + " turns"
-}
-
 // quarterTurns prints a turns difference: "¼ turn", "1½ turns".
 func quarterTurns(d float64) string { return turnsWord(math.Abs(d)) }
 
@@ -116,7 +98,7 @@ func trimInstruction(res *trimResult) string {
 			turnsWord(c.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	}
 	if t := res.tap; t != nil && t.newTurns != t.turns {
-		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", turnsNum(t.turns), turnsWord(t.newTurns))
+		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", fmtTurns(t.turns), turnsWord(t.newTurns))
 	}
 	return s
 }
@@ -340,7 +322,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	if t := res.tap; t != nil {
 		tapLine := fmt.Sprintf("%s from the cold end, voltage ratio %.3f (as built) → %.3f; wanted %.3f", turnsWord(t.newTurns), t.ratioBefore, t.ratioNow, t.wantRatio)
 		if t.newTurns != t.turns {
-			tapLine = "move from " + turnsNum(t.turns) + " to " + tapLine
+			tapLine = "move from " + fmtTurns(t.turns) + " to " + tapLine
 		} else {
 			tapLine = "stays at " + tapLine
 		}
