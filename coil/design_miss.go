@@ -91,55 +91,20 @@ func (m *dsMissLog) relaxed(constraint string, c *dsCoil, s *designSettings) {
 // describe names a coil for a message: "5¼ turns of 1.00mm on 6mm drill".
 func (x *dsSearch) describe(n dsNear) string {
 	sup, _ := x.support(n.pair)
-	s := fmt.Sprintf("%s turns of %s on %s", dsTurns(n.n), x.wire(n.pair).Name, sup.Name)
+	s := fmt.Sprintf("%s turns of %s on %s", fmtTurns(n.n), x.wire(n.pair).Name, sup.Name)
 	if n.pitch > 0 {
 		s += fmt.Sprintf(" at %s pitch", shortMM(n.pitch))
 	}
 	return s
 }
 
-func dsTurns(n float64) string {
-	whole := math.Floor(n + 1e-9)
-	switch frac := n - whole; {
-	case frac < 0.125:
-		return fmt.Sprintf("%.0f", whole)
-	case frac < 0.375:
-		return fmt.Sprintf("%.0f¼", whole)
-	case frac < 0.625:
-		return fmt.Sprintf("%.0f½", whole)
-	}
-	return fmt.Sprintf("%.0f¾", whole)
-}
-
-// fmtInductance formats henries with an engineering prefix for messages.
-func fmtInductance(h float64) string {
-	switch a := math.Abs(h); {
-	case a >= 1:
-		return fmt.Sprintf("%.4g H", h)
-	case a >= 1e-3:
-		return fmt.Sprintf("%.4g mH", h*1e3)
-	case a >= 1e-6:
-		return fmt.Sprintf("%.4g µH", h*1e6)
-	case a >= 1e-9:
-		return fmt.Sprintf("%.4g nH", h*1e9)
-	}
-	return fmt.Sprintf("%.4g pH", h*1e12)
-}
-
 func (x *dsSearch) targetWords() string {
 	s := x.s
 	if s.effective {
 		return fmt.Sprintf("resonance at %s with %s (%s effective)", fmtHz(s.matchF),
-			fmtCap(float64(s.t.Capacitance+s.t.Stray)), fmtInductance(s.required))
+			fmtF(float64(s.t.Capacitance+s.t.Stray)), fmtH(s.required))
 	}
-	return fmtInductance(s.required)
-}
-
-func fmtCap(c float64) string {
-	if c < 1e-9 {
-		return fmt.Sprintf("%.4g pF", c*1e12)
-	}
-	return fmt.Sprintf("%.4g nF", c*1e9)
+	return fmtH(s.required)
 }
 
 // infeasible builds the error for a search that found nothing.
@@ -232,7 +197,7 @@ func (x *dsSearch) bindMessage(name string, n dsNear) string {
 		msg := fmt.Sprintf("no coil reaches %s within %s outside length: the shortest that does is %s (%s); allow %s",
 			tw, shortMM(float64(c.MaxLength)), shortMM(n.value), x.describe(n), shortMM(math.Ceil(n.value*2e3)/2e3))
 		if l, nn, ok := x.mostWithin(n.pair, float64(c.MaxLength)); ok && l < s.required*(1-s.tol) {
-			msg += fmt.Sprintf(", or accept %s from %s turns close-wound on the same support", fmtInductance(l), dsTurns(nn))
+			msg += fmt.Sprintf(", or accept %s from %s turns close-wound on the same support", fmtH(l), fmtTurns(nn))
 		}
 		return msg
 	case "max_diameter":
@@ -266,10 +231,10 @@ func (x *dsSearch) smallMessage() string {
 	lead := float64(s.c.LeadLength)
 	if sm.n == 0 {
 		return fmt.Sprintf("%s is less than the two %s leads alone (%s even with %s, the thickest wire that fits): shorten the leads, or make the leads the inductor",
-			x.targetWords(), shortMM(lead), fmtInductance(sm.value), x.wire(sm.pair).Name)
+			x.targetWords(), shortMM(lead), fmtH(sm.value), x.wire(sm.pair).Name)
 	}
 	return fmt.Sprintf("%s is below what the stock can make: the least is %s spread to %g × the wire, %s; use shorter leads, a smaller support or a strip line",
-		x.targetWords(), x.describe(*sm), LoosestPitchFactor, fmtInductance(sm.value))
+		x.targetWords(), x.describe(*sm), LoosestPitchFactor, fmtH(sm.value))
 }
 
 func (x *dsSearch) rulesMessage() string {

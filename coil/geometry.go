@@ -1,7 +1,6 @@
 package coil
 
 import (
-	"fmt"
 	"math"
 
 	"gonum.org/v1/gonum/unit"
@@ -87,8 +86,6 @@ const (
 	MaxTemperatureC   = 250.0
 	MaxFrequency      = 10e9 // Hz
 )
-
-func mm(x float64) string { return fmt.Sprintf("%.4g mm", x*1e3) }
 
 // overall returns d_o, defaulting to the bare diameter.
 func (g *Geometry) overall() float64 {

@@ -121,7 +121,7 @@ func FindTap(g Geometry, f unit.Frequency, goal TapGoal, target float64) ([]TapC
 
 func goalString(g TapGoal, v float64) string {
 	if g == GoalBottomInductance {
-		return fmtInductance(v)
+		return fmtH(v)
 	}
 	return fmt.Sprintf("%.4g", v)
 }

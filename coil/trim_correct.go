@@ -283,7 +283,7 @@ func findTurns(g Geometry, t TrimTarget, more bool) (float64, error) {
 			ok, err := reaches(q / 4)
 			if err != nil {
 				return 0, &infeasibleError{fmt.Sprintf("the target %s needs more turns than %s, and with %g turns the coil's self-resonance is already too close to %s; use a larger diameter, which needs fewer turns",
-					fmtH(want), fmtTurnsPlain(g.Turns), q/4, fmtHz(float64(t.Frequency)))}
+					fmtH(want), fmtTurns(g.Turns), q/4, fmtHz(float64(t.Frequency)))}
 			}
 			if ok {
 				break
@@ -325,9 +325,6 @@ func findTurns(g Geometry, t TrimTarget, more bool) (float64, error) {
 	}
 	return lo / 4, nil
 }
-
-// fmtTurnsPlain prints turns for messages.
-func fmtTurnsPlain(n float64) string { return fmt.Sprintf("%g", n) }
 
 // Expected is what the next measurement, made the same way, should read.
 type Expected struct {

@@ -1,7 +1,6 @@
 package coil
 
 import (
-	"fmt"
 	"math"
 	"slices"
 
@@ -373,27 +372,4 @@ func fitLine(rs []Resonance) (l, c0, resid float64) {
 		resid = math.Sqrt(ss / n)
 	}
 	return l, c0, resid
-}
-
-// fmtH and fmtF format an inductance and a capacitance for messages.
-func fmtH(h float64) string {
-	switch a := math.Abs(h); {
-	case a >= 1:
-		return fmt.Sprintf("%.4g H", h)
-	case a >= 1e-3:
-		return fmt.Sprintf("%.4g mH", h*1e3)
-	case a >= 1e-6:
-		return fmt.Sprintf("%.4g µH", h*1e6)
-	}
-	return fmt.Sprintf("%.4g nH", h*1e9)
-}
-
-func fmtF(c float64) string {
-	switch a := math.Abs(c); {
-	case a >= 1e-6:
-		return fmt.Sprintf("%.4g µF", c*1e6)
-	case a >= 1e-9:
-		return fmt.Sprintf("%.4g nF", c*1e9)
-	}
-	return fmt.Sprintf("%.4g pF", c*1e12)
 }

@@ -5,19 +5,6 @@ import (
 	"math"
 )
 
-// fmtHz formats a frequency with an engineering prefix for messages.
-func fmtHz(f float64) string {
-	switch {
-	case f >= 1e9:
-		return fmt.Sprintf("%.4g GHz", f/1e9)
-	case f >= 1e6:
-		return fmt.Sprintf("%.4g MHz", f/1e6)
-	case f >= 1e3:
-		return fmt.Sprintf("%.4g kHz", f/1e3)
-	}
-	return fmt.Sprintf("%.4g Hz", f)
-}
-
 // Warnings words the prediction's flags for a builder, most important
 // first. Informational flags (Wheeler's range) are not included.
 func (p *Prediction) Warnings() []string {
