@@ -14,22 +14,9 @@ import (
 	"time"
 
 	"gonum.org/v1/gonum/unit"
-)
 
-// requireNgspice finds ngspice; without it the test skips on a
-// developer machine and fails where TURNWISE_REQUIRE_TOOLS=1 (CI).
-func requireNgspice(t *testing.T) string {
-	const name = "ngspice"
-	t.Helper()
-	path, err := exec.LookPath(name)
-	if err != nil {
-		if os.Getenv("TURNWISE_REQUIRE_TOOLS") == "1" {
-			t.Fatalf("%s is not installed and TURNWISE_REQUIRE_TOOLS=1: install it (Debian package %s)", name, name)
-		}
-		t.Skipf("%s is not installed (Debian package %s); skipping the cross-check", name, name)
-	}
-	return path
-}
+	"turnwise/internal/testtools"
+)
 
 // ngspiceResonances runs an AC analysis of the two-gang circuit in
 // ngspice: the bottom section L1 from the tap to ground, the top section
@@ -108,7 +95,7 @@ quit 0
 // tap at 17, 15–365 pF two-gang with 5 pF strays): both resonances agree
 // within ngspiceTol, the 0.1 %.
 func TestTwoGangAgainstNgspice(t *testing.T) {
-	ngspice := requireNgspice(t)
+	ngspice := testtools.Need(t, "ngspice", "ngspice")
 	const ngspiceTol = 1e-3 // the acceptance bound
 	gang := GangSection{Min: 15e-12, Max: 365e-12, Stray: 5e-12}
 	c, err := newSpanCircuit(SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: gang, B: gang})
@@ -139,7 +126,7 @@ func TestTwoGangAgainstNgspice(t *testing.T) {
 // A second circuit with unequal sections (B larger, at the tap) and a
 // loose, low tap, where the two modes are far apart.
 func TestTwoGangAgainstNgspiceUnequal(t *testing.T) {
-	ngspice := requireNgspice(t)
+	ngspice := testtools.Need(t, "ngspice", "ngspice")
 	const ngspiceTol = 1e-3
 	s, err := Tap(Geometry{FormerDiameter: 25e-3, WireDiameter: 0.8e-3, Turns: 20, Pitch: 1.6e-3, LeadLength: 20e-3}, 3.5, 4e6)
 	if err != nil {

@@ -3,8 +3,6 @@ package sheets
 import (
 	"bytes"
 	"flag"
-	"os"
-	"os/exec"
 	"path/filepath"
 	"regexp"
 	"strconv"
@@ -18,21 +16,6 @@ import (
 )
 
 var update = flag.Bool("update", false, "rewrite the golden PDFs in testdata")
-
-// needTool returns the path of an external program, skipping the test
-// when it is missing, unless TURNWISE_REQUIRE_TOOLS=1 (CI), where a missing
-// tool fails.
-func needTool(t *testing.T, name string) string {
-	t.Helper()
-	p, err := exec.LookPath(name)
-	if err != nil {
-		if os.Getenv("TURNWISE_REQUIRE_TOOLS") == "1" {
-			t.Fatalf("%s is not installed and TURNWISE_REQUIRE_TOOLS=1: install poppler-utils", name)
-		}
-		t.Skipf("%s not installed (Debian package poppler-utils); skipping", name)
-	}
-	return p
-}
 
 var testDate = time.Date(2026, 3, 14, 0, 0, 0, 0, time.UTC)
 

@@ -16,6 +16,7 @@ import (
 	"time"
 
 	"turnwise/coil"
+	"turnwise/internal/testtools"
 )
 
 // Tolerances.
@@ -189,9 +190,9 @@ func TestFullSize(t *testing.T) {
 // words inside the page, and a rendered page that is not blank.
 func TestPopplerReads(t *testing.T) {
 	t.Parallel()
-	pdfinfo := needTool(t, "pdfinfo")
-	pdftotext := needTool(t, "pdftotext")
-	pdftoppm := needTool(t, "pdftoppm")
+	pdfinfo := testtools.Need(t, "pdfinfo", "poppler-utils")
+	pdftotext := testtools.Need(t, "pdftotext", "poppler-utils")
+	pdftoppm := testtools.Need(t, "pdftoppm", "poppler-utils")
 	for _, paper := range []string{"A4", "Letter"} {
 		t.Run(paper, func(t *testing.T) {
 			t.Parallel()

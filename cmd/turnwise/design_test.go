@@ -26,26 +26,20 @@ func TestDesignGolden(t *testing.T) {
 		golden string
 	}{
 		{"vhf table", designVHFArgs, "design_vhf.txt"},
-		{"vhf json", append(append([]string{}, designVHFArgs...), "--json"), "design_vhf.json"},
+		{"vhf json", withArgs(designVHFArgs, "--json"), "design_vhf.json"},
 		{"hf table", designHFArgs, "design_hf.txt"},
 		{"hf mandrel inches", []string{"design", "--inductance", "1.2uH", "--freq", "14MHz", "--leads", "10mm", "--support", "mandrel",
 			"--prefer", "q", "--top", "3", "--units", "in"}, "design_hf_mandrel_in.txt"},
 	}
 	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			out, errOut, code := runCLI(t, tc.args...)
-			if code != exitOK {
-				t.Fatalf("exit %d: %s", code, errOut)
-			}
-			checkGolden(t, tc.golden, out)
-		})
+		t.Run(tc.name, func(t *testing.T) { checkGoldenRun(t, tc.args, tc.golden) })
 	}
 }
 
 // The HF target finds formers from the pipe catalog, not only drills.
 func TestDesignHFUsesFormers(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
-	out, errOut, code := runCLI(t, append(append([]string{}, designHFArgs...), "--json")...)
+	out, errOut, code := runCLI(t, withArgs(designHFArgs, "--json")...)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
@@ -72,7 +66,7 @@ func TestDesignHFUsesFormers(t *testing.T) {
 // Every key the issue names is present, finite and in SI.
 func TestDesignJSONKeys(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
-	out, errOut, code := runCLI(t, append(append([]string{}, designVHFArgs...), "--json")...)
+	out, errOut, code := runCLI(t, withArgs(designVHFArgs, "--json")...)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
@@ -133,26 +127,7 @@ func TestDesignInfeasibleExit(t *testing.T) {
 		{"past its own resonance", []string{"design", "--freq", "10GHz", "--cap", "0.01pF", "--leads", "0mm"}, []string{"self-resonance", "--min-srf-ratio"}},
 	}
 	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			out, errOut, code := runCLI(t, tc.args...)
-			if code != exitInfeasible {
-				t.Fatalf("exit %d, want %d: %s", code, exitInfeasible, errOut)
-			}
-			if out != "" {
-				t.Errorf("stdout not empty: %q", out)
-			}
-			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
-				t.Errorf("not one line: %q", errOut)
-			}
-			for _, w := range tc.want {
-				if !strings.Contains(errOut, w) {
-					t.Errorf("%q lacks %q", errOut, w)
-				}
-			}
-			if strings.Contains(errOut, "Inf") || strings.Contains(errOut, "NaN") {
-				t.Errorf("%q has a non-finite number", errOut)
-			}
-		})
+		t.Run(tc.name, func(t *testing.T) { checkRefusal(t, tc.args, exitInfeasible, tc.want...) })
 	}
 	_, errOut, _ := runCLI(t, tests[0].args...)
 	checkGolden(t, "design_infeasible.txt", errOut)
@@ -195,19 +170,7 @@ func TestDesignBadInput(t *testing.T) {
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
-			out, errOut, code := runCLI(t, replaceFlags(base, tc.override)...)
-			if code != exitBadInput {
-				t.Errorf("exit %d, want %d; stderr %q", code, exitBadInput, errOut)
-			}
-			if out != "" {
-				t.Errorf("stdout not empty: %q", out)
-			}
-			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
-				t.Errorf("error is not one line: %q", errOut)
-			}
-			if !strings.Contains(errOut, tc.wantFlag) {
-				t.Errorf("error %q does not name %s", errOut, tc.wantFlag)
-			}
+			checkRefusal(t, replaceFlags(base, tc.override), exitBadInput, tc.wantFlag)
 		})
 	}
 }

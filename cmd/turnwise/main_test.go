@@ -49,6 +49,59 @@ func checkGolden(t *testing.T, name, got string) {
 	}
 }
 
+// withArgs returns base followed by more, leaving base untouched.
+func withArgs(base []string, more ...string) []string {
+	return append(append([]string{}, base...), more...)
+}
+
+// checkGoldenRun runs args, wants exit 0, and compares stdout with the
+// golden file.
+func checkGoldenRun(t *testing.T, args []string, golden string) {
+	t.Helper()
+	out, errOut, code := runCLI(t, args...)
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	checkGolden(t, golden, out)
+}
+
+// checkRefusal runs args and checks what every refused command line must
+// show: the exit status, nothing on stdout, one line on stderr containing
+// each of want, and no stack trace or non-finite number. It returns stderr.
+func checkRefusal(t *testing.T, args []string, wantCode int, want ...string) string {
+	t.Helper()
+	out, errOut := checkRefusalMessage(t, args, wantCode, want...)
+	if out != "" {
+		t.Errorf("stdout not empty: %q", out)
+	}
+	return errOut
+}
+
+// checkRefusalMessage is checkRefusal for commands that print their best
+// compromise on stdout while refusing (tap and span, exit 3); it returns
+// stdout and stderr.
+func checkRefusalMessage(t *testing.T, args []string, wantCode int, want ...string) (string, string) {
+	t.Helper()
+	out, errOut, code := runCLI(t, args...)
+	if code != wantCode {
+		t.Errorf("exit %d, want %d; stderr %q", code, wantCode, errOut)
+	}
+	if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
+		t.Errorf("error is not one line: %q", errOut)
+	}
+	for _, w := range want {
+		if !strings.Contains(errOut, w) {
+			t.Errorf("error %q does not say %q", errOut, w)
+		}
+	}
+	for _, bad := range []string{"goroutine", "panic", "NaN", "Inf"} {
+		if strings.Contains(errOut, bad) {
+			t.Errorf("stack trace or non-finite number (%s): %q", bad, errOut)
+		}
+	}
+	return out, errOut
+}
+
 // vhfArgs is the coil of the foundation issue's acceptance line.
 var vhfArgs = []string{"predict", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm", "--freq", "145MHz"}
 
@@ -60,25 +113,19 @@ func TestPredictGolden(t *testing.T) {
 		golden string
 	}{
 		{"vhf table", vhfArgs, "predict_vhf.txt"},
-		{"vhf json", append(append([]string{}, vhfArgs...), "--json"), "predict_vhf.json"},
+		{"vhf json", withArgs(vhfArgs, "--json"), "predict_vhf.json"},
 		{"hf former inches", []string{"predict", "--former", "pvc 1in sch40", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz", "--units", "in"}, "predict_hf_in.txt"},
 		{"no frequency", []string{"predict", "--mandrel", "1/4in", "--wire", "18swg", "--insulation", "grade2", "--turns", "8.25", "--pitch", "1.5mm", "--leads", "0mm"}, "predict_nofreq.txt"},
 	}
 	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			out, errOut, code := runCLI(t, tc.args...)
-			if code != exitOK {
-				t.Fatalf("exit %d: %s", code, errOut)
-			}
-			checkGolden(t, tc.golden, out)
-		})
+		t.Run(tc.name, func(t *testing.T) { checkGoldenRun(t, tc.args, tc.golden) })
 	}
 }
 
 // Every key the foundation issue lists is present and finite.
 func TestPredictJSONKeys(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
-	out, errOut, code := runCLI(t, append(append([]string{}, vhfArgs...), "--json")...)
+	out, errOut, code := runCLI(t, withArgs(vhfArgs, "--json")...)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
@@ -129,23 +176,7 @@ func TestPredictBadInput(t *testing.T) {
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
-			args := replaceFlags(base, tc.override)
-			out, errOut, code := runCLI(t, args...)
-			if code != exitBadInput {
-				t.Errorf("exit %d, want %d; stderr %q", code, exitBadInput, errOut)
-			}
-			if out != "" {
-				t.Errorf("stdout not empty: %q", out)
-			}
-			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
-				t.Errorf("error is not one line: %q", errOut)
-			}
-			if !strings.Contains(errOut, tc.wantFlag) {
-				t.Errorf("error %q does not name %s", errOut, tc.wantFlag)
-			}
-			if strings.Contains(errOut, "goroutine") || strings.Contains(errOut, "panic") {
-				t.Errorf("stack trace: %q", errOut)
-			}
+			checkRefusal(t, replaceFlags(base, tc.override), exitBadInput, tc.wantFlag)
 		})
 	}
 }

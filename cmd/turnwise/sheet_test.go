@@ -16,24 +16,11 @@ import (
 	"github.com/spf13/pflag"
 
 	"turnwise/forms"
+	"turnwise/internal/testtools"
 )
 
 // demoJob is the README's example job.
 var demoJob = filepath.Join("..", "..", "testdata", "club-night.toml")
-
-// needPoppler returns the path of a poppler tool, skipping without it
-// unless TURNWISE_REQUIRE_TOOLS=1 (CI), where a missing tool fails.
-func needPoppler(t *testing.T, name string) string {
-	t.Helper()
-	p, err := exec.LookPath(name)
-	if err != nil {
-		if os.Getenv("TURNWISE_REQUIRE_TOOLS") == "1" {
-			t.Fatalf("%s is not installed and TURNWISE_REQUIRE_TOOLS=1: install poppler-utils", name)
-		}
-		t.Skipf("%s not installed (Debian package poppler-utils); skipping", name)
-	}
-	return p
-}
 
 func loadDemo(t *testing.T) (*forms.Job, *forms.Catalog) {
 	t.Helper()
@@ -63,7 +50,7 @@ func TestSheetDemo(t *testing.T) {
 	if !strings.HasPrefix(string(b), "%PDF-") {
 		t.Fatalf("not a PDF: %q", b[:min(20, len(b))])
 	}
-	pdfinfo := needPoppler(t, "pdfinfo")
+	pdfinfo := testtools.Need(t, "pdfinfo", "poppler-utils")
 	info, err := exec.Command(pdfinfo, out).Output()
 	if err != nil {
 		t.Fatal(err)
@@ -77,7 +64,7 @@ func TestSheetDemo(t *testing.T) {
 // pageText returns the raw text of one page, whitespace collapsed.
 func pageText(t *testing.T, file string, page int) string {
 	t.Helper()
-	pdftotext := needPoppler(t, "pdftotext")
+	pdftotext := testtools.Need(t, "pdftotext", "poppler-utils")
 	out, err := exec.Command(pdftotext, "-raw", "-f", fmt.Sprint(page), "-l", fmt.Sprint(page), file, "-").Output()
 	if err != nil {
 		t.Fatal(err)

@@ -18,10 +18,6 @@ var spanArgs = []string{"span", "--former", "pvc 20mm", "--wire", "0.5mm", "--in
 
 var spanBandFile = filepath.Join("..", "..", "testdata", "span", "hf-listening.txt")
 
-func withArgs(base []string, more ...string) []string {
-	return append(append([]string{}, base...), more...)
-}
-
 func TestSpanGolden(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
 	tests := []struct {
@@ -155,28 +151,15 @@ func TestSpanBadInput(t *testing.T) {
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
 			args := replaceFlags(base, tc.override)
-			if tc.name == "no tap" {
+			switch tc.name {
+			case "no tap":
 				args = withArgs(spanArgs)
-			}
-			if tc.name == "choose without bands" {
+			case "choose without bands":
 				args = withArgs(spanArgs, "--choose-tap")
-			}
-			if tc.name == "vary pitch alone" {
+			case "vary pitch alone":
 				args = withArgs(base, "--vary-pitch")
 			}
-			out, errOut, code := runCLI(t, args...)
-			if code != exitBadInput {
-				t.Errorf("exit %d, want %d; stderr %q", code, exitBadInput, errOut)
-			}
-			if out != "" {
-				t.Errorf("stdout not empty: %q", out)
-			}
-			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
-				t.Errorf("error is not one line: %q", errOut)
-			}
-			if !strings.Contains(errOut, tc.wantFlag) && !(tc.name == "no tap" && strings.Contains(errOut, "--tap")) {
-				t.Errorf("error %q does not name %s", errOut, tc.wantFlag)
-			}
+			checkRefusal(t, args, exitBadInput, tc.wantFlag)
 		})
 	}
 }

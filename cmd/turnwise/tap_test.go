@@ -22,13 +22,7 @@ func TestTapGolden(t *testing.T) {
 		{"at a tap", withArgs(tapHFArgs, "--at", "17", "--units", "in"), "tap_at.txt"},
 	}
 	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			out, errOut, code := runCLI(t, tc.args...)
-			if code != exitOK {
-				t.Fatalf("exit %d: %s", code, errOut)
-			}
-			checkGolden(t, tc.golden, out)
-		})
+		t.Run(tc.name, func(t *testing.T) { checkGoldenRun(t, tc.args, tc.golden) })
 	}
 }
 
@@ -95,18 +89,7 @@ func TestTapBadInput(t *testing.T) {
 		{"bottom L huge", withArgs(tapHFArgs, "--bottom-l", "1H"), exitInfeasible, "1 H needs more"},
 	}
 	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			_, errOut, code := runCLI(t, tc.args...)
-			if code != tc.wantCode {
-				t.Errorf("exit %d, want %d; stderr %q", code, tc.wantCode, errOut)
-			}
-			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
-				t.Errorf("error is not one line: %q", errOut)
-			}
-			if !strings.Contains(errOut, tc.wantText) {
-				t.Errorf("error %q does not say %s", errOut, tc.wantText)
-			}
-		})
+		t.Run(tc.name, func(t *testing.T) { checkRefusalMessage(t, tc.args, tc.wantCode, tc.wantText) })
 	}
 }
 

@@ -25,10 +25,6 @@ var trimDoneWhen = []string{"trim", "--mandrel", "4.6mm", "--wire", "1mm", "--tu
 // vhfTrim is the README's VHF coil at 145 MHz.
 var vhfTrim = []string{"trim", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm", "--freq", "145MHz"}
 
-func with(base []string, more ...string) []string {
-	return append(append([]string{}, base...), more...)
-}
-
 func TestTrimGolden(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
 	job := filepath.Join(trimData, "job.toml")
@@ -38,31 +34,25 @@ func TestTrimGolden(t *testing.T) {
 		golden string
 	}{
 		{"done when", trimDoneWhen, "trim_done.txt"},
-		{"done when json", with(trimDoneWhen, "--json"), "trim_done.json"},
-		{"resonance with a test capacitor", with(vhfTrim, "--measured-f", "101.5MHz", "--with-cap", "22pF", "--stray", "1.5pF"), "trim_resonance.txt"},
+		{"done when json", withArgs(trimDoneWhen, "--json"), "trim_done.json"},
+		{"resonance with a test capacitor", withArgs(vhfTrim, "--measured-f", "101.5MHz", "--with-cap", "22pF", "--stray", "1.5pF"), "trim_resonance.txt"},
 		{"two capacitors", []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz",
 			"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF", "--cap-tol", "1%", "--stray", "3pF"}, "trim_two_cap.txt"},
-		{"add turns, inches", with(vhfTrim, "--measured-l", "101nH", "--target", "130nH", "--units", "in"), "trim_add_turns_in.txt"},
-		{"remove turns", with(vhfTrim, "--measured-l", "101nH", "--target", "60nH"), "trim_remove_turns.txt"},
+		{"add turns, inches", withArgs(vhfTrim, "--measured-l", "101nH", "--target", "130nH", "--units", "in"), "trim_add_turns_in.txt"},
+		{"remove turns", withArgs(vhfTrim, "--measured-l", "101nH", "--target", "60nH"), "trim_remove_turns.txt"},
 		{"job, tapped, sections", []string{"trim", "--job", job, "--coil", "input", "--measured-l", "92nH", "--measured-bottom", "14nH", "--measured-top", "69nH"}, "trim_job_tap.txt"},
 		{"job, in circuit, resonance target", []string{"trim", "--job", job, "--coil", "output", "--measured-f", "131MHz", "--circuit-cap", "17pF", "--target", "137.5MHz"}, "trim_in_circuit.txt"},
-		{"on target", with(vhfTrim, "--measured-l", "101.6nH"), "trim_none.txt"},
+		{"on target", withArgs(vhfTrim, "--measured-l", "101.6nH"), "trim_none.txt"},
 	}
 	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			out, errOut, code := runCLI(t, tc.args...)
-			if code != exitOK {
-				t.Fatalf("exit %d: %s", code, errOut)
-			}
-			checkGolden(t, tc.golden, out)
-		})
+		t.Run(tc.name, func(t *testing.T) { checkGoldenRun(t, tc.args, tc.golden) })
 	}
 }
 
 // trimJSON runs trim with --json and decodes the document.
 func trimDoc(t *testing.T, args ...string) map[string]any {
 	t.Helper()
-	out, errOut, code := runCLI(t, with(args, "--json")...)
+	out, errOut, code := runCLI(t, withArgs(args, "--json")...)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
@@ -151,70 +141,53 @@ func TestTrimBadInput(t *testing.T) {
 		args     []string
 		wantText string
 	}{
-		{"larger capacitor higher resonance", with(coilFlags, "--resonance", "98MHz@22pF", "--resonance", "120MHz@47pF"), "--resonance: the larger capacitor (47 pF) gave the same or a higher resonance"},
-		{"same capacitor twice", with(coilFlags, "--resonance", "98MHz@22pF", "--resonance", "97MHz@22pF"), "--resonance"},
+		{"larger capacitor higher resonance", withArgs(coilFlags, "--resonance", "98MHz@22pF", "--resonance", "120MHz@47pF"), "--resonance: the larger capacitor (47 pF) gave the same or a higher resonance"},
+		{"same capacitor twice", withArgs(coilFlags, "--resonance", "98MHz@22pF", "--resonance", "97MHz@22pF"), "--resonance"},
 		{"no measurement", coilFlags, "give a measurement"},
-		{"two measurements", with(coilFlags, "--measured-l", "90nH", "--resonance", "98MHz@22pF"), "give one measurement"},
-		{"frequency without a capacitor", with(coilFlags, "--measured-f", "98MHz"), "--measured-f needs"},
-		{"capacitor without a frequency", with(coilFlags, "--measured-l", "90nH", "--with-cap", "22pF"), "--with-cap"},
-		{"resonance without @", with(coilFlags, "--resonance", "98MHz"), "--resonance"},
-		{"resonance with a bad unit", with(coilFlags, "--resonance", "98MHz@22nH"), "--resonance"},
-		{"frequency target without a circuit", with(coilFlags, "--measured-l", "90nH", "--target", "145MHz"), "--circuit-cap"},
-		{"target neither L nor f", with(coilFlags, "--measured-l", "90nH", "--target", "22pF"), "--target"},
-		{"fixture above the reading", with(coilFlags, "--measured-l", "90nH", "--fixture-l", "95nH"), "--fixture-l"},
-		{"reading no coil like this gives", with(coilFlags, "--measured-l", "5uH"), "--measured-l"},
-		{"reading in henries", with(coilFlags, "--measured-l", "90"), "--measured-l"},
-		{"resonance above the self-resonance", with(coilFlags, "--measured-f", "5GHz", "--with-cap", "0.1pF"), "--measured-f"},
-		{"stray with a meter", with(coilFlags, "--measured-l", "90nH", "--stray", "2pF"), "--stray"},
-		{"meter frequency with a resonance", with(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--meter-freq", "1MHz"), "--meter-freq"},
-		{"capacitor tolerance too wide", with(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--cap-tol", "80%"), "--cap-tol"},
-		{"save without a stock file", with(coilFlags, "--measured-l", "90nH", "--save"), "--save"},
-		{"sections without a tap", with(coilFlags, "--measured-l", "90nH", "--measured-bottom", "20nH"), "--tap"},
-		{"tap beyond the coil", with(coilFlags, "--measured-l", "90nH", "--tap", "9"), "--tap"},
-		{"tap ratio above one", with(coilFlags, "--measured-l", "90nH", "--tap", "1", "--tap-ratio", "1.5"), "--tap-ratio"},
+		{"two measurements", withArgs(coilFlags, "--measured-l", "90nH", "--resonance", "98MHz@22pF"), "give one measurement"},
+		{"frequency without a capacitor", withArgs(coilFlags, "--measured-f", "98MHz"), "--measured-f needs"},
+		{"capacitor without a frequency", withArgs(coilFlags, "--measured-l", "90nH", "--with-cap", "22pF"), "--with-cap"},
+		{"resonance without @", withArgs(coilFlags, "--resonance", "98MHz"), "--resonance"},
+		{"resonance with a bad unit", withArgs(coilFlags, "--resonance", "98MHz@22nH"), "--resonance"},
+		{"frequency target without a circuit", withArgs(coilFlags, "--measured-l", "90nH", "--target", "145MHz"), "--circuit-cap"},
+		{"target neither L nor f", withArgs(coilFlags, "--measured-l", "90nH", "--target", "22pF"), "--target"},
+		{"fixture above the reading", withArgs(coilFlags, "--measured-l", "90nH", "--fixture-l", "95nH"), "--fixture-l"},
+		{"reading no coil like this gives", withArgs(coilFlags, "--measured-l", "5uH"), "--measured-l"},
+		{"reading in henries", withArgs(coilFlags, "--measured-l", "90"), "--measured-l"},
+		{"resonance above the self-resonance", withArgs(coilFlags, "--measured-f", "5GHz", "--with-cap", "0.1pF"), "--measured-f"},
+		{"stray with a meter", withArgs(coilFlags, "--measured-l", "90nH", "--stray", "2pF"), "--stray"},
+		{"meter frequency with a resonance", withArgs(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--meter-freq", "1MHz"), "--meter-freq"},
+		{"capacitor tolerance too wide", withArgs(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--cap-tol", "80%"), "--cap-tol"},
+		{"save without a stock file", withArgs(coilFlags, "--measured-l", "90nH", "--save"), "--save"},
+		{"sections without a tap", withArgs(coilFlags, "--measured-l", "90nH", "--measured-bottom", "20nH"), "--tap"},
+		{"tap beyond the coil", withArgs(coilFlags, "--measured-l", "90nH", "--tap", "9"), "--tap"},
+		{"tap ratio above one", withArgs(coilFlags, "--measured-l", "90nH", "--tap", "1", "--tap-ratio", "1.5"), "--tap-ratio"},
 		{"job without coil", []string{"trim", "--job", job, "--measured-l", "90nH"}, "--coil"},
 		{"job and coil flags", []string{"trim", "--job", job, "--coil", "input", "--turns", "6", "--measured-l", "90nH"}, "--turns"},
-		{"coil without job", with(coilFlags, "--coil", "input", "--measured-l", "90nH"), "--job"},
+		{"coil without job", withArgs(coilFlags, "--coil", "input", "--measured-l", "90nH"), "--job"},
 		{"unknown job coil", []string{"trim", "--job", job, "--coil", "inptu", "--measured-l", "90nH"}, "did you mean input"},
 		{"job coil is a design target", []string{"trim", "--job", job, "--coil", "middle", "--measured-l", "90nH"}, "design target"},
 		{"missing job file", []string{"trim", "--job", "nope.toml", "--coil", "input", "--measured-l", "90nH"}, "nope.toml"},
-		{"pitch below wire", with(coilFlags, "--measured-l", "90nH", "--pitch", "0.5mm"), "--pitch"},
+		{"pitch below wire", withArgs(coilFlags, "--measured-l", "90nH", "--pitch", "0.5mm"), "--pitch"},
 		// Review of issue #5: each names the flag that is wrong.
-		{"circuit capacitance unused", with(coilFlags, "--measured-l", "90nH", "--circuit-cap", "22pF"), "--circuit-cap"},
-		{"circuit capacitance beside a test capacitor", with(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--circuit-cap", "22pF"), "--circuit-cap"},
-		{"resonance target of zero", with(coilFlags, "--measured-l", "90nH", "--target", "0MHz", "--circuit-cap", "22pF"), "--target 0MHz"},
-		{"resonance target above the self-resonance", with(coilFlags, "--measured-l", "90nH", "--target", "2GHz", "--circuit-cap", "22pF"), "--target"},
-		{"negative stray", with(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--stray", "-1pF"), "--stray"},
-		{"meter frequency near the self-resonance", with(coilFlags, "--measured-l", "90nH", "--meter-freq", "1GHz"), "--meter-freq: the meter's test frequency"},
-		{"capacitors too close", with(coilFlags, "--resonance", "100MHz@22pF", "--resonance", "99.9MHz@22.05pF"), "capacitors further apart"},
-		{"save into a missing directory", with(coilFlags, "--measured-l", "90nH", "--stock", filepath.Join("no-such-dir", "s.toml"), "--save"), "no-such-dir does not exist"},
+		{"circuit capacitance unused", withArgs(coilFlags, "--measured-l", "90nH", "--circuit-cap", "22pF"), "--circuit-cap"},
+		{"circuit capacitance beside a test capacitor", withArgs(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--circuit-cap", "22pF"), "--circuit-cap"},
+		{"resonance target of zero", withArgs(coilFlags, "--measured-l", "90nH", "--target", "0MHz", "--circuit-cap", "22pF"), "--target 0MHz"},
+		{"resonance target above the self-resonance", withArgs(coilFlags, "--measured-l", "90nH", "--target", "2GHz", "--circuit-cap", "22pF"), "--target"},
+		{"negative stray", withArgs(coilFlags, "--measured-f", "98MHz", "--with-cap", "22pF", "--stray", "-1pF"), "--stray"},
+		{"meter frequency near the self-resonance", withArgs(coilFlags, "--measured-l", "90nH", "--meter-freq", "1GHz"), "--meter-freq: the meter's test frequency"},
+		{"capacitors too close", withArgs(coilFlags, "--resonance", "100MHz@22pF", "--resonance", "99.9MHz@22.05pF"), "capacitors further apart"},
+		{"save into a missing directory", withArgs(coilFlags, "--measured-l", "90nH", "--stock", filepath.Join("no-such-dir", "s.toml"), "--save"), "no-such-dir does not exist"},
 	}
 	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			out, errOut, code := runCLI(t, tc.args...)
-			if code != exitBadInput {
-				t.Errorf("exit %d, want %d; stderr %q", code, exitBadInput, errOut)
-			}
-			if out != "" {
-				t.Errorf("stdout not empty: %q", out)
-			}
-			if strings.Count(strings.TrimSpace(errOut), "\n") != 0 {
-				t.Errorf("error is not one line: %q", errOut)
-			}
-			if !strings.Contains(errOut, tc.wantText) {
-				t.Errorf("error %q does not say %q", errOut, tc.wantText)
-			}
-			if strings.Contains(errOut, "goroutine") || strings.Contains(errOut, "NaN") || strings.Contains(errOut, "Inf") {
-				t.Errorf("stack trace or non-finite number: %q", errOut)
-			}
-		})
+		t.Run(tc.name, func(t *testing.T) { checkRefusal(t, tc.args, exitBadInput, tc.wantText) })
 	}
 }
 
 // A target no turns change reaches is exit 3, saying what binds.
 func TestTrimInfeasible(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
-	out, errOut, code := runCLI(t, with(vhfTrim, "--measured-l", "101nH", "--target", "5uH")...)
+	out, errOut, code := runCLI(t, withArgs(vhfTrim, "--measured-l", "101nH", "--target", "5uH")...)
 	if code != exitInfeasible || out != "" || !strings.Contains(errOut, "self-resonance") {
 		t.Errorf("exit %d, stdout %q, stderr %q", code, out, errOut)
 	}
@@ -236,7 +209,7 @@ func copyFile(t *testing.T, src, dst string, perm os.FileMode) []byte {
 // predictDoc runs predict --json.
 func predictDoc(t *testing.T, args ...string) map[string]any {
 	t.Helper()
-	out, errOut, code := runCLI(t, with(append([]string{"predict"}, args...), "--json")...)
+	out, errOut, code := runCLI(t, withArgs(append([]string{"predict"}, args...), "--json")...)
 	if code != exitOK {
 		t.Fatalf("predict exit %d: %s", code, errOut)
 	}
@@ -259,14 +232,14 @@ func TestTrimSave(t *testing.T) {
 	coilArgs := []string{"--mandrel", "steel rod", "--wire", "bench copper", "--turns", "6", "--length", "11mm", "--leads", "5mm", "--stock", stock}
 
 	const sb = 0.045
-	truth := predictDoc(t, with(coilArgs, "--springback", "4.5%")...)
+	truth := predictDoc(t, withArgs(coilArgs, "--springback", "4.5%")...)
 	reading := num(t, truth, "inductance")
 	before := predictDoc(t, coilArgs...)
 	if before["springback_source"] != "calibration" || num(t, before, "springback") != 0.02 {
 		t.Fatalf("the test stock's own calibration (2 %%) is not in use: %v %v", before["springback_source"], before["springback"])
 	}
 
-	args := append([]string{"trim"}, with(coilArgs, "--measured-l", strconv.FormatFloat(reading*1e9, 'g', 12, 64)+"nH", "--save")...)
+	args := append([]string{"trim"}, withArgs(coilArgs, "--measured-l", strconv.FormatFloat(reading*1e9, 'g', 12, 64)+"nH", "--save")...)
 	out, errOut, code := runCLI(t, args...)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
@@ -316,7 +289,7 @@ func TestTrimSave(t *testing.T) {
 func TestTrimSaveNewFile(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
 	stock := filepath.Join(t.TempDir(), "new.toml")
-	out, errOut, code := runCLI(t, with(trimDoneWhen, "--stock", stock, "--save")...)
+	out, errOut, code := runCLI(t, withArgs(trimDoneWhen, "--stock", stock, "--save")...)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
@@ -350,7 +323,7 @@ func TestTrimSaveRefused(t *testing.T) {
 	dir := t.TempDir()
 	stock := filepath.Join(dir, "inline.toml")
 	orig := copyFile(t, filepath.Join(trimData, "stock-inline.toml"), stock, 0o644)
-	out, errOut, code := runCLI(t, with(vhfTrim, "--measured-l", "97nH", "--stock", stock, "--save")...)
+	out, errOut, code := runCLI(t, withArgs(vhfTrim, "--measured-l", "97nH", "--stock", stock, "--save")...)
 	if code != exitBadInput || out != "" || !strings.Contains(errOut, "inline array") {
 		t.Errorf("exit %d, stdout %q, stderr %q", code, out, errOut)
 	}
@@ -449,7 +422,7 @@ func splitShell(s string) []string {
 func TestTrimSaveFeedsDesignSearch(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
 	stock := filepath.Join(t.TempDir(), "stock.toml")
-	if _, errOut, code := runCLI(t, with(trimDoneWhen, "--stock", stock, "--save")...); code != exitOK {
+	if _, errOut, code := runCLI(t, withArgs(trimDoneWhen, "--stock", stock, "--save")...); code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
 	so := newStockOptions()
@@ -531,7 +504,7 @@ func TestTrimSaveThroughSymlink(t *testing.T) {
 	if err := os.Symlink("real.toml", link); err != nil {
 		t.Skipf("no symbolic links here: %v", err)
 	}
-	if _, errOut, code := runCLI(t, with(trimDoneWhen, "--stock", link, "--save")...); code != exitOK {
+	if _, errOut, code := runCLI(t, withArgs(trimDoneWhen, "--stock", link, "--save")...); code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
 	if st, err := os.Lstat(link); err != nil || st.Mode()&os.ModeSymlink == 0 {
@@ -550,7 +523,7 @@ func TestTrimSaveThroughSymlink(t *testing.T) {
 // one turn reads "¼ turn", not "0¼ turns".
 func TestTrimTapOutOfReach(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
-	out, errOut, code := runCLI(t, with(vhfTrim, "--measured-l", "101nH", "--tap", "1", "--tap-ratio", "0.01")...)
+	out, errOut, code := runCLI(t, withArgs(vhfTrim, "--measured-l", "101nH", "--tap", "1", "--tap-ratio", "0.01")...)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
@@ -560,7 +533,7 @@ func TestTrimTapOutOfReach(t *testing.T) {
 	if !strings.Contains(errOut, "no quarter-turn tap gives the voltage ratio 0.010") {
 		t.Errorf("no out-of-reach warning:\n%s", errOut)
 	}
-	_, errOut, _ = runCLI(t, with(vhfTrim, "--measured-l", "101nH", "--tap", "1", "--tap-ratio", "0.5")...)
+	_, errOut, _ = runCLI(t, withArgs(vhfTrim, "--measured-l", "101nH", "--tap", "1", "--tap-ratio", "0.5")...)
 	if strings.Contains(errOut, "no quarter-turn tap") {
 		t.Errorf("a reachable ratio flagged:\n%s", errOut)
 	}
