@@ -87,7 +87,11 @@ const (
 	MaxFrequency      = 10e9 // Hz
 )
 
-// overall returns d_o, defaulting to the bare diameter.
+// OverallDiameter is d_o, the wire's diameter over its insulation: the
+// bare diameter when WireOverall is zero.
+func (g *Geometry) OverallDiameter() unit.Length { return unit.Length(g.overall()) }
+
+// overall is OverallDiameter as a float64, for the formulas.
 func (g *Geometry) overall() float64 {
 	if g.WireOverall == 0 {
 		return float64(g.WireDiameter)

@@ -9,6 +9,14 @@ import (
 // in shape (a gap of two wire diameters; common practice).
 const LoosestPitchFactor = 3.0
 
+// WindowPitches are the pitches at the ends of the squeeze/spread window:
+// close-wound (d_o) and LoosestPitchFactor·d_o, or the coil's own pitch
+// when it is already looser than that.
+func WindowPitches(g Geometry) (tight, loose unit.Length) {
+	do := g.overall()
+	return unit.Length(do), unit.Length(max(LoosestPitchFactor*do, float64(g.Pitch)))
+}
+
 // Window is the range of terminal inductance at f a coil of g's turns can
 // be trimmed to by squeezing or spreading: close-wound (the most) down to
 // LoosestPitchFactor·d_o (the least). Pitch does not enter; the turns are
@@ -18,13 +26,8 @@ func Window(g Geometry, f unit.Frequency) (least, most unit.Inductance, err erro
 	if err := g.Validate(); err != nil {
 		return 0, 0, err
 	}
-	do := g.overall()
 	tight, loose := g, g
-	tight.Pitch = unit.Length(do)
-	loose.Pitch = unit.Length(LoosestPitchFactor * do)
-	if float64(g.Pitch) > float64(loose.Pitch) {
-		loose.Pitch = g.Pitch // already looser than the rule: the window starts here
-	}
+	tight.Pitch, loose.Pitch = WindowPitches(g)
 	var a, b Prediction
 	evaluate(&a, &tight, float64(f))
 	evaluate(&b, &loose, float64(f))

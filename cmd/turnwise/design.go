@@ -439,10 +439,7 @@ func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c c
 		how = "stays on the former"
 	}
 	fmt.Fprintf(w, "#%d  %s turns of %s on %s (%s)\n", rank, fmtTurns(g.Turns), describeWire(spec, lf), c.Support.Name, how)
-	overall := float64(g.WireOverall)
-	if overall == 0 {
-		overall = float64(g.WireDiameter)
-	}
+	overall := float64(g.OverallDiameter())
 	build := fmt.Sprintf("pitch %s (%.2f × wire), outside length %s, bore %s, outside %s, wire to cut %s",
 		lf.fmt(float64(g.Pitch)), float64(g.Pitch)/overall, lf.fmt(float64(p.WindingLength)),
 		lf.fmt(float64(p.InsideDiameter)), lf.fmt(float64(p.OutsideDiameter)), lf.FormatCut(float64(p.WireLength)))

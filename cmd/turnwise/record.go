@@ -71,10 +71,7 @@ type coilRecord struct {
 
 func newCoilRecord(s coilSpec, p coil.Prediction) coilRecord {
 	g := p.Geometry
-	overall := g.WireOverall
-	if overall == 0 {
-		overall = g.WireDiameter
-	}
+	overall := g.OverallDiameter()
 	temp := float64(g.Temperature)
 	if temp == 0 {
 		temp = 293.15

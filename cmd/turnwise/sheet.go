@@ -360,7 +360,7 @@ func newSheetCoil(spec coilSpec, p coil.Prediction, lf lengthFormatter) sheets.C
 		SupportName:      spec.SupportName,
 		SpringbackSource: spec.SpringbackSource,
 		SpringbackNote:   spec.SpringbackNote,
-		CloseWound:       spec.PitchSource == "close-wound" || math.Abs(float64(p.Geometry.Pitch)-sheetOverall(p.Geometry)) < 1e-9,
+		CloseWound:       spec.PitchSource == "close-wound" || math.Abs(float64(p.Geometry.Pitch)-float64(p.Geometry.OverallDiameter())) < 1e-9,
 		Prediction:       p,
 		Warnings:         p.Warnings(),
 	}
@@ -376,13 +376,6 @@ func newSheetCoil(spec coilSpec, p coil.Prediction, lf lengthFormatter) sheets.C
 		c.TrimLeast, c.TrimMost = float64(least), float64(most)
 	}
 	return c
-}
-
-func sheetOverall(g coil.Geometry) float64 {
-	if g.WireOverall == 0 {
-		return float64(g.WireDiameter)
-	}
-	return float64(g.WireOverall)
 }
 
 // sheetWire says what the wire is: "1.00mm silver-plated bare wire",
@@ -404,7 +397,7 @@ func sheetWire(s coilSpec, lf lengthFormatter) string {
 	if ins == "" {
 		ins = w.Insulation
 	}
-	return fmt.Sprintf("%s wire, %s (%s overall)", name, ins, lf.fmt(sheetOverall(s.Geometry)))
+	return fmt.Sprintf("%s wire, %s (%s overall)", name, ins, lf.fmt(float64(s.Geometry.OverallDiameter())))
 }
 
 func sheetTap(s coil.Sections) *sheets.Tap {
@@ -501,7 +494,7 @@ func candidateSpec(cat *forms.Catalog, c coil.Candidate) coilSpec {
 		src = "given"
 	}
 	pitch := "pitch"
-	if math.Abs(float64(g.Pitch)-sheetOverall(g)) < 1e-9 {
+	if math.Abs(float64(g.Pitch)-float64(g.OverallDiameter())) < 1e-9 {
 		pitch = "close-wound"
 	}
 	return coilSpec{

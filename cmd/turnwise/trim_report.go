@@ -297,12 +297,8 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		tgt = fmt.Sprintf("resonance at %s with %s: %s", eng(float64(res.resonanceF), "Hz", 4), farads(float64(res.resonanceC)), tgt)
 	}
 	row("target", tgt)
-	tight, loose := float64(g.WireOverall), 0.0
-	if tight == 0 {
-		tight = float64(g.WireDiameter)
-	}
-	loose = math.Max(coil.LoosestPitchFactor*tight, float64(g.Pitch))
-	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", eng(float64(c.WindowLeast), "H", 3), lf.fmt(loose),
+	_, loose := coil.WindowPitches(g)
+	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", eng(float64(c.WindowLeast), "H", 3), lf.fmt(float64(loose)),
 		eng(float64(c.WindowMost), "H", 3), fmtTurns(g.Turns)))
 	ng := c.Geometry
 	switch c.Action {
