@@ -100,25 +100,31 @@ func runPredict(_ context.Context, opts *predictOptions, stdout, stderr io.Write
 }
 
 // describeWire says what the wire is in a builder's words, e.g.
-// "1.00 mm bare copper wire" or "22awg copper wire, grade 1 enamel (0.68 mm overall)".
+// "1.00 mm bare copper wire", "1.00mm silver-plated bare wire" or
+// "22awg copper wire, grade 1 enamel (0.68 mm overall)". Tables and build
+// sheets both use it.
 func describeWire(s coilSpec, lf lengthFormatter) string {
 	w := s.Wire
 	desc := w.Name
-	if w.System == "user" && w.Origin == "command line" {
+	if w.Origin == "command line" || desc == "" {
 		desc = lf.fmt(float64(w.Bare))
 	}
 	cond := s.Geometry.Conductor.String()
+	named := strings.Contains(strings.ToLower(desc), cond)
 	if w.Insulation == "none" || w.Insulation == "" {
-		if strings.Contains(desc, cond) {
+		if named {
 			return desc + " bare wire"
 		}
 		return fmt.Sprintf("%s bare %s wire", desc, cond)
+	}
+	if !named {
+		desc += " " + cond
 	}
 	ins := map[string]string{"grade1": "grade 1 enamel", "grade2": "grade 2 enamel", "grade3": "grade 3 enamel", "custom": "insulated"}[w.Insulation]
 	if ins == "" {
 		ins = w.Insulation
 	}
-	return fmt.Sprintf("%s %s wire, %s (%s overall)", desc, cond, ins, lf.fmt(float64(w.Overall)))
+	return fmt.Sprintf("%s wire, %s (%s overall)", desc, ins, lf.fmt(float64(s.Geometry.OverallDiameter())))
 }
 
 func writePredictTable(w io.Writer, s coilSpec, p coil.Prediction, rec coilRecord, lf lengthFormatter) error {

@@ -352,7 +352,7 @@ func sheetWarnings(name string, ws []string) []string {
 
 // newSheetCoil is the page data of a predicted coil.
 func newSheetCoil(spec coilSpec, p coil.Prediction, lf lengthFormatter) sheets.Coil {
-	desc := sheetWire(spec, lf)
+	desc := describeWire(spec, lf)
 	c := sheets.Coil{
 		Wire:             desc,
 		WireKey:          desc,
@@ -376,28 +376,6 @@ func newSheetCoil(spec coilSpec, p coil.Prediction, lf lengthFormatter) sheets.C
 		c.TrimLeast, c.TrimMost = float64(least), float64(most)
 	}
 	return c
-}
-
-// sheetWire says what the wire is: "1.00mm silver-plated bare wire",
-// "22awg copper wire, grade 1 enamel (0.68 mm overall)".
-func sheetWire(s coilSpec, lf lengthFormatter) string {
-	w := s.Wire
-	name := w.Name
-	if w.Origin == "command line" || name == "" {
-		name = lf.fmt(float64(w.Bare))
-	}
-	cond := s.Geometry.Conductor.String()
-	if !strings.Contains(strings.ToLower(name), cond) {
-		name += " " + cond
-	}
-	ins := map[string]string{"grade1": "grade 1 enamel", "grade2": "grade 2 enamel", "grade3": "grade 3 enamel", "custom": "insulated"}[w.Insulation]
-	if w.Insulation == "none" || w.Insulation == "" {
-		return name + " bare wire"
-	}
-	if ins == "" {
-		ins = w.Insulation
-	}
-	return fmt.Sprintf("%s wire, %s (%s overall)", name, ins, lf.fmt(float64(s.Geometry.OverallDiameter())))
 }
 
 func sheetTap(s coil.Sections) *sheets.Tap {

@@ -358,7 +358,7 @@ func TestSheetFlags(t *testing.T) {
 		}
 		checkGolden(t, "sheet_one.txt", strings.ReplaceAll(stdout, out, "OUT"))
 		text := pageText(t, out, 2)
-		for _, want := range []string{"L7", "5 turns of 1.00 mm copper bare wire on the 6mm drill", "TAP: 1½ turns from the cold end", "14 March 2026"} {
+		for _, want := range []string{"L7", "5 turns of 1.00 mm bare copper wire on the 6mm drill", "TAP: 1½ turns from the cold end", "14 March 2026"} {
 			if !strings.Contains(text, want) {
 				t.Errorf("page 2 lacks %q:\n%s", want, text)
 			}
