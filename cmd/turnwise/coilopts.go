@@ -90,23 +90,9 @@ func (o *coilOptions) resolve(cat *forms.Catalog) (coilSpec, error) {
 		return s, usageErrorf("--pitch and --length cannot be used together; give one (or neither for close-wound)")
 	}
 
-	w, err := resolveWire(cat, o.wire)
+	w, cond, err := resolveWireAs(cat, o.wire, o.insulation, o.conductor)
 	if err != nil {
 		return s, err
-	}
-	if o.insulation != "" {
-		overall, ins, err := forms.ParseInsulation(o.insulation, w.Bare)
-		if err != nil {
-			return s, &flagError{"insulation", err}
-		}
-		w.Overall, w.Insulation = overall, ins
-	}
-	if o.conductor != "" {
-		w.Conductor = o.conductor
-	}
-	cond, err := coil.ParseConductor(w.Conductor)
-	if err != nil {
-		return s, &flagError{"conductor", err}
 	}
 	s.Wire = w
 
@@ -198,6 +184,30 @@ func (o *coilOptions) attachFlag(err error, supportFlag, pitchSource string) err
 		return err
 	}
 	return &flagError{flag, err}
+}
+
+// resolveWireAs resolves a wire and applies the --insulation and
+// --conductor given with it (empty keeps the catalog row's).
+func resolveWireAs(cat *forms.Catalog, name, insulation, conductor string) (forms.Wire, coil.Conductor, error) {
+	w, err := resolveWire(cat, name)
+	if err != nil {
+		return w, coil.Copper, err
+	}
+	if insulation != "" {
+		overall, ins, err := forms.ParseInsulation(insulation, w.Bare)
+		if err != nil {
+			return w, coil.Copper, &flagError{"insulation", err}
+		}
+		w.Overall, w.Insulation = overall, ins
+	}
+	if conductor != "" {
+		w.Conductor = conductor
+	}
+	cond, err := coil.ParseConductor(w.Conductor)
+	if err != nil {
+		return w, coil.Copper, &flagError{"conductor", err}
+	}
+	return w, cond, nil
 }
 
 // resolveWire accepts a stock or built-in name, a gauge or a bare diameter.

@@ -249,19 +249,9 @@ func designWireRows(cat *forms.Catalog, o *designSearchOptions) ([]forms.Wire, e
 	if len(o.Wires) > 0 {
 		rows = nil
 		for _, name := range o.Wires {
-			w, err := resolveWire(cat, name)
+			w, _, err := resolveWireAs(cat, name, o.Insulation, o.Conductor)
 			if err != nil {
 				return nil, err
-			}
-			if o.Insulation != "" {
-				overall, ins, err := forms.ParseInsulation(o.Insulation, w.Bare)
-				if err != nil {
-					return nil, &flagError{"insulation", err}
-				}
-				w.Overall, w.Insulation = overall, ins
-			}
-			if o.Conductor != "" {
-				w.Conductor = o.Conductor
 			}
 			rows = append(rows, w)
 		}
