@@ -90,7 +90,7 @@ func (o *designOptions) addFlags(fs *pflag.FlagSet) {
 	fs.StringVar(&o.mandrel, "mandrel", "", "use only this mandrel: a stock name or a diameter, e.g. 6mm")
 	fs.StringVar(&o.former, "former", "", "use only this former: a stock name or an outside diameter, e.g. 20mm")
 	fs.StringArrayVar(&o.wires, "wire", nil, "use only this wire (repeat for several): a gauge, a bare diameter or a stock name")
-	fs.StringVar(&o.insulation, "insulation", "", "for --wire: none, grade1, grade2, grade3 or the overall diameter")
+	fs.StringVar(&o.insulation, "insulation", "", "for --wire: none, grade1, grade2 or the overall diameter")
 	fs.StringVar(&o.conductor, "conductor", "", "for --wire: copper, silver-plated or tinned")
 	fs.Var(&o.springback, "springback", "growth of the bore off every mandrel, percent (default: your saved calibrations, else 0)")
 	fs.Var(&o.maxLength, "max-length", "longest outside winding length you accept, e.g. 15mm")
