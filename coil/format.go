@@ -6,10 +6,21 @@ import (
 )
 
 // Numbers in error and warning messages. The command tables print through
-// forms' printers; coil cannot import forms, so messages use these.
+// forms' printers; coil cannot import forms, so messages use these. They
+// are exported for the packages under coil/ (trim), whose messages read the
+// same way.
 
-// fmtHz formats a frequency with an engineering prefix.
-func fmtHz(f float64) string {
+// Short names used inside coil.
+var (
+	fmtHz    = FormatFrequency
+	fmtH     = FormatInductance
+	fmtF     = FormatCapacitance
+	mm       = FormatLength
+	fmtTurns = FormatTurns
+)
+
+// FormatFrequency formats a frequency with an engineering prefix.
+func FormatFrequency(f float64) string {
 	switch a := math.Abs(f); {
 	case a >= 1e9:
 		return fmt.Sprintf("%.4g GHz", f/1e9)
@@ -21,8 +32,8 @@ func fmtHz(f float64) string {
 	return fmt.Sprintf("%.4g Hz", f)
 }
 
-// fmtH formats an inductance with an engineering prefix.
-func fmtH(h float64) string {
+// FormatInductance formats an inductance with an engineering prefix.
+func FormatInductance(h float64) string {
 	switch a := math.Abs(h); {
 	case a >= 1:
 		return fmt.Sprintf("%.4g H", h)
@@ -36,8 +47,8 @@ func fmtH(h float64) string {
 	return fmt.Sprintf("%.4g pH", h*1e12)
 }
 
-// fmtF formats a capacitance with an engineering prefix.
-func fmtF(c float64) string {
+// FormatCapacitance formats a capacitance with an engineering prefix.
+func FormatCapacitance(c float64) string {
 	switch a := math.Abs(c); {
 	case a >= 1e-6:
 		return fmt.Sprintf("%.4g µF", c*1e6)
@@ -47,11 +58,11 @@ func fmtF(c float64) string {
 	return fmt.Sprintf("%.4g pF", c*1e12)
 }
 
-// mm formats a length in millimetres.
-func mm(x float64) string { return fmt.Sprintf("%.4g mm", x*1e3) }
+// FormatLength formats a length in millimetres.
+func FormatLength(x float64) string { return fmt.Sprintf("%.4g mm", x*1e3) }
 
-// fmtTurns prints quarter turns as a builder says them: 5, 5¼, ¾.
-func fmtTurns(n float64) string {
+// FormatTurns prints quarter turns as a builder says them: 5, 5¼, ¾.
+func FormatTurns(n float64) string {
 	whole := math.Floor(n + 1e-9)
 	w := fmt.Sprintf("%.0f", whole)
 	frac := n - whole

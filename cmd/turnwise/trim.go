@@ -13,6 +13,7 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
+	"turnwise/coil/trim"
 	"turnwise/forms"
 )
 
@@ -165,18 +166,18 @@ type trimCoil struct {
 // trimResult is everything the command works out, for the table and JSON.
 type trimResult struct {
 	tc             trimCoil
-	meas           coil.Measurement
+	meas           trim.Measurement
 	viaFlag        string // the flag the measurement came from
 	spec           coil.Prediction
-	cal            coil.Calibration
-	target         coil.TrimTarget
+	cal            trim.Calibration
+	target         trim.Target
 	targetFrom     string // "given", "model", "resonance"
 	resonanceF     unit.Frequency
 	resonanceC     unit.Capacitance
 	afterResonance unit.Frequency // resonance with resonanceC after the change
 	tolerance      float64
-	corr           coil.Correction
-	next           coil.Expected
+	corr           trim.Correction
+	next           trim.Expected
 	nextPred       coil.Prediction // the corrected coil at --freq
 	tap            *tapResult
 	instruction    string
@@ -191,7 +192,7 @@ type tapResult struct {
 	ratioBefore, ratioNow float64 // as built (with the measured offset), after the change
 	offset                float64 // measured − model ratio; 0 without both sections
 	outOfReach            bool    // wantRatio lies beyond every quarter-turn tap
-	sections              *coil.SectionCalibration
+	sections              *trim.SectionCalibration
 }
 
 func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
@@ -227,7 +228,7 @@ func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) err
 }
 
 // trimCompute runs the calibration, the correction and the tap.
-func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string) (*trimResult, error) {
+func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string) (*trimResult, error) {
 	res := &trimResult{tc: tc, meas: m, viaFlag: via, lf: newLengthFormatter(opts.units.v), tolerance: opts.tolerance.v}
 	g := tc.spec.Geometry
 	p, err := coil.Predict(g, tc.freq)
@@ -235,7 +236,7 @@ func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string)
 		return nil, tc.coilError(opts, err)
 	}
 	res.spec = p
-	res.cal, err = coil.Calibrate(g, m)
+	res.cal, err = trim.Calibrate(g, m)
 	if err != nil {
 		return nil, opts.measureError(via, tc, err)
 	}
@@ -248,16 +249,16 @@ func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string)
 		if !(opts.target.f > 0) {
 			return nil, usageErrorf("--target %s: a resonance to aim for must be a positive frequency, e.g. 145MHz", opts.target.raw)
 		}
-		res.target = coil.ResonanceTarget(opts.target.f, opts.circuitCap.v)
+		res.target = trim.ResonanceTarget(opts.target.f, opts.circuitCap.v)
 		res.targetFrom, res.resonanceF, res.resonanceC = "resonance", opts.target.f, opts.circuitCap.v
 	case opts.target.set:
-		res.target = coil.TrimTarget{Inductance: opts.target.l, Frequency: tc.freq}
+		res.target = trim.Target{Inductance: opts.target.l, Frequency: tc.freq}
 		res.targetFrom = "given"
 	default:
-		res.target = coil.TrimTarget{Inductance: p.Inductance, Frequency: tc.freq}
+		res.target = trim.Target{Inductance: p.Inductance, Frequency: tc.freq}
 		res.targetFrom = "model"
 	}
-	res.corr, err = coil.Correct(res.cal.Geometry, res.target, coil.CorrectOptions{
+	res.corr, err = trim.Correct(res.cal.Geometry, res.target, trim.CorrectOptions{
 		Tolerance:   opts.tolerance.v,
 		LengthSteps: lengthSteps(res.lf),
 	})
@@ -275,7 +276,7 @@ func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string)
 		}
 		return nil, err
 	}
-	res.next, err = coil.ExpectedReading(res.corr.Geometry, res.cal, m)
+	res.next, err = trim.ExpectedReading(res.corr.Geometry, res.cal, m)
 	if err != nil {
 		return nil, opts.measureError(via, tc, err)
 	}
@@ -284,7 +285,7 @@ func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string)
 		return nil, &flagError{"freq", err}
 	}
 	if res.targetFrom == "resonance" {
-		if f, err := coil.ResonanceWith(res.corr.Geometry, res.resonanceC); err == nil {
+		if f, err := trim.ResonanceWith(res.corr.Geometry, res.resonanceC); err == nil {
 			res.afterResonance = f
 		}
 	}
@@ -298,10 +299,10 @@ func trimCompute(opts *trimOptions, tc trimCoil, m coil.Measurement, via string)
 	return res, nil
 }
 
-// measurement builds the coil.Measurement from the flags and checks their
+// measurement builds the trim.Measurement from the flags and checks their
 // combination. via is the flag the reading came from.
-func (o *trimOptions) measurement() (coil.Measurement, string, error) {
-	var m coil.Measurement
+func (o *trimOptions) measurement() (trim.Measurement, string, error) {
+	var m trim.Measurement
 	given := 0
 	for _, set := range []bool{o.measuredL.set, o.measuredF.set, len(o.resonances.v) > 0} {
 		if set {
@@ -338,7 +339,7 @@ func (o *trimOptions) measurement() (coil.Measurement, string, error) {
 	via := ""
 	switch {
 	case o.measuredL.set:
-		m.Kind, m.Inductance, via = coil.MeasureDirect, o.measuredL.v, "measured-l"
+		m.Kind, m.Inductance, via = trim.MeasureDirect, o.measuredL.v, "measured-l"
 		m.TestFrequency, m.FixtureInductance = o.meterFreq.v, o.fixtureL.v
 		if o.stray.set {
 			return m, "", usageErrorf("--stray belongs to a resonance (--measured-f or --resonance); an inductance meter reading does not need it")
@@ -352,15 +353,15 @@ func (o *trimOptions) measurement() (coil.Measurement, string, error) {
 		}
 		switch {
 		case o.withCap.set:
-			m.Kind = coil.MeasureResonance
-			m.Resonances = []coil.Resonance{{Frequency: o.measuredF.v, Capacitance: o.withCap.v}}
+			m.Kind = trim.MeasureResonance
+			m.Resonances = []trim.Resonance{{Frequency: o.measuredF.v, Capacitance: o.withCap.v}}
 			m.Stray, m.StrayTolerance = o.stray.v, o.stray.v/2
 		case o.circuitCap.set:
 			if o.stray.set {
 				return m, "", usageErrorf("--stray belongs to a test fixture (--with-cap); --circuit-cap already includes the circuit's strays")
 			}
-			m.Kind = coil.MeasureInCircuit
-			m.Resonances = []coil.Resonance{{Frequency: o.measuredF.v, Capacitance: o.circuitCap.v}}
+			m.Kind = trim.MeasureInCircuit
+			m.Resonances = []trim.Resonance{{Frequency: o.measuredF.v, Capacitance: o.circuitCap.v}}
 		default:
 			return m, "", usageErrorf("--measured-f needs the capacitance it resonated with: --with-cap C (a known capacitor across the coil) or --circuit-cap C (the coil in its circuit)")
 		}
@@ -372,13 +373,13 @@ func (o *trimOptions) measurement() (coil.Measurement, string, error) {
 			}
 		}
 		m.Resonances = o.resonances.v
-		m.Kind = coil.MeasureTwoCapacitor
+		m.Kind = trim.MeasureTwoCapacitor
 		if len(o.resonances.v) == 1 {
-			m.Kind = coil.MeasureResonance
+			m.Kind = trim.MeasureResonance
 		}
 		m.Stray, m.StrayTolerance = o.stray.v, o.stray.v/2
 	}
-	if o.circuitCap.set && m.Kind != coil.MeasureInCircuit && !o.target.isFreq {
+	if o.circuitCap.set && m.Kind != trim.MeasureInCircuit && !o.target.isFreq {
 		return m, "", usageErrorf("--circuit-cap is the capacitance of the coil's own circuit: it goes with --measured-f (a resonance in that circuit) or with a resonance --target such as 145MHz; drop it, or give one of those")
 	}
 	if o.withCap.set && !o.measuredF.set {
@@ -469,7 +470,7 @@ func (o *trimOptions) resolveCoil() (trimCoil, error) {
 			tc.tapTurns = &v
 		case entry.Tap.Ratio != nil:
 			// The sheet put the tap at the quarter turn nearest the ratio.
-			choice, err := coil.MoveTap(spec.Geometry, tc.freq, *entry.Tap.Ratio)
+			choice, err := trim.MoveTap(spec.Geometry, tc.freq, *entry.Tap.Ratio)
 			if err != nil && choice.TapTurns == 0 {
 				return tc, jobFieldError(job, entry, "tap-ratio", err)
 			}
@@ -587,16 +588,16 @@ func (o *trimOptions) trimTap(tc trimCoil, res *trimResult) (*tapResult, error) 
 	if tc.tapRatio != nil {
 		t.wantRatio = *tc.tapRatio
 	}
-	section := func(f inductanceFlag) *coil.Measurement {
+	section := func(f inductanceFlag) *trim.Measurement {
 		if !f.set {
 			return nil
 		}
-		return &coil.Measurement{Kind: coil.MeasureDirect, Inductance: f.v, TestFrequency: o.meterFreq.v,
+		return &trim.Measurement{Kind: trim.MeasureDirect, Inductance: f.v, TestFrequency: o.meterFreq.v,
 			FixtureInductance: o.fixtureL.v, MeterTolerance: o.meterTol.v, FixtureLeadLength: o.fixtureLeads.v}
 	}
 	bottom, top := section(o.measuredBottom), section(o.measuredTop)
 	if bottom != nil || top != nil {
-		sc, err := coil.CalibrateSections(res.cal, n, bottom, top)
+		sc, err := trim.CalibrateSections(res.cal, n, bottom, top)
 		if err != nil {
 			return nil, o.measureError("measured-bottom", tc, err)
 		}
@@ -614,7 +615,7 @@ func (o *trimOptions) trimTap(tc trimCoil, res *trimResult) (*tapResult, error) 
 	if !(want > 0 && want < 1) {
 		return nil, &flagError{"tap-ratio", fmt.Errorf("the ratio %.3g less the measured offset %+.3g is outside 0 … 1", t.wantRatio, t.offset)}
 	}
-	choice, err := coil.MoveTap(res.corr.Geometry, tc.freq, want)
+	choice, err := trim.MoveTap(res.corr.Geometry, tc.freq, want)
 	if err != nil && choice.TapTurns == 0 {
 		return nil, trimTapError(err)
 	}
@@ -672,7 +673,7 @@ func (f *targetFlag) Set(s string) error {
 // resonanceListFlag collects --resonance F@C readings.
 type resonanceListFlag struct {
 	raw []string
-	v   []coil.Resonance
+	v   []trim.Resonance
 }
 
 func (f *resonanceListFlag) String() string { return strings.Join(f.raw, ",") }
@@ -691,7 +692,7 @@ func (f *resonanceListFlag) Set(s string) error {
 		return fmt.Errorf("%q: %w", s, err)
 	}
 	f.raw = append(f.raw, s)
-	f.v = append(f.v, coil.Resonance{Frequency: fr, Capacitance: c})
+	f.v = append(f.v, trim.Resonance{Frequency: fr, Capacitance: c})
 	return nil
 }
 

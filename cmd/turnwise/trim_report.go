@@ -11,6 +11,7 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
+	"turnwise/coil/trim"
 	"turnwise/forms"
 )
 
@@ -76,20 +77,20 @@ func trimInstruction(res *trimResult) string {
 	step := c.LengthStep
 	var s string
 	switch c.Action {
-	case coil.ActionNone:
+	case trim.ActionNone:
 		miss := float64(c.Before)/float64(c.Target) - 1
 		if math.Abs(miss) <= res.tolerance {
 			s = fmt.Sprintf("leave it: %s is within %s of the target %s", eng(float64(c.Before), "H", 3), pct(res.tolerance), eng(float64(c.Target), "H", 3))
 		} else {
 			s = fmt.Sprintf("leave it: the change is smaller than you can set; %s is %+.1f %% from the target", eng(float64(c.Before), "H", 3), miss*100)
 		}
-	case coil.ActionSqueeze, coil.ActionSpread:
+	case trim.ActionSqueeze, trim.ActionSpread:
 		s = fmt.Sprintf("%s from %s to %s outside length; expect %s", c.Action, fmtLenStep(lf, float64(c.LengthBefore), step),
 			fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
-	case coil.ActionAddTurns:
+	case trim.ActionAddTurns:
 		s = fmt.Sprintf("rewind with %s (%s more) at %s outside length; expect %s", turnsWord(c.Geometry.Turns),
 			quarterTurns(c.Geometry.Turns-res.cal.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
-	case coil.ActionRemoveTurns:
+	case trim.ActionRemoveTurns:
 		end := ""
 		if res.tap != nil {
 			end = " at the hot end" // the tap counts from the cold end
@@ -107,7 +108,7 @@ func trimInstruction(res *trimResult) string {
 func nextText(res *trimResult) string {
 	m, e := res.meas, res.next
 	switch m.Kind {
-	case coil.MeasureDirect:
+	case trim.MeasureDirect:
 		s := "the meter should read " + eng(float64(e.Inductance), "H", 3)
 		if m.TestFrequency > 0 {
 			s += " at " + eng(float64(m.TestFrequency), "Hz", 3)
@@ -116,9 +117,9 @@ func nextText(res *trimResult) string {
 			s += " with the same fixture"
 		}
 		return s
-	case coil.MeasureResonance:
+	case trim.MeasureResonance:
 		return fmt.Sprintf("it should resonate at %s with the same %s", eng(float64(e.Resonances[0].Frequency), "Hz", 4), farads(float64(e.Resonances[0].Capacitance)))
-	case coil.MeasureInCircuit:
+	case trim.MeasureInCircuit:
 		return fmt.Sprintf("the circuit should resonate at %s", eng(float64(e.Resonances[0].Frequency), "Hz", 4))
 	}
 	var parts []string
@@ -140,16 +141,16 @@ func trimWarnings(res *trimResult) []string {
 		w = append(w, fmt.Sprintf("a coil left on its former does not spring back: the fitted %s stands for model and measurement error (leads, uneven pitch, fixture); check them before saving it", pct(cal.Springback)))
 	}
 	miss := float64(res.corr.Before)/float64(res.corr.Target) - 1
-	if res.corr.Action != coil.ActionNone && math.Abs(miss) < r.Uncertainty {
+	if res.corr.Action != trim.ActionNone && math.Abs(miss) < r.Uncertainty {
 		w = append(w, fmt.Sprintf("the coil misses the target by %+.1f %%, less than the measurement's own uncertainty (±%.1f %%): the change may not be needed; measure more precisely first", miss*100, r.Uncertainty*100))
 	}
-	if res.meas.Kind == coil.MeasureResonance && res.meas.Stray == 0 {
+	if res.meas.Kind == trim.MeasureResonance && res.meas.Stray == 0 {
 		w = append(w, "no fixture stray given (--stray): 0 pF assumed; a probe or fixture adds some pF, which matters with a small test capacitor; the two-capacitor method (--resonance twice) measures it")
 	}
-	if r.Kind == coil.MeasureTwoCapacitor && r.TotalStray < 0 {
+	if r.Kind == trim.MeasureTwoCapacitor && r.TotalStray < 0 {
 		w = append(w, fmt.Sprintf("the capacitance across the coil came out slightly negative (%s ± %s), within the readings' uncertainty: treat it as zero", signedFarads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
 	}
-	if r.Kind == coil.MeasureTwoCapacitor && r.FitResidual > 3*res.meas.FrequencyTolerance && r.FitResidual > 0.002 {
+	if r.Kind == trim.MeasureTwoCapacitor && r.FitResidual > 3*res.meas.FrequencyTolerance && r.FitResidual > 0.002 {
 		w = append(w, fmt.Sprintf("the resonances scatter by %.2g %% about the fitted line, more than the frequency readings' accuracy: recheck the capacitor values", r.FitResidual*100))
 	}
 	if f := float64(r.Frequency); f > 0 {
@@ -161,7 +162,7 @@ func trimWarnings(res *trimResult) []string {
 	if t := res.tap; t != nil && t.sections != nil {
 		for _, s := range []struct {
 			name string
-			fit  *coil.SectionFit
+			fit  *trim.SectionFit
 		}{{"bottom (cold end to tap)", t.sections.Bottom}, {"top (tap to hot end)", t.sections.Top}} {
 			if s.fit == nil {
 				continue
@@ -175,7 +176,7 @@ func trimWarnings(res *trimResult) []string {
 	if t := res.tap; t != nil && t.outOfReach {
 		w = append(w, fmt.Sprintf("no quarter-turn tap gives the voltage ratio %.3f: the nearest, %s from the cold end, gives %.3f", t.wantRatio, turnsWord(t.newTurns), t.ratioNow))
 	}
-	if res.corr.Action == coil.ActionAddTurns {
+	if res.corr.Action == trim.ActionAddTurns {
 		w = append(w, fmt.Sprintf("adding turns means winding a new coil: cut %s of wire", res.lf.fmt(float64(res.nextPred.WireLength))))
 	}
 	w = append(w, res.nextPred.Warnings()...)
@@ -185,21 +186,21 @@ func trimWarnings(res *trimResult) []string {
 	return w
 }
 
-func kindText(k coil.MeasurementKind) string {
+func kindText(k trim.MeasurementKind) string {
 	switch k {
-	case coil.MeasureDirect:
+	case trim.MeasureDirect:
 		return "inductance meter"
-	case coil.MeasureResonance:
+	case trim.MeasureResonance:
 		return "resonance with a known capacitor"
-	case coil.MeasureInCircuit:
+	case trim.MeasureInCircuit:
 		return "resonance in its circuit"
 	}
 	return "two-capacitor method"
 }
 
-func senseText(r coil.Reading) string {
+func senseText(r trim.Reading) string {
 	switch {
-	case r.Kind == coil.MeasureTwoCapacitor:
+	case r.Kind == trim.MeasureTwoCapacitor:
 		return fmt.Sprintf("at the terminals near %s, self-capacitance separated", eng(float64(r.Frequency), "Hz", 3))
 	case r.Effective:
 		return "effective at " + eng(float64(r.Frequency), "Hz", 4) + ", self-capacitance included"
@@ -207,7 +208,7 @@ func senseText(r coil.Reading) string {
 	return "at the terminals, low frequency"
 }
 
-func targetSenseText(t coil.TrimTarget) string {
+func targetSenseText(t trim.Target) string {
 	switch {
 	case t.Effective:
 		return "effective at " + eng(float64(t.Frequency), "Hz", 4)
@@ -230,7 +231,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 
 	fmt.Fprintf(tw, "\nMEASUREMENT (%s)\n", kindText(r.Kind))
 	switch m.Kind {
-	case coil.MeasureDirect:
+	case trim.MeasureDirect:
 		v := eng(float64(m.Inductance), "H", 4)
 		if m.FixtureInductance > 0 {
 			v += " − fixture " + eng(float64(m.FixtureInductance), "H", 3)
@@ -239,7 +240,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 			v += " at " + eng(float64(m.TestFrequency), "Hz", 3)
 		}
 		row("reading", v)
-	case coil.MeasureResonance, coil.MeasureInCircuit:
+	case trim.MeasureResonance, trim.MeasureInCircuit:
 		rs := m.Resonances[0]
 		v := fmt.Sprintf("%s with %s", eng(float64(rs.Frequency), "Hz", 4), farads(float64(rs.Capacitance)))
 		if m.Stray > 0 {
@@ -257,7 +258,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		row("fixture leads", "2 × "+lf.fmt(float64(m.FixtureLeadLength))+" of extra wire (in the model for the reading)")
 	}
 	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", eng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
-	if r.Kind == coil.MeasureTwoCapacitor {
+	if r.Kind == trim.MeasureTwoCapacitor {
 		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", signedFarads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
 		sc := fmt.Sprintf("Medhurst %s", farads(float64(cal.SelfCapacitance)))
 		if ct := cal.SelfCapacitanceAtTerminals; math.Abs(float64(ct/cal.SelfCapacitance)-1) > 0.05 {
@@ -302,7 +303,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		eng(float64(c.WindowMost), "H", 3), fmtTurns(g.Turns)))
 	ng := c.Geometry
 	switch c.Action {
-	case coil.ActionNone:
+	case trim.ActionNone:
 		row("action", "none")
 	default:
 		row("action", c.Action.String())
@@ -326,7 +327,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		if s := t.sections; s != nil {
 			for _, sec := range []struct {
 				name string
-				fit  *coil.SectionFit
+				fit  *trim.SectionFit
 			}{{"bottom section", s.Bottom}, {"top section", s.Top}} {
 				if sec.fit == nil {
 					continue
@@ -340,7 +341,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		}
 	}
 	row("then measure again", nextText(res))
-	if res.meas.Kind == coil.MeasureInCircuit {
+	if res.meas.Kind == trim.MeasureInCircuit {
 		row("caution", "switch the circuit off and discharge it before squeezing the coil")
 	}
 
@@ -486,7 +487,7 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 		MeterTolerance: m.MeterTolerance, CapTolerance: m.CapacitorTolerance, CapToleranceAbs: float64(m.CapacitorToleranceAbs),
 		FreqTolerance: m.FrequencyTolerance,
 	}
-	if m.Kind == coil.MeasureDirect {
+	if m.Kind == trim.MeasureDirect {
 		d.Measurement.Reading = float64(m.Inductance)
 	}
 	for _, rs := range m.Resonances {
@@ -496,7 +497,7 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 	d.MeasuredInductanceUncertainty = r.Uncertainty
 	d.MeasuredSense = map[bool]string{true: "effective", false: "terminal"}[r.Effective]
 	d.MeasurementFrequency = float64(r.Frequency)
-	if r.Kind == coil.MeasureTwoCapacitor {
+	if r.Kind == trim.MeasureTwoCapacitor {
 		d.StrayCapacitance = ptr(float64(r.TotalStray))
 		d.StrayCapacitanceUncertainty = ptr(float64(r.TotalStrayUncertainty))
 		if m.Stray > 0 {
@@ -547,7 +548,7 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 			if s.MeasuredRatio != 0 {
 				tj.MeasuredRatio = ptr(s.MeasuredRatio)
 			}
-			sec := func(f *coil.SectionFit) *sectionJSON {
+			sec := func(f *trim.SectionFit) *sectionJSON {
 				if f == nil {
 					return nil
 				}

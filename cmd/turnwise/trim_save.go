@@ -9,7 +9,7 @@ import (
 	"os"
 	"path/filepath"
 
-	"turnwise/coil"
+	"turnwise/coil/trim"
 	"turnwise/forms"
 )
 
@@ -111,9 +111,9 @@ func calibrationNote(res *trimResult) string {
 	g := res.tc.spec.Geometry
 	var how string
 	switch r.Kind {
-	case coil.MeasureDirect:
+	case trim.MeasureDirect:
 		how = "meter " + eng(float64(r.Inductance), "H", 3)
-	case coil.MeasureResonance, coil.MeasureInCircuit:
+	case trim.MeasureResonance, trim.MeasureInCircuit:
 		rs := res.meas.Resonances[0]
 		how = fmt.Sprintf("resonance %s with %s", eng(float64(rs.Frequency), "Hz", 4), farads(float64(rs.Capacitance)))
 	default:

@@ -1,4 +1,4 @@
-package coil
+package trim
 
 import (
 	"testing"
@@ -31,7 +31,7 @@ func BenchmarkCalibrate(b *testing.B) {
 // quarter-turn search, the pitch bisection and the length rounding.
 func BenchmarkCorrectTurns(b *testing.B) {
 	g := vhfExample()
-	t := TrimTarget{Inductance: 130e-9, Frequency: 145e6}
+	t := Target{Inductance: 130e-9, Frequency: 145e6}
 	opt := CorrectOptions{Tolerance: 0.005, LengthSteps: []unit.Length{0.1e-3, 0.05e-3, 0.02e-3, 0.01e-3}}
 	for b.Loop() {
 		c, err := Correct(g, t, opt)

@@ -1,8 +1,9 @@
-package coil
+package trim
 
 import (
 	"errors"
 	"math"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -52,7 +53,8 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 	if err := g.Validate(); err != nil {
 		return sc, err
 	}
-	if err := validateTap(g.Turns, tapTurns); err != nil {
+	// The tap's own checks (quarter turns, on the coil) come first.
+	if _, err := coil.Tap(g, tapTurns, 0); err != nil {
 		return sc, err
 	}
 	if tapTurns <= 0 || tapTurns >= g.Turns {
@@ -67,12 +69,12 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 	if bottom != nil && top != nil && bottom.TestFrequency != top.TestFrequency {
 		return sc, inputErrorf("test_frequency", "measure both sections at the same meter frequency")
 	}
-	whole, err := Tap(g, tapTurns, f)
+	whole, err := coil.Tap(g, tapTurns, f)
 	if err != nil {
 		return sc, err
 	}
 	sc.ModelRatio = whole.Ratio
-	fit := func(m *Measurement, param, what string, pick func(Sections) unit.Inductance) (*SectionFit, error) {
+	fit := func(m *Measurement, param, what string, pick func(coil.Sections) unit.Inductance) (*SectionFit, error) {
 		if m == nil {
 			return nil, nil
 		}
@@ -81,7 +83,7 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 		}
 		r, err := m.Reduce()
 		if err != nil {
-			var ie *InputError
+			var ie *coil.InputError
 			if errors.As(err, &ie) && ie.Param == "measured_inductance" {
 				ie.Param = param
 			}
@@ -92,7 +94,7 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 		value := func(s float64) float64 {
 			h := gm
 			h.Springback = s
-			sec, err := Tap(h, tapTurns, f)
+			sec, err := coil.Tap(h, tapTurns, f)
 			if err != nil {
 				return math.Inf(1)
 			}
@@ -117,10 +119,10 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 			Residual:          model/want - 1,
 		}, nil
 	}
-	if sc.Bottom, err = fit(bottom, "measured_bottom", "the bottom section (cold end to tap)", func(s Sections) unit.Inductance { return s.LB }); err != nil {
+	if sc.Bottom, err = fit(bottom, "measured_bottom", "the bottom section (cold end to tap)", func(s coil.Sections) unit.Inductance { return s.LB }); err != nil {
 		return sc, err
 	}
-	if sc.Top, err = fit(top, "measured_top", "the top section (tap to hot end)", func(s Sections) unit.Inductance { return s.LA }); err != nil {
+	if sc.Top, err = fit(top, "measured_top", "the top section (tap to hot end)", func(s coil.Sections) unit.Inductance { return s.LA }); err != nil {
 		return sc, err
 	}
 	if sc.Bottom != nil && sc.Top != nil {
@@ -133,10 +135,10 @@ func CalibrateSections(cal Calibration, tapTurns float64, bottom, top *Measureme
 
 // MoveTap returns the quarter-turn tap of g (the corrected coil) whose
 // unloaded voltage ratio at f is nearest ratio.
-func MoveTap(g Geometry, f unit.Frequency, ratio float64) (TapChoice, error) {
-	cs, err := FindTap(g, f, GoalVoltageRatio, ratio)
+func MoveTap(g coil.Geometry, f unit.Frequency, ratio float64) (coil.TapChoice, error) {
+	cs, err := coil.FindTap(g, f, coil.GoalVoltageRatio, ratio)
 	if len(cs) == 0 {
-		return TapChoice{}, err
+		return coil.TapChoice{}, err
 	}
 	return cs[0], err
 }

@@ -1,9 +1,10 @@
-package coil
+package trim
 
 import (
 	"errors"
 	"math"
 	"testing"
+	"turnwise/coil"
 )
 
 // Section readings made from the model for a coil with a known springback
@@ -13,11 +14,11 @@ import (
 func TestCalibrateSectionsRoundTrip(t *testing.T) {
 	t.Parallel()
 	const sb = 0.04
-	g := Geometry{FormerDiameter: 6e-3, WireDiameter: 1e-3, Turns: 5, Pitch: 2e-3, LeadLength: 4e-3}
+	g := coil.Geometry{FormerDiameter: 6e-3, WireDiameter: 1e-3, Turns: 5, Pitch: 2e-3, LeadLength: 4e-3}
 	truth := g
 	truth.Springback = sb
 	const tap = 1.25
-	sec, err := Tap(truth, tap, 0)
+	sec, err := coil.Tap(truth, tap, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -54,7 +55,7 @@ func TestCalibrateSectionsRoundTrip(t *testing.T) {
 
 func TestCalibrateSectionsRefuses(t *testing.T) {
 	t.Parallel()
-	g := Geometry{FormerDiameter: 6e-3, WireDiameter: 1e-3, Turns: 5, Pitch: 2e-3, LeadLength: 4e-3}
+	g := coil.Geometry{FormerDiameter: 6e-3, WireDiameter: 1e-3, Turns: 5, Pitch: 2e-3, LeadLength: 4e-3}
 	cal, err := Calibrate(g, Measurement{Kind: MeasureDirect, Inductance: 90e-9, MeterTolerance: 0.02})
 	if err != nil {
 		t.Fatal(err)
@@ -76,9 +77,9 @@ func TestCalibrateSectionsRefuses(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
 			_, err := CalibrateSections(cal, tc.tap, tc.bottom, nil)
-			var ie *InputError
+			var ie *coil.InputError
 			if !errors.As(err, &ie) || ie.Param != tc.wantParam {
-				t.Fatalf("err = %v, want *InputError for %q", err, tc.wantParam)
+				t.Fatalf("err = %v, want *coil.InputError for %q", err, tc.wantParam)
 			}
 		})
 	}
@@ -87,7 +88,7 @@ func TestCalibrateSectionsRefuses(t *testing.T) {
 // MoveTap picks the quarter turn nearest the ratio among all of them.
 func TestMoveTap(t *testing.T) {
 	t.Parallel()
-	g := Geometry{FormerDiameter: 20e-3, WireDiameter: 0.5e-3, WireOverall: 0.55e-3, Turns: 28, Pitch: 0.6e-3, LeadLength: 30e-3}
+	g := coil.Geometry{FormerDiameter: 20e-3, WireDiameter: 0.5e-3, WireOverall: 0.55e-3, Turns: 28, Pitch: 0.6e-3, LeadLength: 30e-3}
 	for _, ratio := range []float64{0.1, 0.25, 0.5} {
 		c, err := MoveTap(g, 5e6, ratio)
 		if err != nil {
@@ -95,7 +96,7 @@ func TestMoveTap(t *testing.T) {
 		}
 		best := math.Inf(1)
 		for q := 1; q < 28*4; q++ {
-			s, err := Tap(g, float64(q)/4, 5e6)
+			s, err := coil.Tap(g, float64(q)/4, 5e6)
 			if err != nil {
 				t.Fatal(err)
 			}

@@ -1,8 +1,9 @@
-package coil
+package trim
 
 import (
 	"fmt"
 	"math"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -42,14 +43,14 @@ type Correction struct {
 	// coil as built, and the coil after the change.
 	Target, Before, After unit.Inductance
 	// Geometry is the coil after the change (turns and pitch).
-	Geometry Geometry
+	Geometry coil.Geometry
 	// LengthBefore and LengthAfter are outside winding lengths.
 	LengthBefore, LengthAfter unit.Length
 	// LengthStep is the resolution LengthAfter was rounded to; zero when
 	// exact.
 	LengthStep unit.Length
 	// WindowLeast and WindowMost are what squeezing and spreading can
-	// reach with the coil's present turns (see Window), in the target's
+	// reach with the coil's present turns (see coil.Window), in the target's
 	// sense.
 	WindowLeast, WindowMost unit.Inductance
 	// LengthPerPercent is the length change per 1 % of inductance around
@@ -57,19 +58,10 @@ type Correction struct {
 	LengthPerPercent unit.Length
 }
 
-// infeasibleError is a valid request no coil meets; errors.Is finds
-// ErrInfeasible.
-type infeasibleError struct{ msg string }
-
-func (e *infeasibleError) Error() string        { return e.msg }
-func (e *infeasibleError) Is(target error) bool { return target == ErrInfeasible }
-
-// windowPitches are the tightest and loosest pitch of the squeeze/spread
-// window, as Window defines them: close-wound, and LoosestPitchFactor·d_o
-// or the present pitch if that is looser.
-func windowPitches(g Geometry) (tight, loose float64) {
-	do := g.overall()
-	return do, math.Max(LoosestPitchFactor*do, float64(g.Pitch))
+// windowPitches are coil.WindowPitches as plain floats for the solvers.
+func windowPitches(g coil.Geometry) (tight, loose float64) {
+	t, l := coil.WindowPitches(g)
+	return float64(t), float64(l)
 }
 
 // Correct finds, for the calibrated coil g, the change that brings it to
@@ -78,7 +70,7 @@ func windowPitches(g Geometry) (tight, loose float64) {
 // quarter turns, with the new length. A target no number of turns reaches
 // (the self-resonance falls below the target's frequency first, or even
 // one turn is too much) wraps ErrInfeasible.
-func Correct(g Geometry, t TrimTarget, opt CorrectOptions) (Correction, error) {
+func Correct(g coil.Geometry, t Target, opt CorrectOptions) (Correction, error) {
 	var c Correction
 	if err := g.Validate(); err != nil {
 		return c, err
@@ -144,7 +136,7 @@ func Correct(g Geometry, t TrimTarget, opt CorrectOptions) (Correction, error) {
 	if c.Action == ActionNone {
 		c.Geometry, c.After, c.LengthAfter, c.LengthStep = g, before, c.LengthBefore, 0
 	}
-	dl, err := LengthPerPercent(c.Geometry, t.Frequency)
+	dl, err := coil.LengthPerPercent(c.Geometry, t.Frequency)
 	if err == nil {
 		c.LengthPerPercent = dl
 	}
@@ -152,7 +144,7 @@ func Correct(g Geometry, t TrimTarget, opt CorrectOptions) (Correction, error) {
 }
 
 // set records the corrected geometry and the length step it was rounded to.
-func (c *Correction) set(ng Geometry, step unit.Length) {
+func (c *Correction) set(ng coil.Geometry, step unit.Length) {
 	c.Geometry, c.LengthStep = ng, step
 	c.LengthAfter = ng.WindingLength()
 }
@@ -160,21 +152,21 @@ func (c *Correction) set(ng Geometry, step unit.Length) {
 // rewound is g wound again with n turns: its pitch is brought inside the
 // standard window (a new winding starts from LoosestPitchFactor·d_o at
 // most, whatever the old one was).
-func rewound(g Geometry, n float64) Geometry {
+func rewound(g coil.Geometry, n float64) coil.Geometry {
 	g.Turns = n
-	do := g.overall()
-	g.Pitch = unit.Length(math.Max(do, math.Min(float64(g.Pitch), LoosestPitchFactor*do)))
+	do := float64(g.OverallDiameter())
+	g.Pitch = unit.Length(math.Max(do, math.Min(float64(g.Pitch), coil.LoosestPitchFactor*do)))
 	return g
 }
 
-func withPitch(g Geometry, p float64) Geometry {
+func withPitch(g coil.Geometry, p float64) coil.Geometry {
 	g.Pitch = unit.Length(p)
 	return g
 }
 
 // valueAtPitch evaluates the target's sense at pitch p; a model failure
 // (the frequency above the self-resonance) counts as +Inf.
-func valueAtPitch(g Geometry, t TrimTarget, p float64) float64 {
+func valueAtPitch(g coil.Geometry, t Target, p float64) float64 {
 	v, err := t.Of(withPitch(g, p))
 	if err != nil {
 		return math.Inf(1)
@@ -186,7 +178,7 @@ func valueAtPitch(g Geometry, t TrimTarget, p float64) float64 {
 // nearest end when t is outside it), then rounds the outside length to the
 // coarsest of opt.LengthSteps that keeps the prediction within
 // opt.Tolerance, and returns the step used (zero for exact).
-func solvePitch(g Geometry, t TrimTarget, opt CorrectOptions) (Geometry, unit.Length) {
+func solvePitch(g coil.Geometry, t Target, opt CorrectOptions) (coil.Geometry, unit.Length) {
 	want := float64(t.Inductance)
 	tight, loose := windowPitches(g)
 	lo, hi := tight, loose // value falls from lo to hi
@@ -212,7 +204,7 @@ func solvePitch(g Geometry, t TrimTarget, opt CorrectOptions) (Geometry, unit.Le
 		return exact, 0
 	}
 	// Round the outside length, keeping the pitch inside the window.
-	do := g.overall()
+	do := float64(g.OverallDiameter())
 	minLen, maxLen := g.Turns*do, (g.Turns-1)*loose+do
 	ex := float64(exact.WindingLength())
 	best, bestStep := exact, unit.Length(0)
@@ -246,10 +238,10 @@ func solvePitch(g Geometry, t TrimTarget, opt CorrectOptions) (Geometry, unit.Le
 
 // findTurns returns the quarter-turn count nearest g's whose window
 // reaches t: more turns when more is set, fewer otherwise.
-func findTurns(g Geometry, t TrimTarget, more bool) (float64, error) {
+func findTurns(g coil.Geometry, t Target, more bool) (float64, error) {
 	want := float64(t.Inductance)
 	tight, _ := windowPitches(g)
-	withTurns := func(n float64) Geometry { return rewound(g, n) }
+	withTurns := func(n float64) coil.Geometry { return rewound(g, n) }
 	// reaches reports whether n turns can reach the target from the side
 	// it lies on: close-wound gives at least want (more), or the loosest
 	// pitch at most want (fewer).
@@ -277,19 +269,19 @@ func findTurns(g Geometry, t TrimTarget, more bool) (float64, error) {
 		var q float64
 		for {
 			q = q0 + step
-			if q > MaxTurns*4 {
-				q = MaxTurns * 4
+			if q > coil.MaxTurns*4 {
+				q = coil.MaxTurns * 4
 			}
 			ok, err := reaches(q / 4)
 			if err != nil {
 				return 0, &infeasibleError{fmt.Sprintf("the target %s needs more turns than %s, and with %g turns the coil's self-resonance is already too close to %s; use a larger diameter, which needs fewer turns",
-					fmtH(want), fmtTurns(g.Turns), q/4, fmtHz(float64(t.Frequency)))}
+					coil.FormatInductance(want), coil.FormatTurns(g.Turns), q/4, coil.FormatFrequency(float64(t.Frequency)))}
 			}
 			if ok {
 				break
 			}
-			if q == MaxTurns*4 {
-				return 0, &infeasibleError{fmt.Sprintf("the target %s is out of reach: even %d close-wound turns are not enough", fmtH(want), MaxTurns)}
+			if q == coil.MaxTurns*4 {
+				return 0, &infeasibleError{fmt.Sprintf("the target %s is out of reach: even %d close-wound turns are not enough", coil.FormatInductance(want), coil.MaxTurns)}
 			}
 			lastBad = q
 			step *= 2
@@ -311,7 +303,7 @@ func findTurns(g Geometry, t TrimTarget, more bool) (float64, error) {
 		_, loose := windowPitches(withTurns(1))
 		v, _ := t.Of(withPitch(withTurns(1), loose))
 		return 0, &infeasibleError{fmt.Sprintf("the target %s is below what a single turn of this wire on this diameter gives (%s at its loosest): use a smaller diameter",
-			fmtH(want), fmtH(float64(v)))}
+			coil.FormatInductance(want), coil.FormatInductance(float64(v)))}
 	}
 	lo, hi := 4.0, q0 // lo reaches, hi does not
 	for hi-lo > 1 {
@@ -336,7 +328,7 @@ type Expected struct {
 
 // ExpectedReading predicts the reading of m on the coil g (calibrated and
 // corrected), given the calibration cal that came from m.
-func ExpectedReading(g Geometry, cal Calibration, m Measurement) (Expected, error) {
+func ExpectedReading(g coil.Geometry, cal Calibration, m Measurement) (Expected, error) {
 	var e Expected
 	gm := g
 	gm.LeadLength += m.FixtureLeadLength
@@ -356,7 +348,7 @@ func ExpectedReading(g Geometry, cal Calibration, m Measurement) (Expected, erro
 		}
 		e.Resonances = []Resonance{{Frequency: f, Capacitance: res.Capacitance}}
 	case MeasureTwoCapacitor:
-		p, err := Predict(gm, r.Frequency)
+		p, err := coil.Predict(gm, r.Frequency)
 		if err != nil {
 			return e, err
 		}
@@ -365,7 +357,7 @@ func ExpectedReading(g Geometry, cal Calibration, m Measurement) (Expected, erro
 		c0 := float64(r.TotalStray) + float64(terminalSelfCapacitance(p)) - float64(cal.SelfCapacitanceAtTerminals)
 		for _, res := range m.Resonances {
 			e.Resonances = append(e.Resonances, Resonance{
-				Frequency:   ResonantFrequency(p.Inductance, res.Capacitance+unit.Capacitance(c0)),
+				Frequency:   coil.ResonantFrequency(p.Inductance, res.Capacitance+unit.Capacitance(c0)),
 				Capacitance: res.Capacitance,
 			})
 		}
@@ -379,17 +371,17 @@ func ExpectedReading(g Geometry, cal Calibration, m Measurement) (Expected, erro
 // effective inductance grows with frequency, so the root is unique below
 // the self-resonance; a c too small to resonate below 90 % of it is an
 // *InputError.
-func ResonanceWith(g Geometry, capacitance unit.Capacitance) (unit.Frequency, error) {
+func ResonanceWith(g coil.Geometry, capacitance unit.Capacitance) (unit.Frequency, error) {
 	c := float64(capacitance)
 	if !finite(c) || c <= 0 {
 		return 0, inputErrorf("capacitance", "must be positive, e.g. 22pF")
 	}
-	p0, err := Predict(g, 0)
+	p0, err := coil.Predict(g, 0)
 	if err != nil {
 		return 0, err
 	}
 	h := func(f float64) float64 {
-		p, err := Predict(g, unit.Frequency(f))
+		p, err := coil.Predict(g, unit.Frequency(f))
 		if err != nil {
 			return math.Inf(1)
 		}
@@ -398,7 +390,7 @@ func ResonanceWith(g Geometry, capacitance unit.Capacitance) (unit.Frequency, er
 	hi := 0.9 * float64(p0.SRF)
 	lo := 0.5 / (twoPi * math.Sqrt(float64(p0.Inductance)*c))
 	if lo >= hi || h(hi) < 0 {
-		return 0, inputErrorf("resonance", "%s across this coil does not resonate below 90 %% of its self-resonance; use a larger capacitor", fmtF(c))
+		return 0, inputErrorf("resonance", "%s across this coil does not resonate below 90 %% of its self-resonance; use a larger capacitor", coil.FormatCapacitance(c))
 	}
 	for range 200 {
 		mid := (lo + hi) / 2

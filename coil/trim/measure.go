@@ -1,8 +1,9 @@
-package coil
+package trim
 
 import (
 	"math"
 	"slices"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -167,11 +168,11 @@ func (m *Measurement) validateTolerances() error {
 		v    unit.Capacitance
 	}{{"capacitor", m.CapacitorToleranceAbs}, {"stray", m.StrayTolerance}} {
 		if !finite(float64(c.v)) || c.v < 0 || c.v > 1e-6 {
-			return inputErrorf("tolerance", "%s tolerance %s is not a sensible capacitance", c.name, fmtF(float64(c.v)))
+			return inputErrorf("tolerance", "%s tolerance %s is not a sensible capacitance", c.name, coil.FormatCapacitance(float64(c.v)))
 		}
 	}
-	if fl := float64(m.FixtureLeadLength); !finite(fl) || fl < 0 || fl > MaxLeadLength {
-		return inputErrorf("fixture_lead_length", "must be zero or a length up to %s", mm(MaxLeadLength))
+	if fl := float64(m.FixtureLeadLength); !finite(fl) || fl < 0 || fl > coil.MaxLeadLength {
+		return inputErrorf("fixture_lead_length", "must be zero or a length up to %s", coil.FormatLength(coil.MaxLeadLength))
 	}
 	return nil
 }
@@ -187,14 +188,14 @@ func (m *Measurement) reduceDirect() (Reading, error) {
 	case !finite(l) || l <= 0:
 		return Reading{}, inputErrorf("measured_inductance", "must be a positive inductance, e.g. 52nH")
 	case l > 1:
-		return Reading{}, inputErrorf("measured_inductance", "%s is not the reading of a single-layer air coil; check the unit (nH, uH)", fmtH(l))
+		return Reading{}, inputErrorf("measured_inductance", "%s is not the reading of a single-layer air coil; check the unit (nH, uH)", coil.FormatInductance(l))
 	case !finite(fix) || fix < 0:
 		return Reading{}, inputErrorf("fixture_inductance", "must be zero or positive: the meter's reading with its clips shorted")
 	case fix >= l:
 		return Reading{}, inputErrorf("fixture_inductance", "%s is not less than the reading %s: the fixture allowance is the meter's reading with its clips shorted together, well below the coil's",
-			fmtH(fix), fmtH(l))
+			coil.FormatInductance(fix), coil.FormatInductance(l))
 	}
-	if f := float64(m.TestFrequency); !finite(f) || f < 0 || f > MaxFrequency {
+	if f := float64(m.TestFrequency); !finite(f) || f < 0 || f > coil.MaxFrequency {
 		return Reading{}, inputErrorf("test_frequency", "must be between 0 and 10 GHz, e.g. 1MHz")
 	}
 	net := l - fix
@@ -210,7 +211,7 @@ func (m *Measurement) reduceDirect() (Reading, error) {
 func (m *Measurement) checkResonance(i int, r Resonance) error {
 	f, c := float64(r.Frequency), float64(r.Capacitance)
 	switch {
-	case !finite(f) || f <= 0 || f > MaxFrequency:
+	case !finite(f) || f <= 0 || f > coil.MaxFrequency:
 		return inputErrorf("resonance", "reading %d: the frequency must be between 0 and 10 GHz, e.g. 9.81MHz", i+1)
 	case !finite(c) || c <= 0 || c > 1e-3:
 		return inputErrorf("resonance", "reading %d: the capacitance must be positive, e.g. 100pF", i+1)
@@ -271,14 +272,14 @@ func (m *Measurement) reduceLine() (Reading, error) {
 				distinct = true
 				if rs[i].Frequency <= rs[j].Frequency {
 					return Reading{}, inputErrorf("resonance", "the larger capacitor (%s) gave the same or a higher resonance (%s) than the smaller one (%s at %s); a larger capacitor always tunes lower: check which reading goes with which capacitor",
-						fmtF(float64(cj)), fmtHz(float64(rs[j].Frequency)), fmtF(float64(ci)), fmtHz(float64(rs[i].Frequency)))
+						coil.FormatCapacitance(float64(cj)), coil.FormatFrequency(float64(rs[j].Frequency)), coil.FormatCapacitance(float64(ci)), coil.FormatFrequency(float64(rs[i].Frequency)))
 				}
 			}
 		}
 	}
 	if !distinct {
 		return Reading{}, inputErrorf("resonance", "all readings use the same capacitance (%s); the method needs two different capacitors, ideally 1:4 apart",
-			fmtF(float64(rs[0].Capacitance)))
+			coil.FormatCapacitance(float64(rs[0].Capacitance)))
 	}
 	l, c0, resid := fitLine(rs)
 
@@ -308,11 +309,11 @@ func (m *Measurement) reduceLine() (Reading, error) {
 	}
 	if c0 < -(uC0 + 0.1e-12) {
 		return Reading{}, inputErrorf("resonance", "the readings imply a negative capacitance across the coil (%s ± %s); a frequency or a capacitor value is off: measure the capacitors and read the resonances again",
-			fmtF(c0), fmtF(uC0))
+			coil.FormatCapacitance(c0), coil.FormatCapacitance(uC0))
 	}
 	for _, r := range rs {
 		if float64(r.Capacitance)+c0 <= 0 {
-			return Reading{}, inputErrorf("resonance", "the readings are inconsistent: the fitted stray (%s) cancels the %s capacitor", fmtF(c0), fmtF(float64(r.Capacitance)))
+			return Reading{}, inputErrorf("resonance", "the readings are inconsistent: the fitted stray (%s) cancels the %s capacitor", coil.FormatCapacitance(c0), coil.FormatCapacitance(float64(r.Capacitance)))
 		}
 	}
 	logSum := 0.0

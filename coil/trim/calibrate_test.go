@@ -1,10 +1,11 @@
-package coil
+package trim
 
 import (
 	"errors"
 	"fmt"
 	"math"
 	"testing"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -45,7 +46,7 @@ func TestTwoCapacitorHandWorked(t *testing.T) {
 	// Independent route: each reading alone, with the fitted C0, gives the
 	// same L as the line.
 	for _, res := range m.Resonances {
-		l := InductanceForResonance(res.Frequency, res.Capacitance+r.TotalStray)
+		l := coil.InductanceForResonance(res.Frequency, res.Capacitance+r.TotalStray)
 		if e := relErr(float64(l), float64(r.Inductance)); e > implTol {
 			t.Errorf("1/(ω²(C+C0)) at %v = %v, line gives %v", res.Frequency, l, r.Inductance)
 		}
@@ -65,7 +66,7 @@ func TestTwoCapacitorLeastSquares(t *testing.T) {
 	const l, c0 = 1.5e-6, 7e-12
 	var rs []Resonance
 	for _, c := range []float64{47e-12, 100e-12, 220e-12} {
-		rs = append(rs, Resonance{ResonantFrequency(l, unit.Capacitance(c+c0)), unit.Capacitance(c)})
+		rs = append(rs, Resonance{coil.ResonantFrequency(l, unit.Capacitance(c+c0)), unit.Capacitance(c)})
 	}
 	r, err := Measurement{Kind: MeasureTwoCapacitor, Resonances: rs}.Reduce()
 	if err != nil {
@@ -150,7 +151,7 @@ func TestReduceRefusesInconsistent(t *testing.T) {
 		// 1/ω² = L(C + C0) with L = 1 µH, C0 = −20 pF: the second reading
 		// is far too high for the first.
 		{"negative stray", Measurement{Kind: MeasureTwoCapacitor, CapacitorTolerance: 0.01,
-			Resonances: []Resonance{{ResonantFrequency(1e-6, 30e-12), 50e-12}, {ResonantFrequency(1e-6, 80e-12), 100e-12}}}, "resonance"},
+			Resonances: []Resonance{{coil.ResonantFrequency(1e-6, 30e-12), 50e-12}, {coil.ResonantFrequency(1e-6, 80e-12), 100e-12}}}, "resonance"},
 		{"fixture above reading", Measurement{Kind: MeasureDirect, Inductance: 50e-9, FixtureInductance: 60e-9}, "fixture_inductance"},
 		{"zero reading", Measurement{Kind: MeasureDirect}, "measured_inductance"},
 		{"henries not nanohenries", Measurement{Kind: MeasureDirect, Inductance: 52}, "measured_inductance"},
@@ -159,7 +160,7 @@ func TestReduceRefusesInconsistent(t *testing.T) {
 		{"huge tolerance", Measurement{Kind: MeasureDirect, Inductance: 50e-9, MeterTolerance: 2}, "tolerance"},
 		// 22 pF and 22.5 pF at 5 %: the line's slope is lost in the tolerances.
 		{"capacitors too close", Measurement{Kind: MeasureTwoCapacitor, CapacitorTolerance: 0.05,
-			Resonances: []Resonance{{ResonantFrequency(1e-6, 24e-12), 22e-12}, {ResonantFrequency(1e-6, 24.5e-12), 22.5e-12}}}, "resonance"},
+			Resonances: []Resonance{{coil.ResonantFrequency(1e-6, 24e-12), 22e-12}, {coil.ResonantFrequency(1e-6, 24.5e-12), 22.5e-12}}}, "resonance"},
 		{"negative stray names the stray", Measurement{Kind: MeasureResonance, Resonances: []Resonance{{10e6, 100e-12}},
 			Stray: -1e-12, StrayTolerance: -0.5e-12}, "stray"},
 		{"no kind", Measurement{}, "measurement"},
@@ -168,9 +169,9 @@ func TestReduceRefusesInconsistent(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
 			_, err := tc.m.Reduce()
-			var ie *InputError
+			var ie *coil.InputError
 			if !errors.As(err, &ie) || ie.Param != tc.wantParam {
-				t.Fatalf("err = %v, want *InputError for %q", err, tc.wantParam)
+				t.Fatalf("err = %v, want *coil.InputError for %q", err, tc.wantParam)
 			}
 		})
 	}
@@ -180,27 +181,27 @@ func TestReduceRefusesInconsistent(t *testing.T) {
 // enamelled HF coil on a former and a small UHF coil.
 var trimCoils = []struct {
 	name string
-	g    Geometry
+	g    coil.Geometry
 	f    unit.Frequency // a frequency well below the SRF for resonances
 	c    unit.Capacitance
 }{
 	{"vhf 5t 1mm on 6mm", vhfExample(), 100e6, 22e-12},
-	{"hf 30t 22awg on 25mm", Geometry{FormerDiameter: 25e-3, WireDiameter: 0.644e-3, WireOverall: 0.7e-3, Turns: 30, Pitch: 0.75e-3, LeadLength: 20e-3}, 3.7e6, 330e-12},
-	{"uhf 2.5t 0.8mm on 4mm", Geometry{FormerDiameter: 4e-3, WireDiameter: 0.8e-3, Turns: 2.5, Pitch: 1.6e-3, LeadLength: 3e-3}, 400e6, 4.7e-12},
+	{"hf 30t 22awg on 25mm", coil.Geometry{FormerDiameter: 25e-3, WireDiameter: 0.644e-3, WireOverall: 0.7e-3, Turns: 30, Pitch: 0.75e-3, LeadLength: 20e-3}, 3.7e6, 330e-12},
+	{"uhf 2.5t 0.8mm on 4mm", coil.Geometry{FormerDiameter: 4e-3, WireDiameter: 0.8e-3, Turns: 2.5, Pitch: 1.6e-3, LeadLength: 3e-3}, 400e6, 4.7e-12},
 }
 
 // resonanceFixedPoint is an independent route to the resonance of g with
 // c across its terminals: iterate f ← 1/(2π√(L_eff(f)·c)) from the DC
 // value.
-func resonanceFixedPoint(t *testing.T, g Geometry, c float64) float64 {
+func resonanceFixedPoint(t *testing.T, g coil.Geometry, c float64) float64 {
 	t.Helper()
-	p, err := Predict(g, 0)
+	p, err := coil.Predict(g, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
 	f := 1 / (2 * math.Pi * math.Sqrt(float64(p.Inductance)*c))
 	for range 200 {
-		p, err = Predict(g, unit.Frequency(f))
+		p, err = coil.Predict(g, unit.Frequency(f))
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -216,19 +217,19 @@ func resonanceFixedPoint(t *testing.T, g Geometry, c float64) float64 {
 
 // synthetic builds the measurement of form kind that the model gives for
 // the true coil gTrue.
-func synthetic(t *testing.T, kind string, gTrue Geometry, f unit.Frequency, c unit.Capacitance) Measurement {
+func synthetic(t *testing.T, kind string, gTrue coil.Geometry, f unit.Frequency, c unit.Capacitance) Measurement {
 	t.Helper()
 	const fixtureLeads = 4e-3
 	meas := gTrue
 	switch kind {
 	case "direct":
-		p, err := Predict(meas, 0)
+		p, err := coil.Predict(meas, 0)
 		if err != nil {
 			t.Fatal(err)
 		}
 		return Measurement{Kind: MeasureDirect, Inductance: p.Inductance + 3e-9, FixtureInductance: 3e-9, MeterTolerance: 0.02}
 	case "direct at f":
-		p, err := Predict(meas, f)
+		p, err := coil.Predict(meas, f)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -299,8 +300,8 @@ func TestTrimRoundTrip(t *testing.T) {
 						t.Errorf("springback %g outside its band %g … %g", cal.Springback, cal.SpringbackLow, cal.SpringbackHigh)
 					}
 					// Target: the model's value for the coil as specified.
-					target := TrimTarget{Frequency: cc.f}
-					pSpec, err := Predict(spec, cc.f)
+					target := Target{Frequency: cc.f}
+					pSpec, err := coil.Predict(spec, cc.f)
 					if err != nil {
 						t.Fatal(err)
 					}
@@ -343,8 +344,8 @@ func TestExpectedReadingRoundTrip(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			pSpec, _ := Predict(cc.g, cc.f)
-			corr, err := Correct(cal.Geometry, TrimTarget{Inductance: pSpec.Inductance, Frequency: cc.f}, CorrectOptions{Tolerance: 0.005})
+			pSpec, _ := coil.Predict(cc.g, cc.f)
+			corr, err := Correct(cal.Geometry, Target{Inductance: pSpec.Inductance, Frequency: cc.f}, CorrectOptions{Tolerance: 0.005})
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -380,7 +381,7 @@ func TestExpectedReadingRoundTrip(t *testing.T) {
 func TestCorrectWindowOverflow(t *testing.T) {
 	t.Parallel()
 	g := vhfExample()
-	least, most, err := Window(g, 145e6)
+	least, most, err := coil.Window(g, 145e6)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -399,7 +400,7 @@ func TestCorrectWindowOverflow(t *testing.T) {
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
-			tgt := TrimTarget{Inductance: tc.target, Frequency: 145e6}
+			tgt := Target{Inductance: tc.target, Frequency: 145e6}
 			c, err := Correct(g, tgt, CorrectOptions{Tolerance: 0.005})
 			if err != nil {
 				t.Fatal(err)
@@ -414,7 +415,7 @@ func TestCorrectWindowOverflow(t *testing.T) {
 				t.Errorf("after %v, target %v (rel err %.2g)", c.After, tc.target, e)
 			}
 			do := float64(g.WireDiameter)
-			if p := float64(c.Geometry.Pitch); p < do*(1-1e-9) || p > LoosestPitchFactor*do*(1+1e-9) {
+			if p := float64(c.Geometry.Pitch); p < do*(1-1e-9) || p > coil.LoosestPitchFactor*do*(1+1e-9) {
 				t.Errorf("pitch %v outside the window", c.Geometry.Pitch)
 			}
 			// The fewest turns changed: one quarter turn less is not enough.
@@ -429,7 +430,7 @@ func TestCorrectWindowOverflow(t *testing.T) {
 			if c.Action == ActionRemoveTurns && c.Geometry.Turns+0.25 < g.Turns {
 				h := c.Geometry
 				h.Turns += 0.25
-				h.Pitch = unit.Length(LoosestPitchFactor * do)
+				h.Pitch = unit.Length(coil.LoosestPitchFactor * do)
 				if v, _ := tgt.Of(h); v <= tc.target {
 					t.Errorf("%g turns at the loosest reach %v already", h.Turns, v)
 				}
@@ -443,8 +444,8 @@ func TestCorrectWindowOverflow(t *testing.T) {
 func TestCorrectRounding(t *testing.T) {
 	t.Parallel()
 	g := vhfExample()
-	p, _ := Predict(g, 0)
-	tgt := TrimTarget{Inductance: p.Inductance * 0.93}
+	p, _ := coil.Predict(g, 0)
+	tgt := Target{Inductance: p.Inductance * 0.93}
 	steps := []unit.Length{0.1e-3, 0.05e-3, 0.02e-3, 0.01e-3}
 	for _, tol := range []float64{0.005, 0.001, 0.0001} {
 		c, err := Correct(g, tgt, CorrectOptions{Tolerance: tol, LengthSteps: steps})
@@ -480,7 +481,7 @@ func TestCorrectRounding(t *testing.T) {
 		}
 	}
 	// Inside tolerance: nothing to do.
-	c, err := Correct(g, TrimTarget{Inductance: p.Inductance * 1.003}, CorrectOptions{Tolerance: 0.005, LengthSteps: steps})
+	c, err := Correct(g, Target{Inductance: p.Inductance * 1.003}, CorrectOptions{Tolerance: 0.005, LengthSteps: steps})
 	if err != nil || c.Action != ActionNone || c.Geometry != g {
 		t.Errorf("within tolerance: %s, %v", c.Action, err)
 	}
@@ -491,7 +492,7 @@ func TestCalibrateOutOfRange(t *testing.T) {
 	t.Parallel()
 	for _, l := range []unit.Inductance{1e-9, 1e-6} {
 		_, err := Calibrate(vhfExample(), Measurement{Kind: MeasureDirect, Inductance: l, MeterTolerance: 0.02})
-		var ie *InputError
+		var ie *coil.InputError
 		if !errors.As(err, &ie) || ie.Param != "measured_inductance" {
 			t.Errorf("%v: err = %v", l, err)
 		}
@@ -509,12 +510,12 @@ func TestCorrectInfeasible(t *testing.T) {
 	t.Parallel()
 	g := vhfExample()
 	// 10 µH at 145 MHz: long before that many turns the SRF falls below.
-	_, err := Correct(g, TrimTarget{Inductance: 10e-6, Frequency: 145e6}, CorrectOptions{Tolerance: 0.005})
-	if !errors.Is(err, ErrInfeasible) {
+	_, err := Correct(g, Target{Inductance: 10e-6, Frequency: 145e6}, CorrectOptions{Tolerance: 0.005})
+	if !errors.Is(err, coil.ErrInfeasible) {
 		t.Errorf("err = %v, want ErrInfeasible", err)
 	}
-	_, err = Correct(g, TrimTarget{Inductance: 0.1e-9}, CorrectOptions{Tolerance: 0.005})
-	if !errors.Is(err, ErrInfeasible) {
+	_, err = Correct(g, Target{Inductance: 0.1e-9}, CorrectOptions{Tolerance: 0.005})
+	if !errors.Is(err, coil.ErrInfeasible) {
 		t.Errorf("err = %v, want ErrInfeasible", err)
 	}
 }
@@ -561,8 +562,8 @@ func TestReduceUncertaintyFirstOrder(t *testing.T) {
 func TestSelfCapacitanceAtTerminals(t *testing.T) {
 	t.Parallel()
 	// 3 turns on 5 mm with 25 mm leads: the leads are half the inductance.
-	g := Geometry{FormerDiameter: 5e-3, WireDiameter: 1e-3, Turns: 3, Pitch: 2e-3, LeadLength: 25e-3}
-	p0, err := Predict(g, 0)
+	g := coil.Geometry{FormerDiameter: 5e-3, WireDiameter: 1e-3, Turns: 3, Pitch: 2e-3, LeadLength: 25e-3}
+	p0, err := coil.Predict(g, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -570,7 +571,7 @@ func TestSelfCapacitanceAtTerminals(t *testing.T) {
 	// far below the SRF, (L_eff/L − 1)/(ω²L), whose next term is of order
 	// (f/SRF)² = 1e-4.
 	f := float64(p0.SRF) / 100
-	p, err := Predict(g, unit.Frequency(f))
+	p, err := coil.Predict(g, unit.Frequency(f))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -603,13 +604,13 @@ func TestSelfCapacitanceAtTerminals(t *testing.T) {
 // meter's frequency, not a capacitor.
 func TestCalibrateMeterFrequencyTooHigh(t *testing.T) {
 	t.Parallel()
-	p, err := Predict(vhfExample(), 0)
+	p, err := coil.Predict(vhfExample(), 0)
 	if err != nil {
 		t.Fatal(err)
 	}
 	_, err = Calibrate(vhfExample(), Measurement{Kind: MeasureDirect, Inductance: p.Inductance, TestFrequency: p.SRF, MeterTolerance: 0.02})
-	var ie *InputError
+	var ie *coil.InputError
 	if !errors.As(err, &ie) || ie.Param != "test_frequency" {
-		t.Errorf("err = %v, want *InputError for test_frequency", err)
+		t.Errorf("err = %v, want *coil.InputError for test_frequency", err)
 	}
 }

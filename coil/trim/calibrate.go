@@ -1,8 +1,9 @@
-package coil
+package trim
 
 import (
 	"errors"
 	"math"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -38,8 +39,8 @@ type sense struct {
 func (r Reading) sense() sense { return sense{r.Frequency, r.Effective} }
 
 // of evaluates the model for g in this sense.
-func (s sense) of(g Geometry) (float64, error) {
-	p, err := Predict(g, s.freq)
+func (s sense) of(g coil.Geometry) (float64, error) {
+	p, err := coil.Predict(g, s.freq)
 	if err != nil {
 		return 0, err
 	}
@@ -54,7 +55,7 @@ type Calibration struct {
 	Reading Reading
 	// Geometry is the coil as built (its own leads, no fixture) with the
 	// fitted springback.
-	Geometry Geometry
+	Geometry coil.Geometry
 	// Springback is the fitted springback: the one that makes the model
 	// agree with the reading. It stands for everything the model does not
 	// see (the bore's real growth, lead bends, uneven pitch), folded into
@@ -97,7 +98,7 @@ type Calibration struct {
 // builder's assumption) and fits the springback that makes the model
 // agree. A reading no springback in MinSpringback … MaxSpringback can
 // explain is an *InputError: the coil description or the reading is wrong.
-func Calibrate(g Geometry, m Measurement) (Calibration, error) {
+func Calibrate(g coil.Geometry, m Measurement) (Calibration, error) {
 	var c Calibration
 	if err := g.Validate(); err != nil {
 		return c, err
@@ -134,7 +135,7 @@ func Calibrate(g Geometry, m Measurement) (Calibration, error) {
 		return c, readingError(r, err)
 	}
 	c.Residual = got/want - 1
-	pm, err := Predict(gm, r.Frequency)
+	pm, err := coil.Predict(gm, r.Frequency)
 	if err != nil {
 		return c, readingError(r, err)
 	}
@@ -144,7 +145,7 @@ func Calibrate(g Geometry, m Measurement) (Calibration, error) {
 	cal.Springback = s
 	c.Geometry = cal
 	c.EffectiveDiameter = cal.MeanDiameter()
-	p, err := Predict(cal, r.Frequency)
+	p, err := coil.Predict(cal, r.Frequency)
 	if err != nil {
 		return c, readingError(r, err)
 	}
@@ -162,7 +163,7 @@ func Calibrate(g Geometry, m Measurement) (Calibration, error) {
 // L_eff = L_leads + L_coil/(1 − (f/SRF)²), the first-order term is
 // ω²·L_coil/ω_SRF², so C_t = L_coil/(L·ω_SRF)², which is C_s·(L_coil/L)²
 // up to the skin effect's change of L_coil between f and the SRF.
-func terminalSelfCapacitance(p Prediction) unit.Capacitance {
+func terminalSelfCapacitance(p coil.Prediction) unit.Capacitance {
 	ws := twoPi * float64(p.SRF)
 	l := float64(p.Inductance)
 	return unit.Capacitance(float64(p.InductanceCoilAtF) / (l * l * ws * ws))
@@ -170,12 +171,12 @@ func terminalSelfCapacitance(p Prediction) unit.Capacitance {
 
 // readingError explains a model failure at the reading's frequency.
 func readingError(r Reading, err error) error {
-	var ie *InputError
+	var ie *coil.InputError
 	if errors.As(err, &ie) && ie.Param == "frequency" {
 		if r.Kind == MeasureDirect {
-			return inputErrorf("test_frequency", "the meter's test frequency %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use the reading; measure at a lower test frequency", fmtHz(float64(r.Frequency)))
+			return inputErrorf("test_frequency", "the meter's test frequency %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use the reading; measure at a lower test frequency", coil.FormatFrequency(float64(r.Frequency)))
 		}
-		return inputErrorf("resonance", "the reading at %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use it; measure with a larger capacitor (a lower frequency)", fmtHz(float64(r.Frequency)))
+		return inputErrorf("resonance", "the reading at %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use it; measure with a larger capacitor (a lower frequency)", coil.FormatFrequency(float64(r.Frequency)))
 	}
 	return err
 }
@@ -183,7 +184,7 @@ func readingError(r Reading, err error) error {
 // springbackValue evaluates the model at springback s; a frequency at or
 // above the self-resonance (large s) counts as +Inf, where the apparent
 // inductance is heading.
-func springbackValue(g Geometry, sn sense, s float64) float64 {
+func springbackValue(g coil.Geometry, sn sense, s float64) float64 {
 	g.Springback = s
 	v, err := sn.of(g)
 	if err != nil {
@@ -194,7 +195,7 @@ func springbackValue(g Geometry, sn sense, s float64) float64 {
 
 // fitSpringback solves model(s) = want for s; the model grows with s (a
 // larger diameter, more inductance and self-capacitance).
-func fitSpringback(g Geometry, sn sense, want float64) (float64, error) {
+func fitSpringback(g coil.Geometry, sn sense, want float64) (float64, error) {
 	return bisectSpringback(func(s float64) float64 { return springbackValue(g, sn, s) }, want, "measured_inductance", "this coil")
 }
 
@@ -202,15 +203,15 @@ func fitSpringback(g Geometry, sn sense, want float64) (float64, error) {
 // MaxSpringback, value rising with s. A want outside the range is an
 // *InputError for param; what names the thing measured ("this coil").
 func bisectSpringback(value func(s float64) float64, want float64, param, what string) (float64, error) {
-	lo, hi := MinSpringback, MaxSpringback
+	lo, hi := coil.MinSpringback, coil.MaxSpringback
 	vlo, vhi := value(lo), value(hi)
 	if want < vlo {
 		return 0, inputErrorf(param, "%s is less than %s can be even if its bore were 20 %% smaller than the mandrel (%s): check the turns, length and leads, and the reading's unit",
-			fmtH(want), what, fmtH(vlo))
+			coil.FormatInductance(want), what, coil.FormatInductance(vlo))
 	}
 	if want > vhi {
 		return 0, inputErrorf(param, "%s is more than %s can be even with 50 %% springback (%s): check the turns, length and leads, and the reading's unit",
-			fmtH(want), what, fmtH(vhi))
+			coil.FormatInductance(want), what, coil.FormatInductance(vhi))
 	}
 	for range 100 {
 		mid := (lo + hi) / 2
@@ -227,22 +228,22 @@ func bisectSpringback(value func(s float64) float64, want float64, param, what s
 }
 
 // fitSpringbackClamped is fitSpringback held to the springback limits.
-func fitSpringbackClamped(g Geometry, sn sense, want float64) float64 {
+func fitSpringbackClamped(g coil.Geometry, sn sense, want float64) float64 {
 	s, err := fitSpringback(g, sn, want)
 	if err == nil {
 		return s
 	}
-	if want < springbackValue(g, sn, MinSpringback) {
-		return MinSpringback
+	if want < springbackValue(g, sn, coil.MinSpringback) {
+		return coil.MinSpringback
 	}
-	return MaxSpringback
+	return coil.MaxSpringback
 }
 
-// TrimTarget is the inductance a trim aims for, read in one sense of the
+// Target is the inductance a trim aims for, read in one sense of the
 // model: the terminal inductance at Frequency (zero for low frequency) or,
 // when Effective, the effective inductance there (self-capacitance
 // included), which is what a resonance with a fixed capacitor depends on.
-type TrimTarget struct {
+type Target struct {
 	Inductance unit.Inductance
 	Frequency  unit.Frequency
 	Effective  bool
@@ -250,12 +251,12 @@ type TrimTarget struct {
 
 // ResonanceTarget is the target that makes a coil resonate at f with c
 // across its terminals: an effective inductance of 1/(ω²c) at f.
-func ResonanceTarget(f unit.Frequency, c unit.Capacitance) TrimTarget {
-	return TrimTarget{Inductance: InductanceForResonance(f, c), Frequency: f, Effective: true}
+func ResonanceTarget(f unit.Frequency, c unit.Capacitance) Target {
+	return Target{Inductance: coil.InductanceForResonance(f, c), Frequency: f, Effective: true}
 }
 
 // Of is the model's value for g in the target's sense.
-func (t TrimTarget) Of(g Geometry) (unit.Inductance, error) {
+func (t Target) Of(g coil.Geometry) (unit.Inductance, error) {
 	v, err := sense{t.Frequency, t.Effective}.of(g)
 	return unit.Inductance(v), err
 }

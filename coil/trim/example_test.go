@@ -1,4 +1,4 @@
-package coil_test
+package trim_test
 
 import (
 	"fmt"
@@ -6,6 +6,7 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
+	"turnwise/coil/trim"
 )
 
 // A coil meant to be 101.5 nH (the model's value for 5 turns of 1 mm wire
@@ -14,8 +15,8 @@ import (
 // says how far to spread it.
 func ExampleCalibrate() {
 	g := coil.Geometry{FormerDiameter: 6e-3, WireDiameter: 1e-3, Turns: 5, Pitch: 1.75e-3, LeadLength: 5e-3}
-	m := coil.Measurement{Kind: coil.MeasureDirect, Inductance: 106e-9, MeterTolerance: 0.02}
-	cal, err := coil.Calibrate(g, m)
+	m := trim.Measurement{Kind: trim.MeasureDirect, Inductance: 106e-9, MeterTolerance: 0.02}
+	cal, err := trim.Calibrate(g, m)
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -23,8 +24,8 @@ func ExampleCalibrate() {
 	fmt.Printf("springback %.3g %% (%.3g … %.3g %%), wire-centre diameter %.3g mm\n",
 		cal.Springback*100, cal.SpringbackLow*100, cal.SpringbackHigh*100, float64(cal.EffectiveDiameter)*1e3)
 
-	c, err := coil.Correct(cal.Geometry, coil.TrimTarget{Inductance: 101.5e-9},
-		coil.CorrectOptions{Tolerance: 0.005, LengthSteps: []unit.Length{0.1e-3}})
+	c, err := trim.Correct(cal.Geometry, trim.Target{Inductance: 101.5e-9},
+		trim.CorrectOptions{Tolerance: 0.005, LengthSteps: []unit.Length{0.1e-3}})
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -38,9 +39,9 @@ func ExampleCalibrate() {
 // The two-capacitor method: two resonances give L and the capacitance
 // already across the coil.
 func ExampleMeasurement_Reduce() {
-	m := coil.Measurement{
-		Kind:               coil.MeasureTwoCapacitor,
-		Resonances:         []coil.Resonance{{Frequency: 10e6, Capacitance: 100e-12}, {Frequency: 5.2e6, Capacitance: 400e-12}},
+	m := trim.Measurement{
+		Kind:               trim.MeasureTwoCapacitor,
+		Resonances:         []trim.Resonance{{Frequency: 10e6, Capacitance: 100e-12}, {Frequency: 5.2e6, Capacitance: 400e-12}},
 		CapacitorTolerance: 0.01,
 		FrequencyTolerance: 0.001,
 	}

@@ -1,0 +1,26 @@
+package trim
+
+import (
+	"fmt"
+	"math"
+
+	"turnwise/coil"
+)
+
+// twoPi is 2π.
+const twoPi = 2 * math.Pi
+
+// inputErrorf is bad input for the field param, as *coil.InputError so
+// that callers map every package's input errors the same way.
+func inputErrorf(param, format string, args ...any) error {
+	return &coil.InputError{Param: param, Reason: fmt.Sprintf(format, args...)}
+}
+
+// infeasibleError is a valid request no coil meets; errors.Is finds
+// coil.ErrInfeasible.
+type infeasibleError struct{ msg string }
+
+func (e *infeasibleError) Error() string        { return e.msg }
+func (e *infeasibleError) Is(target error) bool { return target == coil.ErrInfeasible }
+
+func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
