@@ -163,36 +163,16 @@ type trimCoil struct {
 	jobEntry *forms.JobCoil
 }
 
-// trimResult is everything the command works out, for the table and JSON.
+// trimResult is the library's result with what the writers need besides:
+// the coil's description, the measurement as given and the display units.
 type trimResult struct {
-	tc             trimCoil
-	meas           trim.Measurement
-	viaFlag        string // the flag the measurement came from
-	spec           coil.Prediction
-	cal            trim.Calibration
-	target         trim.Target
-	targetFrom     string // "given", "model", "resonance"
-	resonanceF     unit.Frequency
-	resonanceC     unit.Capacitance
-	afterResonance unit.Frequency // resonance with resonanceC after the change
-	tolerance      float64
-	corr           trim.Correction
-	next           trim.Expected
-	nextPred       coil.Prediction // the corrected coil at --freq
-	tap            *tapResult
-	instruction    string
-	warnings       []string
-	saved          *savedCalibration
-	lf             lengthFormatter
-}
-
-type tapResult struct {
-	turns, newTurns       float64
-	wantRatio             float64
-	ratioBefore, ratioNow float64 // as built (with the measured offset), after the change
-	offset                float64 // measured − model ratio; 0 without both sections
-	outOfReach            bool    // wantRatio lies beyond every quarter-turn tap
-	sections              *trim.SectionCalibration
+	*trim.Result
+	tc          trimCoil
+	meas        trim.Measurement
+	instruction string
+	warnings    []string
+	saved       *savedCalibration
+	lf          lengthFormatter
 }
 
 func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
@@ -227,20 +207,18 @@ func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) err
 	return nil
 }
 
-// trimCompute runs the calibration, the correction and the tap.
+// trimCompute is the trim itself: the request from the flags, one call to
+// trim.Plan, and the flag each input error belongs to.
 func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string) (*trimResult, error) {
-	res := &trimResult{tc: tc, meas: m, viaFlag: via, lf: newLengthFormatter(opts.units.v), tolerance: opts.tolerance.v}
-	g := tc.spec.Geometry
-	p, err := coil.Predict(g, tc.freq)
-	if err != nil {
-		return nil, tc.coilError(opts, err)
+	lf := newLengthFormatter(opts.units.v)
+	req := trim.Request{
+		Geometry:    tc.spec.Geometry,
+		Frequency:   tc.freq,
+		Measurement: m,
+		Tolerance:   opts.tolerance.v,
+		LengthSteps: trim.LengthSteps(lf.Inches),
+		OnFormer:    tc.spec.SupportKind == "former",
 	}
-	res.spec = p
-	res.cal, err = trim.Calibrate(g, m)
-	if err != nil {
-		return nil, opts.measureError(via, tc, err)
-	}
-
 	switch {
 	case opts.target.isFreq:
 		if !opts.circuitCap.set {
@@ -249,51 +227,26 @@ func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string)
 		if !(opts.target.f > 0) {
 			return nil, usageErrorf("--target %s: a resonance to aim for must be a positive frequency, e.g. 145MHz", opts.target.raw)
 		}
-		res.target = trim.ResonanceTarget(opts.target.f, opts.circuitCap.v)
-		res.targetFrom, res.resonanceF, res.resonanceC = "resonance", opts.target.f, opts.circuitCap.v
+		req.Aim = trim.Aim{Source: trim.TargetResonance, Resonance: opts.target.f, Capacitance: opts.circuitCap.v}
 	case opts.target.set:
-		res.target = trim.Target{Inductance: opts.target.l, Frequency: tc.freq}
-		res.targetFrom = "given"
-	default:
-		res.target = trim.Target{Inductance: p.Inductance, Frequency: tc.freq}
-		res.targetFrom = "model"
-	}
-	res.corr, err = trim.Correct(res.cal.Geometry, res.target, trim.CorrectOptions{
-		Tolerance:   opts.tolerance.v,
-		LengthSteps: lengthSteps(res.lf),
-	})
-	if err != nil {
-		var ie *coil.InputError
-		switch {
-		case errors.As(err, &ie) && ie.Param == "target":
-			return nil, &flagError{"target", err}
-		case errors.As(err, &ie) && ie.Param == "frequency" && res.targetFrom == "resonance":
-			return nil, &flagError{"target", err}
-		case errors.As(err, &ie) && ie.Param == "frequency":
-			return nil, &flagError{"freq", err}
-		case errors.Is(err, coil.ErrInfeasible):
-			return nil, fmt.Errorf("no squeeze, spread or turns change reaches the target: %w", err)
-		}
-		return nil, err
-	}
-	res.next, err = trim.ExpectedReading(res.corr.Geometry, res.cal, m)
-	if err != nil {
-		return nil, opts.measureError(via, tc, err)
-	}
-	res.nextPred, err = coil.Predict(res.corr.Geometry, tc.freq)
-	if err != nil {
-		return nil, &flagError{"freq", err}
-	}
-	if res.targetFrom == "resonance" {
-		if f, err := trim.ResonanceWith(res.corr.Geometry, res.resonanceC); err == nil {
-			res.afterResonance = f
-		}
+		req.Aim = trim.Aim{Source: trim.TargetGiven, Inductance: opts.target.l}
 	}
 	if tc.tapTurns != nil {
-		if res.tap, err = opts.trimTap(tc, res); err != nil {
-			return nil, err
+		section := func(f inductanceFlag) *trim.Measurement {
+			if !f.set {
+				return nil
+			}
+			return &trim.Measurement{Kind: trim.MeasureDirect, Inductance: f.v, TestFrequency: opts.meterFreq.v,
+				FixtureInductance: opts.fixtureL.v, MeterTolerance: opts.meterTol.v, FixtureLeadLength: opts.fixtureLeads.v}
 		}
+		req.Tap = &trim.TapRequest{Turns: *tc.tapTurns, Ratio: tc.tapRatio,
+			Bottom: section(opts.measuredBottom), Top: section(opts.measuredTop)}
 	}
+	plan, err := trim.Plan(req)
+	if err != nil {
+		return nil, opts.trimError(via, tc, err)
+	}
+	res := &trimResult{Result: plan, tc: tc, meas: m, lf: lf}
 	res.instruction = trimInstruction(res)
 	res.warnings = trimWarnings(res)
 	return res, nil
@@ -547,13 +500,18 @@ func (tc trimCoil) coilError(o *trimOptions, err error) error {
 	return o.coil.attachFlag(err, tc.spec.SupportKind, tc.spec.PitchSource)
 }
 
-// measureError names the flag a measurement error belongs to.
-func (o *trimOptions) measureError(via string, tc trimCoil, err error) error {
+// trimError names the flag (or job key) an error of trim.Plan belongs to.
+// via is the flag the measurement came from.
+func (o *trimOptions) trimError(via string, tc trimCoil, err error) error {
 	var ie *coil.InputError
 	if !errors.As(err, &ie) {
 		return err
 	}
 	flag := map[string]string{
+		"frequency":           "freq",
+		"target":              "target",
+		"tap_turns":           "tap",
+		"tap_ratio":           "tap-ratio",
 		"measured_inductance": via,
 		"resonance":           via,
 		"capacitance":         via,
@@ -565,86 +523,11 @@ func (o *trimOptions) measureError(via string, tc trimCoil, err error) error {
 		"fixture_lead_length": "fixture-leads",
 		"measured_bottom":     "measured-bottom",
 		"measured_top":        "measured-top",
-		"tap_turns":           "tap",
 	}[ie.Param]
 	if flag == "" {
 		return tc.coilError(o, err)
 	}
 	return &flagError{flag, err}
-}
-
-// trimTap calibrates the sections and finds where the tap goes.
-func (o *trimOptions) trimTap(tc trimCoil, res *trimResult) (*tapResult, error) {
-	n := *tc.tapTurns
-	g := tc.spec.Geometry
-	if n <= 0 || n >= g.Turns {
-		return nil, &flagError{"tap", fmt.Errorf("%g is not on the winding: a tap goes more than 0 and less than %g turns from the cold end", n, g.Turns)}
-	}
-	specTap, err := coil.Tap(g, n, tc.freq)
-	if err != nil {
-		return nil, trimTapError(err)
-	}
-	t := &tapResult{turns: n, wantRatio: specTap.Ratio}
-	if tc.tapRatio != nil {
-		t.wantRatio = *tc.tapRatio
-	}
-	section := func(f inductanceFlag) *trim.Measurement {
-		if !f.set {
-			return nil
-		}
-		return &trim.Measurement{Kind: trim.MeasureDirect, Inductance: f.v, TestFrequency: o.meterFreq.v,
-			FixtureInductance: o.fixtureL.v, MeterTolerance: o.meterTol.v, FixtureLeadLength: o.fixtureLeads.v}
-	}
-	bottom, top := section(o.measuredBottom), section(o.measuredTop)
-	if bottom != nil || top != nil {
-		sc, err := trim.CalibrateSections(res.cal, n, bottom, top)
-		if err != nil {
-			return nil, o.measureError("measured-bottom", tc, err)
-		}
-		t.sections = &sc
-		if sc.MeasuredRatio != 0 {
-			t.offset = sc.MeasuredRatio - sc.ModelRatio
-		}
-	}
-	built, err := coil.Tap(res.cal.Geometry, n, tc.freq)
-	if err != nil {
-		return nil, trimTapError(err)
-	}
-	t.ratioBefore = built.Ratio + t.offset
-	want := t.wantRatio - t.offset
-	if !(want > 0 && want < 1) {
-		return nil, &flagError{"tap-ratio", fmt.Errorf("the ratio %.3g less the measured offset %+.3g is outside 0 … 1", t.wantRatio, t.offset)}
-	}
-	choice, err := trim.MoveTap(res.corr.Geometry, tc.freq, want)
-	if err != nil && choice.TapTurns == 0 {
-		return nil, trimTapError(err)
-	}
-	t.newTurns, t.ratioNow = choice.TapTurns, choice.Ratio+t.offset
-	// FindTap returns an end tap for a ratio beyond every tap on the winding.
-	last := res.corr.Geometry.Turns - 0.25
-	t.outOfReach = (choice.TapTurns <= 0.25 && want < choice.Ratio) || (choice.TapTurns >= last && want > choice.Ratio)
-	return t, nil
-}
-
-func trimTapError(err error) error {
-	var ie *coil.InputError
-	if errors.As(err, &ie) && ie.Param == "tap_turns" {
-		return &flagError{"tap", err}
-	}
-	if errors.As(err, &ie) && ie.Param == "target" {
-		return &flagError{"tap-ratio", err}
-	}
-	return err
-}
-
-// lengthSteps are the resolutions a builder sets an outside length to,
-// coarsest first: 0.1 mm with calipers on a springy coil, finer only when
-// the coil is so sensitive that 0.1 mm misses the tolerance.
-func lengthSteps(lf lengthFormatter) []unit.Length {
-	if lf.Inches {
-		return []unit.Length{0.005 * 0.0254, 0.002 * 0.0254, 0.001 * 0.0254}
-	}
-	return []unit.Length{0.1e-3, 0.05e-3, 0.02e-3, 0.01e-3}
 }
 
 // targetFlag takes an inductance (48nH) or a resonance frequency (145MHz).

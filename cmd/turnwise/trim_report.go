@@ -10,7 +10,6 @@ import (
 
 	"gonum.org/v1/gonum/unit"
 
-	"turnwise/coil"
 	"turnwise/coil/trim"
 	"turnwise/forms"
 )
@@ -54,9 +53,9 @@ func quarterTurns(d float64) string { return turnsWord(math.Abs(d)) }
 
 // expectText is the predicted value after the change, in the target's terms.
 func expectText(res *trimResult) string {
-	c := res.corr
-	if res.targetFrom == "resonance" && res.afterResonance > 0 {
-		return fmt.Sprintf("resonance at %s", eng(float64(res.afterResonance), "Hz", 4))
+	c := res.Correction
+	if res.Aim.Source == trim.TargetResonance && res.AfterResonance > 0 {
+		return fmt.Sprintf("resonance at %s", eng(float64(res.AfterResonance), "Hz", 4))
 	}
 	// Three figures, but at least one decimal: "131 nH" for 130.6 nH would
 	// read as a 0.8 % miss of a 130 nH target that the 0.5 % rounding met.
@@ -64,7 +63,7 @@ func expectText(res *trimResult) string {
 	if !strings.Contains(after, ".") {
 		after = eng(float64(c.After), "H", 4)
 	}
-	if f := res.target.Frequency; f > 0 {
+	if f := res.Target.Frequency; f > 0 {
 		return after + " at " + eng(float64(f), "Hz", 4)
 	}
 	return after
@@ -72,41 +71,40 @@ func expectText(res *trimResult) string {
 
 // trimInstruction is the one clear sentence a builder acts on.
 func trimInstruction(res *trimResult) string {
-	c := res.corr
+	c := res.Correction
 	lf := res.lf
 	step := c.LengthStep
 	var s string
 	switch c.Action {
 	case trim.ActionNone:
-		miss := float64(c.Before)/float64(c.Target) - 1
-		if math.Abs(miss) <= res.tolerance {
-			s = fmt.Sprintf("leave it: %s is within %s of the target %s", eng(float64(c.Before), "H", 3), pct(res.tolerance), eng(float64(c.Target), "H", 3))
+		if res.OnTarget {
+			s = fmt.Sprintf("leave it: %s is within %s of the target %s", eng(float64(c.Before), "H", 3), pct(res.Tolerance), eng(float64(c.Target), "H", 3))
 		} else {
-			s = fmt.Sprintf("leave it: the change is smaller than you can set; %s is %+.1f %% from the target", eng(float64(c.Before), "H", 3), miss*100)
+			s = fmt.Sprintf("leave it: the change is smaller than you can set; %s is %+.1f %% from the target", eng(float64(c.Before), "H", 3), res.Miss*100)
 		}
 	case trim.ActionSqueeze, trim.ActionSpread:
 		s = fmt.Sprintf("%s from %s to %s outside length; expect %s", c.Action, fmtLenStep(lf, float64(c.LengthBefore), step),
 			fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	case trim.ActionAddTurns:
 		s = fmt.Sprintf("rewind with %s (%s more) at %s outside length; expect %s", turnsWord(c.Geometry.Turns),
-			quarterTurns(c.Geometry.Turns-res.cal.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
+			quarterTurns(c.Geometry.Turns-res.Calibration.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	case trim.ActionRemoveTurns:
 		end := ""
-		if res.tap != nil {
+		if res.Tap != nil {
 			end = " at the hot end" // the tap counts from the cold end
 		}
-		s = fmt.Sprintf("remove %s%s (%s left) and set %s outside length; expect %s", quarterTurns(res.cal.Geometry.Turns-c.Geometry.Turns), end,
+		s = fmt.Sprintf("remove %s%s (%s left) and set %s outside length; expect %s", quarterTurns(res.Calibration.Geometry.Turns-c.Geometry.Turns), end,
 			turnsWord(c.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	}
-	if t := res.tap; t != nil && t.newTurns != t.turns {
-		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", fmtTurns(t.turns), turnsWord(t.newTurns))
+	if t := res.Tap; t != nil && t.Moves() {
+		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", fmtTurns(t.Turns), turnsWord(t.NewTurns))
 	}
 	return s
 }
 
 // nextText says what the same measurement should read after the change.
 func nextText(res *trimResult) string {
-	m, e := res.meas, res.next
+	m, e := res.meas, res.Next
 	switch m.Kind {
 	case trim.MeasureDirect:
 		s := "the meter should read " + eng(float64(e.Inductance), "H", 3)
@@ -129,61 +127,45 @@ func nextText(res *trimResult) string {
 	return "expect " + strings.Join(parts, ", ")
 }
 
-// trimWarnings collects what the builder should know, most important first.
+// trimWarnings words the library's findings, then the model's warnings
+// for the corrected coil.
 func trimWarnings(res *trimResult) []string {
-	var w []string
-	cal, r := res.cal, res.cal.Reading
-	kind := res.tc.spec.SupportKind
-	switch {
-	case kind == "mandrel" && (cal.Springback < -0.02 || cal.Springback > 0.15):
-		w = append(w, fmt.Sprintf("the fitted springback %s is unusual for wire released from a mandrel (a few percent is typical; common practice): check --turns, --length, --leads and the fixture before trusting or saving it", pct(cal.Springback)))
-	case kind == "former" && math.Abs(cal.Springback) > 0.03:
-		w = append(w, fmt.Sprintf("a coil left on its former does not spring back: the fitted %s stands for model and measurement error (leads, uneven pitch, fixture); check them before saving it", pct(cal.Springback)))
+	w := []string{}
+	for _, f := range res.Findings {
+		w = append(w, findingText(res, f))
 	}
-	miss := float64(res.corr.Before)/float64(res.corr.Target) - 1
-	if res.corr.Action != trim.ActionNone && math.Abs(miss) < r.Uncertainty {
-		w = append(w, fmt.Sprintf("the coil misses the target by %+.1f %%, less than the measurement's own uncertainty (±%.1f %%): the change may not be needed; measure more precisely first", miss*100, r.Uncertainty*100))
+	return append(w, res.After.Warnings()...)
+}
+
+// findingText is one finding in the builder's words.
+func findingText(res *trimResult, f trim.Finding) string {
+	switch f.Kind {
+	case trim.SpringbackUnusual:
+		return fmt.Sprintf("the fitted springback %s is unusual for wire released from a mandrel (a few percent is typical; common practice): check --turns, --length, --leads and the fixture before trusting or saving it", pct(f.Value))
+	case trim.SpringbackOnFormer:
+		return fmt.Sprintf("a coil left on its former does not spring back: the fitted %s stands for model and measurement error (leads, uneven pitch, fixture); check them before saving it", pct(f.Value))
+	case trim.MissWithinUncertainty:
+		return fmt.Sprintf("the coil misses the target by %+.1f %%, less than the measurement's own uncertainty (±%.1f %%): the change may not be needed; measure more precisely first", f.Value*100, f.Limit*100)
+	case trim.NoStray:
+		return "no fixture stray given (--stray): 0 pF assumed; a probe or fixture adds some pF, which matters with a small test capacitor; the two-capacitor method (--resonance twice) measures it"
+	case trim.NegativeStray:
+		return fmt.Sprintf("the capacitance across the coil came out slightly negative (%s ± %s), within the readings' uncertainty: treat it as zero", signedFarads(f.Value), farads(f.Limit))
+	case trim.Scatter:
+		return fmt.Sprintf("the resonances scatter by %.2g %% about the fitted line, more than the frequency readings' accuracy: recheck the capacitor values", f.Value*100)
+	case trim.HighReadingFrequency:
+		return fmt.Sprintf("the reading at %s is above a third of the coil's self-resonance (%s): it leans on the self-capacitance estimate; a lower-frequency reading (a larger capacitor) calibrates better",
+			eng(f.Value, "Hz", 3), eng(f.Limit, "Hz", 3))
+	case trim.SectionDeparts:
+		name := map[trim.Section]string{trim.Bottom: "bottom (cold end to tap)", trim.Top: "top (tap to hot end)"}[f.Section]
+		return fmt.Sprintf("the %s section reads %+.1f %% against the rest of the coil, more than the readings' uncertainty: its turns are closer or wider than the rest, or the tap is not at %s",
+			name, f.Value*100, turnsWord(res.Tap.Turns))
+	case trim.TapOutOfReach:
+		t := res.Tap
+		return fmt.Sprintf("no quarter-turn tap gives the voltage ratio %.3f: the nearest, %s from the cold end, gives %.3f", t.WantRatio, turnsWord(t.NewTurns), t.RatioAfter)
+	case trim.NewWinding:
+		return fmt.Sprintf("adding turns means winding a new coil: cut %s of wire", res.lf.fmt(f.Value))
 	}
-	if res.meas.Kind == trim.MeasureResonance && res.meas.Stray == 0 {
-		w = append(w, "no fixture stray given (--stray): 0 pF assumed; a probe or fixture adds some pF, which matters with a small test capacitor; the two-capacitor method (--resonance twice) measures it")
-	}
-	if r.Kind == trim.MeasureTwoCapacitor && r.TotalStray < 0 {
-		w = append(w, fmt.Sprintf("the capacitance across the coil came out slightly negative (%s ± %s), within the readings' uncertainty: treat it as zero", signedFarads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
-	}
-	if r.Kind == trim.MeasureTwoCapacitor && r.FitResidual > 3*res.meas.FrequencyTolerance && r.FitResidual > 0.002 {
-		w = append(w, fmt.Sprintf("the resonances scatter by %.2g %% about the fitted line, more than the frequency readings' accuracy: recheck the capacitor values", r.FitResidual*100))
-	}
-	if f := float64(r.Frequency); f > 0 {
-		if p, err := coil.Predict(cal.Geometry, r.Frequency); err == nil && f > float64(p.SRF)/3 {
-			w = append(w, fmt.Sprintf("the reading at %s is above a third of the coil's self-resonance (%s): it leans on the self-capacitance estimate; a lower-frequency reading (a larger capacitor) calibrates better",
-				eng(f, "Hz", 3), eng(float64(p.SRF), "Hz", 3)))
-		}
-	}
-	if t := res.tap; t != nil && t.sections != nil {
-		for _, s := range []struct {
-			name string
-			fit  *trim.SectionFit
-		}{{"bottom (cold end to tap)", t.sections.Bottom}, {"top (tap to hot end)", t.sections.Top}} {
-			if s.fit == nil {
-				continue
-			}
-			if u := math.Hypot(s.fit.Reading.Uncertainty, r.Uncertainty); math.Abs(s.fit.Residual) > u {
-				w = append(w, fmt.Sprintf("the %s section reads %+.1f %% against the rest of the coil, more than the readings' uncertainty: its turns are closer or wider than the rest, or the tap is not at %s",
-					s.name, -s.fit.Residual/(1+s.fit.Residual)*100, turnsWord(t.turns)))
-			}
-		}
-	}
-	if t := res.tap; t != nil && t.outOfReach {
-		w = append(w, fmt.Sprintf("no quarter-turn tap gives the voltage ratio %.3f: the nearest, %s from the cold end, gives %.3f", t.wantRatio, turnsWord(t.newTurns), t.ratioNow))
-	}
-	if res.corr.Action == trim.ActionAddTurns {
-		w = append(w, fmt.Sprintf("adding turns means winding a new coil: cut %s of wire", res.lf.fmt(float64(res.nextPred.WireLength))))
-	}
-	w = append(w, res.nextPred.Warnings()...)
-	if w == nil {
-		w = []string{}
-	}
-	return w
+	return fmt.Sprintf("finding %d", f.Kind)
 }
 
 func kindText(k trim.MeasurementKind) string {
@@ -220,7 +202,7 @@ func targetSenseText(t trim.Target) string {
 
 func writeTrimTable(w io.Writer, res *trimResult) error {
 	lf := res.lf
-	cal, r, c, m := res.cal, res.cal.Reading, res.corr, res.meas
+	cal, r, c, m := res.Calibration, res.Calibration.Reading, res.Correction, res.meas
 	g := res.tc.spec.Geometry
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
@@ -261,12 +243,12 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	if r.Kind == trim.MeasureTwoCapacitor {
 		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", signedFarads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
 		sc := fmt.Sprintf("Medhurst %s", farads(float64(cal.SelfCapacitance)))
-		if ct := cal.SelfCapacitanceAtTerminals; math.Abs(float64(ct/cal.SelfCapacitance)-1) > 0.05 {
+		if ct := cal.SelfCapacitanceAtTerminals; res.SelfCapacitanceThroughLeads {
 			// Long leads: the line sees the self-capacitance through them.
 			sc = fmt.Sprintf("Medhurst %s across the winding, %s at the terminals through the leads", farads(float64(cal.SelfCapacitance)), farads(float64(ct)))
 		}
 		if m.Stray > 0 {
-			u := math.Hypot(float64(r.TotalStrayUncertainty), float64(m.StrayTolerance))
+			u := float64(res.MeasuredSelfCapacitanceUncertainty)
 			sc = fmt.Sprintf("%s ± %s measured (less --stray %s); %s", signedFarads(float64(cal.MeasuredSelfCapacitance)), farads(u), farads(float64(m.Stray)), sc)
 		}
 		row("self-capacitance", sc)
@@ -281,25 +263,23 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	case "calibration":
 		sbNote = "your saved springback " + sbPct(g.Springback)
 	}
-	row("the model expected", fmt.Sprintf("%s  (%s): the coil reads %+.1f %%", eng(float64(cal.ModelBefore), "H", 4), sbNote,
-		(float64(r.Inductance)/float64(cal.ModelBefore)-1)*100))
+	row("the model expected", fmt.Sprintf("%s  (%s): the coil reads %+.1f %%", eng(float64(cal.ModelBefore), "H", 4), sbNote, res.Deviation*100))
 
 	fmt.Fprintln(tw, "\nTHE COIL AS BUILT")
 	row("springback", fmt.Sprintf("%s  (%s … %s within the reading's uncertainty)", sbPct(cal.Springback), sbPct(cal.SpringbackLow), sbPct(cal.SpringbackHigh)))
 	row("effective diameter", fmt.Sprintf("%s wire-centre, bore %s", lf.fmt(float64(cal.EffectiveDiameter)), lf.fmt(float64(cal.Geometry.InsideDiameter()))))
-	row("inductance", fmt.Sprintf("%s  (%s)", eng(float64(c.Before), "H", 4), targetSenseText(res.target)))
+	row("inductance", fmt.Sprintf("%s  (%s)", eng(float64(c.Before), "H", 4), targetSenseText(res.Target)))
 
 	fmt.Fprintln(tw, "\nCORRECTION")
-	tgt := eng(float64(c.Target), "H", 4) + " " + targetSenseText(res.target)
-	switch res.targetFrom {
-	case "model":
+	tgt := eng(float64(c.Target), "H", 4) + " " + targetSenseText(res.Target)
+	switch res.Aim.Source {
+	case trim.TargetModel:
 		tgt += " (the model's value for the coil as specified)"
-	case "resonance":
-		tgt = fmt.Sprintf("resonance at %s with %s: %s", eng(float64(res.resonanceF), "Hz", 4), farads(float64(res.resonanceC)), tgt)
+	case trim.TargetResonance:
+		tgt = fmt.Sprintf("resonance at %s with %s: %s", eng(float64(res.Aim.Resonance), "Hz", 4), farads(float64(res.Aim.Capacitance)), tgt)
 	}
 	row("target", tgt)
-	_, loose := coil.WindowPitches(g)
-	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", eng(float64(c.WindowLeast), "H", 3), lf.fmt(float64(loose)),
+	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", eng(float64(c.WindowLeast), "H", 3), lf.fmt(float64(res.LoosePitch)),
 		eng(float64(c.WindowMost), "H", 3), fmtTurns(g.Turns)))
 	ng := c.Geometry
 	switch c.Action {
@@ -311,20 +291,20 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 			row("turns", fmt.Sprintf("%s, was %s", fmtTurns(ng.Turns), fmtTurns(g.Turns)))
 		}
 		row("outside length", fmt.Sprintf("%s (pitch %s), was %s", fmtLenStep(lf, float64(c.LengthAfter), c.LengthStep), lf.fmt(float64(ng.Pitch)), fmtLenStep(lf, float64(c.LengthBefore), c.LengthStep)))
-		row("predicted", fmt.Sprintf("%s  (%+.2f %% from the target)", eng(float64(c.After), "H", 4), (float64(c.After)/float64(c.Target)-1)*100))
+		row("predicted", fmt.Sprintf("%s  (%+.2f %% from the target)", eng(float64(c.After), "H", 4), res.MissAfter*100))
 	}
 	if c.LengthPerPercent > 0 {
 		row("fine trim", fmt.Sprintf("%s of outside length per 1 %% of L", lf.fmt(float64(c.LengthPerPercent))))
 	}
-	if t := res.tap; t != nil {
-		tapLine := fmt.Sprintf("%s from the cold end, voltage ratio %.3f (as built) → %.3f; wanted %.3f", turnsWord(t.newTurns), t.ratioBefore, t.ratioNow, t.wantRatio)
-		if t.newTurns != t.turns {
-			tapLine = "move from " + fmtTurns(t.turns) + " to " + tapLine
+	if t := res.Tap; t != nil {
+		tapLine := fmt.Sprintf("%s from the cold end, voltage ratio %.3f (as built) → %.3f; wanted %.3f", turnsWord(t.NewTurns), t.RatioBefore, t.RatioAfter, t.WantRatio)
+		if t.Moves() {
+			tapLine = "move from " + fmtTurns(t.Turns) + " to " + tapLine
 		} else {
 			tapLine = "stays at " + tapLine
 		}
 		row("tap", tapLine)
-		if s := t.sections; s != nil {
+		if s := t.Sections; s != nil {
 			for _, sec := range []struct {
 				name string
 				fit  *trim.SectionFit
@@ -478,7 +458,7 @@ type trimJSON struct {
 func ptr(v float64) *float64 { return &v }
 
 func writeTrimJSON(w io.Writer, res *trimResult) error {
-	cal, r, c, m := res.cal, res.cal.Reading, res.corr, res.meas
+	cal, r, c, m := res.Calibration, res.Calibration.Reading, res.Correction, res.meas
 	g := res.tc.spec.Geometry
 	d := trimJSON{Schema: schemaVersion, Instruction: res.instruction}
 	d.Measurement = trimMeasurementJSON{
@@ -517,13 +497,13 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 	d.EffectiveInsideDiameter = float64(cal.Geometry.InsideDiameter())
 	d.Residual = cal.Residual
 
-	d.TargetInductance, d.TargetFrequency = float64(c.Target), float64(res.target.Frequency)
-	d.TargetSense = map[bool]string{true: "effective", false: "terminal"}[res.target.Effective]
-	d.TargetSource = res.targetFrom
-	if res.targetFrom == "resonance" {
-		d.TargetResonance, d.TargetCapacitance = ptr(float64(res.resonanceF)), ptr(float64(res.resonanceC))
-		if res.afterResonance > 0 {
-			d.PredictedResonance = ptr(float64(res.afterResonance))
+	d.TargetInductance, d.TargetFrequency = float64(c.Target), float64(res.Target.Frequency)
+	d.TargetSense = map[bool]string{true: "effective", false: "terminal"}[res.Target.Effective]
+	d.TargetSource = res.Aim.Source.String()
+	if res.Aim.Source == trim.TargetResonance {
+		d.TargetResonance, d.TargetCapacitance = ptr(float64(res.Aim.Resonance)), ptr(float64(res.Aim.Capacitance))
+		if res.AfterResonance > 0 {
+			d.PredictedResonance = ptr(float64(res.AfterResonance))
 		}
 	}
 	d.InductanceAsBuilt = float64(c.Before)
@@ -536,15 +516,15 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 	d.LengthStep = float64(c.LengthStep)
 	d.PredictedInductance = float64(c.After)
 	d.TrimLengthPerPercent = float64(c.LengthPerPercent)
-	d.NewWireLength = float64(res.nextPred.WireLength)
-	d.NextMeasurement.Inductance = float64(res.next.Inductance)
-	for _, rs := range res.next.Resonances {
+	d.NewWireLength = float64(res.After.WireLength)
+	d.NextMeasurement.Inductance = float64(res.Next.Inductance)
+	for _, rs := range res.Next.Resonances {
 		d.NextMeasurement.Resonances = append(d.NextMeasurement.Resonances, resonanceJSON{float64(rs.Frequency), float64(rs.Capacitance)})
 	}
-	if t := res.tap; t != nil {
-		tj := &trimTapJSON{TapTurns: t.turns, NewTapTurns: t.newTurns, RatioWanted: t.wantRatio, RatioAsBuilt: t.ratioBefore,
-			RatioAfter: t.ratioNow, RatioOffset: t.offset}
-		if s := t.sections; s != nil {
+	if t := res.Tap; t != nil {
+		tj := &trimTapJSON{TapTurns: t.Turns, NewTapTurns: t.NewTurns, RatioWanted: t.WantRatio, RatioAsBuilt: t.RatioBefore,
+			RatioAfter: t.RatioAfter, RatioOffset: t.Offset}
+		if s := t.Sections; s != nil {
 			if s.MeasuredRatio != 0 {
 				tj.MeasuredRatio = ptr(s.MeasuredRatio)
 			}
@@ -561,7 +541,7 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 	if s := res.saved; s != nil {
 		d.Saved = &savedJSON{StockFile: s.Path, Backup: s.Backup, Mandrel: s.Mandrel, Wire: s.Wire, Springback: s.Springback, Note: s.Note, Added: s.Added}
 	}
-	d.Coil = newCoilRecord(res.tc.spec, res.spec)
+	d.Coil = newCoilRecord(res.tc.spec, res.Spec)
 	d.Warnings = res.warnings
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")

@@ -65,7 +65,7 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error
 	spec := res.tc.spec
 	g := spec.Geometry
 	add := &forms.Catalog{}
-	s := &savedCalibration{Path: tc.stock.path, Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.cal.Springback}
+	s := &savedCalibration{Path: tc.stock.path, Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.Calibration.Springback}
 	const source = "given on the command line; added by turnwise trim --save"
 	if spec.SupportKind == "mandrel" {
 		if _, err := lookup.Mandrel(spec.SupportName); err != nil {
@@ -86,7 +86,7 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error
 		s.Superseded = &prev
 	}
 	s.Note = calibrationNote(res)
-	add.Calibrations = []forms.Calibration{{Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.cal.Springback, Note: s.Note}}
+	add.Calibrations = []forms.Calibration{{Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.Calibration.Springback, Note: s.Note}}
 
 	text, err := forms.AppendStock(orig, path, add)
 	if err != nil {
@@ -107,7 +107,7 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error
 
 // calibrationNote records where a saved springback came from.
 func calibrationNote(res *trimResult) string {
-	r := res.cal.Reading
+	r := res.Calibration.Reading
 	g := res.tc.spec.Geometry
 	var how string
 	switch r.Kind {
@@ -120,5 +120,5 @@ func calibrationNote(res *trimResult) string {
 		how = fmt.Sprintf("two-capacitor method, L %s", eng(float64(r.Inductance), "H", 3))
 	}
 	return fmt.Sprintf("trim: %s ±%.1f %% on %s turns, %s long (springback %s … %s)", how, r.Uncertainty*100,
-		fmtTurns(g.Turns), res.lf.fmt(float64(g.WindingLength())), pct(res.cal.SpringbackLow), pct(res.cal.SpringbackHigh))
+		fmtTurns(g.Turns), res.lf.fmt(float64(g.WindingLength())), pct(res.Calibration.SpringbackLow), pct(res.Calibration.SpringbackHigh))
 }
