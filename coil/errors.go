@@ -22,10 +22,3 @@ var ErrInfeasible = errors.New("coil: no coil meets the request")
 func inputErrorf(param, format string, args ...any) error {
 	return &InputError{Param: param, Reason: fmt.Sprintf(format, args...)}
 }
-
-// infeasibleError is a valid request no coil meets; errors.Is finds
-// ErrInfeasible.
-type infeasibleError struct{ msg string }
-
-func (e *infeasibleError) Error() string        { return e.msg }
-func (e *infeasibleError) Is(target error) bool { return target == ErrInfeasible }

@@ -14,7 +14,13 @@
 //     the same way should show (ExpectedReading);
 //   - tapped coils: per-section readings and where the tap goes, keeping a
 //     measured offset of the ratio from the model (CalibrateSections,
-//     MoveTap).
+//     MoveTap, PlanTap);
+//   - the rules that say what a result means for the builder: when a coil
+//     is on target, when a fitted springback is unusual for its support,
+//     when a miss is smaller than the reading's own uncertainty, when a
+//     section departs from the rest of the coil (Plan, Result, Finding and
+//     the thresholds beside it). Callers word the findings; they decide
+//     nothing about them.
 //
 // The model of one coil (Predict, Tap, Window, LengthPerPercent) belongs
 // to package coil; trim only asks it questions. Like coil, trim never
