@@ -3,6 +3,8 @@ package coil
 import (
 	"fmt"
 	"math"
+
+	"gonum.org/v1/gonum/unit"
 )
 
 // Numbers in error and warning messages. The command tables print through
@@ -68,3 +70,8 @@ func fmtTurns(n float64) string {
 	}
 	return w + "¾"
 }
+
+// FormatFrequency formats a frequency with an engineering prefix and four
+// significant digits, as coil's own messages do; for the messages of the
+// packages built on coil (coil/tuning).
+func FormatFrequency(f unit.Frequency) string { return fmtHz(float64(f)) }

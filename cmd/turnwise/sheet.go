@@ -14,6 +14,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"turnwise/coil"
+	"turnwise/coil/tuning"
 	"turnwise/forms"
 	"turnwise/sheets"
 )
@@ -518,7 +519,7 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 		set.Tap = tap.Turns
 	}
 	for _, b := range js.Bands {
-		set.Bands = append(set.Bands, coil.Band{Name: b.Name, Low: b.Low, High: b.High})
+		set.Bands = append(set.Bands, tuning.Band{Name: b.Name, Low: b.Low, High: b.High})
 	}
 	out, err := buildSpan(g, set)
 	var warnings []string
@@ -545,7 +546,7 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 	}
 	for _, bc := range sp.Bands {
 		sb := sheets.Band{Low: float64(bc.Band.Low), High: float64(bc.Band.High), Label: bc.Band.Name, Range: "none"}
-		var whole []coil.BandOnRange
+		var whole []tuning.BandOnRange
 		for _, r := range bc.Ranges {
 			if r.Whole {
 				whole = append(whole, r)
@@ -603,7 +604,7 @@ func spanJobError(job *forms.Job, jc *forms.JobCoil, err error) error {
 
 // sheetCapacitor is the two-gang capacitor to buy, without the board's
 // stray capacitance.
-func sheetCapacitor(a, b coil.GangSection) string {
+func sheetCapacitor(a, b tuning.GangSection) string {
 	a.Stray, b.Stray = 0, 0
 	if describeGang(b) == describeGang(a) {
 		return describeGang(a) + " per section"

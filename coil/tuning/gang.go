@@ -1,9 +1,10 @@
-package coil
+package tuning
 
 import (
 	"fmt"
 	"math"
 	"sort"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/unit"
@@ -175,7 +176,7 @@ type Resonances struct {
 // When cTap is zero the tap node has no capacitance and is eliminated
 // (Schur complement): one resonance, of the whole coil with cTop. A tap at
 // an end (L_a or L_b zero) leaves one tank as well.
-func TwoNodeResonances(s Sections, cTop, cTap unit.Capacitance) (Resonances, error) {
+func TwoNodeResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances, error) {
 	la, lb, m := float64(s.LA), float64(s.LB), float64(s.M)
 	ct, cb := float64(cTop), float64(cTap)
 	switch {
