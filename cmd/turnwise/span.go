@@ -56,20 +56,14 @@ type spanOutcome struct {
 // gangFromSettings turns the capacitor values into the two sections. A
 // law that is not slc, slf or slw is read as a measured-table file.
 func gangFromSettings(s spanSettings) (a, b tuning.GangSection, err error) {
-	law := strings.ToLower(strings.TrimSpace(s.Law))
 	a = tuning.GangSection{Min: unit.Capacitance(s.GangA[0]), Max: unit.Capacitance(s.GangA[1]), Trimmer: s.TrimA, Stray: s.StrayA}
 	b = tuning.GangSection{Min: a.Min, Max: a.Max, Trimmer: s.TrimB, Stray: s.StrayB}
 	if s.GangBSet {
 		b.Min, b.Max = unit.Capacitance(s.GangB[0]), unit.Capacitance(s.GangB[1])
 	}
-	switch law {
-	case "", "slc":
-		a.Law, b.Law = tuning.LawSLC, tuning.LawSLC
-	case "slf":
-		a.Law, b.Law = tuning.LawSLF, tuning.LawSLF
-	case "slw":
-		a.Law, b.Law = tuning.LawSLW, tuning.LawSLW
-	default:
+	if law, ok := tuning.ParseLaw(s.Law); ok {
+		a.Law, b.Law = law, law
+	} else {
 		f, err := os.Open(s.Law)
 		if err != nil {
 			if errors.Is(err, os.ErrNotExist) {
@@ -438,7 +432,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		switch {
 		case sp.Overlap >= 0:
 			row("overlap", fmt.Sprintf("%s to %s (%s, %.1f %%): everything from %s to %s tunes on one range or the other",
-				hz(sp.High.Min), hz(sp.Low.Max), hz(sp.Overlap), float64(sp.Overlap)/float64(sp.High.Min)*100, hz(sp.Low.Min), hz(sp.High.Max)))
+				hz(sp.High.Min), hz(sp.Low.Max), hz(sp.Overlap), sp.OverlapFraction()*100, hz(sp.Low.Min), hz(sp.High.Max)))
 		default:
 			row("gap", fmt.Sprintf("%s to %s (%s) is on neither range: %s",
 				hz(sp.Low.Max), hz(sp.High.Min), hz(-sp.Overlap), sp.GapAdvice()))
@@ -461,7 +455,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 				switch {
 				case !on.Whole:
 					p = fmt.Sprintf("%s range reaches only %.0f %% of it, dial %s to %s", on.Range, on.Fraction*100, dialPct(on.SettingAtHigh), dialPct(on.SettingAtLow))
-				case on.Margin < sp.Margin:
+				case on.TightAtEnd(sp.Margin):
 					p += fmt.Sprintf(", only %.1f %% from the range's end", on.Margin*100)
 				}
 				parts = append(parts, p)
@@ -481,7 +475,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 	}
 	for _, c := range sp.Coincidences {
 		span := "at " + dialPct(c.Setting)
-		if c.SettingTo-c.SettingFrom > 0.001 {
+		if c.Stretch() {
 			span = fmt.Sprintf("%s to %s, closest at %s", dialPct(c.SettingFrom), dialPct(c.SettingTo), dialPct(c.Setting))
 		}
 		where := ""
@@ -496,7 +490,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		row("dial "+span, fmt.Sprintf("low range at %s%s: its %s harmonic %s %s; strong signals near %s get through",
 			hz(c.FLow), where, ordinalWord(c.Order), hz(c.Harmonic), inside, hz(c.FHigh)))
 	}
-	row("passband rule", passbandRule(set.LoadedQ))
+	row("passband rule", tuning.PassbandRule(set.LoadedQ))
 	if err := tw.Flush(); err != nil {
 		return err
 	}
@@ -505,13 +499,6 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		return writeSpanChart(w, sp)
 	}
 	return nil
-}
-
-func passbandRule(loadedQ float64) string {
-	if loadedQ > 0 {
-		return fmt.Sprintf("passband = f/Q with the loaded Q you gave (%g)", loadedQ)
-	}
-	return "passband = f/Q, Q = half the coil model's Q at f (a tank matched to its load; common practice)"
 }
 
 func bandName(b tuning.Band) string {
@@ -675,9 +662,9 @@ func newSpanRecord(s coilSpec, set spanSettings, out spanOutcome) (spanRecord, e
 		Margin:          sp.Margin,
 		Bands:           []bandRecord{},
 		Coincidences:    []coincidenceRec{},
-		PassbandRule:    passbandRule(set.LoadedQ),
+		PassbandRule:    tuning.PassbandRule(set.LoadedQ),
 		Warnings:        append([]string{}, sp.Warnings...),
-		DialConvention:  "setting 0 = plates fully open (top of both ranges), 1 = fully meshed",
+		DialConvention:  tuning.DialConvention,
 	}
 	if sp.HasHigh {
 		rec.HighRange = &rangeRecord{float64(sp.High.Min), float64(sp.High.Max)}
@@ -686,22 +673,10 @@ func newSpanRecord(s coilSpec, set spanSettings, out spanOutcome) (spanRecord, e
 		rec.Dial = append(rec.Dial, dialRecord{r.Setting, float64(r.CA), float64(r.CB), float64(r.CTop), float64(r.CTap), float64(r.FLow), float64(r.FHigh)})
 	}
 	for _, bc := range sp.Bands {
-		br := bandRecord{Name: bc.Band.Name, Low: float64(bc.Band.Low), High: float64(bc.Band.High), Covered: bc.Covered, Ranges: []bandOnRange{}}
-		whole := 0
+		where, _ := bc.Placement()
+		br := bandRecord{Name: bc.Band.Name, Low: float64(bc.Band.Low), High: float64(bc.Band.High), Covered: bc.Covered, Range: where.String(), Ranges: []bandOnRange{}}
 		for _, on := range bc.Ranges {
 			br.Ranges = append(br.Ranges, bandOnRange{on.Range, on.SettingAtLow, on.SettingAtHigh, on.Whole, on.Margin, on.Fraction})
-			if on.Whole {
-				whole++
-				br.Range = on.Range
-			}
-		}
-		switch {
-		case whole == 2:
-			br.Range = "both"
-		case whole == 0 && len(bc.Ranges) > 0:
-			br.Range = "part"
-		case whole == 0:
-			br.Range = "none"
 		}
 		rec.Bands = append(rec.Bands, br)
 	}

@@ -41,10 +41,6 @@ type Spec struct {
 // practice).
 const DefaultMargin = 0.03
 
-// PassbandRule states how the high range's passband is taken. It is
-// printed by the command so the builder knows what "inside" means.
-const PassbandRule = "passband = f/Q_loaded (−3 dB full width of a single tuned circuit); Q_loaded = half the coil model's Q at f, the Q of a tank matched to its load (common practice), unless given"
-
 // DialRow is the circuit at one dial setting.
 type DialRow struct {
 	Setting float64          // 0 plates open … 1 fully meshed
