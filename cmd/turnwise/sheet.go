@@ -14,6 +14,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"turnwise/coil"
+	"turnwise/coil/tuning"
 	"turnwise/forms"
 	"turnwise/sheets"
 )
@@ -502,11 +503,11 @@ func targetDescription(jc *forms.JobCoil, res coil.Result) string {
 // the chart's data; with choose-tap it returns the chosen tap too.
 func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets.Tap) (*sheets.Span, *sheets.Tap, []string, error) {
 	js := jc.Span
-	if l := strings.ToLower(js.Law); js.GangA.Max == 0 && (l == "" || l == "slc" || l == "slf" || l == "slw") {
+	if _, named := tuning.ParseLaw(js.Law); js.GangA.Max == 0 && named {
 		return nil, nil, nil, jobFieldError(job, jc, "gang", errors.New("a gang of 0 pF leaves section A with no capacitor; give the capacitor's minimum and maximum per section, e.g. 15-365pF"))
 	}
 	law := js.Law
-	if l := strings.ToLower(law); l != "slc" && l != "slf" && l != "slw" && !filepath.IsAbs(law) {
+	if _, named := tuning.ParseLaw(law); !named && !filepath.IsAbs(law) {
 		law = filepath.Join(filepath.Dir(job.File), law)
 	}
 	set := spanSettings{
@@ -518,7 +519,7 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 		set.Tap = tap.Turns
 	}
 	for _, b := range js.Bands {
-		set.Bands = append(set.Bands, coil.Band{Name: b.Name, Low: b.Low, High: b.High})
+		set.Bands = append(set.Bands, tuning.Band{Name: b.Name, Low: b.Low, High: b.High})
 	}
 	out, err := buildSpan(g, set)
 	var warnings []string
@@ -544,21 +545,9 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 		s.Dial = append(s.Dial, sheets.DialPoint{Setting: d.Setting, FLow: float64(d.FLow), FHigh: float64(d.FHigh)})
 	}
 	for _, bc := range sp.Bands {
-		sb := sheets.Band{Low: float64(bc.Band.Low), High: float64(bc.Band.High), Label: bc.Band.Name, Range: "none"}
-		var whole []coil.BandOnRange
-		for _, r := range bc.Ranges {
-			if r.Whole {
-				whole = append(whole, r)
-			}
-		}
-		switch {
-		case len(whole) == 2:
-			sb.Range, sb.DialLow, sb.DialHigh = "both", whole[0].SettingAtLow, whole[0].SettingAtHigh
-		case len(whole) == 1:
-			sb.Range, sb.DialLow, sb.DialHigh = whole[0].Range, whole[0].SettingAtLow, whole[0].SettingAtHigh
-		case len(bc.Ranges) > 0:
-			sb.Range, sb.DialLow, sb.DialHigh = "part", bc.Ranges[0].SettingAtLow, bc.Ranges[0].SettingAtHigh
-		}
+		where, on := bc.Placement()
+		sb := sheets.Band{Low: float64(bc.Band.Low), High: float64(bc.Band.High), Label: bc.Band.Name,
+			Range: where.String(), DialLow: on.SettingAtLow, DialHigh: on.SettingAtHigh}
 		s.Bands = append(s.Bands, sb)
 	}
 	for _, co := range sp.Coincidences {
@@ -585,7 +574,7 @@ func spanJobError(job *forms.Job, jc *forms.JobCoil, err error) error {
 		return jobFieldError(job, jc, fe.flag, fe.err)
 	}
 	key := ""
-	if l := strings.ToLower(jc.Span.Law); l != "slc" && l != "slf" && l != "slw" {
+	if _, named := tuning.ParseLaw(jc.Span.Law); !named {
 		key = "law"
 	}
 	var ue *usageError
@@ -603,7 +592,7 @@ func spanJobError(job *forms.Job, jc *forms.JobCoil, err error) error {
 
 // sheetCapacitor is the two-gang capacitor to buy, without the board's
 // stray capacitance.
-func sheetCapacitor(a, b coil.GangSection) string {
+func sheetCapacitor(a, b tuning.GangSection) string {
 	a.Stray, b.Stray = 0, 0
 	if describeGang(b) == describeGang(a) {
 		return describeGang(a) + " per section"

@@ -5,7 +5,7 @@ package main
 // Glue for other commands (the build sheet): buildSpan(geom, spanSettings)
 // builds the span, or with ChooseTap the tap plan, from the same values the
 // span flags carry once parsed; gangFromSettings turns the capacitor values
-// into the two coil.GangSection values. spanOptions.settings() shows how the
+// into the two tuning.GangSection values. spanOptions.settings() shows how the
 // flags map onto spanSettings.
 
 import (
@@ -23,6 +23,7 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
+	"turnwise/coil/tuning"
 	"turnwise/forms"
 )
 
@@ -37,9 +38,9 @@ type spanSettings struct {
 	StrayA       unit.Capacitance // wiring stray at the top of the coil
 	StrayB       unit.Capacitance // wiring stray at the tap
 	Steps        int              // dial rows, 0 for 11
-	Bands        []coil.Band
+	Bands        []tuning.Band
 	LoadedQ      float64 // 0: half the coil model's Q
-	Margin       float64 // fraction, 0 for coil.DefaultMargin
+	Margin       float64 // fraction, 0 for tuning.DefaultMargin
 	ChooseTap    bool
 	VaryPitch    bool
 }
@@ -47,28 +48,22 @@ type spanSettings struct {
 // spanOutcome is what buildSpan returns: the span, and with ChooseTap the
 // plan that chose its tap (nil otherwise).
 type spanOutcome struct {
-	Span     coil.Span
+	Span     tuning.Span
 	Geometry coil.Geometry // as used; ChooseTap with VaryPitch may change the pitch
-	Plan     *coil.TapPlan
+	Plan     *tuning.TapPlan
 }
 
 // gangFromSettings turns the capacitor values into the two sections. A
 // law that is not slc, slf or slw is read as a measured-table file.
-func gangFromSettings(s spanSettings) (a, b coil.GangSection, err error) {
-	law := strings.ToLower(strings.TrimSpace(s.Law))
-	a = coil.GangSection{Min: unit.Capacitance(s.GangA[0]), Max: unit.Capacitance(s.GangA[1]), Trimmer: s.TrimA, Stray: s.StrayA}
-	b = coil.GangSection{Min: a.Min, Max: a.Max, Trimmer: s.TrimB, Stray: s.StrayB}
+func gangFromSettings(s spanSettings) (a, b tuning.GangSection, err error) {
+	a = tuning.GangSection{Min: unit.Capacitance(s.GangA[0]), Max: unit.Capacitance(s.GangA[1]), Trimmer: s.TrimA, Stray: s.StrayA}
+	b = tuning.GangSection{Min: a.Min, Max: a.Max, Trimmer: s.TrimB, Stray: s.StrayB}
 	if s.GangBSet {
 		b.Min, b.Max = unit.Capacitance(s.GangB[0]), unit.Capacitance(s.GangB[1])
 	}
-	switch law {
-	case "", "slc":
-		a.Law, b.Law = coil.LawSLC, coil.LawSLC
-	case "slf":
-		a.Law, b.Law = coil.LawSLF, coil.LawSLF
-	case "slw":
-		a.Law, b.Law = coil.LawSLW, coil.LawSLW
-	default:
+	if law, ok := tuning.ParseLaw(s.Law); ok {
+		a.Law, b.Law = law, law
+	} else {
 		f, err := os.Open(s.Law)
 		if err != nil {
 			if errors.Is(err, os.ErrNotExist) {
@@ -84,10 +79,10 @@ func gangFromSettings(s spanSettings) (a, b coil.GangSection, err error) {
 		if err != nil {
 			return a, b, err
 		}
-		a.Law, b.Law = coil.LawTable, coil.LawTable
+		a.Law, b.Law = tuning.LawTable, tuning.LawTable
 		for _, p := range t.Points {
-			a.Table = append(a.Table, coil.GangPoint{Setting: p.Setting, Capacitance: p.A})
-			b.Table = append(b.Table, coil.GangPoint{Setting: p.Setting, Capacitance: p.B})
+			a.Table = append(a.Table, tuning.GangPoint{Setting: p.Setting, Capacitance: p.A})
+			b.Table = append(b.Table, tuning.GangPoint{Setting: p.Setting, Capacitance: p.B})
 		}
 		a.Min, a.Max = a.Table[0].Capacitance, a.Table[len(a.Table)-1].Capacitance
 		b.Min, b.Max = b.Table[0].Capacitance, b.Table[len(b.Table)-1].Capacitance
@@ -108,15 +103,15 @@ func buildSpan(g coil.Geometry, s spanSettings) (spanOutcome, error) {
 	if err != nil {
 		return spanOutcome{}, err
 	}
-	spec := coil.SpanSpec{Geometry: g, TapTurns: s.Tap, A: a, B: b, Steps: s.Steps, Bands: s.Bands, LoadedQ: s.LoadedQ, Margin: s.Margin}
+	spec := tuning.Spec{Geometry: g, TapTurns: s.Tap, A: a, B: b, Steps: s.Steps, Bands: s.Bands, LoadedQ: s.LoadedQ, Margin: s.Margin}
 	if s.ChooseTap {
-		plan, err := coil.ChooseTap(spec, coil.TapSearch{VaryPitch: s.VaryPitch})
+		plan, err := tuning.ChooseTap(spec, tuning.TapSearch{VaryPitch: s.VaryPitch})
 		if err != nil && !errors.Is(err, coil.ErrInfeasible) {
 			return spanOutcome{}, spanFlagError(err, s.GangBSet)
 		}
 		return spanOutcome{Span: plan.Span, Geometry: plan.Geometry, Plan: &plan}, err
 	}
-	sp, err := coil.SolveSpan(spec)
+	sp, err := tuning.Solve(spec)
 	if err != nil {
 		return spanOutcome{}, spanFlagError(err, s.GangBSet)
 	}
@@ -275,7 +270,7 @@ func (o *spanOptions) settings() (spanSettings, error) {
 		if err != nil {
 			return s, &flagError{"band", err}
 		}
-		s.Bands = append(s.Bands, coil.Band{Name: fb.Name, Low: fb.Low, High: fb.High})
+		s.Bands = append(s.Bands, tuning.Band{Name: fb.Name, Low: fb.Low, High: fb.High})
 	}
 	if o.bandsFile != "" {
 		f, err := os.Open(o.bandsFile)
@@ -291,7 +286,7 @@ func (o *spanOptions) settings() (spanSettings, error) {
 			return s, err
 		}
 		for _, b := range list {
-			s.Bands = append(s.Bands, coil.Band{Name: b.Name, Low: b.Low, High: b.High})
+			s.Bands = append(s.Bands, tuning.Band{Name: b.Name, Low: b.Low, High: b.High})
 		}
 	}
 	return s, nil
@@ -337,19 +332,19 @@ func dialPct(x float64) string { return fmt.Sprintf("%.1f %%", x*100) }
 
 func hz(f unit.Frequency) string { return eng(float64(f), "Hz", 4) }
 
-func describeLaw(a coil.GangSection) string {
+func describeLaw(a tuning.GangSection) string {
 	switch a.Law {
-	case coil.LawSLF:
+	case tuning.LawSLF:
 		return "straight-line frequency"
-	case coil.LawSLW:
+	case tuning.LawSLW:
 		return "straight-line wavelength"
-	case coil.LawTable:
+	case tuning.LawTable:
 		return "measured table"
 	}
 	return "straight-line capacitance"
 }
 
-func describeGang(a coil.GangSection) string {
+func describeGang(a tuning.GangSection) string {
 	s := fmt.Sprintf("%s–%s", farads(float64(a.Min)), farads(float64(a.Max)))
 	if a.Min == a.Max {
 		s = farads(float64(a.Min)) + " fixed"
@@ -393,7 +388,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		}
 		row(tried, fmt.Sprintf("%d: %d cover every band, %d overlap, %d keep harmonics out, %d cover and overlap",
 			p.Tried, p.Covering, p.Overlapping, p.Clean, p.CoveringOverlapping))
-		if p.Clearance >= coil.ClearanceNone {
+		if p.Clearance >= tuning.ClearanceNone {
 			row("harmonic clearance", "no listed band lies on the low range's dial where a harmonic could reach the high range")
 		} else {
 			row("harmonic clearance", fmt.Sprintf("closest harmonic %.1f half-passbands from the high range's peak (above 1 is outside the passband)", p.Clearance))
@@ -437,7 +432,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		switch {
 		case sp.Overlap >= 0:
 			row("overlap", fmt.Sprintf("%s to %s (%s, %.1f %%): everything from %s to %s tunes on one range or the other",
-				hz(sp.High.Min), hz(sp.Low.Max), hz(sp.Overlap), float64(sp.Overlap)/float64(sp.High.Min)*100, hz(sp.Low.Min), hz(sp.High.Max)))
+				hz(sp.High.Min), hz(sp.Low.Max), hz(sp.Overlap), sp.OverlapFraction()*100, hz(sp.Low.Min), hz(sp.High.Max)))
 		default:
 			row("gap", fmt.Sprintf("%s to %s (%s) is on neither range: %s",
 				hz(sp.Low.Max), hz(sp.High.Min), hz(-sp.Overlap), sp.GapAdvice()))
@@ -460,7 +455,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 				switch {
 				case !on.Whole:
 					p = fmt.Sprintf("%s range reaches only %.0f %% of it, dial %s to %s", on.Range, on.Fraction*100, dialPct(on.SettingAtHigh), dialPct(on.SettingAtLow))
-				case on.Margin < sp.Margin:
+				case on.TightAtEnd(sp.Margin):
 					p += fmt.Sprintf(", only %.1f %% from the range's end", on.Margin*100)
 				}
 				parts = append(parts, p)
@@ -480,7 +475,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 	}
 	for _, c := range sp.Coincidences {
 		span := "at " + dialPct(c.Setting)
-		if c.SettingTo-c.SettingFrom > 0.001 {
+		if c.Stretch() {
 			span = fmt.Sprintf("%s to %s, closest at %s", dialPct(c.SettingFrom), dialPct(c.SettingTo), dialPct(c.Setting))
 		}
 		where := ""
@@ -495,7 +490,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		row("dial "+span, fmt.Sprintf("low range at %s%s: its %s harmonic %s %s; strong signals near %s get through",
 			hz(c.FLow), where, ordinalWord(c.Order), hz(c.Harmonic), inside, hz(c.FHigh)))
 	}
-	row("passband rule", passbandRule(set.LoadedQ))
+	row("passband rule", tuning.PassbandRule(set.LoadedQ))
 	if err := tw.Flush(); err != nil {
 		return err
 	}
@@ -506,14 +501,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 	return nil
 }
 
-func passbandRule(loadedQ float64) string {
-	if loadedQ > 0 {
-		return fmt.Sprintf("passband = f/Q with the loaded Q you gave (%g)", loadedQ)
-	}
-	return "passband = f/Q, Q = half the coil model's Q at f (a tank matched to its load; common practice)"
-}
-
-func bandName(b coil.Band) string {
+func bandName(b tuning.Band) string {
 	r := fmt.Sprintf("%s–%s", strings.TrimSuffix(eng(float64(b.Low), "Hz", 4), " MHz"), hz(b.High))
 	if b.Low < 1e6 || b.High < 1e6 {
 		r = hz(b.Low) + "–" + hz(b.High)
@@ -644,7 +632,7 @@ type chooseTapRecord struct {
 	CoveringOverlapping int      `json:"covering_overlapping"`
 }
 
-func gangRec(g coil.GangSection) gangRecord {
+func gangRec(g tuning.GangSection) gangRecord {
 	return gangRecord{Min: float64(g.Min), Max: float64(g.Max), Law: g.Law.String(), Trimmer: float64(g.Trimmer), Stray: float64(g.Stray)}
 }
 
@@ -674,9 +662,9 @@ func newSpanRecord(s coilSpec, set spanSettings, out spanOutcome) (spanRecord, e
 		Margin:          sp.Margin,
 		Bands:           []bandRecord{},
 		Coincidences:    []coincidenceRec{},
-		PassbandRule:    passbandRule(set.LoadedQ),
+		PassbandRule:    tuning.PassbandRule(set.LoadedQ),
 		Warnings:        append([]string{}, sp.Warnings...),
-		DialConvention:  "setting 0 = plates fully open (top of both ranges), 1 = fully meshed",
+		DialConvention:  tuning.DialConvention,
 	}
 	if sp.HasHigh {
 		rec.HighRange = &rangeRecord{float64(sp.High.Min), float64(sp.High.Max)}
@@ -685,22 +673,10 @@ func newSpanRecord(s coilSpec, set spanSettings, out spanOutcome) (spanRecord, e
 		rec.Dial = append(rec.Dial, dialRecord{r.Setting, float64(r.CA), float64(r.CB), float64(r.CTop), float64(r.CTap), float64(r.FLow), float64(r.FHigh)})
 	}
 	for _, bc := range sp.Bands {
-		br := bandRecord{Name: bc.Band.Name, Low: float64(bc.Band.Low), High: float64(bc.Band.High), Covered: bc.Covered, Ranges: []bandOnRange{}}
-		whole := 0
+		where, _ := bc.Placement()
+		br := bandRecord{Name: bc.Band.Name, Low: float64(bc.Band.Low), High: float64(bc.Band.High), Covered: bc.Covered, Range: where.String(), Ranges: []bandOnRange{}}
 		for _, on := range bc.Ranges {
 			br.Ranges = append(br.Ranges, bandOnRange{on.Range, on.SettingAtLow, on.SettingAtHigh, on.Whole, on.Margin, on.Fraction})
-			if on.Whole {
-				whole++
-				br.Range = on.Range
-			}
-		}
-		switch {
-		case whole == 2:
-			br.Range = "both"
-		case whole == 0 && len(bc.Ranges) > 0:
-			br.Range = "part"
-		case whole == 0:
-			br.Range = "none"
 		}
 		rec.Bands = append(rec.Bands, br)
 	}
@@ -728,7 +704,7 @@ func writeSpanJSON(w io.Writer, s coilSpec, set spanSettings, out spanOutcome) e
 // writeSpanChart draws both ranges against the dial in text: frequency on
 // a logarithmic scale upwards, dial 0–100 % across; L and H mark the low
 // and high range, '-' shades the listed bands, '*' marks coincidences.
-func writeSpanChart(w io.Writer, sp coil.Span) error {
+func writeSpanChart(w io.Writer, sp tuning.Span) error {
 	const width, height = 51, 18
 	fMin, fMax := float64(sp.Low.Min), float64(sp.Low.Max)
 	if sp.HasHigh {

@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"turnwise/coil"
+	"turnwise/coil/tuning"
 )
 
 // spanArgs is the invented HF example: 40 turns of 0.5 mm grade 1 wire on
@@ -100,7 +101,7 @@ func TestSpanJSONKeys(t *testing.T) {
 func TestBuildSpanGlue(t *testing.T) {
 	g := coil.Geometry{FormerDiameter: 20e-3, WireDiameter: 0.5e-3, WireOverall: 0.5e-3 * 1.08, Turns: 40, Pitch: 1e-3, LeadLength: 20e-3}
 	set := spanSettings{GangA: [2]float64{15e-12, 365e-12}, StrayA: 5e-12, StrayB: 5e-12,
-		Bands:     []coil.Band{{Name: "80m", Low: 3.5e6, High: 3.8e6}, {Name: "40m", Low: 7e6, High: 7.2e6}, {Name: "31m", Low: 9.4e6, High: 9.9e6}},
+		Bands:     []tuning.Band{{Name: "80m", Low: 3.5e6, High: 3.8e6}, {Name: "40m", Low: 7e6, High: 7.2e6}, {Name: "31m", Low: 9.4e6, High: 9.9e6}},
 		ChooseTap: true}
 	out, err := buildSpan(g, set)
 	if err != nil {

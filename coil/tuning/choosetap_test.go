@@ -1,10 +1,11 @@
-package coil
+package tuning
 
 import (
 	"errors"
 	"math"
 	"strings"
 	"testing"
+	"turnwise/coil"
 )
 
 // checkPlan verifies a feasible plan's span independently of the scoring:
@@ -40,7 +41,7 @@ func checkPlan(t *testing.T, p TapPlan, bands []Band, margin float64) {
 // 80 m, 40 m and 31 m with the default 3 % margin.
 func TestChooseTapExample(t *testing.T) {
 	t.Parallel()
-	spec := SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands}
+	spec := Spec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands}
 	p, err := ChooseTap(spec, TapSearch{})
 	if err != nil {
 		t.Fatal(err)
@@ -64,10 +65,10 @@ func TestChooseTapExample(t *testing.T) {
 func TestChooseTapInfeasible(t *testing.T) {
 	t.Parallel()
 	bands := []Band{{"160m", 1.81e6, 2.0e6}, {"20m", 14.0e6, 14.35e6}, {"10m", 28.0e6, 29.7e6}} // amateur bands, Region 1 (common practice)
-	spec := SpanSpec{Geometry: hfTapExample(), A: hfGang(), B: hfGang(), Bands: bands}
+	spec := Spec{Geometry: hfTapExample(), A: hfGang(), B: hfGang(), Bands: bands}
 	p, err := ChooseTap(spec, TapSearch{})
-	if !errors.Is(err, ErrInfeasible) {
-		t.Fatalf("err = %v, want ErrInfeasible", err)
+	if !errors.Is(err, coil.ErrInfeasible) {
+		t.Fatalf("err = %v, want coil.ErrInfeasible", err)
 	}
 	if p.Feasible || len(p.Conflicts) == 0 || p.Span.Dial == nil {
 		t.Errorf("compromise %+v", p)
@@ -86,18 +87,18 @@ func TestChooseTapVaryPitch(t *testing.T) {
 	t.Parallel()
 	bands := []Band{{"80m", 3.5e6, 3.8e6}, {"40m", 7.0e6, 7.2e6}, {"19m", 15.1e6, 15.8e6}} // 19 m broadcast band
 	g := hfTapExample()
-	spec := SpanSpec{Geometry: g, A: hfGang(), B: hfGang(), Bands: bands, Margin: 0.05}
+	spec := Spec{Geometry: g, A: hfGang(), B: hfGang(), Bands: bands, Margin: 0.05}
 	fixed, errFixed := ChooseTap(spec, TapSearch{})
 	free, errFree := ChooseTap(spec, TapSearch{VaryPitch: true})
-	if errFree != nil && !errors.Is(errFree, ErrInfeasible) {
+	if errFree != nil && !errors.Is(errFree, coil.ErrInfeasible) {
 		t.Fatal(errFree)
 	}
 	if errFixed == nil && errFree != nil {
 		t.Errorf("feasible with the pitch held, infeasible with it free: %v", errFree)
 	}
-	do := g.overall()
-	if p := float64(free.Geometry.Pitch); p < do*(1-1e-12) || p > LoosestPitchFactor*do*(1+1e-12) {
-		t.Errorf("pitch %g outside [%g, %g]", p, do, LoosestPitchFactor*do)
+	do := float64(g.OverallDiameter())
+	if p := float64(free.Geometry.Pitch); p < do*(1-1e-12) || p > coil.LoosestPitchFactor*do*(1+1e-12) {
+		t.Errorf("pitch %g outside [%g, %g]", p, do, coil.LoosestPitchFactor*do)
 	}
 	if free.Feasible {
 		checkPlan(t, free, bands, 0.05)
@@ -109,10 +110,10 @@ func TestChooseTapVaryPitch(t *testing.T) {
 
 func TestChooseTapNeedsBands(t *testing.T) {
 	t.Parallel()
-	_, err := ChooseTap(SpanSpec{Geometry: hfTapExample(), A: hfGang(), B: hfGang()}, TapSearch{})
-	var ie *InputError
+	_, err := ChooseTap(Spec{Geometry: hfTapExample(), A: hfGang(), B: hfGang()}, TapSearch{})
+	var ie *coil.InputError
 	if !errors.As(err, &ie) || ie.Param != "band" {
-		t.Errorf("err = %v, want band InputError", err)
+		t.Errorf("err = %v, want band coil.InputError", err)
 	}
 }
 

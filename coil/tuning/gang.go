@@ -1,11 +1,11 @@
-package coil
+package tuning
 
 import (
 	"fmt"
 	"math"
 	"sort"
+	"turnwise/coil"
 
-	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/unit"
 )
 
@@ -166,16 +166,28 @@ type Resonances struct {
 // the tap, the top section i_a from the tap to the top, with branch
 // voltages u = (v_tap, v_top − v_tap) = A·v. With the inductance matrix
 // Λ = [[L_b, M], [M, L_a]] the nodal equations are C·v̈ + Γ·v = 0 with
-// Γ = Aᵀ·Λ⁻¹·A and C = diag(cTop, cTap), so the resonances satisfy
+// Γ = Aᵀ·Λ⁻¹·A and C = diag(cTop, cTap), so the resonances satisfy the
+// symmetric-definite generalized eigenproblem Γ·x = ω²·C·x. Written out,
 //
-//	Γ·x = ω²·C·x
+//	Γ = 1/Δ · [[L_b, −(L_b + M)], [−(L_b + M), L]],  Δ = L_a·L_b − M²,  L = L_a + L_b + 2M
 //
-// a symmetric-definite generalized eigenproblem, reduced to the ordinary
-// symmetric one C^(−½)·Γ·C^(−½) and solved with gonum/mat's EigenSym.
-// When cTap is zero the tap node has no capacitance and is eliminated
-// (Schur complement): one resonance, of the whole coil with cTop. A tap at
-// an end (L_a or L_b zero) leaves one tank as well.
-func TwoNodeResonances(s Sections, cTop, cTap unit.Capacitance) (Resonances, error) {
+// and det Γ = 1/Δ, so det(Γ − ω²·C) = 0 is, multiplied by Δ, the quadratic
+//
+//	a·x² − b·x + 1 = 0,   x = ω²,   a = cTop·cTap·Δ,   b = L·cTop + L_b·cTap
+//
+// whose discriminant is a sum of squares, free of cancellation:
+//
+//	b² − 4a = (L·cTop − L_b·cTap)² + 4·cTop·cTap·(L_b + M)²
+//
+// With q = (b + √(b² − 4a))/2 (no cancellation, b > 0) the roots are
+// ω²_low = 1/q and ω²_high = q/a (Press et al. 2007, §5.6). It allocates
+// nothing; the tests hold it to gonum/mat's EigenSym on the same pencil.
+//
+// When cTap is zero the tap node has no capacitance: a = 0 and the one
+// resonance is the whole coil's with cTop (1/q = 1/(L·cTop)); when cTop is
+// zero, the bottom section's with cTap. A tap at an end (L_a or L_b zero)
+// leaves one tank as well.
+func TwoNodeResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances, error) {
 	la, lb, m := float64(s.LA), float64(s.LB), float64(s.M)
 	ct, cb := float64(cTop), float64(cTap)
 	switch {
@@ -184,57 +196,36 @@ func TwoNodeResonances(s Sections, cTop, cTap unit.Capacitance) (Resonances, err
 	case !finite(la) || !finite(lb) || !finite(m) || la < 0 || lb < 0:
 		return Resonances{}, inputErrorf("sections", "section inductances must be zero or positive")
 	}
-	single := func(l, c float64) (Resonances, error) {
-		if l <= 0 || c <= 0 {
-			return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance across its inductance: no resonance")
-		}
-		return Resonances{Low: unit.Frequency(1 / (twoPi * math.Sqrt(l*c)))}, nil
-	}
 	switch {
 	case la == 0: // tap at the top: both sections' capacitance across the whole coil
-		return single(lb, ct+cb)
+		return singleTank(lb, ct+cb)
 	case lb == 0: // tap at ground: section B is shorted
-		return single(la, ct)
+		return singleTank(la, ct)
 	}
 	det := la*lb - m*m
 	if !(det > 0) {
 		return Resonances{}, inputErrorf("sections", "coupling k = %.6g is not below 1: the sections are not a physical pair", m/math.Sqrt(la*lb))
 	}
-	// Λ⁻¹ (order i_b, i_a) and Γ = Aᵀ Λ⁻¹ A with A = [[0,1],[1,−1]].
-	inv := mat.NewDense(2, 2, []float64{la / det, -m / det, -m / det, lb / det})
-	a := mat.NewDense(2, 2, []float64{0, 1, 1, -1})
-	var tmp, gamma mat.Dense
-	tmp.Mul(inv, a)
-	gamma.Mul(a.T(), &tmp)
 	if ct == 0 && cb == 0 {
 		return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance: no resonance")
 	}
-	if cb == 0 || ct == 0 {
-		// Eliminate the node without capacitance: Γ_eff = Γ_kk − Γ_kj²/Γ_jj.
-		k, j := 0, 1
-		c := ct
-		if ct == 0 {
-			k, j, c = 1, 0, cb
-		}
-		g := gamma.At(k, k) - gamma.At(k, j)*gamma.At(k, j)/gamma.At(j, j)
-		return Resonances{Low: unit.Frequency(math.Sqrt(g/c) / twoPi)}, nil
+	l := la + lb + 2*m
+	b := l*ct + lb*cb
+	q := (b + math.Hypot(l*ct-lb*cb, 2*(lb+m)*math.Sqrt(ct*cb))) / 2
+	if !(q > 0) || math.IsInf(q, 0) {
+		return Resonances{}, fmt.Errorf("tuning: two-node circuit gave no positive ω² (q = %g)", q)
 	}
-	st, sb := 1/math.Sqrt(ct), 1/math.Sqrt(cb)
-	w := mat.NewSymDense(2, []float64{
-		gamma.At(0, 0) * st * st, gamma.At(0, 1) * st * sb,
-		gamma.At(1, 0) * sb * st, gamma.At(1, 1) * sb * sb,
-	})
-	var eig mat.EigenSym
-	if !eig.Factorize(w, false) {
-		return Resonances{}, fmt.Errorf("coil: two-gang eigenproblem did not converge")
+	r := Resonances{Low: unit.Frequency(1 / (twoPi * math.Sqrt(q)))}
+	if a := ct * cb * det; a > 0 {
+		r.High = unit.Frequency(math.Sqrt(q/a) / twoPi)
 	}
-	vals := eig.Values(nil)
-	sort.Float64s(vals)
-	if !(vals[0] > 0) {
-		return Resonances{}, fmt.Errorf("coil: two-gang eigenproblem gave a non-positive ω² (%g)", vals[0])
+	return r, nil
+}
+
+// singleTank is the one resonance of inductance l with capacitance c.
+func singleTank(l, c float64) (Resonances, error) {
+	if l <= 0 || c <= 0 {
+		return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance across its inductance: no resonance")
 	}
-	return Resonances{
-		Low:  unit.Frequency(math.Sqrt(vals[0]) / twoPi),
-		High: unit.Frequency(math.Sqrt(vals[1]) / twoPi),
-	}, nil
+	return Resonances{Low: unit.Frequency(1 / (twoPi * math.Sqrt(l*c)))}, nil
 }

@@ -1,9 +1,10 @@
-package coil
+package tuning
 
 import (
 	"fmt"
 	"math"
 	"strings"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/unit"
@@ -12,7 +13,7 @@ import (
 // TapSearch says what ChooseTap may change besides the tap.
 type TapSearch struct {
 	// VaryPitch lets the search also set the pitch, anywhere from
-	// close-wound to LoosestPitchFactor wire diameters (the turns are
+	// close-wound to coil.LoosestPitchFactor wire diameters (the turns are
 	// held). The pitch is continuous: gonum/optimize's Nelder–Mead runs
 	// on it, with every quarter-turn tap tried at each pitch.
 	VaryPitch bool
@@ -27,7 +28,7 @@ const ClearanceNone = 99
 // it gives, and how it meets the requirements.
 type TapPlan struct {
 	Span     Span
-	Geometry Geometry // the coil as chosen; only the pitch may differ from the request
+	Geometry coil.Geometry // the coil as chosen; only the pitch may differ from the request
 	TapTurns float64
 	Feasible bool
 	// Conflicts lists, in words, each requirement the chosen tap still
@@ -80,8 +81,8 @@ func (s tapScore) cost(margin float64) float64 {
 // the one keeping harmonics farthest from the high range's peak is chosen.
 //
 // When no tap meets them all, ChooseTap returns the best compromise with
-// an error wrapping ErrInfeasible that names the requirements in conflict.
-func ChooseTap(spec SpanSpec, search TapSearch) (TapPlan, error) {
+// an error wrapping coil.ErrInfeasible that names the requirements in conflict.
+func ChooseTap(spec Spec, search TapSearch) (TapPlan, error) {
 	if len(spec.Bands) == 0 {
 		return TapPlan{}, inputErrorf("band", "choosing a tap needs the bands to cover; list them, e.g. 3.5-3.8MHz")
 	}
@@ -89,7 +90,7 @@ func ChooseTap(spec SpanSpec, search TapSearch) (TapPlan, error) {
 		return TapPlan{}, inputErrorf("turns", "a coil needs at least half a turn to take a tap")
 	}
 	spec.TapTurns = 0
-	if err := validateSpan(&spec); err != nil {
+	if _, err := validateSpan(&spec); err != nil {
 		return TapPlan{}, err
 	}
 	margin := spec.Margin
@@ -112,7 +113,7 @@ func ChooseTap(spec SpanSpec, search TapSearch) (TapPlan, error) {
 		}
 	}
 	spec.Geometry, spec.TapTurns = geom, best.tap
-	sp, err := SolveSpan(spec)
+	sp, err := Solve(spec)
 	if err != nil {
 		return TapPlan{}, err
 	}
@@ -122,7 +123,7 @@ func ChooseTap(spec SpanSpec, search TapSearch) (TapPlan, error) {
 	plan.Conflicts = describeConflicts(&sp, best, margin)
 	if !plan.Feasible {
 		return plan, fmt.Errorf("%w: no tap meets every requirement: %s; of the %d quarter-turn taps at the requested pitch %d cover every band, %d overlap, %d are free of harmonic coincidences and %d both cover and overlap; the best compromise, at %g turns, misses: %s",
-			ErrInfeasible, plan.binding(), plan.Tried, plan.Covering, plan.Overlapping, plan.Clean, plan.CoveringOverlapping, plan.TapTurns, strings.Join(plan.Conflicts, "; "))
+			coil.ErrInfeasible, plan.binding(), plan.Tried, plan.Covering, plan.Overlapping, plan.Clean, plan.CoveringOverlapping, plan.TapTurns, strings.Join(plan.Conflicts, "; "))
 	}
 	return plan, nil
 }
@@ -142,13 +143,17 @@ func (p *TapPlan) binding() string {
 }
 
 // bestTap tries every quarter-turn tap of g and returns the lowest cost.
-func bestTap(spec SpanSpec, g Geometry, margin float64, plan *TapPlan) (tapScore, error) {
+func bestTap(spec Spec, g coil.Geometry, margin float64, plan *TapPlan) (tapScore, error) {
 	spec.Geometry = g
+	m, err := newCoilModel(g)
+	if err != nil {
+		return tapScore{}, err
+	}
 	steps := int(math.Round(g.Turns * 4))
 	best := tapScore{tap: -1}
 	for i := 1; i < steps; i++ {
 		spec.TapTurns = float64(i) / 4
-		s, err := scoreTap(spec, margin)
+		s, err := scoreTap(spec, m, margin)
 		if err != nil {
 			return tapScore{}, err
 		}
@@ -175,9 +180,10 @@ func bestTap(spec SpanSpec, g Geometry, margin float64, plan *TapPlan) (tapScore
 	return best, nil
 }
 
-// scoreTap measures one candidate against the requirements.
-func scoreTap(spec SpanSpec, margin float64) (tapScore, error) {
-	c, err := newSpanCircuit(spec)
+// scoreTap measures one candidate against the requirements; m is
+// spec.Geometry's coilModel.
+func scoreTap(spec Spec, m *coilModel, margin float64) (tapScore, error) {
+	c, err := newSpanCircuitOf(spec, m)
 	if err != nil {
 		return tapScore{}, err
 	}
@@ -210,7 +216,7 @@ func scoreTap(spec SpanSpec, margin float64) (tapScore, error) {
 		s.overShort = 1
 		return s, nil
 	}
-	// The same rows and runs as SolveSpan's coincidences, so that the
+	// The same rows and runs as Solve's coincidences, so that the
 	// verdict here is the one the chosen span reports.
 	for _, w := range c.lowWindows(spec.Bands, low) {
 		rows, err := c.windowRows(w)
@@ -241,20 +247,20 @@ func rangeRoom(b Band, rg FreqRange) float64 {
 }
 
 // searchPitch runs Nelder–Mead on the pitch, reparameterised so that any
-// real u maps into [d_o, LoosestPitchFactor·d_o]:
+// real u maps into [d_o, coil.LoosestPitchFactor·d_o]:
 //
 //	p = d_o·(1 + (F−1)·(1 + tanh u)/2)
 //
 // and at each pitch every tap is tried. A coarse scan of nine pitches picks
 // the starting point, since the best tap switches as the pitch moves.
-func searchPitch(spec SpanSpec, margin float64) (Geometry, tapScore, error) {
+func searchPitch(spec Spec, margin float64) (coil.Geometry, tapScore, error) {
 	g0 := spec.Geometry
-	do := g0.overall()
+	do := float64(g0.OverallDiameter())
 	pitchOf := func(u float64) unit.Length {
-		return unit.Length(do * (1 + (LoosestPitchFactor-1)*(1+math.Tanh(u))/2))
+		return unit.Length(do * (1 + (coil.LoosestPitchFactor-1)*(1+math.Tanh(u))/2))
 	}
 	var firstErr error
-	eval := func(u float64) (Geometry, tapScore) {
+	eval := func(u float64) (coil.Geometry, tapScore) {
 		g := g0
 		g.Pitch = pitchOf(u)
 		s, err := bestTap(spec, g, margin, &TapPlan{})
@@ -267,7 +273,7 @@ func searchPitch(spec SpanSpec, margin float64) (Geometry, tapScore, error) {
 		return g, s
 	}
 	bestU, bestCost := 0.0, math.Inf(1)
-	var bestG Geometry
+	var bestG coil.Geometry
 	var bestS tapScore
 	for i := range 9 {
 		u := -2.5 + 5*float64(i)/8
@@ -277,7 +283,7 @@ func searchPitch(spec SpanSpec, margin float64) (Geometry, tapScore, error) {
 		}
 	}
 	if firstErr != nil {
-		return Geometry{}, tapScore{}, firstErr
+		return coil.Geometry{}, tapScore{}, firstErr
 	}
 	p := optimize.Problem{Func: func(x []float64) float64 {
 		_, s := eval(x[0])
@@ -286,7 +292,7 @@ func searchPitch(spec SpanSpec, margin float64) (Geometry, tapScore, error) {
 	settings := &optimize.Settings{FuncEvaluations: 40, Converger: &optimize.FunctionConverge{Absolute: 1e-6, Iterations: 8}}
 	res, err := optimize.Minimize(p, []float64{bestU}, settings, &optimize.NelderMead{SimplexSize: 0.3})
 	if firstErr != nil {
-		return Geometry{}, tapScore{}, firstErr
+		return coil.Geometry{}, tapScore{}, firstErr
 	}
 	// A run stopped by its evaluation budget returns no error and still
 	// holds a usable best point; a failed run leaves the coarse scan's.
@@ -311,7 +317,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 		if room >= margin {
 			continue
 		}
-		edge := fmt.Sprintf("the %s range runs %s to %s", name, fmtHz(float64(rg.Min)), fmtHz(float64(rg.Max)))
+		edge := fmt.Sprintf("the %s range runs %s to %s", name, coil.FormatFrequency(float64(rg.Min)), coil.FormatFrequency(float64(rg.Max)))
 		out = append(out, fmt.Sprintf("band %s is not inside either range with %.0f %% to spare (%s)",
 			bandWithEdges(b.Band), margin*100, edge))
 	}
@@ -319,7 +325,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 		out = append(out, "the circuit has no high range")
 	} else if s.overShort > 0 {
 		if sp.Overlap < 0 {
-			out = append(out, fmt.Sprintf("the ranges leave a gap from %s to %s", fmtHz(float64(sp.Low.Max)), fmtHz(float64(sp.High.Min))))
+			out = append(out, fmt.Sprintf("the ranges leave a gap from %s to %s", coil.FormatFrequency(float64(sp.Low.Max)), coil.FormatFrequency(float64(sp.High.Min))))
 		} else {
 			out = append(out, fmt.Sprintf("the ranges overlap by only %.1f %% (less than %.0f %%)", float64(sp.Overlap)/float64(sp.High.Min)*100, margin*100))
 		}
@@ -327,7 +333,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 	if s.coincidence > 0 {
 		for _, co := range sp.Coincidences {
 			out = append(out, fmt.Sprintf("the %s harmonic of the low range%s falls inside the high range's passband at %.1f %% of the dial (%s against %s)",
-				ordinal(co.Order), inBand(co.Band), co.Setting*100, fmtHz(float64(co.Harmonic)), fmtHz(float64(co.FHigh))))
+				ordinal(co.Order), inBand(co.Band), co.Setting*100, coil.FormatFrequency(float64(co.Harmonic)), coil.FormatFrequency(float64(co.FHigh))))
 		}
 	}
 	return out

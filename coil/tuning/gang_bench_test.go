@@ -1,17 +1,21 @@
-package coil
+package tuning
 
-import "testing"
+import (
+	"testing"
+	"turnwise/coil"
+)
 
 var (
-	sinkRes  Resonances
-	sinkSpan Span
-	sinkPlan TapPlan
+	sinkRes   Resonances
+	sinkSpan  Span
+	sinkPlan  TapPlan
+	sinkRatio float64
 )
 
 // BenchmarkTwoNodeResonances is one dial setting: Γ built with gonum/mat
 // and the 2×2 symmetric eigenproblem. Compare with BenchmarkEllipticPair.
 func BenchmarkTwoNodeResonances(b *testing.B) {
-	s, err := Tap(hfTapExample(), 17, 5e6)
+	s, err := coil.Tap(hfTapExample(), 17, 5e6)
 	if err != nil {
 		b.Fatal(err)
 	}
@@ -28,20 +32,20 @@ func BenchmarkTwoNodeResonances(b *testing.B) {
 func BenchmarkTap(b *testing.B) {
 	g := hfTapExample()
 	for b.Loop() {
-		s, err := Tap(g, 17, 5e6)
+		s, err := coil.Tap(g, 17, 5e6)
 		if err != nil {
 			b.Fatal(err)
 		}
-		sinkF += s.Ratio
+		sinkRatio = s.Ratio
 	}
 }
 
 // BenchmarkSolveSpan is the whole span of the HF example with three
 // bands: 11 rows, band edges by bisection, the coincidence scan.
 func BenchmarkSolveSpan(b *testing.B) {
-	spec := SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands}
+	spec := Spec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands}
 	for b.Loop() {
-		sp, err := SolveSpan(spec)
+		sp, err := Solve(spec)
 		if err != nil {
 			b.Fatal(err)
 		}
@@ -51,7 +55,7 @@ func BenchmarkSolveSpan(b *testing.B) {
 
 // BenchmarkChooseTap tries all 159 quarter-turn taps of the HF example.
 func BenchmarkChooseTap(b *testing.B) {
-	spec := SpanSpec{Geometry: hfTapExample(), A: hfGang(), B: hfGang(), Bands: hfBands}
+	spec := Spec{Geometry: hfTapExample(), A: hfGang(), B: hfGang(), Bands: hfBands}
 	for b.Loop() {
 		p, err := ChooseTap(spec, TapSearch{})
 		if err != nil {

@@ -1,9 +1,10 @@
-package coil
+package tuning
 
 import (
 	"errors"
 	"math"
 	"testing"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -42,7 +43,7 @@ func TestTwoNodeResonancesClosedForm(t *testing.T) {
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
-			s := Sections{LA: unit.Inductance(tc.la), LB: unit.Inductance(tc.lb), M: unit.Inductance(tc.m)}
+			s := coil.Sections{LA: unit.Inductance(tc.la), LB: unit.Inductance(tc.lb), M: unit.Inductance(tc.m)}
 			r, err := TwoNodeResonances(s, unit.Capacitance(tc.cT), unit.Capacitance(tc.cB))
 			if err != nil {
 				t.Fatal(err)
@@ -62,7 +63,7 @@ func TestTwoNodeResonancesClosedForm(t *testing.T) {
 func TestTwoNodeResonancesSymmetric(t *testing.T) {
 	t.Parallel()
 	const l, c = 4e-6, 100e-12
-	s := Sections{LA: l, LB: l}
+	s := coil.Sections{LA: l, LB: l}
 	r, err := TwoNodeResonances(s, c, c)
 	if err != nil {
 		t.Fatal(err)
@@ -82,37 +83,37 @@ func TestTwoNodeResonancesSymmetric(t *testing.T) {
 func TestTwoNodeResonancesLimits(t *testing.T) {
 	t.Parallel()
 	g := hfTapExample()
-	mid, _ := Tap(g, 17, 5e6)
+	mid, _ := coil.Tap(g, 17, 5e6)
 	r, err := TwoNodeResonances(mid, 120e-12, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if want := ResonantFrequency(mid.L, 120e-12); r.High != 0 || relErr(float64(r.Low), float64(want)) > implTol {
+	if want := coil.ResonantFrequency(mid.L, 120e-12); r.High != 0 || relErr(float64(r.Low), float64(want)) > implTol {
 		t.Errorf("B at zero: %+v, want one resonance %v", r, want)
 	}
-	top, _ := Tap(g, g.Turns, 5e6)
+	top, _ := coil.Tap(g, g.Turns, 5e6)
 	r, err = TwoNodeResonances(top, 120e-12, 80e-12)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if want := ResonantFrequency(top.L, 200e-12); r.High != 0 || relErr(float64(r.Low), float64(want)) > implTol {
+	if want := coil.ResonantFrequency(top.L, 200e-12); r.High != 0 || relErr(float64(r.Low), float64(want)) > implTol {
 		t.Errorf("tap at the top: %+v, want %v", r, want)
 	}
-	cold, _ := Tap(g, 0, 5e6)
+	cold, _ := coil.Tap(g, 0, 5e6)
 	r, err = TwoNodeResonances(cold, 120e-12, 80e-12)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if want := ResonantFrequency(cold.L, 120e-12); r.High != 0 || relErr(float64(r.Low), float64(want)) > implTol {
+	if want := coil.ResonantFrequency(cold.L, 120e-12); r.High != 0 || relErr(float64(r.Low), float64(want)) > implTol {
 		t.Errorf("tap at ground: %+v, want %v", r, want)
 	}
 	// Approaching the limits continuously: a tiny capacitance at the tap
 	// sends the high mode up and leaves the low one at the single tank.
 	r, _ = TwoNodeResonances(mid, 120e-12, 1e-18)
-	if want := ResonantFrequency(mid.L, 120e-12); relErr(float64(r.Low), float64(want)) > 1e-5 || r.High < 100*r.Low {
+	if want := coil.ResonantFrequency(mid.L, 120e-12); relErr(float64(r.Low), float64(want)) > 1e-5 || r.High < 100*r.Low {
 		t.Errorf("tiny C at the tap: %+v, single tank %v", r, want)
 	}
-	if _, err := TwoNodeResonances(Sections{LA: 1e-6, LB: 1e-6, M: 1e-6}, 1e-12, 1e-12); err == nil {
+	if _, err := TwoNodeResonances(coil.Sections{LA: 1e-6, LB: 1e-6, M: 1e-6}, 1e-12, 1e-12); err == nil {
 		t.Error("k = 1 accepted")
 	}
 	if _, err := TwoNodeResonances(mid, 0, 0); err == nil {
@@ -185,9 +186,9 @@ func TestGangValidate(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
 			err := tc.s.Validate("gang_a")
-			var ie *InputError
+			var ie *coil.InputError
 			if !errors.As(err, &ie) || ie.Param != tc.param {
-				t.Errorf("err = %v, want InputError %s", err, tc.param)
+				t.Errorf("err = %v, want coil.InputError %s", err, tc.param)
 			}
 		})
 	}

@@ -1,9 +1,10 @@
-package coil
+package tuning
 
 import (
 	"fmt"
 	"math"
 	"sort"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -15,10 +16,10 @@ type Band struct {
 	Low, High unit.Frequency
 }
 
-// SpanSpec is a tapped coil on a two-gang capacitor: section A from the
+// Spec is a tapped coil on a two-gang capacitor: section A from the
 // top of the coil to ground, section B from the tap to ground, one shaft.
-type SpanSpec struct {
-	Geometry Geometry
+type Spec struct {
+	Geometry coil.Geometry
 	TapTurns float64 // from the cold end, quarter turns
 	A, B     GangSection
 	// Steps is the number of dial rows reported, from 0 to 100 % of the
@@ -39,10 +40,6 @@ type SpanSpec struct {
 // for capacitor and coil tolerances that a trimmer can take up (common
 // practice).
 const DefaultMargin = 0.03
-
-// PassbandRule states how the high range's passband is taken. It is
-// printed by the command so the builder knows what "inside" means.
-const PassbandRule = "passband = f/Q_loaded (−3 dB full width of a single tuned circuit); Q_loaded = half the coil model's Q at f, the Q of a tank matched to its load (common practice), unless given"
 
 // DialRow is the circuit at one dial setting.
 type DialRow struct {
@@ -116,7 +113,7 @@ func (co Coincidence) OnPeak() bool {
 
 // Span is the two-gang circuit across the dial.
 type Span struct {
-	Sections        Sections
+	Sections        coil.Sections
 	SelfCapacitance unit.Capacitance // Medhurst's, across the whole coil
 	Dial            []DialRow
 	Low, High       FreqRange
@@ -143,10 +140,11 @@ const spanScan = 400
 
 // spanCircuit evaluates the circuit at any setting.
 type spanCircuit struct {
-	geom    Geometry
-	sec     Sections
+	geom    coil.Geometry
+	sec     coil.Sections
 	a, b    GangSection
-	cself   float64
+	cself   float64 // the whole coil's self-capacitance, F
+	srf     float64 // the whole coil's self-resonance, Hz
 	loadedQ float64
 	q       qTable
 }
@@ -162,7 +160,7 @@ func (c *spanCircuit) at(x float64) (DialRow, error) {
 	return DialRow{Setting: x, CA: ca, CB: cb, CTop: ct, CTap: ctap, FLow: r.Low, FHigh: r.High}, nil
 }
 
-// SolveSpan computes both ranges across the dial, their overlap, where
+// Solve computes both ranges across the dial, their overlap, where
 // the listed bands fall and the harmonic coincidences.
 //
 // The section inductances are taken at one frequency, the geometric mean
@@ -177,7 +175,7 @@ func (c *spanCircuit) at(x float64) (DialRow, error) {
 // harmonic crossing the high range's peak is found even when the passband
 // is narrower than a step. When the ranges leave a gap, every quarter-turn
 // tap is tried for the one that closes it (WidestOverlapTap).
-func SolveSpan(spec SpanSpec) (Span, error) {
+func Solve(spec Spec) (Span, error) {
 	c, err := newSpanCircuit(spec)
 	if err != nil {
 		return Span{}, err
@@ -185,54 +183,87 @@ func SolveSpan(spec SpanSpec) (Span, error) {
 	return c.solve(spec)
 }
 
-func validateSpan(spec *SpanSpec) error {
-	if err := spec.Geometry.Validate(); err != nil {
-		return err
-	}
-	if err := validateTap(spec.Geometry.Turns, spec.TapTurns); err != nil {
-		return err
+// validateSpan checks spec and returns the sections of its tap at low
+// frequency (coil.Tap validates the geometry and the tap).
+func validateSpan(spec *Spec) (coil.Sections, error) {
+	sec, err := coil.Tap(spec.Geometry, spec.TapTurns, 0)
+	if err != nil {
+		return coil.Sections{}, err
 	}
 	if err := spec.A.Validate("gang_a"); err != nil {
-		return err
+		return coil.Sections{}, err
 	}
 	if err := spec.B.Validate("gang_b"); err != nil {
-		return err
+		return coil.Sections{}, err
 	}
 	if spec.Steps != 0 && (spec.Steps < 2 || spec.Steps > 1001) {
-		return inputErrorf("steps", "%d dial rows: give 2 to 1001", spec.Steps)
+		return coil.Sections{}, inputErrorf("steps", "%d dial rows: give 2 to 1001", spec.Steps)
 	}
 	if !finite(spec.LoadedQ) || spec.LoadedQ < 0 || spec.LoadedQ > 1e5 {
-		return inputErrorf("loaded_q", "must be between 0 (from the coil model) and 100000")
+		return coil.Sections{}, inputErrorf("loaded_q", "must be between 0 (from the coil model) and 100000")
 	}
 	if !finite(spec.Margin) || spec.Margin < 0 || spec.Margin > 0.5 {
-		return inputErrorf("margin", "must be between 0 and 50 %%")
+		return coil.Sections{}, inputErrorf("margin", "must be between 0 and 50 %%")
 	}
 	for i, b := range spec.Bands {
 		lo, hi := float64(b.Low), float64(b.High)
-		if !finite(lo) || !finite(hi) || lo <= 0 || hi <= lo || hi > MaxFrequency {
-			return inputErrorf("band", "band %d (%s): give LOW-HIGH with LOW below HIGH, e.g. 3.5-3.8MHz", i+1, b.Name)
+		if !finite(lo) || !finite(hi) || lo <= 0 || hi <= lo || hi > coil.MaxFrequency {
+			return coil.Sections{}, inputErrorf("band", "band %d (%s): give LOW-HIGH with LOW below HIGH, e.g. 3.5-3.8MHz", i+1, b.Name)
 		}
 	}
-	return nil
+	return sec, nil
 }
 
-func newSpanCircuit(spec SpanSpec) (*spanCircuit, error) {
-	if err := validateSpan(&spec); err != nil {
+// coilModel is what the circuit takes from the coil model that does not
+// depend on the tap: the whole coil at low frequency (self-capacitance,
+// self-resonance) and its Q against frequency. Solving many taps of one
+// coil (ChooseTap, the gap advice) builds it once.
+type coilModel struct {
+	whole coil.Prediction
+	q     qTable
+}
+
+func newCoilModel(g coil.Geometry) (*coilModel, error) {
+	whole, err := coil.Predict(g, 0)
+	if err != nil {
+		return nil, err
+	}
+	q, err := newQTable(g, float64(whole.SRF))
+	if err != nil {
+		return nil, err
+	}
+	return &coilModel{whole: whole, q: q}, nil
+}
+
+func newSpanCircuit(spec Spec) (*spanCircuit, error) {
+	return newSpanCircuitOf(spec, nil)
+}
+
+// newSpanCircuitOf builds the circuit of spec; m is spec.Geometry's
+// coilModel, or nil to build it.
+func newSpanCircuitOf(spec Spec, m *coilModel) (*spanCircuit, error) {
+	sec0, err := validateSpan(&spec)
+	if err != nil {
 		return nil, err
 	}
 	g := spec.Geometry
-	var whole Prediction
-	evaluate(&whole, &g, 0)
+	if m == nil {
+		if m, err = newCoilModel(g); err != nil {
+			return nil, err
+		}
+	}
 	c := &spanCircuit{
 		geom:    g,
 		a:       spec.A,
 		b:       spec.B,
-		cself:   float64(whole.SelfCapacitance),
+		cself:   float64(m.whole.SelfCapacitance),
+		srf:     float64(m.whole.SRF),
 		loadedQ: spec.LoadedQ,
+		q:       m.q,
 	}
 	// First pass at low frequency, then the sections at the mid-dial
 	// frequency.
-	c.sec = sections(&g, spec.TapTurns, 0)
+	c.sec = sec0
 	mid, err := c.at(0.5)
 	if err != nil {
 		return nil, err
@@ -241,15 +272,16 @@ func newSpanCircuit(spec SpanSpec) (*spanCircuit, error) {
 	if mid.FHigh > 0 {
 		fRef = math.Sqrt(float64(mid.FLow) * float64(mid.FHigh))
 	}
-	if fRef > 0.9*float64(whole.SRF) {
-		fRef = 0.9 * float64(whole.SRF)
+	if fRef > 0.9*c.srf {
+		fRef = 0.9 * c.srf
 	}
-	c.sec = sections(&g, spec.TapTurns, fRef)
-	c.q = newQTable(&g, float64(whole.SRF))
+	if c.sec, err = coil.Tap(g, spec.TapTurns, unit.Frequency(fRef)); err != nil {
+		return nil, err
+	}
 	return c, nil
 }
 
-func (c *spanCircuit) solve(spec SpanSpec) (Span, error) {
+func (c *spanCircuit) solve(spec Spec) (Span, error) {
 	sp := Span{Sections: c.sec, SelfCapacitance: unit.Capacitance(c.cself), Margin: spec.Margin}
 	if sp.Margin == 0 {
 		sp.Margin = DefaultMargin
@@ -293,13 +325,17 @@ func (c *spanCircuit) solve(spec SpanSpec) (Span, error) {
 // returns the one whose ranges overlap most, relative to the bottom of the
 // high range (as the margin is), or, when none overlaps, the one leaving
 // the smallest gap in hertz; and that overlap in hertz (negative: a gap).
-func widestOverlapTap(spec SpanSpec) (float64, unit.Frequency) {
+func widestOverlapTap(spec Spec) (float64, unit.Frequency) {
 	bestTap, bestHz := 0.0, math.Inf(-1)
 	bestRel := math.Inf(-1) // among taps that overlap
+	m, err := newCoilModel(spec.Geometry)
+	if err != nil {
+		return bestTap, unit.Frequency(bestHz)
+	}
 	steps := int(math.Round(spec.Geometry.Turns * 4))
 	for i := 1; i < steps; i++ {
 		spec.TapTurns = float64(i) / 4
-		c, err := newSpanCircuit(spec)
+		c, err := newSpanCircuitOf(spec, m)
 		if err != nil {
 			continue
 		}
@@ -415,7 +451,7 @@ func (c *spanCircuit) lowWindows(bands []Band, low FreqRange) []window {
 }
 
 // windowRows evaluates the circuit across a dial stretch at the scan
-// resolution. SolveSpan and ChooseTap scan the same rows, so that a tap
+// resolution. Solve and ChooseTap scan the same rows, so that a tap
 // ChooseTap calls clean is reported clean.
 func (c *spanCircuit) windowRows(w window) ([]DialRow, error) {
 	n := max(int(math.Ceil((w.to-w.from)*spanScan))+1, 2)
@@ -562,9 +598,7 @@ func (c *spanCircuit) qLoaded(f float64) float64 {
 
 func (c *spanCircuit) warnings(sp *Span) []string {
 	var w []string
-	var whole Prediction
-	evaluate(&whole, &c.geom, 0)
-	srf := float64(whole.SRF)
+	srf := c.srf
 	top := float64(sp.Low.Max)
 	if sp.HasHigh {
 		top = float64(sp.High.Max)
@@ -573,17 +607,17 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 	switch {
 	case top > srf:
 		w = append(w, fmt.Sprintf("the top of the %s range, %s, is above the coil's self-resonance %s: the lumped circuit does not hold there and the real range will fall well short; move the tap or use a coil with fewer turns",
-			name, fmtHz(top), fmtHz(srf)))
+			name, coil.FormatFrequency(float64(unit.Frequency(top))), coil.FormatFrequency(float64(unit.Frequency(srf)))))
 	case top > srf/3:
 		w = append(w, fmt.Sprintf("the top of the %s range, %s, is above a third of the coil's self-resonance %s (common practice limit): expect the real range to fall short there",
-			name, fmtHz(top), fmtHz(srf)))
+			name, coil.FormatFrequency(float64(unit.Frequency(top))), coil.FormatFrequency(float64(unit.Frequency(srf)))))
 	}
 	if !sp.HasHigh {
 		w = append(w, "the circuit has one resonance only (section B at zero capacitance, or the tap at an end of the coil): there is no high range")
 	}
 	if sp.HasHigh && sp.Overlap < 0 {
 		w = append(w, fmt.Sprintf("the ranges do not meet: a gap from %s to %s that neither range tunes; %s",
-			fmtHz(float64(sp.Low.Max)), fmtHz(float64(sp.High.Min)), sp.GapAdvice()))
+			coil.FormatFrequency(float64(sp.Low.Max)), coil.FormatFrequency(float64(sp.High.Min)), sp.GapAdvice()))
 	}
 	for _, b := range sp.Bands {
 		if !b.Covered {
@@ -592,12 +626,12 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 	}
 	for _, co := range sp.Coincidences {
 		where := fmt.Sprintf("is %s from the high range's peak %s, inside its %s passband (only %.1f dB down)",
-			fmtHz(math.Abs(float64(co.Offset))), fmtHz(float64(co.FHigh)), fmtHz(float64(co.Passband)), co.AttenuationDB)
+			coil.FormatFrequency(float64(unit.Frequency(math.Abs(float64(co.Offset))))), coil.FormatFrequency(float64(co.FHigh)), coil.FormatFrequency(float64(co.Passband)), co.AttenuationDB)
 		if co.OnPeak() {
-			where = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband", fmtHz(float64(co.Passband)))
+			where = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband", coil.FormatFrequency(float64(co.Passband)))
 		}
 		w = append(w, fmt.Sprintf("harmonic coincidence at %.1f %% of the dial (0 %% = plates open): low range at %s%s, its %s harmonic %s %s",
-			co.Setting*100, fmtHz(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), fmtHz(float64(co.Harmonic)), where))
+			co.Setting*100, coil.FormatFrequency(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), coil.FormatFrequency(float64(co.Harmonic)), where))
 	}
 	return w
 }
@@ -606,15 +640,15 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 // on this winding does.
 func (sp *Span) GapAdvice() string {
 	if sp.WidestOverlap >= 0 {
-		return fmt.Sprintf("a tap %g turns from the cold end makes them overlap by %s", sp.WidestOverlapTap, fmtHz(float64(sp.WidestOverlap)))
+		return fmt.Sprintf("a tap %g turns from the cold end makes them overlap by %s", sp.WidestOverlapTap, coil.FormatFrequency(float64(sp.WidestOverlap)))
 	}
-	return fmt.Sprintf("no tap on this winding closes it (the best, %g turns from the cold end, still leaves %s): the capacitance swing, maximum to minimum with the strays, is too small", sp.WidestOverlapTap, fmtHz(-float64(sp.WidestOverlap)))
+	return fmt.Sprintf("no tap on this winding closes it (the best, %g turns from the cold end, still leaves %s): the capacitance swing, maximum to minimum with the strays, is too small", sp.WidestOverlapTap, coil.FormatFrequency(float64(-sp.WidestOverlap)))
 }
 
 // bandWithEdges is "80m (3.5 MHz–3.8 MHz)", or the edges alone for a
 // band without a name.
 func bandWithEdges(b Band) string {
-	edges := fmt.Sprintf("%s–%s", fmtHz(float64(b.Low)), fmtHz(float64(b.High)))
+	edges := fmt.Sprintf("%s–%s", coil.FormatFrequency(float64(b.Low)), coil.FormatFrequency(float64(b.High)))
 	if b.Name == "" {
 		return edges
 	}
@@ -646,17 +680,22 @@ type qTable struct {
 
 const qTablePoints = 48
 
-func newQTable(g *Geometry, srf float64) qTable {
+// newQTable tabulates Q from 10⁻⁴ of 0.9·SRF up to 0.9·SRF (and at most
+// coil.MaxFrequency), the frequencies at which coil.Predict accepts the coil.
+func newQTable(g coil.Geometry, srf float64) (qTable, error) {
 	fMax := 0.9 * srf
 	fMin := fMax / 1e4
+	fTop := math.Min(fMax, coil.MaxFrequency)
 	t := qTable{lnF: make([]float64, qTablePoints), q: make([]float64, qTablePoints)}
-	var p Prediction
 	for i := range qTablePoints {
 		lf := math.Log(fMin) + (math.Log(fMax)-math.Log(fMin))*float64(i)/(qTablePoints-1)
-		evaluate(&p, g, math.Exp(lf))
+		p, err := coil.Predict(g, unit.Frequency(math.Min(math.Exp(lf), fTop)))
+		if err != nil {
+			return qTable{}, err
+		}
 		t.lnF[i], t.q[i] = lf, p.Q
 	}
-	return t
+	return t, nil
 }
 
 func (t qTable) at(f float64) float64 {

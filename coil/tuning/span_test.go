@@ -1,9 +1,10 @@
-package coil
+package tuning
 
 import (
 	"math"
 	"strings"
 	"testing"
+	"turnwise/coil"
 )
 
 // hfBands are the invented example's bands: 80 m and 40 m amateur (ITU
@@ -14,7 +15,7 @@ func hfGang() GangSection { return GangSection{Min: 15e-12, Max: 365e-12, Stray:
 
 func TestSolveSpanExample(t *testing.T) {
 	t.Parallel()
-	sp, err := SolveSpan(SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands})
+	sp, err := Solve(Spec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -41,7 +42,7 @@ func TestSolveSpanExample(t *testing.T) {
 		t.Errorf("overlap %v, ranges %+v %+v", sp.Overlap, sp.Low, sp.High)
 	}
 	// Band edges: the range is tuned to the edge at the reported setting.
-	c, _ := newSpanCircuit(SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang()})
+	c, _ := newSpanCircuit(Spec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang()})
 	for _, bc := range sp.Bands {
 		if !bc.Covered {
 			t.Errorf("band %s not covered: %+v", bc.Band.Name, bc)
@@ -64,8 +65,8 @@ func TestSolveSpanExample(t *testing.T) {
 // point the offset is the harmonic minus the high range.
 func TestSpanCoincidences(t *testing.T) {
 	t.Parallel()
-	spec := SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands}
-	sp, err := SolveSpan(spec)
+	spec := Spec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands}
+	sp, err := Solve(spec)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -120,7 +121,7 @@ func TestSpanCoincidences(t *testing.T) {
 func TestSpanGangBZero(t *testing.T) {
 	t.Parallel()
 	g := hfTapExample()
-	sp, err := SolveSpan(SpanSpec{Geometry: g, TapTurns: 17, A: hfGang(), B: GangSection{}})
+	sp, err := Solve(Spec{Geometry: g, TapTurns: 17, A: hfGang(), B: GangSection{}})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -128,7 +129,7 @@ func TestSpanGangBZero(t *testing.T) {
 		t.Errorf("B at zero: high range %v, coincidences %d", sp.HasHigh, len(sp.Coincidences))
 	}
 	for _, r := range sp.Dial {
-		want := ResonantFrequency(sp.Sections.L, r.CTop)
+		want := coil.ResonantFrequency(sp.Sections.L, r.CTop)
 		if r.FHigh != 0 || relErr(float64(r.FLow), float64(want)) > implTol {
 			t.Errorf("setting %g: %v, single tank %v", r.Setting, r.FLow, want)
 		}
@@ -139,7 +140,7 @@ func TestSpanGangBZero(t *testing.T) {
 func TestSpanTapAtTop(t *testing.T) {
 	t.Parallel()
 	g := hfTapExample()
-	sp, err := SolveSpan(SpanSpec{Geometry: g, TapTurns: g.Turns, A: hfGang(), B: hfGang()})
+	sp, err := Solve(Spec{Geometry: g, TapTurns: g.Turns, A: hfGang(), B: hfGang()})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -147,7 +148,7 @@ func TestSpanTapAtTop(t *testing.T) {
 		t.Error("tap at the top has a high range")
 	}
 	for _, r := range sp.Dial {
-		if want := ResonantFrequency(sp.Sections.L, r.CTop+r.CTap); relErr(float64(r.FLow), float64(want)) > implTol {
+		if want := coil.ResonantFrequency(sp.Sections.L, r.CTop+r.CTap); relErr(float64(r.FLow), float64(want)) > implTol {
 			t.Errorf("setting %g: %v, want %v", r.Setting, r.FLow, want)
 		}
 	}
@@ -156,7 +157,7 @@ func TestSpanTapAtTop(t *testing.T) {
 // A fixed capacitor on section B (MIN = MAX): only section A moves.
 func TestSpanFixedB(t *testing.T) {
 	t.Parallel()
-	sp, err := SolveSpan(SpanSpec{Geometry: hfTapExample(), TapTurns: 10, A: hfGang(), B: GangSection{Min: 47e-12, Max: 47e-12}, Steps: 5})
+	sp, err := Solve(Spec{Geometry: hfTapExample(), TapTurns: 10, A: hfGang(), B: GangSection{Min: 47e-12, Max: 47e-12}, Steps: 5})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -172,27 +173,27 @@ func TestSpanFixedB(t *testing.T) {
 
 func TestSolveSpanBadInput(t *testing.T) {
 	t.Parallel()
-	base := SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang()}
+	base := Spec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang()}
 	tests := []struct {
 		name  string
-		edit  func(s *SpanSpec)
+		edit  func(s *Spec)
 		param string
 	}{
-		{"tap beyond", func(s *SpanSpec) { s.TapTurns = 41 }, "tap_turns"},
-		{"steps", func(s *SpanSpec) { s.Steps = 1 }, "steps"},
-		{"band upside down", func(s *SpanSpec) { s.Bands = []Band{{"x", 7e6, 3e6}} }, "band"},
-		{"Q negative", func(s *SpanSpec) { s.LoadedQ = -1 }, "loaded_q"},
-		{"gang B", func(s *SpanSpec) { s.B.Max = 1e-12 }, "gang_b"},
+		{"tap beyond", func(s *Spec) { s.TapTurns = 41 }, "tap_turns"},
+		{"steps", func(s *Spec) { s.Steps = 1 }, "steps"},
+		{"band upside down", func(s *Spec) { s.Bands = []Band{{"x", 7e6, 3e6}} }, "band"},
+		{"Q negative", func(s *Spec) { s.LoadedQ = -1 }, "loaded_q"},
+		{"gang B", func(s *Spec) { s.B.Max = 1e-12 }, "gang_b"},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
 			s := base
 			tc.edit(&s)
-			_, err := SolveSpan(s)
-			ie, ok := err.(*InputError)
+			_, err := Solve(s)
+			ie, ok := err.(*coil.InputError)
 			if !ok || ie.Param != tc.param {
-				t.Errorf("err = %v, want InputError %s", err, tc.param)
+				t.Errorf("err = %v, want coil.InputError %s", err, tc.param)
 			}
 		})
 	}
@@ -206,8 +207,8 @@ func TestSolveSpanBadInput(t *testing.T) {
 func TestSpanCoincidenceNarrowPassband(t *testing.T) {
 	t.Parallel()
 	for _, q := range []float64{1e4, 1e5} {
-		spec := SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), LoadedQ: q}
-		sp, err := SolveSpan(spec)
+		spec := Spec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), LoadedQ: q}
+		sp, err := Solve(spec)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -247,7 +248,7 @@ func TestSpanCoincidenceNarrowPassband(t *testing.T) {
 func TestSpanGapAdvice(t *testing.T) {
 	t.Parallel()
 	g := hfTapExample()
-	overlapAt := func(spec SpanSpec, tap float64) float64 {
+	overlapAt := func(spec Spec, tap float64) float64 {
 		spec.TapTurns = tap
 		c, err := newSpanCircuit(spec)
 		if err != nil {
@@ -258,8 +259,8 @@ func TestSpanGapAdvice(t *testing.T) {
 		return float64(open.FLow - meshed.FHigh)
 	}
 	for _, tap := range []float64{0.25, g.Turns - 1} {
-		spec := SpanSpec{Geometry: g, TapTurns: tap, A: hfGang(), B: hfGang(), Steps: 2}
-		sp, err := SolveSpan(spec)
+		spec := Spec{Geometry: g, TapTurns: tap, A: hfGang(), B: hfGang(), Steps: 2}
+		sp, err := Solve(spec)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -276,7 +277,7 @@ func TestSpanGapAdvice(t *testing.T) {
 		// tap overlaps more (relative to the high range's bottom).
 		fix := spec
 		fix.TapTurns = sp.WidestOverlapTap
-		got, err := SolveSpan(fix)
+		got, err := Solve(fix)
 		if err != nil || relErr(float64(got.Overlap), float64(sp.WidestOverlap)) > implTol {
 			t.Errorf("tap %g: span at the advised tap overlaps %v, advice says %v (%v)", tap, got.Overlap, sp.WidestOverlap, err)
 		}
@@ -293,8 +294,8 @@ func TestSpanGapAdvice(t *testing.T) {
 	}
 	// A capacitor with too little swing: no tap closes the gap, and the
 	// advice says so.
-	spec := SpanSpec{Geometry: g, TapTurns: 17, A: GangSection{Min: 100e-12, Max: 365e-12}, B: GangSection{Min: 100e-12, Max: 365e-12}, Steps: 2}
-	sp, err := SolveSpan(spec)
+	spec := Spec{Geometry: g, TapTurns: 17, A: GangSection{Min: 100e-12, Max: 365e-12}, B: GangSection{Min: 100e-12, Max: 365e-12}, Steps: 2}
+	sp, err := Solve(spec)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -312,11 +313,11 @@ func TestSpanGapAdvice(t *testing.T) {
 // outside the lumped model, not only as past a third of it.
 func TestSpanAboveSRFWarning(t *testing.T) {
 	t.Parallel()
-	sp, err := SolveSpan(SpanSpec{Geometry: hfTapExample(), TapTurns: 0.25, A: hfGang(), B: hfGang(), Steps: 2})
+	sp, err := Solve(Spec{Geometry: hfTapExample(), TapTurns: 0.25, A: hfGang(), B: hfGang(), Steps: 2})
 	if err != nil {
 		t.Fatal(err)
 	}
-	p, _ := Predict(hfTapExample(), 0)
+	p, _ := coil.Predict(hfTapExample(), 0)
 	if !(sp.High.Max > p.SRF) {
 		t.Fatalf("high range top %v is below the SRF %v; the test needs it above", sp.High.Max, p.SRF)
 	}

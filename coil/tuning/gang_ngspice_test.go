@@ -1,4 +1,4 @@
-package coil
+package tuning
 
 import (
 	"bufio"
@@ -15,6 +15,7 @@ import (
 
 	"gonum.org/v1/gonum/unit"
 
+	"turnwise/coil"
 	"turnwise/internal/testtools"
 )
 
@@ -26,7 +27,7 @@ import (
 // from below (Foster: Im Y rises between its poles, so a zero crossing
 // upwards is a parallel resonance and a jump downwards is a pole), found by
 // linear interpolation between sweep points.
-func ngspiceResonances(t *testing.T, ngspice string, s Sections, cTop, cTap, fMin, fMax float64) []float64 {
+func ngspiceResonances(t *testing.T, ngspice string, s coil.Sections, cTop, cTap, fMin, fMax float64) []float64 {
 	t.Helper()
 	dir := t.TempDir()
 	out := filepath.Join(dir, "y.txt")
@@ -98,7 +99,7 @@ func TestTwoGangAgainstNgspice(t *testing.T) {
 	ngspice := testtools.Need(t, "ngspice", "ngspice")
 	const ngspiceTol = 1e-3 // the acceptance bound
 	gang := GangSection{Min: 15e-12, Max: 365e-12, Stray: 5e-12}
-	c, err := newSpanCircuit(SpanSpec{Geometry: hfTapExample(), TapTurns: 17, A: gang, B: gang})
+	c, err := newSpanCircuit(Spec{Geometry: hfTapExample(), TapTurns: 17, A: gang, B: gang})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -128,7 +129,7 @@ func TestTwoGangAgainstNgspice(t *testing.T) {
 func TestTwoGangAgainstNgspiceUnequal(t *testing.T) {
 	ngspice := testtools.Need(t, "ngspice", "ngspice")
 	const ngspiceTol = 1e-3
-	s, err := Tap(Geometry{FormerDiameter: 25e-3, WireDiameter: 0.8e-3, Turns: 20, Pitch: 1.6e-3, LeadLength: 20e-3}, 3.5, 4e6)
+	s, err := coil.Tap(coil.Geometry{FormerDiameter: 25e-3, WireDiameter: 0.8e-3, Turns: 20, Pitch: 1.6e-3, LeadLength: 20e-3}, 3.5, 4e6)
 	if err != nil {
 		t.Fatal(err)
 	}
