@@ -68,3 +68,21 @@ func fmtTurns(n float64) string {
 	}
 	return w + "¾"
 }
+
+// Formatters for the messages of the packages under coil (the design
+// search words its refusals with the model's numbers).
+
+// FormatHz formats a frequency with an engineering prefix.
+func FormatHz(f float64) string { return fmtHz(f) }
+
+// FormatH formats an inductance with an engineering prefix.
+func FormatH(h float64) string { return fmtH(h) }
+
+// FormatF formats a capacitance with an engineering prefix.
+func FormatF(c float64) string { return fmtF(c) }
+
+// FormatMM formats a length in millimetres.
+func FormatMM(x float64) string { return mm(x) }
+
+// FormatTurns prints quarter turns as a builder says them: 5, 5¼, ¾.
+func FormatTurns(n float64) string { return fmtTurns(n) }
