@@ -59,19 +59,18 @@ type pair struct {
 
 // wireData holds what depends on the wire alone.
 type wireData struct {
-	r         float64 // bare radius
-	do        float64
-	rho       float64                        // resistivity at the conductor temperature
-	rdcPerM   float64                        // Ω/m at the conductor temperature
-	atMatch   coil.WireAt                    // at the matching frequency
-	atOp      coil.WireAt                    // at the operating frequency
-	fs        float64                        // R_ac/R_dc at the operating frequency
-	proxLB    float64                        // least proximity factor at any pitch up to coil.LoosestPitchFactor·d_o
-	sliceRow  [boundSlices]coil.ProximityRow // Φ at the loose end of each pitch band
-	leadsMax  float64                        // both leads, internal inductance at its DC value
-	rLeads    float64                        // both leads at the operating frequency
-	tinned    bool
-	eligibleN int // supports it suits
+	r        float64 // bare radius
+	do       float64
+	rho      float64                        // resistivity at the conductor temperature
+	rdcPerM  float64                        // Ω/m at the conductor temperature
+	atMatch  coil.WireAt                    // at the matching frequency
+	atOp     coil.WireAt                    // at the operating frequency
+	fs       float64                        // R_ac/R_dc at the operating frequency
+	proxLB   float64                        // least proximity factor at any pitch up to coil.LoosestPitchFactor·d_o
+	sliceRow [boundSlices]coil.ProximityRow // Φ at the loose end of each pitch band
+	leadsMax float64                        // both leads, internal inductance at its DC value
+	rLeads   float64                        // both leads at the operating frequency
+	tinned   bool
 }
 
 // found is a solved coil.
