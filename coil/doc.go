@@ -86,7 +86,7 @@
 // scanned at 0.25 % steps and every sign change of m·f_low − f_high is
 // bisected, so a crossing is found even when the passband is narrower than
 // a step. ChooseTap (choosetap.go) scores every quarter-turn tap with the
-// same scan. The design search (design*.go) inverts the model: it starts
+// same scan. The design search (package coil/design) inverts the model: it starts
 // from Wheeler's closed form solved for the turns, brackets the pitch that
 // hits the target, and prunes supports, wires and turns by bounds on the
 // score. Trim (trim*.go) fits the springback that makes the model agree

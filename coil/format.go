@@ -79,3 +79,6 @@ func FormatTurns(n float64) string {
 	}
 	return w + "¾"
 }
+
+// Formatters for the messages of the packages under coil (the design
+// search words its refusals with the model's numbers).

@@ -99,13 +99,6 @@ func (g *Geometry) overall() float64 {
 	return float64(g.WireOverall)
 }
 
-func (g *Geometry) kelvin() float64 {
-	if g.Temperature == 0 {
-		return roomKelvin
-	}
-	return float64(g.Temperature)
-}
-
 func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 // Validate reports the first input the model cannot accept.

@@ -123,6 +123,12 @@ func Predict(g Geometry, f unit.Frequency) (Prediction, error) {
 	return p, nil
 }
 
+// Evaluate fills p for a geometry that has passed Validate, at frequency
+// f (zero for none), without Predict's checks of the frequency: callers
+// that need the model near or past the self-resonance (the design search's
+// tuning range) use it. It allocates nothing.
+func Evaluate(p *Prediction, g *Geometry, f float64) { evaluate(p, g, f) }
+
 // evaluate fills p for a validated geometry. It allocates nothing.
 func evaluate(p *Prediction, g *Geometry, f float64) {
 	p.Geometry = *g
@@ -135,59 +141,42 @@ func evaluate(p *Prediction, g *Geometry, f float64) {
 	lead := float64(g.LeadLength)
 	inside := float64(g.FormerDiameter) * (1 + g.Springback)
 	dm := inside + do
-	a := dm / 2
-	l := n * pitch
-	ld := l / dm
+	c := NewCore(n, pitch, d, dm, RosaMutual(n))
+	ld := c.LD
 
 	p.MeanDiameter = unit.Length(dm)
 	p.InsideDiameter = unit.Length(inside)
 	p.OutsideDiameter = unit.Length(inside + 2*do)
-	p.SheetLength = unit.Length(l)
+	p.SheetLength = unit.Length(c.L)
 	p.WindingLength = unit.Length((n-1)*pitch + do)
-	helix := n * math.Sqrt(math.Pi*math.Pi*dm*dm+pitch*pitch)
+	helix := c.Helix()
 	p.HelixWire = unit.Length(helix)
 	cut := helix + 2*lead + float64(CutAllowance)
 	p.WireLength = unit.Length(cut)
 	p.CopperMass = unit.Mass(CopperDensity * math.Pi * r * r * cut)
 
 	// Inductance at DC.
-	kn := Nagaoka(ld)
-	ls := Mu0 * math.Pi * a * a * n * n / l * kn
-	lnRatio := math.Log(2 * pitch / d)
-	km := RosaMutual(n)
-	perK := Mu0 * a * n // inductance per unit of Rosa's correction
-	ksDC := 1.25 - lnRatio
-	lCoilDC := ls - perK*(ksDC+km)
-	p.Nagaoka = kn
-	p.SelfCorrection = ksDC
-	p.MutualCorrection = km
-	p.InductanceSheet = unit.Inductance(ls)
-	p.InductanceCoil = unit.Inductance(lCoilDC)
-	lw, valid := Wheeler(n, dm, l)
+	p.Nagaoka = c.Kn
+	p.SelfCorrection = c.KsDC
+	p.MutualCorrection = c.Km
+	p.InductanceSheet = unit.Inductance(c.Ls)
+	p.InductanceCoil = unit.Inductance(c.LCoilDC)
+	lw, valid := Wheeler(n, dm, c.L)
 	p.InductanceWheeler = unit.Inductance(lw)
 	p.WheelerValid = valid
 
 	// Self-capacitance and resonance (one end grounded).
-	h, inTable := MedhurstH(ld)
-	c := h * 1e-10 * dm // H pF/cm × D cm
-	p.SelfCapacitance = unit.Capacitance(c)
-
-	temp := g.kelvin()
-	rho := CopperResistivity20 * (1 + CopperTempCoeff*(temp-roomKelvin))
-	// SRF with the coil's own inductance at the SRF: one fixed-point step
-	// from the DC value is enough (φ changes L by well under 1 %).
-	srf := 1 / (twoPi * math.Sqrt(lCoilDC*c))
-	_, phiSRF := SkinFactors(r / SkinDepth(rho, srf))
-	lSRF := lCoilDC - perK*(1-phiSRF)/4
-	srf = 1 / (twoPi * math.Sqrt(lSRF*c))
+	rho := CopperResistivity(g.Temperature)
+	cs, srf, inTable := c.SelfResonance(r, rho)
+	p.SelfCapacitance = unit.Capacitance(cs)
 	p.SRF = unit.Frequency(srf)
 	lo, hi := srfBand(ld)
 	p.SRFMin, p.SRFMax = unit.Frequency(srf*lo), unit.Frequency(srf*hi)
 	p.SRFFloatingMin = unit.Frequency(srf * FloatingSRFMin)
 	p.SRFFloatingMax = unit.Frequency(srf * FloatingSRFMax)
 
-	rdcPerM := rho / (math.Pi * r * r)
-	p.RDC = unit.Resistance(rdcPerM * (helix + 2*lead))
+	w := NewWireAt(r, rho, lead, f)
+	p.RDC = unit.Resistance(w.RdcPerM * (helix + 2*lead))
 
 	var flags Flags
 	if !inTable {
@@ -203,54 +192,30 @@ func evaluate(p *Prediction, g *Geometry, f float64) {
 		flags |= FlagWheelerOutOfRange
 	}
 
+	p.InternalFraction = w.Phi
+	lCoil := c.CoilAt(&w)
+	p.InductanceCoilAtF = unit.Inductance(lCoil)
+	p.InductanceLeads = unit.Inductance(w.Leads)
+	p.Inductance = unit.Inductance(lCoil + w.Leads)
 	if f == 0 {
-		p.InternalFraction = 1
-		p.InductanceCoilAtF = p.InductanceCoil
-		leads := 2 * LeadInductance(lead, r, 1)
-		p.InductanceLeads = unit.Inductance(leads)
-		p.Inductance = unit.Inductance(lCoilDC + leads)
 		p.InductanceEffective = p.Inductance
 		p.Flags = flags
 		return
 	}
 
-	delta := SkinDepth(rho, f)
-	fs, phi := SkinFactors(r / delta)
-	lCoil := lCoilDC - perK*(1-phi)/4 // internal inductance lost with skin effect
-	leads := 2 * LeadInductance(lead, r, phi)
-	p.InternalFraction = phi
-	p.InductanceCoilAtF = unit.Inductance(lCoil)
-	p.InductanceLeads = unit.Inductance(leads)
-	p.Inductance = unit.Inductance(lCoil + leads)
-
-	rr := f / srf
-	gr := 1 - rr*rr
-	p.InductanceEffective = unit.Inductance(leads + lCoil/gr)
-
-	// Medhurst's Φ holds once the skin effect is developed; scaling its
-	// excess by (F_s − 1)/F_s makes it vanish at DC as x⁴, as proximity loss
-	// does, and reach Φ at high frequency (our interpolation, part of Q's band).
-	phiMax := ProximityFactor(ld, d/pitch)
-	prox := 1 + (phiMax-1)*(fs-1)/fs
-	lambda := SpeedOfLight / f
-	area := math.Pi * a * a
-	nAL := n * area / (lambda * lambda)
-	rRad := 31171 * nAL * nAL // small loop, Kraus 1988
-	rCoil := rdcPerM*fs*helix*prox + rRad
-	rLeads := rdcPerM * fs * 2 * lead
-	rEff := rLeads + rCoil/(gr*gr)
-	p.SkinDepth = unit.Length(delta)
-	p.SkinFactor = fs
-	p.ProximityFactor = prox
-	p.RRadiation = unit.Resistance(rRad)
-	p.RAC = unit.Resistance(rEff)
-	q := twoPi * f * float64(p.InductanceEffective) / rEff
-	p.Q, p.QMin, p.QMax = q, q*QMinFactor, q*QMaxFactor
+	loss := c.LossAt(&w, helix, srf)
+	p.InductanceEffective = unit.Inductance(loss.LEff)
+	p.SkinDepth = unit.Length(w.Delta)
+	p.SkinFactor = w.Fs
+	p.ProximityFactor = loss.Proximity
+	p.RRadiation = unit.Resistance(loss.RRadiation)
+	p.RAC = unit.Resistance(loss.REff)
+	p.Q, p.QMin, p.QMax = loss.Q, loss.Q*QMinFactor, loss.Q*QMaxFactor
 
 	if f > srf/3 {
 		flags |= FlagNearSRF
 	}
-	if helix > lambda/10 {
+	if helix > w.Lambda/10 {
 		flags |= FlagLongWire
 	}
 	if g.Conductor == Tinned {

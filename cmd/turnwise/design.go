@@ -12,7 +12,7 @@ import (
 	"github.com/spf13/pflag"
 	"gonum.org/v1/gonum/unit"
 
-	"turnwise/coil"
+	"turnwise/coil/design"
 	"turnwise/forms"
 )
 
@@ -74,7 +74,7 @@ func newDesignOptions() *designOptions {
 		prefer:  newChoice("balanced", "balanced", "q", "small", "easy"),
 		units:   newChoice("mm", "mm", "in"),
 		stock:   newStockOptions(),
-		top:     coil.DefaultTop,
+		top:     design.DefaultTop,
 	}
 }
 
@@ -96,12 +96,12 @@ func (o *designOptions) addFlags(fs *pflag.FlagSet) {
 	fs.Var(&o.maxLength, "max-length", "longest outside winding length you accept, e.g. 15mm")
 	fs.Var(&o.maxDiameter, "max-diameter", "largest outside diameter over the wire, e.g. 12mm")
 	fs.Var(&o.maxWireLength, "max-wire-length", "most wire you can spare, leads and stripping included, e.g. 300mm")
-	fs.Float64Var(&o.minSRFRatio, "min-srf-ratio", coil.DefaultSRFRatio, "least self-resonance as a multiple of the operating frequency (3 is common practice)")
+	fs.Float64Var(&o.minSRFRatio, "min-srf-ratio", design.DefaultSRFRatio, "least self-resonance as a multiple of the operating frequency (3 is common practice)")
 	fs.Var(&o.minWire, "min-wire", "thinnest wire to consider: a bare diameter or a gauge, e.g. 0.5mm or 24awg")
 	fs.Var(&o.maxWire, "max-wire", "thickest wire to consider, e.g. 2mm or 12awg")
 	fs.Var(&o.trimMargin, "trim-margin", "how far inside the squeeze/spread window the target must sit, percent (default 5%)")
 	fs.Var(o.prefer, "prefer", "shift the ranking: balanced, q (highest Q), small or easy (easiest to wind)")
-	fs.IntVar(&o.top, "top", coil.DefaultTop, "how many candidates to list")
+	fs.IntVar(&o.top, "top", design.DefaultTop, "how many candidates to list")
 	fs.BoolVar(&o.freeDiameter, "free-diameter", false, "also consider a support of any diameter (rounded to 0.1 mm) instead of only the stock's")
 	o.stock.addFlags(fs)
 	fs.Var(o.units, "units", "display lengths in mm or in")
@@ -183,8 +183,8 @@ func (o *designOptions) searchOptions(srfGiven bool) (*designSearchOptions, []st
 		FreeDiameter:  o.freeDiameter,
 	}
 	switch {
-	case o.top < 1 || o.top > coil.MaxTop:
-		return nil, nil, usageErrorf("--top %d: give a number from 1 to %d", o.top, coil.MaxTop)
+	case o.top < 1 || o.top > design.MaxTop:
+		return nil, nil, usageErrorf("--top %d: give a number from 1 to %d", o.top, design.MaxTop)
 	case o.tolerance.set && !(o.tolerance.v > 0):
 		return nil, nil, usageErrorf("--tolerance %s: give a positive percentage, e.g. 2%%", o.tolerance.raw)
 	case o.trimMargin.set && !(o.trimMargin.v > 0):
@@ -234,7 +234,7 @@ func runDesign(_ context.Context, opts *designOptions, srfGiven bool, stdout, st
 
 // designSpec is the coilSpec of a candidate, its wire described by the
 // row the search took it from.
-func designSpec(rows map[string]forms.Wire, c coil.Candidate) coilSpec {
+func designSpec(rows map[string]forms.Wire, c design.Candidate) coilSpec {
 	kind := "mandrel"
 	if c.Support.OnFormer {
 		kind = "former"
@@ -283,7 +283,7 @@ type designCandidateRecord struct {
 	FreeDiameter     bool    `json:"free_diameter,omitempty"`
 }
 
-func newDesignCandidateRecord(rows map[string]forms.Wire, rank int, c coil.Candidate) designCandidateRecord {
+func newDesignCandidateRecord(rows map[string]forms.Wire, rank int, c design.Candidate) designCandidateRecord {
 	spec := designSpec(rows, c)
 	rec := newCoilRecord(spec, c.Prediction)
 	rec.TrimLengthPerPercent = float64(c.TrimLengthPerPercent)
@@ -320,12 +320,12 @@ type designSearchRecord struct {
 	Evaluations int `json:"evaluations"`
 }
 
-func writeDesignJSON(w io.Writer, cat *forms.Catalog, so *designSearchOptions, res coil.Result, warnings []string) error {
+func writeDesignJSON(w io.Writer, cat *forms.Catalog, so *designSearchOptions, res design.Result, warnings []string) error {
 	t := designTargetRecord{
 		Frequency: float64(res.Frequency), Tolerance: res.Tolerance, Required: float64(res.Required),
 		Effective: res.Effective, LeadLength: float64(so.Leads), MaxLength: float64(so.MaxLength),
 		MaxDiameter: float64(so.MaxDiameter), MaxWireLength: float64(so.MaxWireLength),
-		MinSRFRatio: orDefault(so.MinSRFRatio, coil.DefaultSRFRatio), TrimMargin: orDefault(so.TrimMargin, coil.DefaultTrimMargin),
+		MinSRFRatio: orDefault(so.MinSRFRatio, design.DefaultSRFRatio), TrimMargin: orDefault(so.TrimMargin, design.DefaultTrimMargin),
 		Prefer: orDefaultString(so.Prefer, "balanced"),
 	}
 	if res.Effective {
@@ -374,7 +374,7 @@ func orDefaultString(v, def string) string {
 // writeDesignTable prints the target, the candidates (five lines each: what
 // to wind, the build numbers, what it will measure, how to trim it, why)
 // and the Pareto list.
-func writeDesignTable(w io.Writer, cat *forms.Catalog, so *designSearchOptions, res coil.Result, lf lengthFormatter) error {
+func writeDesignTable(w io.Writer, cat *forms.Catalog, so *designSearchOptions, res design.Result, lf lengthFormatter) error {
 	f := float64(res.Frequency)
 	tol := fmt.Sprintf("± %.3g %%", res.Tolerance*100)
 	leads := "2 × " + lf.fmt(float64(so.Leads)) + " leads"
@@ -403,9 +403,9 @@ func writeDesignTable(w io.Writer, cat *forms.Catalog, so *designSearchOptions, 
 		limits = append(limits, "wire ≤ "+lf.fmt(float64(so.MaxWireLength)))
 	}
 	if f > 0 {
-		limits = append(limits, fmt.Sprintf("SRF ≥ %g × f", orDefault(so.MinSRFRatio, coil.DefaultSRFRatio)))
+		limits = append(limits, fmt.Sprintf("SRF ≥ %g × f", orDefault(so.MinSRFRatio, design.DefaultSRFRatio)))
 	}
-	limits = append(limits, fmt.Sprintf("target inside the trim window by %.3g %%", orDefault(so.TrimMargin, coil.DefaultTrimMargin)*100))
+	limits = append(limits, fmt.Sprintf("target inside the trim window by %.3g %%", orDefault(so.TrimMargin, design.DefaultTrimMargin)*100))
 	fmt.Fprintf(w, "LIMITS  %s\n", strings.Join(limits, "; "))
 	fmt.Fprintf(w, "SEARCH  %d support × wire pairs, %d opened, %d coils solved\n", res.Stats.Pairs, res.Stats.Searched, res.Stats.Coils)
 
@@ -430,7 +430,7 @@ func writeDesignTable(w io.Writer, cat *forms.Catalog, so *designSearchOptions, 
 	return nil
 }
 
-func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c coil.Candidate, res coil.Result, lf lengthFormatter) {
+func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c design.Candidate, res design.Result, lf lengthFormatter) {
 	spec := designSpec(rows, c)
 	p := c.Prediction
 	g := p.Geometry
@@ -473,11 +473,11 @@ func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c c
 
 // thinForTable keeps at most n points of the Pareto list, evenly spread,
 // always the first and last.
-func thinForTable(ps []coil.Candidate, n int) []coil.Candidate {
+func thinForTable(ps []design.Candidate, n int) []design.Candidate {
 	if len(ps) <= n {
 		return ps
 	}
-	out := make([]coil.Candidate, 0, n)
+	out := make([]design.Candidate, 0, n)
 	for i := range n {
 		out = append(out, ps[i*(len(ps)-1)/(n-1)])
 	}

@@ -24,6 +24,7 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
+	"turnwise/coil/design"
 	"turnwise/forms"
 )
 
@@ -61,24 +62,24 @@ type designSearchOptions struct {
 }
 
 // runDesignSearch runs the design search over cat with the options o.
-func runDesignSearch(cat *forms.Catalog, o *designSearchOptions) (coil.Result, error) {
+func runDesignSearch(cat *forms.Catalog, o *designSearchOptions) (design.Result, error) {
 	t, err := designTarget(o)
 	if err != nil {
-		return coil.Result{}, err
+		return design.Result{}, err
 	}
 	c, err := designConstraints(cat, o)
 	if err != nil {
-		return coil.Result{}, err
+		return design.Result{}, err
 	}
-	res, err := coil.Design(t, c)
+	res, err := design.Search(t, c)
 	if err != nil {
 		return res, designError(err)
 	}
 	return res, nil
 }
 
-// designTarget turns the target flags into a coil.Target.
-func designTarget(o *designSearchOptions) (coil.Target, error) {
+// designTarget turns the target flags into a design.Target.
+func designTarget(o *designSearchOptions) (design.Target, error) {
 	for _, q := range []struct {
 		flag, example string
 		v             float64
@@ -87,20 +88,20 @@ func designTarget(o *designSearchOptions) (coil.Target, error) {
 		{"stray", "3pF", float64(o.Stray)}, {"freq", "145MHz", float64(o.Freq)},
 	} {
 		if q.v < 0 {
-			return coil.Target{}, usageErrorf("--%s: give a positive value, e.g. %s", q.flag, q.example)
+			return design.Target{}, usageErrorf("--%s: give a positive value, e.g. %s", q.flag, q.example)
 		}
 	}
 	switch {
 	case o.Inductance > 0 && o.Capacitance > 0:
-		return coil.Target{}, usageErrorf("--inductance and --cap cannot be used together: give an inductance, or a capacitance with the --freq it must resonate at")
+		return design.Target{}, usageErrorf("--inductance and --cap cannot be used together: give an inductance, or a capacitance with the --freq it must resonate at")
 	case o.Inductance == 0 && o.Capacitance == 0:
-		return coil.Target{}, usageErrorf("give a target: --inductance 48nH, or --cap 22pF with --freq 145MHz (the resonance)")
+		return design.Target{}, usageErrorf("give a target: --inductance 48nH, or --cap 22pF with --freq 145MHz (the resonance)")
 	case o.Capacitance > 0 && o.Freq == 0:
-		return coil.Target{}, usageErrorf("--cap needs --freq, the frequency it must resonate at, e.g. --freq 145MHz")
+		return design.Target{}, usageErrorf("--cap needs --freq, the frequency it must resonate at, e.g. --freq 145MHz")
 	case o.Stray > 0 && o.Capacitance == 0:
-		return coil.Target{}, usageErrorf("--stray adds to --cap; give --cap and --freq, or add the stray to nothing and drop it")
+		return design.Target{}, usageErrorf("--stray adds to --cap; give --cap and --freq, or add the stray to nothing and drop it")
 	}
-	t := coil.Target{Tolerance: o.Tolerance}
+	t := design.Target{Tolerance: o.Tolerance}
 	if o.Inductance > 0 {
 		t.Inductance, t.Frequency = o.Inductance, o.Freq
 	} else {
@@ -110,8 +111,8 @@ func designTarget(o *designSearchOptions) (coil.Target, error) {
 }
 
 // designConstraints builds the search's stock and limits from cat and o.
-func designConstraints(cat *forms.Catalog, o *designSearchOptions) (coil.Constraints, error) {
-	c := coil.Constraints{
+func designConstraints(cat *forms.Catalog, o *designSearchOptions) (design.Constraints, error) {
+	c := design.Constraints{
 		LeadLength:    o.Leads,
 		Temperature:   o.Temp,
 		MaxLength:     o.MaxLength,
@@ -126,11 +127,11 @@ func designConstraints(cat *forms.Catalog, o *designSearchOptions) (coil.Constra
 	switch o.Prefer {
 	case "", "balanced":
 	case "q":
-		c.Prefer = coil.PreferQ
+		c.Prefer = design.PreferQ
 	case "small":
-		c.Prefer = coil.PreferSmall
+		c.Prefer = design.PreferSmall
 	case "easy":
-		c.Prefer = coil.PreferEasy
+		c.Prefer = design.PreferEasy
 	default:
 		return c, &flagError{"prefer", fmt.Errorf("%q is not one of balanced, q, small, easy", o.Prefer)}
 	}
@@ -146,7 +147,7 @@ func designConstraints(cat *forms.Catalog, o *designSearchOptions) (coil.Constra
 		c.Calibrations = designCalibrations(cat, c.Supports, c.Wires)
 	}
 	if o.FreeDiameter {
-		c.FreeDiameter = &coil.FreeDiameter{OnFormer: o.Support == "former" || o.Former != ""}
+		c.FreeDiameter = &design.FreeDiameter{OnFormer: o.Support == "former" || o.Former != ""}
 		if o.Mandrel != "" || o.Former != "" {
 			return c, usageErrorf("--free-diameter chooses the diameter itself; drop --mandrel/--former, or drop --free-diameter")
 		}
@@ -155,7 +156,7 @@ func designConstraints(cat *forms.Catalog, o *designSearchOptions) (coil.Constra
 }
 
 // designSupports lists the mandrels and formers the search may use.
-func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support, error) {
+func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]design.Support, error) {
 	if sb := o.Springback; sb != nil && !(*sb >= coil.MinSpringback && *sb <= coil.MaxSpringback) {
 		return nil, &flagError{"springback", fmt.Errorf("%s is outside %s … %s", pct(*sb), pct(coil.MinSpringback), pct(coil.MaxSpringback))}
 	}
@@ -165,7 +166,7 @@ func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support,
 	default:
 		return nil, &flagError{"support", fmt.Errorf("%q is not one of any, mandrel, former", kind)}
 	}
-	withSpring := func(s coil.Support) coil.Support {
+	withSpring := func(s design.Support) design.Support {
 		if !s.OnFormer && o.Springback != nil {
 			s.Springback, s.SpringbackNote = *o.Springback, "given"
 		}
@@ -185,7 +186,7 @@ func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support,
 		if !(d > 0) {
 			return nil, &flagError{"mandrel", fmt.Errorf("%q is not a diameter; give a positive one, e.g. 6mm", o.Mandrel)}
 		}
-		return []coil.Support{withSpring(coil.Support{Name: name, Diameter: d})}, nil
+		return []design.Support{withSpring(design.Support{Name: name, Diameter: d})}, nil
 	case o.Former != "":
 		if kind == "mandrel" {
 			return nil, usageErrorf("--former contradicts --support mandrel; drop one")
@@ -197,17 +198,17 @@ func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support,
 		if !(d > 0) {
 			return nil, &flagError{"former", fmt.Errorf("%q is not a diameter; give a positive one, e.g. 20mm", o.Former)}
 		}
-		return []coil.Support{{Name: name, Diameter: d, OnFormer: true}}, nil
+		return []design.Support{{Name: name, Diameter: d, OnFormer: true}}, nil
 	}
-	var out []coil.Support
+	var out []design.Support
 	if kind != "former" {
 		for _, m := range cat.Mandrels {
-			out = append(out, withSpring(coil.Support{Name: m.Name, Diameter: m.Diameter}))
+			out = append(out, withSpring(design.Support{Name: m.Name, Diameter: m.Diameter}))
 		}
 	}
 	if kind != "mandrel" {
 		for _, f := range cat.Formers {
-			out = append(out, coil.Support{Name: f.Name, Diameter: f.Diameter, OnFormer: true})
+			out = append(out, design.Support{Name: f.Name, Diameter: f.Diameter, OnFormer: true})
 		}
 	}
 	if len(out) == 0 && !o.FreeDiameter {
@@ -222,18 +223,18 @@ func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]coil.Support,
 
 // designWires lists the wires the search may use: the pinned ones, or the
 // whole catalog.
-func designWires(cat *forms.Catalog, o *designSearchOptions) ([]coil.WireOption, error) {
+func designWires(cat *forms.Catalog, o *designSearchOptions) ([]design.WireOption, error) {
 	rows, err := designWireRows(cat, o)
 	if err != nil {
 		return nil, err
 	}
-	out := make([]coil.WireOption, 0, len(rows))
+	out := make([]design.WireOption, 0, len(rows))
 	for _, w := range rows {
 		cond, err := coil.ParseConductor(w.Conductor)
 		if err != nil {
 			return nil, &flagError{"conductor", err}
 		}
-		out = append(out, coil.WireOption{Name: w.Name, Diameter: w.Bare, Overall: w.Overall, Conductor: cond})
+		out = append(out, design.WireOption{Name: w.Name, Diameter: w.Bare, Overall: w.Overall, Conductor: cond})
 	}
 	if len(out) == 0 {
 		return nil, usageErrorf("the stock has no wire; add some to your stock file or use --use both")
@@ -264,7 +265,7 @@ func designWireRows(cat *forms.Catalog, o *designSearchOptions) ([]forms.Wire, e
 // designCalibrations resolves the catalog's springback calibrations to the
 // support and wire names the search uses; cat.Springback picks the latest
 // for each pair, with the same name matching as predict.
-func designCalibrations(cat *forms.Catalog, sups []coil.Support, wires []coil.WireOption) []coil.SpringbackCalibration {
+func designCalibrations(cat *forms.Catalog, sups []design.Support, wires []design.WireOption) []design.SpringbackCalibration {
 	if len(cat.Calibrations) == 0 {
 		return nil
 	}
@@ -291,20 +292,20 @@ func designCalibrations(cat *forms.Catalog, sups []coil.Support, wires []coil.Wi
 		holders[holder(cal.Mandrel)] = true
 		wireKeys[wireKey(cal.Wire)] = true
 	}
-	var calWires []coil.WireOption
+	var calWires []design.WireOption
 	for _, w := range wires {
 		if k := wireKey(w.Name); k != "" && wireKeys[k] {
 			calWires = append(calWires, w)
 		}
 	}
-	var out []coil.SpringbackCalibration
+	var out []design.SpringbackCalibration
 	for _, s := range sups {
 		if h := holder(s.Name); h == "" || !holders[h] {
 			continue
 		}
 		for _, w := range calWires {
 			if cal, ok := cat.Springback(s.Name, w.Name); ok {
-				out = append(out, coil.SpringbackCalibration{Support: s.Name, Wire: w.Name, Springback: cal.Springback, Note: cal.Note})
+				out = append(out, design.SpringbackCalibration{Support: s.Name, Wire: w.Name, Springback: cal.Springback, Note: cal.Note})
 			}
 		}
 	}
@@ -345,7 +346,7 @@ func designError(err error) error {
 		}
 		return err
 	}
-	var inf *coil.InfeasibleError
+	var inf *design.InfeasibleError
 	if errors.As(err, &inf) {
 		hint := ""
 		if f, ok := designFlags[inf.Constraint]; ok {

@@ -14,6 +14,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"turnwise/coil"
+	"turnwise/coil/design"
 	"turnwise/coil/tuning"
 	"turnwise/forms"
 	"turnwise/sheets"
@@ -392,7 +393,7 @@ func sheetTap(s coil.Sections) *sheets.Tap {
 
 // designJobCoil runs the design search for a job coil with a target and
 // returns the best candidate.
-func designJobCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog) (coil.Candidate, coil.Result, error) {
+func designJobCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog) (design.Candidate, design.Result, error) {
 	t, w := jc.Target, jc.Winding
 	o := &designSearchOptions{
 		Support:    t.Support,
@@ -443,19 +444,19 @@ func designJobCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog) (coil.
 	res, err := runDesignSearch(cat, o)
 	if err != nil {
 		if errors.Is(err, coil.ErrInfeasible) {
-			return coil.Candidate{}, res, fmt.Errorf("job %q: line %d: %s: %w", job.File, jc.Line, jc.Label(), err)
+			return design.Candidate{}, res, fmt.Errorf("job %q: line %d: %s: %w", job.File, jc.Line, jc.Label(), err)
 		}
-		return coil.Candidate{}, res, jobCoilError(job, jc, err)
+		return design.Candidate{}, res, jobCoilError(job, jc, err)
 	}
 	if len(res.Candidates) == 0 {
-		return coil.Candidate{}, res, fmt.Errorf("job %q: line %d: %s: %w: the design search returned no candidate", job.File, jc.Line, jc.Label(), coil.ErrInfeasible)
+		return design.Candidate{}, res, fmt.Errorf("job %q: line %d: %s: %w: the design search returned no candidate", job.File, jc.Line, jc.Label(), coil.ErrInfeasible)
 	}
 	return res.Candidates[0], res, nil
 }
 
 // candidateSpec is the coilSpec of a design candidate, its wire looked up
 // in the catalog for the page's description.
-func candidateSpec(cat *forms.Catalog, c coil.Candidate) coilSpec {
+func candidateSpec(cat *forms.Catalog, c design.Candidate) coilSpec {
 	g := c.Prediction.Geometry
 	kind := "mandrel"
 	if c.Support.OnFormer {
@@ -482,7 +483,7 @@ func candidateSpec(cat *forms.Catalog, c coil.Candidate) coilSpec {
 	}
 }
 
-func targetDescription(jc *forms.JobCoil, res coil.Result) string {
+func targetDescription(jc *forms.JobCoil, res design.Result) string {
 	t := jc.Target
 	tol := fmt.Sprintf(", L within ± %.3g %%", res.Tolerance*100)
 	if t.Cap != nil {

@@ -1,8 +1,9 @@
-package coil
+package design
 
 import (
 	"fmt"
 	"math"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -26,7 +27,7 @@ type Target struct {
 	// Resonance, with Capacitance: the coil must resonate with
 	// Capacitance + Stray at Resonance. The L needed is derived with the
 	// coil's own self-capacitance and leads included: the coil's effective
-	// inductance at Resonance (Prediction.InductanceEffective) must equal
+	// inductance at Resonance (coil.Prediction.InductanceEffective) must equal
 	// 1/(ω²·(Capacitance+Stray)).
 	Resonance   unit.Frequency
 	Capacitance unit.Capacitance
@@ -63,7 +64,7 @@ type WireOption struct {
 	Name      string
 	Diameter  unit.Length // bare conductor
 	Overall   unit.Length // over the insulation; zero means bare (= Diameter)
-	Conductor Conductor
+	Conductor coil.Conductor
 }
 
 // SpringbackCalibration is a measured springback for one support and wire,
@@ -174,7 +175,7 @@ type Candidate struct {
 	Wire             WireOption
 	// Prediction is the full model record at the operating frequency;
 	// Prediction.Geometry is the coil to wind.
-	Prediction Prediction
+	Prediction coil.Prediction
 	// Matched is the value compared with Result.Required: the terminal L
 	// at f for an Inductance target, the effective L at the resonance for
 	// a Resonance target.
@@ -182,7 +183,7 @@ type Candidate struct {
 	Score   float64
 	Why     string
 	// TrimMin and TrimMax are the terminal L at f at the loosest and
-	// tightest sensible pitch (Window): what squeezing and spreading reach.
+	// tightest sensible pitch (coil.Window): what squeezing and spreading reach.
 	TrimMin, TrimMax unit.Inductance
 	// TuneLow and TuneHigh, for a Resonance target, are the resonances with
 	// the target's capacitance at the tightest and loosest pitch.
@@ -251,7 +252,7 @@ type InfeasibleError struct {
 }
 
 func (e *InfeasibleError) Error() string { return e.Message }
-func (e *InfeasibleError) Unwrap() error { return ErrInfeasible }
+func (e *InfeasibleError) Unwrap() error { return coil.ErrInfeasible }
 
 // Self-supporting and hand-winding wire rules (common practice).
 const (
@@ -280,12 +281,12 @@ func WireSuits(s Support, w WireOption, c *Constraints) (bool, string) {
 	return false, r.reason(s)
 }
 
-// dsRule is the outcome of the wire rules, without a message (the search
+// rule is the outcome of the wire rules, without a message (the search
 // checks thousands of pairs; the words are made only when needed).
-type dsRule int
+type rule int
 
 const (
-	ruleOK dsRule = iota
+	ruleOK rule = iota
 	ruleSupportRange
 	ruleInsulation
 	ruleMinWire
@@ -297,12 +298,12 @@ const (
 	ruleStiffRatio
 )
 
-func wireRule(s Support, w WireOption, c *Constraints) dsRule {
+func wireRule(s Support, w WireOption, c *Constraints) rule {
 	d := float64(w.Diameter)
 	df := float64(s.Diameter)
 	do := float64(w.Overall)
 	switch {
-	case df < MinFormerDiameter || df > MaxFormerDiameter:
+	case df < coil.MinFormerDiameter || df > coil.MaxFormerDiameter:
 		return ruleSupportRange
 	case do > 2*d+1e-3:
 		return ruleInsulation
@@ -324,11 +325,11 @@ func wireRule(s Support, w WireOption, c *Constraints) dsRule {
 	return ruleOK
 }
 
-func (r dsRule) reason(s Support) string {
+func (r rule) reason(s Support) string {
 	df := float64(s.Diameter)
 	switch r {
 	case ruleSupportRange:
-		return fmt.Sprintf("supports outside %s … %s are outside the model", mm(MinFormerDiameter), mm(MaxFormerDiameter))
+		return fmt.Sprintf("supports outside %s … %s are outside the model", coil.FormatLength(coil.MinFormerDiameter), coil.FormatLength(coil.MaxFormerDiameter))
 	case ruleInsulation:
 		return "insulation too thick for the model"
 	case ruleMinWire:
@@ -336,21 +337,21 @@ func (r dsRule) reason(s Support) string {
 	case ruleMaxWire:
 		return "thicker than the maximum wire"
 	case ruleHandMin:
-		return fmt.Sprintf("finer than %s breaks when wound by hand", mm(HandMinWire))
+		return fmt.Sprintf("finer than %s breaks when wound by hand", coil.FormatLength(HandMinWire))
 	case ruleHandMax:
-		return fmt.Sprintf("thicker than %s needs a bending jig", mm(HandMaxWire))
+		return fmt.Sprintf("thicker than %s needs a bending jig", coil.FormatLength(HandMaxWire))
 	case ruleBend:
 		return "the support is less than twice the wire diameter"
 	case ruleStiffAbs:
-		return fmt.Sprintf("a self-supporting coil needs wire of at least %s", mm(SelfSupportMinWire))
+		return fmt.Sprintf("a self-supporting coil needs wire of at least %s", coil.FormatLength(SelfSupportMinWire))
 	case ruleStiffRatio:
-		return fmt.Sprintf("a self-supporting coil on %s needs wire of at least %s (1/15 of the diameter)", mm(df), mm(SelfSupportWireRatio*df))
+		return fmt.Sprintf("a self-supporting coil on %s needs wire of at least %s (1/15 of the diameter)", coil.FormatLength(df), coil.FormatLength(SelfSupportWireRatio*df))
 	}
 	return ""
 }
 
-// designSettings are the resolved defaults of a search.
-type designSettings struct {
+// settings are the resolved defaults of a search.
+type settings struct {
 	t         Target
 	c         Constraints
 	required  float64 // H
@@ -364,8 +365,8 @@ type designSettings struct {
 	top       int
 }
 
-func resolveDesign(t Target, c Constraints) (designSettings, error) {
-	s := designSettings{t: t, c: c}
+func resolve(t Target, c Constraints) (settings, error) {
+	s := settings{t: t, c: c}
 	bad := func(v float64) bool { return !finite(v) || v < 0 }
 	switch {
 	case bad(float64(t.Inductance)), bad(float64(t.Resonance)), bad(float64(t.Capacitance)),
@@ -381,7 +382,7 @@ func resolveDesign(t Target, c Constraints) (designSettings, error) {
 			return s, inputErrorf("capacitance", "a resonance needs the capacitance it resonates with")
 		}
 		return s, inputErrorf("inductance", "give the inductance wanted, or a resonance with a capacitance")
-	case t.Frequency > MaxFrequency || t.Resonance > MaxFrequency:
+	case t.Frequency > coil.MaxFrequency || t.Resonance > coil.MaxFrequency:
 		return s, inputErrorf("frequency", "must be at most 10 GHz")
 	case t.Tolerance > 0.5:
 		return s, inputErrorf("tolerance", "%.3g %% is too loose; use at most 50 %%", t.Tolerance*100)
@@ -406,25 +407,25 @@ func resolveDesign(t Target, c Constraints) (designSettings, error) {
 		if s.opF == 0 {
 			s.opF = s.matchF
 		}
-		s.required = float64(InductanceForResonance(t.Resonance, t.Capacitance+t.Stray))
+		s.required = float64(coil.InductanceForResonance(t.Resonance, t.Capacitance+t.Stray))
 		if !(s.required >= 1e-12 && s.required <= 1) {
-			return s, inputErrorf("capacitance", "resonating at %s needs %.3g H, outside 1 pH … 1 H", fmtHz(s.matchF), s.required)
+			return s, inputErrorf("capacitance", "resonating at %s needs %.3g H, outside 1 pH … 1 H", coil.FormatFrequency(s.matchF), s.required)
 		}
 	}
 	bl := func(v unit.Length) bool { return !finite(float64(v)) || v < 0 }
 	switch {
-	case bl(c.LeadLength) || float64(c.LeadLength) > MaxLeadLength:
+	case bl(c.LeadLength) || float64(c.LeadLength) > coil.MaxLeadLength:
 		return s, inputErrorf("lead_length", "must be between 0 and 1 m, e.g. 5mm")
 	case bl(c.MaxLength), bl(c.MaxDiameter), bl(c.MaxWireLength), bl(c.MinWire), bl(c.MaxWire):
 		return s, inputErrorf("constraints", "length limits must be finite and not negative")
 	case c.MinWire > 0 && c.MaxWire > 0 && c.MinWire > c.MaxWire:
-		return s, inputErrorf("min_wire", "%s is more than the maximum wire %s", mm(float64(c.MinWire)), mm(float64(c.MaxWire)))
+		return s, inputErrorf("min_wire", "%s is more than the maximum wire %s", coil.FormatLength(float64(c.MinWire)), coil.FormatLength(float64(c.MaxWire)))
 	case !finite(c.MinSRFRatio) || c.MinSRFRatio < 0 || (c.MinSRFRatio > 0 && c.MinSRFRatio < 1.2) || c.MinSRFRatio > 100:
 		return s, inputErrorf("min_srf_ratio", "%g is outside 1.2 … 100 (the model needs the SRF well above f; 3 is common practice)", c.MinSRFRatio)
 	case !finite(c.TrimMargin) || c.TrimMargin < 0 || c.TrimMargin > 0.3:
 		return s, inputErrorf("trim_margin", "%.3g %% is outside 0 … 30 %%", c.TrimMargin*100)
-	case !finite(c.MinTurns) || c.MinTurns < 0 || (c.MinTurns > 0 && c.MinTurns < 2) || c.MinTurns > MaxTurns:
-		return s, inputErrorf("min_turns", "%g is outside 2 … %d: fewer than two turns cannot be trimmed by squeezing or spreading", c.MinTurns, MaxTurns)
+	case !finite(c.MinTurns) || c.MinTurns < 0 || (c.MinTurns > 0 && c.MinTurns < 2) || c.MinTurns > coil.MaxTurns:
+		return s, inputErrorf("min_turns", "%g is outside 2 … %d: fewer than two turns cannot be trimmed by squeezing or spreading", c.MinTurns, coil.MaxTurns)
 	case c.Top < 0 || c.Top > MaxTop:
 		return s, inputErrorf("top", "%d is outside 1 … %d", c.Top, MaxTop)
 	case c.Prefer < PreferBalanced || c.Prefer > PreferEasy:
@@ -436,35 +437,35 @@ func resolveDesign(t Target, c Constraints) (designSettings, error) {
 	}
 	if c.Temperature != 0 {
 		k := float64(c.Temperature) - 273.15
-		if !finite(k) || k < MinTemperatureC || k > MaxTemperatureC {
-			return s, inputErrorf("temperature", "%.4g °C is outside %g … %g °C", k, MinTemperatureC, MaxTemperatureC)
+		if !finite(k) || k < coil.MinTemperatureC || k > coil.MaxTemperatureC {
+			return s, inputErrorf("temperature", "%.4g °C is outside %g … %g °C", k, coil.MinTemperatureC, coil.MaxTemperatureC)
 		}
 	}
 	if fd := c.FreeDiameter; fd != nil {
 		if bl(fd.Min) || bl(fd.Max) || (fd.Max > 0 && fd.Min > fd.Max) {
-			return s, inputErrorf("free_diameter", "the range %s … %s is not a range", mm(float64(fd.Min)), mm(float64(fd.Max)))
+			return s, inputErrorf("free_diameter", "the range %s … %s is not a range", coil.FormatLength(float64(fd.Min)), coil.FormatLength(float64(fd.Max)))
 		}
 	}
 	for _, sp := range c.Supports {
 		if !finite(float64(sp.Diameter)) || sp.Diameter <= 0 {
-			return s, inputErrorf("supports", "%q: diameter %s is not a diameter", sp.Name, mm(float64(sp.Diameter)))
+			return s, inputErrorf("supports", "%q: diameter %s is not a diameter", sp.Name, coil.FormatLength(float64(sp.Diameter)))
 		}
-		if !finite(sp.Springback) || sp.Springback < MinSpringback || sp.Springback > MaxSpringback {
-			return s, inputErrorf("springback", "%q: %.3g %% is outside %g … %g %%", sp.Name, sp.Springback*100, MinSpringback*100, MaxSpringback*100)
+		if !finite(sp.Springback) || sp.Springback < coil.MinSpringback || sp.Springback > coil.MaxSpringback {
+			return s, inputErrorf("springback", "%q: %.3g %% is outside %g … %g %%", sp.Name, sp.Springback*100, coil.MinSpringback*100, coil.MaxSpringback*100)
 		}
 	}
 	for _, w := range c.Wires {
 		d, do := float64(w.Diameter), float64(w.Overall)
 		if !finite(d) || d <= 0 || !finite(do) || (do != 0 && do < d) {
-			return s, inputErrorf("wires", "%q: diameters %s over %s are not a wire", w.Name, mm(d), mm(do))
+			return s, inputErrorf("wires", "%q: diameters %s over %s are not a wire", w.Name, coil.FormatLength(d), coil.FormatLength(do))
 		}
-		if w.Conductor < Copper || w.Conductor > Tinned {
+		if w.Conductor < coil.Copper || w.Conductor > coil.Tinned {
 			return s, inputErrorf("wires", "%q: unknown conductor", w.Name)
 		}
 	}
 	for _, cal := range c.Calibrations {
-		if !finite(cal.Springback) || cal.Springback < MinSpringback || cal.Springback > MaxSpringback {
-			return s, inputErrorf("springback", "calibration %q on %q: %.3g %% is outside %g … %g %%", cal.Wire, cal.Support, cal.Springback*100, MinSpringback*100, MaxSpringback*100)
+		if !finite(cal.Springback) || cal.Springback < coil.MinSpringback || cal.Springback > coil.MaxSpringback {
+			return s, inputErrorf("springback", "calibration %q on %q: %.3g %% is outside %g … %g %%", cal.Wire, cal.Support, cal.Springback*100, coil.MinSpringback*100, coil.MaxSpringback*100)
 		}
 	}
 	s.margin = c.TrimMargin
@@ -488,8 +489,8 @@ func resolveDesign(t Target, c Constraints) (designSettings, error) {
 }
 
 // Design searches the stock for coils that meet t under c and returns
-// them ranked. Bad input is an *InputError; a valid request that no coil
-// meets is an *InfeasibleError (wrapping ErrInfeasible) that says which
+// them ranked. Bad input is an *coil.InputError; a valid request that no coil
+// meets is an *InfeasibleError (wrapping coil.ErrInfeasible) that says which
 // constraint binds and what is nearest.
 //
 // For every support and suitable wire (WireSuits) the search finds the
@@ -498,10 +499,10 @@ func resolveDesign(t Target, c Constraints) (designSettings, error) {
 // each, and scores the coil (see score). A bound on the score of each pair
 // and each turn count lets it skip those that can enter neither the top
 // list nor the Pareto set, so its cost grows no faster than the stock.
-func Design(t Target, c Constraints) (Result, error) {
-	s, err := resolveDesign(t, c)
+func Search(t Target, c Constraints) (Result, error) {
+	s, err := resolve(t, c)
 	if err != nil {
 		return Result{}, err
 	}
-	return designSearch(&s)
+	return runSearch(&s)
 }

@@ -1,4 +1,4 @@
-package coil
+package design
 
 import (
 	"errors"
@@ -7,6 +7,7 @@ import (
 	"math/rand/v2"
 	"strings"
 	"testing"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -30,9 +31,9 @@ func testStock() ([]Support, []WireOption) {
 			Overall: unit.Length((d*1.03 + 0.03) * 1e-3)})
 	}
 	wires = append(wires,
-		WireOption{Name: "1mm silver", Diameter: 1e-3, Conductor: SilverPlated},
-		WireOption{Name: "1.5mm silver", Diameter: 1.5e-3, Conductor: SilverPlated},
-		WireOption{Name: "0.8mm tinned", Diameter: 0.8e-3, Conductor: Tinned},
+		WireOption{Name: "1mm silver", Diameter: 1e-3, Conductor: coil.SilverPlated},
+		WireOption{Name: "1.5mm silver", Diameter: 1.5e-3, Conductor: coil.SilverPlated},
+		WireOption{Name: "0.8mm tinned", Diameter: 0.8e-3, Conductor: coil.Tinned},
 	)
 	return sups, wires
 }
@@ -62,21 +63,21 @@ func designCases() []designCase {
 }
 
 // matchedValue is the value a candidate must hit, from the model itself.
-func matchedValue(t Target, g Geometry) float64 {
-	var p Prediction
+func matchedValue(t Target, g coil.Geometry) float64 {
+	var p coil.Prediction
 	if t.Inductance > 0 {
-		evaluate(&p, &g, float64(t.Frequency))
+		coil.Evaluate(&p, &g, float64(t.Frequency))
 		return float64(p.Inductance)
 	}
-	evaluate(&p, &g, float64(t.Resonance))
+	coil.Evaluate(&p, &g, float64(t.Resonance))
 	return float64(p.InductanceEffective)
 }
 
 // testScore is the score of design_score.go's documentation computed from
 // a full prediction (an independent route from the search's own).
-func testScore(p Prediction, pref Preference, ratio float64, tinned bool) float64 {
+func testScore(p coil.Prediction, pref Preference, ratio float64, tinned bool) float64 {
 	f := float64(p.Frequency)
-	w := designWeights(pref, f > 0)
+	w := weightsFor(pref, f > 0)
 	od := float64(p.OutsideDiameter)
 	vol := math.Pi / 4 * od * od * float64(p.WindingLength)
 	s := 0.0
@@ -121,9 +122,9 @@ func checkCoil(t *testing.T, tc designCase, res Result, c Candidate) {
 	if opF == 0 {
 		opF = tc.t.Resonance
 	}
-	p, err := Predict(g, opF)
+	p, err := coil.Predict(g, opF)
 	if err != nil {
-		t.Fatalf("%s on %s: Predict refuses the candidate: %v", c.Wire.Name, c.Support.Name, err)
+		t.Fatalf("%s on %s: coil.Predict refuses the candidate: %v", c.Wire.Name, c.Support.Name, err)
 	}
 	tol := tc.t.Tolerance
 	if tol == 0 {
@@ -149,19 +150,19 @@ func checkCoil(t *testing.T, tc designCase, res Result, c Candidate) {
 		do = float64(g.WireDiameter)
 	}
 	tight, loose := g, g
-	tight.Pitch, loose.Pitch = unit.Length(do), unit.Length(LoosestPitchFactor*do)
+	tight.Pitch, loose.Pitch = unit.Length(do), unit.Length(coil.LoosestPitchFactor*do)
 	if v := matchedValue(tc.t, tight); !(v >= req*(1+m)*(1-1e-9)) && !math.IsNaN(v) {
 		t.Errorf("%s on %s: close-wound %.4g does not reach %.4g", c.Wire.Name, c.Support.Name, v, req*(1+m))
 	}
 	if v := matchedValue(tc.t, loose); v > req*(1-m)*(1+1e-9) {
 		t.Errorf("%s on %s: loosest %.4g does not fall to %.4g", c.Wire.Name, c.Support.Name, v, req*(1-m))
 	}
-	if float64(g.Pitch) < do*(1-1e-9) || float64(g.Pitch) > LoosestPitchFactor*do*(1+1e-9) {
+	if float64(g.Pitch) < do*(1-1e-9) || float64(g.Pitch) > coil.LoosestPitchFactor*do*(1+1e-9) {
 		t.Errorf("pitch %v outside the window", g.Pitch)
 	}
-	lo, hi, _ := Window(g, opF)
+	lo, hi, _ := coil.Window(g, opF)
 	if c.TrimMin != lo || c.TrimMax != hi {
-		t.Errorf("trim window %v … %v, Window says %v … %v", c.TrimMin, c.TrimMax, lo, hi)
+		t.Errorf("trim window %v … %v, coil.Window says %v … %v", c.TrimMin, c.TrimMax, lo, hi)
 	}
 	// Limits.
 	cs := tc.c
@@ -187,21 +188,21 @@ func checkCoil(t *testing.T, tc designCase, res Result, c Candidate) {
 	if g.Turns < DefaultMinTurns || g.Turns*4 != math.Round(g.Turns*4) {
 		t.Errorf("turns %g", g.Turns)
 	}
-	if p.Flags&FlagNearSRF != 0 {
+	if p.Flags&coil.FlagNearSRF != 0 {
 		t.Errorf("f above SRF/3 on a candidate")
 	}
 }
 
 // Every candidate and Pareto point, re-evaluated by the model, meets the
 // target and the constraints; scores agree with the documented formula
-// computed from Predict; the list is in score order without
+// computed from coil.Predict; the list is in score order without
 // near-duplicates.
 func TestDesignCandidatesMeetTarget(t *testing.T) {
 	t.Parallel()
 	for _, tc := range designCases() {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
-			res, err := Design(tc.t, tc.c)
+			res, err := Search(tc.t, tc.c)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -214,7 +215,7 @@ func TestDesignCandidatesMeetTarget(t *testing.T) {
 			}
 			for i, c := range res.Candidates {
 				checkCoil(t, tc, res, c)
-				if got := testScore(c.Prediction, tc.c.Prefer, ratio, c.Wire.Conductor == Tinned); math.Abs(got-c.Score) > 1e-9 {
+				if got := testScore(c.Prediction, tc.c.Prefer, ratio, c.Wire.Conductor == coil.Tinned); math.Abs(got-c.Score) > 1e-9 {
 					t.Errorf("#%d score %.12g, documented formula gives %.12g", i+1, c.Score, got)
 				}
 				if i > 0 && c.Score > res.Candidates[i-1].Score {
@@ -252,14 +253,14 @@ func TestDesignCandidatesMeetTarget(t *testing.T) {
 
 func strings0(s, prefix string) bool { return len(s) >= len(prefix) && s[:len(prefix)] == prefix }
 
-// The lean evaluation of the search agrees with evaluate (Predict's core)
+// The lean evaluation of the search agrees with evaluate (coil.Predict's core)
 // on random coils: same formulas, so implTol.
 func TestDesignLeanMatchesEvaluate(t *testing.T) {
 	t.Parallel()
 	rng := rand.New(rand.NewPCG(3, 7))
 	sups, wires := testStock()
 	for _, tg := range []Target{{Inductance: 1e-6, Frequency: 7e6}, {Resonance: 145e6, Capacitance: 22e-12}, {Inductance: 1e-6}} {
-		s, err := resolveDesign(tg, Constraints{Supports: sups, Wires: wires, LeadLength: 7e-3, Temperature: 313.15})
+		s, err := resolve(tg, Constraints{Supports: sups, Wires: wires, LeadLength: 7e-3, Temperature: 313.15})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -271,9 +272,9 @@ func TestDesignLeanMatchesEvaluate(t *testing.T) {
 			n := 1.5 + float64(rng.IntN(200))/4
 			pitch := p.do * (1 + 2*rng.Float64())
 			g := x.geometry(p, n, pitch)
-			var pm, po Prediction
-			evaluate(&pm, &g, s.matchF)
-			evaluate(&po, &g, s.opF)
+			var pm, po coil.Prediction
+			coil.Evaluate(&pm, &g, s.matchF)
+			coil.Evaluate(&po, &g, s.opF)
 			want := float64(pm.Inductance)
 			if s.effective {
 				want = float64(pm.InductanceEffective)
@@ -307,7 +308,7 @@ func TestDesignBoundsHold(t *testing.T) {
 	t.Parallel()
 	rng := rand.New(rand.NewPCG(11, 5))
 	for _, tc := range designCases() {
-		s, err := resolveDesign(tc.t, tc.c)
+		s, err := resolve(tc.t, tc.c)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -328,9 +329,9 @@ func TestDesignBoundsHold(t *testing.T) {
 			if !ok {
 				continue
 			}
-			wk := &dsWalk{x: x, p: p}
+			wk := &walk{x: x, p: p}
 			var sv pitchSolver
-			var knots []dsKnot
+			var knots []knot
 			for n := nLo; n <= math.Min(nHi, nLo+10); n += 0.25 {
 				knots = append(knots, wk.visit(n, &sv))
 			}
@@ -338,7 +339,7 @@ func TestDesignBoundsHold(t *testing.T) {
 				if !k.kept || !k.solved {
 					continue
 				}
-				co := dsCoil{pair: p, n: k.n, pitch: k.pitch, lean: k.lean}
+				co := found{pair: p, n: k.n, pitch: k.pitch, lean: k.lean}
 				co.vol = math.Pi / 4 * co.lean.od * co.lean.od * co.lean.length
 				sc := x.score(&co)
 				checked++
@@ -400,7 +401,7 @@ func TestDesignOptimalAgainstBruteForce(t *testing.T) {
 	wires := []WireOption{
 		{Name: "0.63", Diameter: 0.63e-3, Overall: 0.68e-3}, {Name: "0.8", Diameter: 0.8e-3, Overall: 0.86e-3},
 		{Name: "1.0", Diameter: 1e-3, Overall: 1.06e-3}, {Name: "1.25", Diameter: 1.25e-3, Overall: 1.32e-3},
-		{Name: "1.0 silver", Diameter: 1e-3, Conductor: SilverPlated}, {Name: "0.4", Diameter: 0.4e-3, Overall: 0.44e-3},
+		{Name: "1.0 silver", Diameter: 1e-3, Conductor: coil.SilverPlated}, {Name: "0.4", Diameter: 0.4e-3, Overall: 0.44e-3},
 	}
 	cases := []designCase{
 		{"vhf", Target{Resonance: 145e6, Capacitance: 22e-12}, Constraints{LeadLength: 5e-3, MaxLength: 15e-3}},
@@ -412,11 +413,11 @@ func TestDesignOptimalAgainstBruteForce(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			t.Parallel()
 			tc.c.Supports, tc.c.Wires = sups, wires
-			res, err := Design(tc.t, tc.c)
+			res, err := Search(tc.t, tc.c)
 			if err != nil {
 				t.Fatal(err)
 			}
-			s, _ := resolveDesign(tc.t, tc.c)
+			s, _ := resolve(tc.t, tc.c)
 			top := res.Candidates[0]
 			best, bestName := math.Inf(-1), ""
 			type pt struct{ q, vol float64 }
@@ -431,28 +432,28 @@ func TestDesignOptimalAgainstBruteForce(t *testing.T) {
 						do = float64(w.Diameter)
 					}
 					for n := s.minTurns; n <= 80; n += 0.25 {
-						g := Geometry{FormerDiameter: sp.Diameter, WireDiameter: w.Diameter, WireOverall: w.Overall,
+						g := coil.Geometry{FormerDiameter: sp.Diameter, WireDiameter: w.Diameter, WireOverall: w.Overall,
 							Conductor: w.Conductor, Turns: n, LeadLength: tc.c.LeadLength}
 						g.Pitch = unit.Length(do)
 						if matchedValue(tc.t, g) < s.required*(1+s.margin) {
 							continue
 						}
-						g.Pitch = unit.Length(LoosestPitchFactor * do)
+						g.Pitch = unit.Length(coil.LoosestPitchFactor * do)
 						if matchedValue(tc.t, g) > s.required*(1-s.margin) {
 							break
 						}
 						for k := 0; k <= steps; k++ {
-							g.Pitch = unit.Length(do * math.Pow(LoosestPitchFactor, float64(k)/steps))
+							g.Pitch = unit.Length(do * math.Pow(coil.LoosestPitchFactor, float64(k)/steps))
 							if math.Abs(matchedValue(tc.t, g)/s.required-1) > 0.0025 {
 								continue
 							}
-							var p Prediction
-							evaluate(&p, &g, s.opF)
+							var p coil.Prediction
+							coil.Evaluate(&p, &g, s.opF)
 							if tc.c.MaxLength > 0 && p.WindingLength > tc.c.MaxLength || tc.c.MaxDiameter > 0 && p.OutsideDiameter > tc.c.MaxDiameter ||
 								float64(p.SRF) < s.srfRatio*s.opF {
 								continue
 							}
-							sc := testScore(p, tc.c.Prefer, s.srfRatio, w.Conductor == Tinned)
+							sc := testScore(p, tc.c.Prefer, s.srfRatio, w.Conductor == coil.Tinned)
 							if sc > best {
 								best, bestName = sc, fmt.Sprintf("%g turns of %s on %s at %.3g mm", n, w.Name, sp.Name, float64(g.Pitch)*1e3)
 							}
@@ -510,7 +511,7 @@ func TestDesignWheelerExample(t *testing.T) {
 	d := 0.676e-3
 	sup := Support{Name: "1in former", Diameter: unit.Length(inch - d), OnFormer: true}
 	w := WireOption{Name: "0.676mm bare", Diameter: unit.Length(d)}
-	res, err := Design(Target{Inductance: wheelerL}, Constraints{
+	res, err := Search(Target{Inductance: wheelerL}, Constraints{
 		Supports: []Support{sup}, Wires: []WireOption{w}, MinTurns: 20, Prefer: PreferSmall, Top: 1,
 	})
 	if err != nil {
@@ -555,9 +556,9 @@ func TestDesignInfeasible(t *testing.T) {
 			if tc.c.Supports == nil {
 				tc.c.Supports, tc.c.Wires = sups, wires
 			}
-			_, err := Design(tc.t, tc.c)
+			_, err := Search(tc.t, tc.c)
 			var ie *InfeasibleError
-			if !errors.As(err, &ie) || !errors.Is(err, ErrInfeasible) {
+			if !errors.As(err, &ie) || !errors.Is(err, coil.ErrInfeasible) {
 				t.Fatalf("err = %v, want an *InfeasibleError", err)
 			}
 			if ie.Constraint != tc.constraint {
@@ -587,7 +588,7 @@ func TestDesignInfeasible(t *testing.T) {
 			default:
 				return
 			}
-			res, err := Design(tc.t, c)
+			res, err := Search(tc.t, c)
 			if err != nil {
 				t.Fatalf("at the nearest value: %v", err)
 			}
@@ -634,10 +635,10 @@ func TestDesignBadInput(t *testing.T) {
 			if tc.edit != nil {
 				tc.edit(&c)
 			}
-			_, err := Design(tc.t, c)
-			var ie *InputError
+			_, err := Search(tc.t, c)
+			var ie *coil.InputError
 			if !errors.As(err, &ie) || ie.Param != tc.param {
-				t.Fatalf("err = %v, want *InputError for %q", err, tc.param)
+				t.Fatalf("err = %v, want *coil.InputError for %q", err, tc.param)
 			}
 		})
 	}
@@ -652,7 +653,7 @@ func TestDesignProperties(t *testing.T) {
 	one := Constraints{Supports: []Support{{Name: "6mm", Diameter: 6e-3}}, Wires: []WireOption{{Name: "1mm", Diameter: 1e-3}}, LeadLength: 5e-3}
 	prev := 0.0
 	for _, l := range []float64{40e-9, 60e-9, 90e-9, 135e-9, 200e-9} {
-		res, err := Design(Target{Inductance: unit.Inductance(l), Frequency: 50e6}, one)
+		res, err := Search(Target{Inductance: unit.Inductance(l), Frequency: 50e6}, one)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -665,8 +666,8 @@ func TestDesignProperties(t *testing.T) {
 	// A larger target on the full stock: every candidate pair that also
 	// serves the smaller target needs more turns.
 	c := Constraints{Supports: sups, Wires: wires, LeadLength: 10e-3, Top: 20}
-	a, err1 := Design(Target{Inductance: 2e-6, Frequency: 7e6}, c)
-	b, err2 := Design(Target{Inductance: 4e-6, Frequency: 7e6}, c)
+	a, err1 := Search(Target{Inductance: 2e-6, Frequency: 7e6}, c)
+	b, err2 := Search(Target{Inductance: 4e-6, Frequency: 7e6}, c)
 	if err1 != nil || err2 != nil {
 		t.Fatal(err1, err2)
 	}
@@ -681,8 +682,8 @@ func TestDesignProperties(t *testing.T) {
 	}
 	// Deterministic.
 	tc := designCases()[0]
-	r1, _ := Design(tc.t, tc.c)
-	r2, _ := Design(tc.t, tc.c)
+	r1, _ := Search(tc.t, tc.c)
+	r2, _ := Search(tc.t, tc.c)
 	if fmt.Sprint(r1.Candidates) != fmt.Sprint(r2.Candidates) || fmt.Sprint(r1.Pareto) != fmt.Sprint(r2.Pareto) {
 		t.Error("two runs differ")
 	}
@@ -698,7 +699,7 @@ func TestDesignProperties(t *testing.T) {
 			dup.Wires = append(dup.Wires, w)
 		}
 	}
-	r3, err := Design(tc.t, dup)
+	r3, err := Search(tc.t, dup)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -721,7 +722,7 @@ func TestDesignSpringback(t *testing.T) {
 		},
 		LeadLength: 5e-3, Top: 2,
 	}
-	res, err := Design(Target{Inductance: 60e-9, Frequency: 145e6}, c)
+	res, err := Search(Target{Inductance: 60e-9, Frequency: 145e6}, c)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -755,7 +756,7 @@ func TestDesignFreeDiameter(t *testing.T) {
 		LeadLength:   5e-3,
 		FreeDiameter: &FreeDiameter{},
 	}
-	res, err := Design(Target{Resonance: 145e6, Capacitance: 22e-12}, c)
+	res, err := Search(Target{Resonance: 145e6, Capacitance: 22e-12}, c)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -786,10 +787,10 @@ func TestDesignMonotoneInPitch(t *testing.T) {
 				for _, f := range []float64{0, 7e6} {
 					prev := math.Inf(1)
 					for k := 0; k <= 200; k++ {
-						g := Geometry{FormerDiameter: unit.Length(D), WireDiameter: unit.Length(d), Turns: n,
+						g := coil.Geometry{FormerDiameter: unit.Length(D), WireDiameter: unit.Length(d), Turns: n,
 							Pitch: unit.Length(d * (1 + 2*float64(k)/200)), LeadLength: 5e-3}
-						var p Prediction
-						evaluate(&p, &g, f)
+						var p coil.Prediction
+						coil.Evaluate(&p, &g, f)
 						if l := float64(p.Inductance); !(l < prev) {
 							t.Fatalf("D %g d %g N %g: L rises with pitch at %g d", D, d, n, 1+2*float64(k)/200)
 						} else {
@@ -802,45 +803,12 @@ func TestDesignMonotoneInPitch(t *testing.T) {
 	}
 }
 
-// proxRow reproduces ProximityFactor, and its minima bound it.
-func TestProxRow(t *testing.T) {
-	t.Parallel()
-	rng := rand.New(rand.NewPCG(1, 2))
-	for range 2000 {
-		dp := rng.Float64() * 1.1
-		ld := math.Exp(rng.Float64()*8 - 4)
-		r := newProxRow(dp)
-		if got, want := r.at(ld), ProximityFactor(ld, dp); relErr(got, want) > implTol {
-			t.Fatalf("row at(%g, %g) = %g, ProximityFactor %g", ld, dp, got, want)
-		}
-		a, b := ld, ld*math.Exp(rng.Float64()*3)
-		m := r.minOver(a, b)
-		for k := 0; k <= 50; k++ {
-			x := a * math.Pow(b/a, float64(k)/50)
-			if ProximityFactor(x, dp) < m*(1-1e-12) {
-				t.Fatalf("minOver(%g, %g) = %g above Φ(%g) = %g", a, b, m, x, ProximityFactor(x, dp))
-			}
-			if ProximityFactor(x, dp*(1+rng.Float64())) < ProximityFactor(x, dp)*(1-1e-12) && dp < 1 {
-				t.Fatalf("Φ falls as d/p rises at l/D %g", x)
-			}
-		}
-		if proximityMin(dp) > ProximityFactor(ld, dp)*(1+1e-12) {
-			t.Fatal("proximityMin above a value")
-		}
-		if m2 := medhurstMinOver(a, b); m2 > math.Min(first(MedhurstH(a)), first(MedhurstH(b))) {
-			t.Fatal("medhurstMinOver above an end")
-		}
-	}
-}
-
-func first(v float64, _ bool) float64 { return v }
-
 // The max-length message offers the most close-wound turns that fit, but
 // only a count the search itself allows (review of issue 3: it offered
 // 1½ turns, below DefaultMinTurns).
 func TestDesignMostWithinHonoursMinTurns(t *testing.T) {
 	t.Parallel()
-	s, err := resolveDesign(Target{Inductance: 48e-9, Frequency: 145e6}, Constraints{LeadLength: 5e-3,
+	s, err := resolve(Target{Inductance: 48e-9, Frequency: 145e6}, Constraints{LeadLength: 5e-3,
 		Supports: []Support{{Name: "6mm", Diameter: 6e-3}}, Wires: []WireOption{{Name: "1mm", Diameter: 1e-3}}})
 	if err != nil {
 		t.Fatal(err)

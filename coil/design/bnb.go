@@ -1,4 +1,4 @@
-package coil
+package design
 
 import (
 	"math"
@@ -6,7 +6,7 @@ import (
 )
 
 // Best-first branch and bound over the pairs and their turns. A node is a
-// pair not yet opened (bounded by dsPair.ub) or a stretch of turns
+// pair not yet opened (bounded by pair.ub) or a stretch of turns
 // between two solved knots (bounded by intervalBound). The node with the
 // highest bound is expanded first, so the top list's threshold rises as
 // fast as it can and a node is opened only if, when its turn comes, it can
@@ -19,23 +19,23 @@ import (
 //     both halves; a shorter one is enumerated, skipping the quarter and
 //     half turns whose own bound (less their ease penalty) cannot win.
 
-type dsNode struct {
+type node struct {
 	ub, qub, vol float64
-	pair         *dsPair
-	a, b         dsKnot
+	pair         *pair
+	a, b         knot
 	pen          float64 // least turns penalty inside the stretch
 	seq          int
 }
 
-// dsHeap is a max-heap of stretch nodes by bound (then by age), held as
+// nodeHeap is a max-heap of stretch nodes by bound (then by age), held as
 // indices into a node store so that nothing is copied but an int.
-type dsHeap struct {
-	nodes []dsNode
+type nodeHeap struct {
+	nodes []node
 	idx   []int32
 	free  []int32 // slots of popped nodes, for reuse
 }
 
-func (h *dsHeap) less(i, j int32) bool {
+func (h *nodeHeap) less(i, j int32) bool {
 	a, b := &h.nodes[i], &h.nodes[j]
 	if a.ub != b.ub {
 		return a.ub > b.ub
@@ -43,11 +43,11 @@ func (h *dsHeap) less(i, j int32) bool {
 	return a.seq < b.seq
 }
 
-func (h *dsHeap) Len() int { return len(h.idx) }
+func (h *nodeHeap) Len() int { return len(h.idx) }
 
-func (h *dsHeap) top() *dsNode { return &h.nodes[h.idx[0]] }
+func (h *nodeHeap) top() *node { return &h.nodes[h.idx[0]] }
 
-func (h *dsHeap) push(n dsNode) {
+func (h *nodeHeap) push(n node) {
 	var slot int32
 	if k := len(h.free); k > 0 {
 		slot = h.free[k-1]
@@ -69,7 +69,7 @@ func (h *dsHeap) push(n dsNode) {
 }
 
 // pop removes the top node and returns it.
-func (h *dsHeap) pop() dsNode {
+func (h *nodeHeap) pop() node {
 	top := h.idx[0]
 	last := len(h.idx) - 1
 	h.idx[0] = h.idx[last]
@@ -93,15 +93,15 @@ func (h *dsHeap) pop() dsNode {
 	return h.nodes[top]
 }
 
-func (x *dsSearch) push(n dsNode) {
+func (x *search) push(n node) {
 	n.seq = x.stats.Nodes
 	x.stats.Nodes++
 	x.heap.push(n)
 }
 
 // walker returns a walk over pair p that records into the search.
-func (x *dsSearch) walker(p *dsPair) *dsWalk {
-	wk := &dsWalk{x: x, p: p, global: true}
+func (x *search) walker(p *pair) *walk {
+	wk := &walk{x: x, p: p, global: true}
 	wk.maxLen = float64(x.s.c.MaxLength)
 	wk.maxWire = float64(x.s.c.MaxWireLength)
 	return wk
@@ -109,10 +109,10 @@ func (x *dsSearch) walker(p *dsPair) *dsWalk {
 
 // drain expands nodes, best bound first, until none can win: the unopened
 // pairs in order (sorted by bound) interleaved with the stretch heap.
-func (x *dsSearch) drain(order []*dsPair) {
+func (x *search) drain(order []*pair) {
 	next := 0
 	for {
-		var p *dsPair
+		var p *pair
 		if next < len(order) && (x.heap.Len() == 0 || order[next].ub >= x.heap.top().ub) {
 			p = order[next]
 			next++
@@ -120,7 +120,7 @@ func (x *dsSearch) drain(order []*dsPair) {
 			n := x.heap.pop()
 			wk := x.walker(n.pair)
 			if wk.cannotWin(n.ub, n.qub, n.vol) {
-				x.park(dsParked{node: n})
+				x.park(parked{node: n})
 				continue
 			}
 			x.expand(wk, &n)
@@ -133,53 +133,53 @@ func (x *dsSearch) drain(order []*dsPair) {
 		}
 		wk := x.walker(p)
 		if wk.cannotWin(p.ub, x.qBound(p, p.nLB), x.volumeBound(p, p.nLB)) {
-			x.park(dsParked{pair: p})
+			x.park(parked{pair: p})
 			continue
 		}
 		x.refine(p)
 		if wk.cannotOpen() {
-			x.park(dsParked{pair: p})
+			x.park(parked{pair: p})
 			continue
 		}
 		x.openPair(wk)
 	}
 }
 
-// dsParked is work set aside because it could not win at the time: an
+// parked is work set aside because it could not win at the time: an
 // unopened pair, a pair opened up to its first knot (above set), or a
 // stretch node. Pareto dominance never lapses, but a lower threshold (a
 // longer top list) can revive it; resume does that.
-type dsParked struct {
-	pair   *dsPair
+type parked struct {
+	pair   *pair
 	above  bool
-	a      dsKnot
+	a      knot
 	vLoose float64
-	node   dsNode
+	node   node
 }
 
-// dsParkedNode is a stretch node set aside, kept small: its knots are
+// parkedNode is a stretch node set aside, kept small: its knots are
 // solved again if it is revived.
-type dsParkedNode struct {
-	pair                 *dsPair
+type parkedNode struct {
+	pair                 *pair
 	an, bn, ub, qub, vol float64
 }
 
-// dsParkedTurns is one turns count skipped inside a stretch, with where
+// parkedTurns is one turns count skipped inside a stretch, with where
 // its pitch solve would start.
-type dsParkedTurns struct {
-	pair                    *dsPair
+type parkedTurns struct {
+	pair                    *pair
 	n, ub, qub, vol         float64
 	fromN, fromPitch, slope float64
 }
 
-func (x *dsSearch) park(w dsParked) {
+func (x *search) park(w parked) {
 	if x.relax != "" {
 		return
 	}
 	switch {
 	case w.node.pair != nil:
 		n := &w.node
-		x.parkedNodes = append(x.parkedNodes, dsParkedNode{pair: n.pair, an: n.a.n, bn: n.b.n, ub: n.ub, qub: n.qub, vol: n.vol})
+		x.parkedNodes = append(x.parkedNodes, parkedNode{pair: n.pair, an: n.a.n, bn: n.b.n, ub: n.ub, qub: n.qub, vol: n.vol})
 	case w.above:
 		x.parkedAbove = append(x.parkedAbove, w)
 	default:
@@ -189,15 +189,15 @@ func (x *dsSearch) park(w dsParked) {
 
 // resume lengthens the top list to topN and takes up the parked work that
 // the lower threshold revives, instead of searching again from scratch.
-func (x *dsSearch) resume(topN int) {
+func (x *search) resume(topN int) {
 	x.topN = topN
 	x.top = x.top[:0]
 	for i, ci := range x.pairCoil {
 		if ci >= 0 {
-			x.top = append(x.top, dsTop{x.pairScore[i], i})
+			x.top = append(x.top, top{x.pairScore[i], i})
 		}
 	}
-	slices.SortFunc(x.top, func(a, b dsTop) int {
+	slices.SortFunc(x.top, func(a, b top) int {
 		if c := cmpFloat(b.score, a.score); c != 0 {
 			return c
 		}
@@ -239,7 +239,7 @@ func (x *dsSearch) resume(topN int) {
 		}
 		x.openAbove(wk, w.a, w.vLoose)
 	}
-	slices.SortFunc(pairs, func(a, b *dsPair) int {
+	slices.SortFunc(pairs, func(a, b *pair) int {
 		if c := cmpFloat(b.ub, a.ub); c != 0 {
 			return c
 		}
@@ -250,7 +250,7 @@ func (x *dsSearch) resume(topN int) {
 
 // cannotOpen is cannotWin for an unopened pair: every pitch band must be
 // unable to win.
-func (wk *dsWalk) cannotOpen() bool {
+func (wk *walk) cannotOpen() bool {
 	p := wk.p
 	for _, sl := range wk.x.slices[p.slices : p.slices+boundSlices] {
 		if !math.IsInf(sl.ub, -1) && !wk.cannotWin(sl.ub, sl.q, sl.vol) {
@@ -260,7 +260,7 @@ func (wk *dsWalk) cannotOpen() bool {
 	return true
 }
 
-func (x *dsSearch) openPair(wk *dsWalk) {
+func (x *search) openPair(wk *walk) {
 	p := wk.p
 	x.stats.Searched++
 	nLo, vLoose, ok := x.turnsLow(p)
@@ -278,14 +278,14 @@ func (x *dsSearch) openPair(wk *dsWalk) {
 		return
 	}
 	if !x.aboveCanWin(wk, &a) {
-		x.park(dsParked{pair: p, above: true, a: a, vLoose: vLoose})
+		x.park(parked{pair: p, above: true, a: a, vLoose: vLoose})
 		return
 	}
 	x.openAbove(wk, a, vLoose)
 }
 
 // openAbove finishes opening a pair above its first knot a.
-func (x *dsSearch) openAbove(wk *dsWalk, a dsKnot, vLoose float64) {
+func (x *search) openAbove(wk *walk, a knot, vLoose float64) {
 	nHi := x.turnsHigh(wk.p, a.n, vLoose)
 	if nHi <= a.n {
 		return
@@ -298,7 +298,7 @@ func (x *dsSearch) openAbove(wk *dsWalk, a dsKnot, vLoose float64) {
 // knot a can win. Such a coil has a pitch above a's, so the pitch bands
 // below it drop out, and the others tighten: at least a's turns and a's
 // pitch.
-func (x *dsSearch) aboveCanWin(wk *dsWalk, a *dsKnot) bool {
+func (x *search) aboveCanWin(wk *walk, a *knot) bool {
 	p := wk.p
 	dw := &x.wires[p.wi]
 	for k := range boundSlices {
@@ -319,7 +319,7 @@ func (x *dsSearch) aboveCanWin(wk *dsWalk, a *dsKnot) bool {
 
 // pushStretch queues the turns strictly between a and b, if there are any
 // and they can win.
-func (x *dsSearch) pushStretch(wk *dsWalk, a, b dsKnot) {
+func (x *search) pushStretch(wk *walk, a, b knot) {
 	if !a.solved || a.stop || b.n-a.n < 0.5-1e-9 {
 		return
 	}
@@ -331,17 +331,17 @@ func (x *dsSearch) pushStretch(wk *dsWalk, a, b dsKnot) {
 		}
 	}
 	ub, qub, vol := x.intervalBound(wk.p, &a, &b, pen)
-	n := dsNode{ub: ub, qub: qub, vol: vol, pair: wk.p, a: a, b: b, pen: pen}
+	n := node{ub: ub, qub: qub, vol: vol, pair: wk.p, a: a, b: b, pen: pen}
 	if wk.cannotWin(ub, qub, vol) {
 		if !math.IsInf(ub, -1) {
-			x.park(dsParked{node: n})
+			x.park(parked{node: n})
 		}
 		return
 	}
 	x.push(n)
 }
 
-func (x *dsSearch) expand(wk *dsWalk, n *dsNode) {
+func (x *search) expand(wk *walk, n *node) {
 	a, b := n.a, n.b
 	sv := pitchSolver{n1: a.n, p1: a.pitch, slope: a.slope}
 	if b.n-a.n > 1+1e-9 {
@@ -364,7 +364,7 @@ func (x *dsSearch) expand(wk *dsWalk, n *dsNode) {
 		extra := x.w.ease * 0.5 * (turnsPenalty(k) - n.pen)
 		if extra > 0 && wk.cannotWin(n.ub-extra, n.qub, n.vol) {
 			if x.relax == "" {
-				x.parkedTurns = append(x.parkedTurns, dsParkedTurns{pair: n.pair, n: k, ub: n.ub - extra,
+				x.parkedTurns = append(x.parkedTurns, parkedTurns{pair: n.pair, n: k, ub: n.ub - extra,
 					qub: n.qub, vol: n.vol, fromN: a.n, fromPitch: a.pitch, slope: a.slope})
 			}
 			continue

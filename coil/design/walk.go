@@ -1,6 +1,9 @@
-package coil
+package design
 
-import "math"
+import (
+	"math"
+	"turnwise/coil"
+)
 
 // One pair's turns, visited: the knots of the branch and bound, and the
 // depth-first walk the free-diameter objective and the miss report use.
@@ -15,12 +18,12 @@ import "math"
 // is enumerated only if its bound (intervalBound, which uses the knots'
 // exact pitch, size and wire as the stretch's extremes) can still enter
 // the top list or the Pareto set.
-func (x *dsSearch) walkPair(p *dsPair, global bool) (dsCoil, bool) {
+func (x *search) walkPair(p *pair, global bool) (found, bool) {
 	x.stats.Searched++
-	wk := dsWalk{x: x, p: p, global: global}
+	wk := walk{x: x, p: p, global: global}
 	nLo, vLoose, ok := x.turnsLow(p)
 	if !ok {
-		return dsCoil{}, false
+		return found{}, false
 	}
 	wk.maxLen = float64(x.s.c.MaxLength)
 	if x.relax == "max_length" {
@@ -46,7 +49,7 @@ func (x *dsSearch) walkPair(p *dsPair, global bool) (dsCoil, bool) {
 	// win.
 	a := wk.visit(nLo, &wk.sv)
 	if a.solved && !a.stop {
-		open := dsKnot{n: math.Inf(1), pitch: LoosestPitchFactor * p.do}
+		open := knot{n: math.Inf(1), pitch: coil.LoosestPitchFactor * p.do}
 		open.lean.ld = math.Inf(1)
 		if ub, qub, vol := x.intervalBound(p, &a, &open, 0); wk.cannotWin(ub, qub, vol) {
 			return wk.best, wk.found
@@ -75,7 +78,7 @@ func (x *dsSearch) walkPair(p *dsPair, global bool) (dsCoil, bool) {
 // within the limits), bisecting while the stretch is long and its bound
 // can still win. It reports whether a limit that only grows with the turns
 // was met (the caller stops there).
-func (wk *dsWalk) stretch(a, b *dsKnot) (stopped bool) {
+func (wk *walk) stretch(a, b *knot) (stopped bool) {
 	x, p := wk.x, wk.p
 	if b.n-a.n < 0.5-1e-9 {
 		return b.stop
@@ -122,7 +125,7 @@ func (wk *dsWalk) stretch(a, b *dsKnot) (stopped bool) {
 
 // stretchOpen walks the turns strictly between a and nb one by one,
 // without a bound from above (the knot at nb has no solution).
-func (wk *dsWalk) stretchOpen(a *dsKnot, nb float64) bool {
+func (wk *walk) stretchOpen(a *knot, nb float64) bool {
 	sv := pitchSolver{n1: a.n, p1: a.pitch, slope: a.slope}
 	for n := a.n + 0.25; n < nb-1e-9; n += 0.25 {
 		if wk.visit(n, &sv).stop {
@@ -132,30 +135,30 @@ func (wk *dsWalk) stretchOpen(a *dsKnot, nb float64) bool {
 	return false
 }
 
-// dsKnot is a visited turns count.
-type dsKnot struct {
+// knot is a visited turns count.
+type knot struct {
 	n, pitch, slope float64
-	lean            dsLean
+	lean            lean
 	solved          bool // a pitch was found
 	kept            bool // it met every constraint
 	stop            bool // it, and every count above, breaks a limit that only grows
 }
 
-// dsWalk is the state of one pair's walk.
-type dsWalk struct {
-	x               *dsSearch
-	p               *dsPair
+// walk is the state of one pair's walk.
+type walk struct {
+	x               *search
+	p               *pair
 	global          bool
 	maxLen, maxWire float64
 	sv              pitchSolver
-	best            dsCoil
+	best            found
 	found           bool
 }
 
 // cannotWin reports whether coils bounded by score ub, Q qub and volume
 // vol can enter neither the top list (nor beat the pair's best) nor the
 // Pareto set.
-func (wk *dsWalk) cannotWin(ub, qub, vol float64) bool {
+func (wk *walk) cannotWin(ub, qub, vol float64) bool {
 	x := wk.x
 	if math.IsInf(ub, -1) {
 		return true // nothing there meets the limits
@@ -169,7 +172,7 @@ func (wk *dsWalk) cannotWin(ub, qub, vol float64) bool {
 	return x.dominated(qub/(1+paretoSlack), vol)
 }
 
-func (wk *dsWalk) bestScore() float64 {
+func (wk *walk) bestScore() float64 {
 	if wk.global {
 		return wk.x.pairScore[wk.p.idx]
 	}
@@ -180,10 +183,10 @@ func (wk *dsWalk) bestScore() float64 {
 }
 
 // visit solves, scores and records n turns.
-func (wk *dsWalk) visit(n float64, sv *pitchSolver) dsKnot {
+func (wk *walk) visit(n float64, sv *pitchSolver) knot {
 	x, p, s := wk.x, wk.p, wk.x.s
 	// Until solved, the knot's pitch and l/D are their upper bounds.
-	k := dsKnot{n: n, pitch: LoosestPitchFactor * p.do}
+	k := knot{n: n, pitch: coil.LoosestPitchFactor * p.do}
 	k.lean.ld = n * k.pitch / p.dm
 	if wk.maxLen > 0 && n*p.do > wk.maxLen*(1+1e-12) {
 		x.miss.note("max_length", n*p.do/wk.maxLen, p, n, 0)
@@ -203,7 +206,7 @@ func (wk *dsWalk) visit(n float64, sv *pitchSolver) dsKnot {
 	}
 	x.stats.Coils++
 	k.solved, k.pitch, k.slope = true, pitch, sv.slope
-	co := dsCoil{pair: p, n: n, pitch: pitch, lean: x.lean(p, n, pitch), matched: sv.value}
+	co := found{pair: p, n: n, pitch: pitch, lean: x.lean(p, n, pitch), matched: sv.value}
 	k.lean = co.lean
 	if wk.maxLen > 0 && co.lean.length > wk.maxLen*(1+1e-12) {
 		x.miss.note("max_length", co.lean.length/wk.maxLen, p, n, pitch)

@@ -1,9 +1,10 @@
-package coil
+package design
 
 import (
 	"math"
 	"slices"
 	"sort"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -34,17 +35,17 @@ import (
 //     in (ln p, ln L) with the slope learned so far inside the bracket
 //     close winding … loosest pitch; two or three evaluations usually do.
 //
-// Evaluations use a lean copy of Predict's formulas (design_eval.go); the
-// candidates returned are re-checked through Predict and Window. The
+// Evaluations use a lean copy of coil.Predict's formulas (design_eval.go); the
+// candidates returned are re-checked through coil.Predict and coil.Window. The
 // bounds rely on the inductance rising with the turns and falling with the
 // pitch (tested for two turns and more, hence DefaultMinTurns).
 
-// dsPair is one support × wire.
-type dsPair struct {
+// pair is one support × wire.
+type pair struct {
 	idx    int
 	si     int      // index into Constraints.Supports; −1 for a free diameter
 	free   *Support // the free-diameter support, else nil
-	wi     int      // index into Constraints.Wires and dsSearch.wires
+	wi     int      // index into Constraints.Wires and search.wires
 	cal    int      // index into Constraints.Calibrations, −1 for none
 	sb     float64  // springback applied
 	tinned bool
@@ -53,71 +54,70 @@ type dsPair struct {
 	od     float64 // outside diameter
 	nLB    float64 // no coil of fewer turns can hit the target
 	ub     float64 // score bound: scoreBound at nLB, then the best slice's
-	slices int     // index into dsSearch.slices of its pitch-band bounds; −1 before refine
+	slices int     // index into search.slices of its pitch-band bounds; −1 before refine
 }
 
-// dsWire holds what depends on the wire alone.
-type dsWire struct {
-	r         float64 // bare radius
-	do        float64
-	rho       float64              // resistivity at the conductor temperature
-	rdcPerM   float64              // Ω/m at the conductor temperature
-	atMatch   dsFreq               // at the matching frequency
-	atOp      dsFreq               // at the operating frequency
-	fs        float64              // R_ac/R_dc at the operating frequency
-	proxLB    float64              // least proximity factor at any pitch up to LoosestPitchFactor·d_o
-	sliceRow  [boundSlices]proxRow // Φ at the loose end of each pitch band
-	leadsMax  float64              // both leads, internal inductance at its DC value
-	rLeads    float64              // both leads at the operating frequency
-	tinned    bool
-	eligibleN int // supports it suits
+// wireData holds what depends on the wire alone.
+type wireData struct {
+	r        float64 // bare radius
+	do       float64
+	rho      float64                        // resistivity at the conductor temperature
+	rdcPerM  float64                        // Ω/m at the conductor temperature
+	atMatch  coil.WireAt                    // at the matching frequency
+	atOp     coil.WireAt                    // at the operating frequency
+	fs       float64                        // R_ac/R_dc at the operating frequency
+	proxLB   float64                        // least proximity factor at any pitch up to coil.LoosestPitchFactor·d_o
+	sliceRow [boundSlices]coil.ProximityRow // Φ at the loose end of each pitch band
+	leadsMax float64                        // both leads, internal inductance at its DC value
+	rLeads   float64                        // both leads at the operating frequency
+	tinned   bool
 }
 
-// dsCoil is a solved coil.
-type dsCoil struct {
-	pair    *dsPair
+// found is a solved coil.
+type found struct {
+	pair    *pair
 	n       float64
 	pitch   float64
-	lean    dsLean // at the operating frequency
+	lean    lean // at the operating frequency
 	matched float64
 	score   float64
 	vol     float64 // outside volume, m³
 }
 
-type dsSearch struct {
-	s     *designSettings
-	w     dsWeights
-	wires []dsWire
-	pairs []*dsPair
+type search struct {
+	s     *settings
+	w     weights
+	wires []wireData
+	pairs []*pair
 	stats Stats
 
 	topN      int       // per-pair bests kept for the threshold
-	top       []dsTop   // the best per-pair bests, descending
+	top       []top     // the best per-pair bests, descending
 	pairScore []float64 // each pair's best score so far (−Inf: none)
 	pairCoil  []int     // index into coils of each pair's best, −1: none
-	coils     []dsCoil  // pair bests as they were found
-	pareto    []dsCoil  // ascending volume, strictly ascending Q
-	heap      dsHeap    // best-first queue
+	coils     []found   // pair bests as they were found
+	pareto    []found   // ascending volume, strictly ascending Q
+	heap      nodeHeap  // best-first queue
 	// Work set aside (see resume).
-	parkedPairs []*dsPair
-	parkedAbove []dsParked
-	parkedNodes []dsParkedNode
-	parkedTurns []dsParkedTurns
-	slices      []dsSlice // pitch-band bounds of refined pairs
+	parkedPairs []*pair
+	parkedAbove []parked
+	parkedNodes []parkedNode
+	parkedTurns []parkedTurns
+	slices      []slice // pitch-band bounds of refined pairs
 
 	grDiv float64 // lower bound on 1−(f/SRF)² at the matching frequency for feasible coils
 	grMin float64 // same at the operating frequency
 
 	// relax names one constraint to ignore (the infeasibility report).
 	relax string
-	miss  dsMissLog
-	cals  map[dsCalKey]int // latest calibration of each named pair
+	miss  missLog
+	cals  map[calKey]int // latest calibration of each named pair
 
-	kmN, km float64 // RosaMutual(kmN), cached across a pitch solve
+	kmN, km float64 // coil.RosaMutual(kmN), cached across a pitch solve
 }
 
-func newSearch(s *designSettings, relax string, topN int) *dsSearch {
-	x := &dsSearch{s: s, w: designWeights(s.c.Prefer, s.opF > 0), grDiv: 1, grMin: 1, relax: relax}
+func newSearch(s *settings, relax string, topN int) *search {
+	x := &search{s: s, w: weightsFor(s.c.Prefer, s.opF > 0), grDiv: 1, grMin: 1, relax: relax}
 	x.topN = topN
 	if s.opF > 0 {
 		x.grMin = 1 - 1/(s.srfRatio*s.srfRatio)
@@ -132,13 +132,13 @@ func newSearch(s *designSettings, relax string, topN int) *dsSearch {
 	return x
 }
 
-// designSearch runs the search. The top list's threshold is the topN-th
+// runSearch runs the search. The top list's threshold is the topN-th
 // best pair score, so the first topN pair bests are exact; the
 // near-duplicate rule then picks the candidates from them in order. When it
 // needs more than topN to fill the list (many near-duplicates at the top),
 // the search resumes with twice as many, taking up only the work it set
 // aside.
-func designSearch(s *designSettings) (Result, error) {
+func runSearch(s *settings) (Result, error) {
 	x := newSearch(s, "", 4*s.top)
 	x.run()
 	if len(x.coils) == 0 {
@@ -154,10 +154,10 @@ func designSearch(s *designSettings) (Result, error) {
 }
 
 // run does steps 1–3 and the free-diameter search.
-func (x *dsSearch) run() {
+func (x *search) run() {
 	x.prepareWires()
 	x.makePairs()
-	x.slices = make([]dsSlice, 0, len(x.pairs)*boundSlices/2)
+	x.slices = make([]slice, 0, len(x.pairs)*boundSlices/2)
 	x.pairScore = make([]float64, len(x.pairs))
 	x.pairCoil = make([]int, len(x.pairs))
 	for i, p := range x.pairs {
@@ -174,7 +174,7 @@ func (x *dsSearch) run() {
 		return
 	}
 	order := slices.Clone(x.pairs)
-	slices.SortFunc(order, func(a, b *dsPair) int {
+	slices.SortFunc(order, func(a, b *pair) int {
 		if c := cmpFloat(b.ub, a.ub); c != 0 {
 			return c
 		}
@@ -186,18 +186,11 @@ func (x *dsSearch) run() {
 	}
 }
 
-func (x *dsSearch) temperatureK() float64 {
-	if x.s.c.Temperature == 0 {
-		return roomKelvin
-	}
-	return float64(x.s.c.Temperature)
-}
-
-func (x *dsSearch) prepareWires() {
+func (x *search) prepareWires() {
 	c := &x.s.c
-	rho := CopperResistivity20 * (1 + CopperTempCoeff*(x.temperatureK()-roomKelvin))
+	rho := coil.CopperResistivity(c.Temperature)
 	lead := float64(c.LeadLength)
-	x.wires = make([]dsWire, len(c.Wires))
+	x.wires = make([]wireData, len(c.Wires))
 	for i, w := range c.Wires {
 		d := float64(w.Diameter)
 		do := float64(w.Overall)
@@ -205,17 +198,17 @@ func (x *dsSearch) prepareWires() {
 			do = d
 		}
 		r := d / 2
-		dw := dsWire{r: r, do: do, rho: rho, tinned: w.Conductor == Tinned}
-		dw.rdcPerM = rho / (math.Pi * r * r)
-		dw.atMatch = newDsFreq(r, rho, dw.rdcPerM, lead, x.s.matchF)
-		dw.atOp = newDsFreq(r, rho, dw.rdcPerM, lead, x.s.opF)
-		dw.fs = dw.atOp.fs
-		dw.leadsMax = 2 * LeadInductance(lead, r, 1)
-		dw.rLeads = dw.atOp.rLeads
-		phiMin := proximityMin(d / (LoosestPitchFactor * do))
-		dw.proxLB = 1 + (phiMin-1)*(dw.fs-1)/dw.fs
+		dw := wireData{r: r, do: do, rho: rho, tinned: w.Conductor == coil.Tinned}
+		dw.atMatch = coil.NewWireAt(r, rho, lead, x.s.matchF)
+		dw.atOp = coil.NewWireAt(r, rho, lead, x.s.opF)
+		dw.rdcPerM = dw.atOp.RdcPerM
+		dw.fs = dw.atOp.Fs
+		dw.leadsMax = 2 * coil.LeadInductance(lead, r, 1)
+		dw.rLeads = dw.atOp.RLeads
+		phiMin := coil.ProximityMin(d / (coil.LoosestPitchFactor * do))
+		dw.proxLB = coil.PartialProximity(phiMin, dw.fs)
 		for k := range boundSlices {
-			dw.sliceRow[k] = newProxRow(d / (sliceRatios[k+1] * do))
+			dw.sliceRow[k] = coil.NewProximityRow(d / (sliceRatios[k+1] * do))
 		}
 		x.wires[i] = dw
 	}
@@ -223,7 +216,7 @@ func (x *dsSearch) prepareWires() {
 
 // support returns the pair's support with its springback applied, and
 // where that came from.
-func (x *dsSearch) support(p *dsPair) (Support, string) {
+func (x *search) support(p *pair) (Support, string) {
 	var sup Support
 	if p.free != nil {
 		sup = *p.free
@@ -243,13 +236,13 @@ func (x *dsSearch) support(p *dsPair) (Support, string) {
 	return sup, "none"
 }
 
-func (x *dsSearch) wire(p *dsPair) WireOption { return x.s.c.Wires[p.wi] }
+func (x *search) wire(p *pair) WireOption { return x.s.c.Wires[p.wi] }
 
 // geometry is the pair's coil with n turns at pitch.
-func (x *dsSearch) geometry(p *dsPair, n, pitch float64) Geometry {
+func (x *search) geometry(p *pair, n, pitch float64) coil.Geometry {
 	sup, _ := x.support(p)
 	w := x.wire(p)
-	return Geometry{
+	return coil.Geometry{
 		FormerDiameter: sup.Diameter,
 		Springback:     p.sb,
 		WireDiameter:   w.Diameter,
@@ -262,14 +255,14 @@ func (x *dsSearch) geometry(p *dsPair, n, pitch float64) Geometry {
 	}
 }
 
-type dsCalKey struct{ support, wire string }
+type calKey struct{ support, wire string }
 
-func (x *dsSearch) makePairs() {
+func (x *search) makePairs() {
 	c := &x.s.c
 	if len(c.Calibrations) > 0 {
-		x.cals = map[dsCalKey]int{}
+		x.cals = map[calKey]int{}
 		for i, cal := range c.Calibrations {
-			x.cals[dsCalKey{cal.Support, cal.Wire}] = i // later ones win
+			x.cals[calKey{cal.Support, cal.Wire}] = i // later ones win
 		}
 	}
 	sups, wires := x.uniqueRows()
@@ -310,7 +303,7 @@ func (x *dsSearch) makePairs() {
 			}
 		}
 	}
-	store := make([]dsPair, 0, count)
+	store := make([]pair, 0, count)
 	for _, sp := range spans {
 		w := c.Wires[sp.wi]
 		for _, si := range sups[sp.lo:sp.hi] {
@@ -337,7 +330,7 @@ func (x *dsSearch) makePairs() {
 
 // mightSuit reports whether wire w passes the rules that do not depend on
 // the support.
-func (x *dsSearch) mightSuit(w *WireOption) bool {
+func (x *search) mightSuit(w *WireOption) bool {
 	c := &x.s.c
 	d := float64(w.Diameter)
 	return !(c.MinWire > 0 && d < float64(c.MinWire)*(1-1e-9) || c.MaxWire > 0 && d > float64(c.MaxWire)*(1+1e-9) ||
@@ -349,7 +342,7 @@ func (x *dsSearch) mightSuit(w *WireOption) bool {
 // springback; same wire, insulation and conductor) would give the same
 // coils, so only the first, in stock order, is searched. Rows named in a
 // calibration are always kept.
-func (x *dsSearch) uniqueRows() (sups, wires []int) {
+func (x *search) uniqueRows() (sups, wires []int) {
 	c := &x.s.c
 	calS, calW := map[string]bool{}, map[string]bool{}
 	for _, cal := range c.Calibrations {
@@ -372,7 +365,7 @@ func (x *dsSearch) uniqueRows() (sups, wires []int) {
 	}
 	type wKey struct {
 		d, do float64
-		cond  Conductor
+		cond  coil.Conductor
 	}
 	seenW := map[wKey]bool{}
 	for i, w := range c.Wires {
@@ -404,14 +397,14 @@ func cmpFloat(a, b float64) int {
 
 // newPairValue makes the pair of support si (or the free support) and
 // wire wi.
-func (x *dsSearch) newPairValue(si int, free *Support, wi int) dsPair {
+func (x *search) newPairValue(si int, free *Support, wi int) pair {
 	sup := free
 	if free == nil {
 		sup = &x.s.c.Supports[si]
 	}
-	p := dsPair{si: si, free: free, wi: wi, cal: -1, slices: -1, sb: sup.Springback}
+	p := pair{si: si, free: free, wi: wi, cal: -1, slices: -1, sb: sup.Springback}
 	if len(x.cals) > 0 {
-		if i, ok := x.cals[dsCalKey{sup.Name, x.s.c.Wires[wi].Name}]; ok {
+		if i, ok := x.cals[calKey{sup.Name, x.s.c.Wires[wi].Name}]; ok {
 			p.cal, p.sb = i, x.s.c.Calibrations[i].Springback
 		}
 	}
@@ -422,15 +415,15 @@ func (x *dsSearch) newPairValue(si int, free *Support, wi int) dsPair {
 	return p
 }
 
-// dsTop is an entry of the top list.
-type dsTop struct {
+// top is an entry of the top list.
+type top struct {
 	score float64
 	pair  int
 }
 
 // record files a solved coil that meets every constraint: into the
 // Pareto set, and as its pair's best when it beats it.
-func (x *dsSearch) record(c dsCoil) {
+func (x *search) record(c found) {
 	x.addPareto(c)
 	i := c.pair.idx
 	if c.score <= x.pairScore[i] {
@@ -454,7 +447,7 @@ func (x *dsSearch) record(c dsCoil) {
 		return
 	}
 	k := sort.Search(len(x.top), func(k int) bool { return x.top[k].score < c.score })
-	x.top = slices.Insert(x.top, k, dsTop{c.score, i})
+	x.top = slices.Insert(x.top, k, top{c.score, i})
 	if len(x.top) > x.topN {
 		x.top = x.top[:x.topN]
 	}
@@ -462,7 +455,7 @@ func (x *dsSearch) record(c dsCoil) {
 
 // threshold is the score a coil must beat to change the top list; it only
 // rises.
-func (x *dsSearch) threshold() float64 {
+func (x *search) threshold() float64 {
 	if len(x.top) < x.topN {
 		return math.Inf(-1)
 	}
@@ -471,7 +464,7 @@ func (x *dsSearch) threshold() float64 {
 
 // dominated reports whether a coil of Q at most q and volume at least vol
 // would be dominated by the Pareto set.
-func (x *dsSearch) dominated(q, vol float64) bool {
+func (x *search) dominated(q, vol float64) bool {
 	// The Pareto point with the largest volume ≤ vol has the highest Q
 	// among those.
 	i := sort.Search(len(x.pareto), func(i int) bool { return x.pareto[i].vol > vol })
@@ -479,7 +472,7 @@ func (x *dsSearch) dominated(q, vol float64) bool {
 }
 
 // addPareto inserts c into the Q-versus-volume front if nothing dominates it.
-func (x *dsSearch) addPareto(c dsCoil) {
+func (x *search) addPareto(c found) {
 	if x.s.opF == 0 {
 		return
 	}

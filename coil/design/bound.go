@@ -1,6 +1,9 @@
-package coil
+package design
 
-import "math"
+import (
+	"math"
+	"turnwise/coil"
+)
 
 // Bounds on a pair before any full evaluation: the fewest turns, and the
 // score of each pitch band (see bound).
@@ -10,24 +13,18 @@ import "math"
 // internal inductance only falls with frequency) plus the leads with their
 // full internal inductance; for an effective target the helix part is
 // divided by the least 1 − (f/SRF)².
-func (x *dsSearch) upperL(p *dsPair, n, pitch float64) float64 {
+func (x *search) upperL(p *pair, n, pitch float64) float64 {
 	x.stats.BoundEvaluations++
 	dw := &x.wires[p.wi]
-	a := p.dm / 2
-	l := n * pitch
-	ls := Mu0 * math.Pi * a * a * n * n / l * Nagaoka(l/p.dm)
-	if n != x.kmN {
-		x.kmN, x.km = n, RosaMutual(n)
-	}
-	lc := ls - Mu0*a*n*(1.25-math.Log(2*pitch/(2*dw.r))+x.km)
-	return dw.leadsMax + lc/x.grDiv
+	c := x.core(p, n, pitch)
+	return dw.leadsMax + c.LCoilDC/x.grDiv
 }
 
 // minTurnsAt is the fewest quarter turns, at least floor, whose upperL at
 // pitch reaches need: no coil with that pitch or a looser one and fewer
 // turns can reach it (upperL rises with the turns and falls with the
-// pitch). The search starts at start (≥ floor). +Inf beyond MaxTurns.
-func (x *dsSearch) minTurnsAt(p *dsPair, pitch, need, floor, start float64) float64 {
+// pitch). The search starts at start (≥ floor). +Inf beyond coil.MaxTurns.
+func (x *search) minTurnsAt(p *pair, pitch, need, floor, start float64) float64 {
 	a := p.dm / 2
 	ok := func(n float64) bool { return x.upperL(p, n, pitch) >= need }
 	// Newton steps with L ∝ N^α (Wheeler's form) up to a count that
@@ -43,7 +40,7 @@ func (x *dsSearch) minTurnsAt(p *dsPair, pitch, need, floor, start float64) floa
 		if n2 <= n {
 			n2 = n + 0.25*float64(int(1)<<min(i, 20))
 		}
-		if n2 > MaxTurns {
+		if n2 > coil.MaxTurns {
 			return math.Inf(1)
 		}
 		n, v = n2, x.upperL(p, n2, pitch)
@@ -68,7 +65,7 @@ func (x *dsSearch) minTurnsAt(p *dsPair, pitch, need, floor, start float64) floa
 }
 
 // boundSlices is how many pitch bands the pair bound splits
-// [d_o, LoosestPitchFactor·d_o] into.
+// [d_o, coil.LoosestPitchFactor·d_o] into.
 const boundSlices = 4
 
 // bound sets p.nLB and the pair's bounds; nLB = 0 means the pair cannot
@@ -77,7 +74,7 @@ const boundSlices = 4
 // those of that many turns at p_k, its proximity factor at least that at
 // p_k+1, and its spacing penalty at least the least over the band. The
 // pair's bound is the best band's.
-func (x *dsSearch) bound(p *dsPair) {
+func (x *search) bound(p *pair) {
 	x.stats.Bounded++
 	s := x.s
 	dw := &x.wires[p.wi]
@@ -95,10 +92,10 @@ func (x *dsSearch) bound(p *dsPair) {
 		need0 = T // an effective value at close winding has no upper bound
 	}
 	tc := math.Max(need0-dw.leadsMax, need0*0.05)
-	k := Mu0 * math.Pi * a * a
+	k := coil.Mu0 * math.Pi * a * a
 	guess := (tc*dw.do + math.Sqrt(tc*tc*dw.do*dw.do+4*k*0.9*a*tc)) / (2 * k)
 	guess = math.Max(s.minTurns, math.Floor(guess*4)/4)
-	if guess > MaxTurns {
+	if guess > coil.MaxTurns {
 		x.miss.tooLarge(p)
 		return
 	}
@@ -115,18 +112,18 @@ func (x *dsSearch) bound(p *dsPair) {
 // LoosestPitchFactor^(k/boundSlices).
 var sliceRatios = func() (r [boundSlices + 1]float64) {
 	for k := range r {
-		r[k] = math.Pow(LoosestPitchFactor, float64(k)/boundSlices)
+		r[k] = math.Pow(coil.LoosestPitchFactor, float64(k)/boundSlices)
 	}
 	return r
 }()
 
 // refine computes the pair's pitch-band bounds (once) and tightens p.ub.
-func (x *dsSearch) refine(p *dsPair) {
+func (x *search) refine(p *pair) {
 	if p.slices >= 0 {
 		return
 	}
 	p.slices = len(x.slices)
-	x.slices = append(x.slices, make([]dsSlice, boundSlices)...)
+	x.slices = append(x.slices, make([]slice, boundSlices)...)
 	x.stats.Refined++
 	dw := &x.wires[p.wi]
 	T := x.s.required
@@ -138,7 +135,7 @@ func (x *dsSearch) refine(p *dsPair) {
 			n = x.minTurnsAt(p, p0, T, n, n)
 		}
 		if math.IsInf(n, 1) {
-			x.slices[p.slices+k] = dsSlice{ub: math.Inf(-1)}
+			x.slices[p.slices+k] = slice{ub: math.Inf(-1)}
 			continue
 		}
 		sl := x.sliceBound(p, n, p0, sliceRatios[k+1]*dw.do, &dw.sliceRow[k])
@@ -148,28 +145,28 @@ func (x *dsSearch) refine(p *dsPair) {
 	p.ub = math.Min(p.ub, ub)
 }
 
-// dsSlice is the bound of one pitch band of a pair: at least n turns.
-type dsSlice struct{ ub, q, vol, n float64 }
+// slice is the bound of one pitch band of a pair: at least n turns.
+type slice struct{ ub, q, vol, n float64 }
 
 // sliceTurns is the least turns of pitch band k of refined pair p.
-func (x *dsSearch) sliceTurns(p *dsPair, k int) float64 { return x.slices[p.slices+k].n }
+func (x *search) sliceTurns(p *pair, k int) float64 { return x.slices[p.slices+k].n }
 
 // sliceBound bounds coils of at least n turns with pitch in [p0, p1].
-func (x *dsSearch) sliceBound(p *dsPair, n, p0, p1 float64, row *proxRow) dsSlice {
+func (x *search) sliceBound(p *pair, n, p0, p1 float64, row *coil.ProximityRow) slice {
 	w := x.w
 	dw := &x.wires[p.wi]
-	helix := n * math.Sqrt(math.Pi*math.Pi*p.dm*p.dm+p0*p0)
+	helix := coil.HelixLength(n, p.dm, p0)
 	length := (n-1)*p0 + dw.do
 	vol := math.Pi / 4 * p.od * p.od * length
-	wire := helix + 2*float64(x.s.c.LeadLength) + float64(CutAllowance)
+	wire := helix + 2*float64(x.s.c.LeadLength) + float64(coil.CutAllowance)
 	ld := n * p0 / p.dm
-	sl := dsSlice{vol: vol, n: n}
+	sl := slice{vol: vol, n: n}
 	sl.ub = -w.size*math.Log(math.Cbrt(vol)/scoreSizeRef) - w.cu*math.Log(wire/scoreWireRef)
 	if x.s.opF > 0 {
 		fr := &dw.atOp
-		phi := row.minOver(ld, math.Inf(1))
-		prox := 1 + (phi-1)*(fr.fs-1)/fr.fs
-		sl.q = x.qFromR(p, dw.rdcPerM*fr.fs*helix*prox)
+		phi := row.MinOver(ld, math.Inf(1))
+		prox := coil.PartialProximity(phi, fr.Fs)
+		sl.q = x.qFromR(p, dw.rdcPerM*fr.Fs*helix*prox)
 		sl.ub += w.q*w.utility(sl.q) + w.srf*scoreSRFCap
 	}
 	if x.s.opF > 0 {
@@ -178,7 +175,7 @@ func (x *dsSearch) sliceBound(p *dsPair, n, p0, p1 float64, row *proxRow) dsSlic
 		// too only when the band is closed; here it is open-ended above.
 		srf := x.srfUpper(p, math.Inf(1), ld, math.Inf(1))
 		if srf < x.s.srfRatio*x.s.opF {
-			return dsSlice{ub: math.Inf(-1), vol: vol, n: n}
+			return slice{ub: math.Inf(-1), vol: vol, n: n}
 		}
 	}
 	sl.ub -= w.ease * (0.5*spacingPenaltyMin(p0/dw.do, p1/dw.do) + shapePenaltyMin(ld, math.Inf(1)))

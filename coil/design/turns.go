@@ -1,6 +1,9 @@
-package coil
+package design
 
-import "math"
+import (
+	"math"
+	"turnwise/coil"
+)
 
 // The turns range of a pair and the pitch that hits the target.
 
@@ -10,7 +13,7 @@ import "math"
 // values rise with the turns, so each boundary is found by galloping from
 // a guess and bisecting on quarter turns. ok is false when the range is
 // empty.
-func (x *dsSearch) turnsRange(p *dsPair) (nLo, nHi float64, ok bool) {
+func (x *search) turnsRange(p *pair) (nLo, nHi float64, ok bool) {
 	nLo, vLoose, ok := x.turnsLow(p)
 	if !ok {
 		return 0, 0, false
@@ -20,11 +23,11 @@ func (x *dsSearch) turnsRange(p *dsPair) (nLo, nHi float64, ok bool) {
 
 // turnsLow finds nLo and the value at the loosest pitch there; ok is false
 // when even nLo's loosest pitch is above (1−m)·target.
-func (x *dsSearch) turnsLow(p *dsPair) (nLo, vLoose float64, ok bool) {
+func (x *search) turnsLow(p *pair) (nLo, vLoose float64, ok bool) {
 	s := x.s
 	T := s.required
 	hi, lo := T*(1+s.margin), T*(1-s.margin)
-	loose := LoosestPitchFactor * p.do
+	loose := coil.LoosestPitchFactor * p.do
 	closeOK := func(n float64) bool { return x.matched(p, n, p.do) >= hi }
 	// nLo: nLB cannot be beaten from below.
 	nLo = p.nLB
@@ -35,7 +38,7 @@ func (x *dsSearch) turnsLow(p *dsPair) (nLo, vLoose float64, ok bool) {
 			a = b
 			step *= 2
 			b = a + step
-			if b > MaxTurns {
+			if b > coil.MaxTurns {
 				x.miss.tooLarge(p)
 				return 0, 0, false
 			}
@@ -60,24 +63,24 @@ func (x *dsSearch) turnsLow(p *dsPair) (nLo, vLoose float64, ok bool) {
 }
 
 // turnsHigh finds nHi ≥ nLo given the value vLoose at nLo's loosest pitch.
-func (x *dsSearch) turnsHigh(p *dsPair, nLo, vLoose float64) (nHi float64) {
+func (x *search) turnsHigh(p *pair, nLo, vLoose float64) (nHi float64) {
 	s := x.s
 	lo := s.required * (1 - s.margin)
-	loose := LoosestPitchFactor * p.do
+	loose := coil.LoosestPitchFactor * p.do
 	looseOK := func(n float64) bool { return x.matched(p, n, loose) <= lo }
 	// Wheeler's form L ∝ N²/(N·p + 0.9a) at the loosest pitch gives the
 	// guess; then gallop and bisect.
 	a := p.dm / 2
 	alpha := 2 - nLo*loose/(nLo*loose+0.9*a)
 	guess := math.Floor(nLo*math.Pow(lo/vLoose, 1/alpha)*4) / 4
-	guess = math.Min(math.Max(guess, nLo), MaxTurns)
+	guess = math.Min(math.Max(guess, nLo), coil.MaxTurns)
 	var okN, badN float64 // looseOK(okN), !looseOK(badN)
 	if looseOK(guess) {
 		okN = guess
 		step := math.Max(0.25, math.Floor(guess*0.02*4)/4)
 		for {
 			b := okN + step
-			if b > MaxTurns {
+			if b > coil.MaxTurns {
 				return okN
 			}
 			if !looseOK(b) {
@@ -135,11 +138,11 @@ type pitchSolver struct {
 // and D), or inverts that form outright; Newton steps in (ln p, ln L) use
 // the slope learned so far and fall back to bisection when they leave the
 // bracket.
-func (x *dsSearch) solvePitch(p *dsPair, n float64, sv *pitchSolver) (float64, bool) {
+func (x *search) solvePitch(p *pair, n float64, sv *pitchSolver) (float64, bool) {
 	T := x.s.required
 	const relTol = 1e-7
 	a := p.dm / 2
-	lo, hi := p.do, LoosestPitchFactor*p.do // bracket: f(lo) > 0 > f(hi)
+	lo, hi := p.do, coil.LoosestPitchFactor*p.do // bracket: f(lo) > 0 > f(hi)
 	var p0 float64
 	switch {
 	case sv.n2 > 0:
@@ -153,9 +156,9 @@ func (x *dsSearch) solvePitch(p *dsPair, n float64, sv *pitchSolver) (float64, b
 		c := (sv.p1 + 0.9*a/sv.n1) / sv.n1
 		p0 = c*n - 0.9*a/n
 	default:
-		lead := x.wires[p.wi].atMatch.leads
+		lead := x.wires[p.wi].atMatch.Leads
 		tc := math.Max(T-lead, T*0.05)
-		p0 = (Mu0*math.Pi*a*a*n*n/tc - 0.9*a) / n
+		p0 = (coil.Mu0*math.Pi*a*a*n*n/tc - 0.9*a) / n
 	}
 	if !(p0 > lo && p0 < hi) {
 		p0 = (lo + hi) / 2

@@ -1,8 +1,9 @@
-package coil
+package design
 
 import (
 	"fmt"
 	"math"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/unit"
@@ -28,7 +29,7 @@ const (
 	freeRound      = 0.1e-3
 )
 
-func (x *dsSearch) searchFree() {
+func (x *search) searchFree() {
 	s := x.s
 	fd := s.c.FreeDiameter
 	lo, hi := float64(fd.Min), float64(fd.Max)
@@ -47,20 +48,20 @@ func (x *dsSearch) searchFree() {
 		if s.c.MaxDiameter > 0 && x.relax != "max_diameter" {
 			whi = math.Min(whi, float64(s.c.MaxDiameter)-2*dw.do)
 		}
-		wlo = math.Max(wlo, MinFormerDiameter)
+		wlo = math.Max(wlo, coil.MinFormerDiameter)
 		if !(whi > wlo) {
 			continue
 		}
 		if ok, _ := WireSuits(x.freeSupport(wlo, fd.OnFormer), w, &s.c); !ok {
 			continue
 		}
-		value := func(d float64) (dsCoil, bool) {
+		value := func(d float64) (found, bool) {
 			sup := x.freeSupport(d, fd.OnFormer)
 			pv := x.newPairValue(-1, &sup, wi)
 			p := &pv
 			x.bound(p)
 			if p.nLB == 0 {
-				return dsCoil{}, false
+				return found{}, false
 			}
 			return x.walkPair(p, false)
 		}
@@ -95,7 +96,7 @@ func (x *dsSearch) searchFree() {
 		}
 		// Round and compare the neighbours.
 		dr := math.Round(dBest/freeRound) * freeRound
-		var pick *dsPair
+		var pick *pair
 		pickS := math.Inf(-1)
 		for _, d := range []float64{dr - freeRound, dr, dr + freeRound} {
 			if d < wlo-1e-12 || d > whi+1e-12 {
@@ -117,12 +118,12 @@ func (x *dsSearch) searchFree() {
 			x.pairs = append(x.pairs, pick)
 			x.pairScore = append(x.pairScore, math.Inf(-1))
 			x.pairCoil = append(x.pairCoil, -1)
-			x.drain([]*dsPair{pick})
+			x.drain([]*pair{pick})
 		}
 	}
 }
 
-func (x *dsSearch) freeSupport(d float64, onFormer bool) Support {
+func (x *search) freeSupport(d float64, onFormer bool) Support {
 	d = math.Round(d*1e7) / 1e7
 	kind := "rod"
 	if onFormer {

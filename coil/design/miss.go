@@ -1,10 +1,11 @@
-package coil
+package design
 
 import (
 	"fmt"
 	"math"
 	"sort"
 	"strings"
+	"turnwise/coil"
 )
 
 // When no coil fits, Design says which constraint binds and what is
@@ -15,40 +16,40 @@ import (
 // the target itself is out of reach of the stock (too small or too large),
 // or the wire rules leave nothing to wind.
 
-// dsNear is the coil nearest to meeting one constraint.
-type dsNear struct {
+// near is the coil nearest to meeting one constraint.
+type near struct {
 	ratio    float64 // how far over the limit: > 1
 	value    float64 // the coil's value of the constrained quantity
-	pair     *dsPair
+	pair     *pair
 	n, pitch float64
 }
 
-type dsMissLog struct {
-	near  map[string]dsNear
-	small *dsNear // smallest inductance reachable, value in H
-	large *dsPair // a pair that needed more than MaxTurns
+type missLog struct {
+	near  map[string]near
+	small *near // smallest inductance reachable, value in H
+	large *pair // a pair that needed more than coil.MaxTurns
 	// selfResonant: a pair's fewest turns, spread to the loosest pitch,
 	// self-resonate within 5 % of the resonance (effective target).
 	selfResonant bool
 }
 
-func (m *dsMissLog) note(constraint string, ratio float64, p *dsPair, n, pitch float64) {
+func (m *missLog) note(constraint string, ratio float64, p *pair, n, pitch float64) {
 	if m.near == nil {
-		m.near = map[string]dsNear{}
+		m.near = map[string]near{}
 	}
 	if old, ok := m.near[constraint]; ok && old.ratio <= ratio {
 		return
 	}
-	m.near[constraint] = dsNear{ratio: ratio, pair: p, n: n, pitch: pitch}
+	m.near[constraint] = near{ratio: ratio, pair: p, n: n, pitch: pitch}
 }
 
-func (m *dsMissLog) tooSmall(l float64, p *dsPair, n float64) {
+func (m *missLog) tooSmall(l float64, p *pair, n float64) {
 	if m.small == nil || l < m.small.value {
-		m.small = &dsNear{value: l, pair: p, n: n}
+		m.small = &near{value: l, pair: p, n: n}
 	}
 }
 
-func (m *dsMissLog) tooLarge(p *dsPair) {
+func (m *missLog) tooLarge(p *pair) {
 	if m.large == nil {
 		m.large = p
 	}
@@ -56,7 +57,7 @@ func (m *dsMissLog) tooLarge(p *dsPair) {
 
 // relaxed records, in a search that ignores constraint, how far a coil
 // that meets everything else is from meeting it.
-func (m *dsMissLog) relaxed(constraint string, c *dsCoil, s *designSettings) {
+func (m *missLog) relaxed(constraint string, c *found, s *settings) {
 	var v, limit float64
 	p := &c.lean
 	switch constraint {
@@ -69,51 +70,51 @@ func (m *dsMissLog) relaxed(constraint string, c *dsCoil, s *designSettings) {
 	case "min_srf_ratio":
 		v = p.srf
 		if m.near == nil {
-			m.near = map[string]dsNear{}
+			m.near = map[string]near{}
 		}
 		r := s.srfRatio * s.opF / v
 		if old, ok := m.near[constraint]; !ok || r < old.ratio {
-			m.near[constraint] = dsNear{ratio: r, value: v, pair: c.pair, n: c.n, pitch: c.pitch}
+			m.near[constraint] = near{ratio: r, value: v, pair: c.pair, n: c.n, pitch: c.pitch}
 		}
 		return
 	default:
 		return
 	}
 	if m.near == nil {
-		m.near = map[string]dsNear{}
+		m.near = map[string]near{}
 	}
 	r := v / limit
 	if old, ok := m.near[constraint]; !ok || r < old.ratio {
-		m.near[constraint] = dsNear{ratio: r, value: v, pair: c.pair, n: c.n, pitch: c.pitch}
+		m.near[constraint] = near{ratio: r, value: v, pair: c.pair, n: c.n, pitch: c.pitch}
 	}
 }
 
 // describe names a coil for a message: "5¼ turns of 1.00mm on 6mm drill".
-func (x *dsSearch) describe(n dsNear) string {
+func (x *search) describe(n near) string {
 	sup, _ := x.support(n.pair)
-	s := fmt.Sprintf("%s turns of %s on %s", fmtTurns(n.n), x.wire(n.pair).Name, sup.Name)
+	s := fmt.Sprintf("%s turns of %s on %s", coil.FormatTurns(n.n), x.wire(n.pair).Name, sup.Name)
 	if n.pitch > 0 {
 		s += fmt.Sprintf(" at %s pitch", shortMM(n.pitch))
 	}
 	return s
 }
 
-func (x *dsSearch) targetWords() string {
+func (x *search) targetWords() string {
 	s := x.s
 	if s.effective {
-		return fmt.Sprintf("resonance at %s with %s (%s effective)", fmtHz(s.matchF),
-			fmtF(float64(s.t.Capacitance+s.t.Stray)), fmtH(s.required))
+		return fmt.Sprintf("resonance at %s with %s (%s effective)", coil.FormatFrequency(s.matchF),
+			coil.FormatCapacitance(float64(s.t.Capacitance+s.t.Stray)), coil.FormatInductance(s.required))
 	}
-	return fmtH(s.required)
+	return coil.FormatInductance(s.required)
 }
 
 // infeasible builds the error for a search that found nothing.
-func (x *dsSearch) infeasible() error {
+func (x *search) infeasible() error {
 	s := x.s
 	c := &s.c
 	type lifted struct {
 		name string
-		near dsNear
+		near near
 	}
 	var binds []lifted
 	if len(x.pairs) > 0 || x.miss.near["max_diameter"].pair != nil {
@@ -144,7 +145,7 @@ func (x *dsSearch) infeasible() error {
 		return &InfeasibleError{Constraint: "target_too_small", Message: x.smallMessage(), Nearest: x.miss.small.value}
 	case x.miss.large != nil:
 		return &InfeasibleError{Constraint: "target_too_large", Message: fmt.Sprintf(
-			"no coil meets %s: even the largest support needs more than %d turns", x.targetWords(), MaxTurns)}
+			"no coil meets %s: even the largest support needs more than %d turns", x.targetWords(), coil.MaxTurns)}
 	case len(x.pairs) == 0:
 		return &InfeasibleError{Constraint: "stock", Message: "no support and wire in the stock can be combined under the limits given"}
 	}
@@ -156,7 +157,7 @@ func (x *dsSearch) infeasible() error {
 	if x.miss.selfResonant && x.miss.small == nil {
 		return &InfeasibleError{Constraint: "min_srf_ratio", Message: fmt.Sprintf(
 			"no coil in the stock reaches %s below its own self-resonance: at %s every one that could resonates by itself; use more capacitance (less inductance), a smaller support, or a strip line",
-			x.targetWords(), fmtHz(s.matchF))}
+			x.targetWords(), coil.FormatFrequency(s.matchF))}
 	}
 	if len(binds) == 0 && x.multipleLimits() {
 		return &InfeasibleError{Constraint: "limits", Message: fmt.Sprintf(
@@ -168,7 +169,7 @@ func (x *dsSearch) infeasible() error {
 	return &InfeasibleError{Constraint: "stock", Message: fmt.Sprintf("no coil in the stock meets %s", x.targetWords())}
 }
 
-func (x *dsSearch) anyLargeMiss() bool {
+func (x *search) anyLargeMiss() bool {
 	for k := range x.miss.near {
 		if k != "trim_margin" {
 			return true
@@ -177,7 +178,7 @@ func (x *dsSearch) anyLargeMiss() bool {
 	return false
 }
 
-func (x *dsSearch) multipleLimits() bool {
+func (x *search) multipleLimits() bool {
 	c := &x.s.c
 	k := 0
 	for _, set := range []bool{c.MaxLength > 0, c.MaxDiameter > 0, c.MaxWireLength > 0, x.s.opF > 0} {
@@ -188,7 +189,7 @@ func (x *dsSearch) multipleLimits() bool {
 	return k > 1
 }
 
-func (x *dsSearch) bindMessage(name string, n dsNear) string {
+func (x *search) bindMessage(name string, n near) string {
 	s := x.s
 	c := &s.c
 	tw := x.targetWords()
@@ -197,7 +198,7 @@ func (x *dsSearch) bindMessage(name string, n dsNear) string {
 		msg := fmt.Sprintf("no coil reaches %s within %s outside length: the shortest that does is %s (%s); allow %s",
 			tw, shortMM(float64(c.MaxLength)), shortMM(n.value), x.describe(n), shortMM(math.Ceil(n.value*2e3)/2e3))
 		if l, nn, ok := x.mostWithin(n.pair, float64(c.MaxLength)); ok && l < s.required*(1-s.tol) {
-			msg += fmt.Sprintf(", or accept %s from %s turns close-wound on the same support", fmtH(l), fmtTurns(nn))
+			msg += fmt.Sprintf(", or accept %s from %s turns close-wound on the same support", coil.FormatInductance(l), coil.FormatTurns(nn))
 		}
 		return msg
 	case "max_diameter":
@@ -209,7 +210,7 @@ func (x *dsSearch) bindMessage(name string, n dsNear) string {
 	case "min_srf_ratio":
 		ratio := n.value / s.opF
 		return fmt.Sprintf("no coil for %s keeps its self-resonance at %g × %s = %s: the highest is %s (%.3g × f) with %s; accept a ratio of %.2g, or a smaller inductance or a smaller support",
-			tw, s.srfRatio, fmtHz(s.opF), fmtHz(s.srfRatio*s.opF), fmtHz(n.value), ratio, x.describe(n), math.Floor(ratio*10)/10)
+			tw, s.srfRatio, coil.FormatFrequency(s.opF), coil.FormatFrequency(s.srfRatio*s.opF), coil.FormatFrequency(n.value), ratio, x.describe(n), math.Floor(ratio*10)/10)
 	}
 	return "no coil meets " + tw
 }
@@ -217,7 +218,7 @@ func (x *dsSearch) bindMessage(name string, n dsNear) string {
 // mostWithin is the matched value of the most quarter turns of
 // close-wound wire that fit within length on pair p; false when fewer
 // than the least turns the search allows fit.
-func (x *dsSearch) mostWithin(p *dsPair, length float64) (float64, float64, bool) {
+func (x *search) mostWithin(p *pair, length float64) (float64, float64, bool) {
 	n := math.Floor(length/p.do*4+1e-9) / 4
 	if n < x.s.minTurns {
 		return 0, 0, false
@@ -225,19 +226,19 @@ func (x *dsSearch) mostWithin(p *dsPair, length float64) (float64, float64, bool
 	return x.matched(p, n, p.do), n, true
 }
 
-func (x *dsSearch) smallMessage() string {
+func (x *search) smallMessage() string {
 	s := x.s
 	sm := x.miss.small
 	lead := float64(s.c.LeadLength)
 	if sm.n == 0 {
 		return fmt.Sprintf("%s is less than the two %s leads alone (%s even with %s, the thickest wire that fits): shorten the leads, or make the leads the inductor",
-			x.targetWords(), shortMM(lead), fmtH(sm.value), x.wire(sm.pair).Name)
+			x.targetWords(), shortMM(lead), coil.FormatInductance(sm.value), x.wire(sm.pair).Name)
 	}
 	return fmt.Sprintf("%s is below what the stock can make: the least is %s spread to %g × the wire, %s; use shorter leads, a smaller support or a strip line",
-		x.targetWords(), x.describe(*sm), LoosestPitchFactor, fmtH(sm.value))
+		x.targetWords(), x.describe(*sm), coil.LoosestPitchFactor, coil.FormatInductance(sm.value))
 }
 
-func (x *dsSearch) rulesMessage() string {
+func (x *search) rulesMessage() string {
 	type kv struct {
 		k string
 		v int

@@ -1,10 +1,11 @@
-package coil
+package design
 
 import (
 	"fmt"
 	"math"
 	"slices"
 	"strings"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -29,14 +30,14 @@ const (
 // pick chooses the candidates: pair bests by score, skipping
 // near-duplicates of those already chosen. exact is false when it had to
 // look past the topN bests, which pruning does not keep exact.
-func (x *dsSearch) pick() (picked []*dsCoil, exact bool) {
-	var bests []*dsCoil
+func (x *search) pick() (picked []*found, exact bool) {
+	var bests []*found
 	for _, ci := range x.pairCoil {
 		if ci >= 0 {
 			bests = append(bests, &x.coils[ci])
 		}
 	}
-	slices.SortFunc(bests, func(a, b *dsCoil) int {
+	slices.SortFunc(bests, func(a, b *found) int {
 		if c := cmpFloat(b.score, a.score); c != 0 {
 			return c
 		}
@@ -67,7 +68,7 @@ func (x *dsSearch) pick() (picked []*dsCoil, exact bool) {
 	return picked, exact
 }
 
-func (x *dsSearch) result(picked []*dsCoil) (Result, error) {
+func (x *search) result(picked []*found) (Result, error) {
 	s := x.s
 	r := Result{
 		Required:  unit.Inductance(s.required),
@@ -86,7 +87,7 @@ func (x *dsSearch) result(picked []*dsCoil) (Result, error) {
 
 	// Pareto, thinned: a point dropped is within paretoStep of the last
 	// one kept, which is no larger; the highest-Q point stays.
-	var thin []dsCoil
+	var thin []found
 	for i, co := range x.pareto {
 		if len(thin) == 0 || i == len(x.pareto)-1 || co.lean.q >= thin[len(thin)-1].lean.q*(1+paretoStep) {
 			thin = append(thin, co)
@@ -106,7 +107,7 @@ func (x *dsSearch) result(picked []*dsCoil) (Result, error) {
 	return r, nil
 }
 
-func (x *dsSearch) nearSame(a, b *dsPair) bool {
+func (x *search) nearSame(a, b *pair) bool {
 	near := func(u, v float64) bool { return math.Abs(u/v-1) < nearDuplicate }
 	sa, _ := x.support(a)
 	sb, _ := x.support(b)
@@ -114,12 +115,12 @@ func (x *dsSearch) nearSame(a, b *dsPair) bool {
 		near(float64(x.wire(a).Diameter), float64(x.wire(b).Diameter))
 }
 
-// candidate re-checks a solved coil through Predict and Window and fills
+// candidate re-checks a solved coil through coil.Predict and coil.Window and fills
 // the record.
-func (x *dsSearch) candidate(co dsCoil) (Candidate, error) {
+func (x *search) candidate(co found) (Candidate, error) {
 	s := x.s
 	g := x.geometry(co.pair, co.n, co.pitch)
-	p, err := Predict(g, unit.Frequency(s.opF))
+	p, err := coil.Predict(g, unit.Frequency(s.opF))
 	if err != nil {
 		return Candidate{}, fmt.Errorf("coil: design search produced a coil the model refuses: %w", err)
 	}
@@ -127,7 +128,7 @@ func (x *dsSearch) candidate(co dsCoil) (Candidate, error) {
 	if s.effective {
 		m := p
 		if s.opF != s.matchF {
-			evaluate(&m, &g, s.matchF)
+			coil.Evaluate(&m, &g, s.matchF)
 		}
 		matched = float64(m.InductanceEffective)
 	}
@@ -142,33 +143,33 @@ func (x *dsSearch) candidate(co dsCoil) (Candidate, error) {
 		Free:       co.pair.free != nil,
 	}
 	c.Support, c.SpringbackSource = x.support(co.pair)
-	c.TrimMin, c.TrimMax, err = Window(g, unit.Frequency(s.opF))
+	c.TrimMin, c.TrimMax, err = coil.Window(g, unit.Frequency(s.opF))
 	if err != nil {
 		return Candidate{}, err
 	}
-	if c.TrimLengthPerPercent, err = LengthPerPercent(g, unit.Frequency(s.opF)); err != nil {
+	if c.TrimLengthPerPercent, err = coil.LengthPerPercent(g, unit.Frequency(s.opF)); err != nil {
 		return Candidate{}, err
 	}
 	if s.effective {
 		ext := float64(s.t.Capacitance + s.t.Stray)
 		tight, loose := g, g
 		tight.Pitch = unit.Length(co.pair.do)
-		loose.Pitch = unit.Length(math.Max(LoosestPitchFactor*co.pair.do, float64(g.Pitch)))
-		c.TuneLow = unit.Frequency(dsResonance(&tight, ext, s.matchF))
-		c.TuneHigh = unit.Frequency(dsResonance(&loose, ext, s.matchF))
+		loose.Pitch = unit.Length(math.Max(coil.LoosestPitchFactor*co.pair.do, float64(g.Pitch)))
+		c.TuneLow = unit.Frequency(resonanceOf(&tight, ext, s.matchF))
+		c.TuneHigh = unit.Frequency(resonanceOf(&loose, ext, s.matchF))
 	}
 	return c, nil
 }
 
-// dsResonance is the frequency at which g's effective inductance
+// resonanceOf is the frequency at which g's effective inductance
 // resonates with the external capacitance ext, by fixed-point iteration
 // from f0 (the effective inductance varies slowly with f below the SRF).
 // Zero when the coil self-resonates first.
-func dsResonance(g *Geometry, ext, f0 float64) float64 {
-	var p Prediction
+func resonanceOf(g *coil.Geometry, ext, f0 float64) float64 {
+	var p coil.Prediction
 	f := f0
 	for range 6 {
-		evaluate(&p, g, f)
+		coil.Evaluate(&p, g, f)
 		le := float64(p.InductanceEffective)
 		if !(le > 0) || f >= float64(p.SRF) {
 			return 0
@@ -180,7 +181,7 @@ func dsResonance(g *Geometry, ext, f0 float64) float64 {
 
 // explain writes each candidate's one-line Why: what it is best at among
 // those listed, and how it differs from the first.
-func explain(cs []Candidate, x *dsSearch) {
+func explain(cs []Candidate, x *search) {
 	if len(cs) == 0 {
 		return
 	}
@@ -290,7 +291,7 @@ func explain(cs []Candidate, x *dsSearch) {
 	}
 }
 
-func (x *dsSearch) warnings(cs []Candidate) []string {
+func (x *search) warnings(cs []Candidate) []string {
 	s := x.s
 	var w []string
 	if s.opF == 0 {
@@ -303,7 +304,7 @@ func (x *dsSearch) warnings(cs []Candidate) []string {
 		}
 	}
 	for _, c := range cs {
-		if c.Prediction.Flags&FlagLongWire != 0 {
+		if c.Prediction.Flags&coil.FlagLongWire != 0 {
 			w = append(w, "some candidates have more wire than a tenth of a wavelength in the winding: the lumped model is only a guide for them")
 			break
 		}

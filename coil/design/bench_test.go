@@ -1,4 +1,4 @@
-package coil_test
+package design_test
 
 import (
 	"fmt"
@@ -7,48 +7,49 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
+	"turnwise/coil/design"
 	"turnwise/forms"
 )
 
 // builtInStock converts the built-in catalog into the search's lists, as
 // cmd/turnwise's glue does (kept here so the benchmark needs no cmd).
-func builtInStock(tb testing.TB) ([]coil.Support, []coil.WireOption) {
+func builtInStock(tb testing.TB) ([]design.Support, []design.WireOption) {
 	cat, err := forms.BuiltIn()
 	if err != nil {
 		tb.Fatal(err)
 	}
-	var sups []coil.Support
+	var sups []design.Support
 	for _, m := range cat.Mandrels {
-		sups = append(sups, coil.Support{Name: m.Name, Diameter: m.Diameter})
+		sups = append(sups, design.Support{Name: m.Name, Diameter: m.Diameter})
 	}
 	for _, f := range cat.Formers {
-		sups = append(sups, coil.Support{Name: f.Name, Diameter: f.Diameter, OnFormer: true})
+		sups = append(sups, design.Support{Name: f.Name, Diameter: f.Diameter, OnFormer: true})
 	}
-	var wires []coil.WireOption
+	var wires []design.WireOption
 	for _, w := range cat.Wires {
 		cond, err := coil.ParseConductor(w.Conductor)
 		if err != nil {
 			tb.Fatal(err)
 		}
-		wires = append(wires, coil.WireOption{Name: w.Name, Diameter: w.Bare, Overall: w.Overall, Conductor: cond})
+		wires = append(wires, design.WireOption{Name: w.Name, Diameter: w.Bare, Overall: w.Overall, Conductor: cond})
 	}
 	return sups, wires
 }
 
 var (
-	sinkResult coil.Result
+	sinkResult design.Result
 	sinkPred   coil.Prediction
 )
 
 // The two targets of the acceptance lines.
-func vhfDesign(sups []coil.Support, wires []coil.WireOption) (coil.Target, coil.Constraints) {
-	return coil.Target{Resonance: 145e6, Capacitance: 22e-12},
-		coil.Constraints{Supports: sups, Wires: wires, LeadLength: 5e-3, MaxLength: 15e-3}
+func vhfDesign(sups []design.Support, wires []design.WireOption) (design.Target, design.Constraints) {
+	return design.Target{Resonance: 145e6, Capacitance: 22e-12},
+		design.Constraints{Supports: sups, Wires: wires, LeadLength: 5e-3, MaxLength: 15e-3}
 }
 
-func hfDesign(sups []coil.Support, wires []coil.WireOption) (coil.Target, coil.Constraints) {
-	return coil.Target{Inductance: 4.7e-6, Frequency: 7e6},
-		coil.Constraints{Supports: sups, Wires: wires, LeadLength: 10e-3}
+func hfDesign(sups []design.Support, wires []design.WireOption) (design.Target, design.Constraints) {
+	return design.Target{Inductance: 4.7e-6, Frequency: 7e6},
+		design.Constraints{Supports: sups, Wires: wires, LeadLength: 10e-3}
 }
 
 // BenchmarkDesignYardstick is one coil.Predict of a representative coil
@@ -66,12 +67,12 @@ func BenchmarkDesignYardstick(b *testing.B) {
 	}
 }
 
-func benchDesign(b *testing.B, t coil.Target, c coil.Constraints) {
+func benchDesign(b *testing.B, t design.Target, c design.Constraints) {
 	b.Helper()
-	var res coil.Result
+	var res design.Result
 	for b.Loop() {
 		var err error
-		res, err = coil.Design(t, c)
+		res, err = design.Search(t, c)
 		if err != nil {
 			b.Fatal(err)
 		}
@@ -98,9 +99,9 @@ func BenchmarkDesignHF(b *testing.B) {
 // copies scale copy i's diameters by 1 + 0.2 %·i, so that every row is new
 // work, as a larger real stock would be. supportsOnly copies the supports
 // alone, so that the pairs grow k-fold rather than k²-fold.
-func scaled(sups []coil.Support, wires []coil.WireOption, k int, distinct, supportsOnly bool) ([]coil.Support, []coil.WireOption) {
-	var s2 []coil.Support
-	var w2 []coil.WireOption
+func scaled(sups []design.Support, wires []design.WireOption, k int, distinct, supportsOnly bool) ([]design.Support, []design.WireOption) {
+	var s2 []design.Support
+	var w2 []design.WireOption
 	for i := range k {
 		f := 1.0
 		if distinct {

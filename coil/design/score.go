@@ -1,6 +1,9 @@
-package coil
+package design
 
-import "math"
+import (
+	"math"
+	"turnwise/coil"
+)
 
 // The score of a coil that meets the target and every constraint (higher
 // is better), in natural-log units so that each term is scale-free:
@@ -37,20 +40,20 @@ import "math"
 // --prefer q 1, 0.3, 0.3, 0.05, 0.2 without the knee; small 0.6, 0.3,
 // 1.5, 0.1, 0.3; easy 0.6, 0.3, 0.4, 0.1, 1.2.
 
-type dsWeights struct{ q, srf, size, cu, ease, knee float64 }
+type weights struct{ q, srf, size, cu, ease, knee float64 }
 
 // qKnee is Q_knee above.
 const qKnee = 250
 
-func designWeights(p Preference, hasF bool) dsWeights {
-	w := dsWeights{q: 1, srf: 0.3, size: 0.5, cu: 0.1, ease: 0.3, knee: qKnee}
+func weightsFor(p Preference, hasF bool) weights {
+	w := weights{q: 1, srf: 0.3, size: 0.5, cu: 0.1, ease: 0.3, knee: qKnee}
 	switch p {
 	case PreferQ:
-		w = dsWeights{q: 1, srf: 0.3, size: 0.3, cu: 0.05, ease: 0.2, knee: math.Inf(1)}
+		w = weights{q: 1, srf: 0.3, size: 0.3, cu: 0.05, ease: 0.2, knee: math.Inf(1)}
 	case PreferSmall:
-		w = dsWeights{q: 0.6, srf: 0.3, size: 1.5, cu: 0.1, ease: 0.3, knee: qKnee}
+		w = weights{q: 0.6, srf: 0.3, size: 1.5, cu: 0.1, ease: 0.3, knee: qKnee}
 	case PreferEasy:
-		w = dsWeights{q: 0.6, srf: 0.3, size: 0.4, cu: 0.1, ease: 1.2, knee: qKnee}
+		w = weights{q: 0.6, srf: 0.3, size: 0.4, cu: 0.1, ease: 1.2, knee: qKnee}
 	}
 	if !hasF {
 		w.q, w.srf = 0, 0
@@ -59,7 +62,7 @@ func designWeights(p Preference, hasF bool) dsWeights {
 }
 
 // utility is u(Q); it rises with Q, so a bound on Q bounds it.
-func (w dsWeights) utility(q float64) float64 {
+func (w weights) utility(q float64) float64 {
 	return math.Log(q) - math.Log1p(q/w.knee)
 }
 
@@ -96,7 +99,7 @@ func turnsPenalty(n float64) float64 {
 	return 0.5
 }
 
-func (x *dsSearch) score(c *dsCoil) float64 {
+func (x *search) score(c *found) float64 {
 	w := x.w
 	p := &c.lean
 	s := 0.0
@@ -119,19 +122,19 @@ func (x *dsSearch) score(c *dsCoil) float64 {
 
 // volumeBound: the outside diameter is fixed and the length is at least
 // the close-wound n·d_o.
-func (x *dsSearch) volumeBound(p *dsPair, n float64) float64 {
+func (x *search) volumeBound(p *pair, n float64) float64 {
 	return math.Pi / 4 * p.od * p.od * n * p.do
 }
 
 // wireBound: at least n circles of the wire-centre diameter, the leads and
 // the allowance.
-func (x *dsSearch) wireBound(p *dsPair, n float64) float64 {
-	return n*math.Pi*p.dm + 2*float64(x.s.c.LeadLength) + float64(CutAllowance)
+func (x *search) wireBound(p *pair, n float64) float64 {
+	return n*math.Pi*p.dm + 2*float64(x.s.c.LeadLength) + float64(coil.CutAllowance)
 }
 
 // scoreBound bounds every coil of pair p with n or more turns, from the
 // cheapest facts: close winding, the least proximity factor.
-func (x *dsSearch) scoreBound(p *dsPair, n float64) float64 {
+func (x *search) scoreBound(p *pair, n float64) float64 {
 	w := x.w
 	b := 0.0
 	if x.s.opF > 0 {
@@ -150,14 +153,14 @@ func (x *dsSearch) scoreBound(p *dsPair, n float64) float64 {
 // the skin-effect resistance of n circles times the least proximity factor
 // at the loosest pitch over every l/D a coil of n turns or more can have
 // (radiation only adds).
-func (x *dsSearch) qBound(p *dsPair, n float64) float64 {
+func (x *search) qBound(p *pair, n float64) float64 {
 	if x.s.opF == 0 {
 		return 0
 	}
 	dw := &x.wires[p.wi]
 	// The loosest band's row: Φ at d/(3·d_o), least over l/D ≥ n·d_o/D.
-	phi := dw.sliceRow[boundSlices-1].minOver(n*dw.do/p.dm, math.Inf(1))
-	prox := 1 + (phi-1)*(dw.fs-1)/dw.fs
+	phi := dw.sliceRow[boundSlices-1].MinOver(n*dw.do/p.dm, math.Inf(1))
+	prox := coil.PartialProximity(phi, dw.fs)
 	return x.qFromR(p, dw.rdcPerM*dw.fs*prox*n*math.Pi*p.dm)
 }
 
@@ -166,11 +169,11 @@ func (x *dsSearch) qBound(p *dsPair, n float64) float64 {
 // R_c·y²), y = 1/g in [1, 1/grMin], is maximised in closed form. For an
 // effective target at f, L_eff is the target and R_eff ≥ R_l + R_c. When
 // the match is at another frequency, L_eff ≤ target·(1 + 1/grMin).
-func (x *dsSearch) qFromR(p *dsPair, rc float64) float64 {
+func (x *search) qFromR(p *pair, rc float64) float64 {
 	s := x.s
 	fr := &x.wires[p.wi].atOp
 	w := twoPi * s.opF
-	ll, rl := fr.leads, fr.rLeads
+	ll, rl := fr.Leads, fr.RLeads
 	switch {
 	case !s.effective:
 		lc := s.required - ll
@@ -194,17 +197,17 @@ func (x *dsSearch) qFromR(p *dsPair, rc float64) float64 {
 // from above; the proximity factor is least at b's spacing over the l/D
 // span. interiorPen is the least turns penalty inside. It returns the
 // score bound and the Q and volume bounds for the Pareto test.
-func (x *dsSearch) intervalBound(p *dsPair, a, b *dsKnot, interiorPen float64) (ub, qub, vol float64) {
+func (x *search) intervalBound(p *pair, a, b *knot, interiorPen float64) (ub, qub, vol float64) {
 	w := x.w
 	dw := &x.wires[p.wi]
 	vol = math.Pi / 4 * a.lean.od * a.lean.od * a.lean.length
 	ub = -w.size*math.Log(math.Cbrt(vol)/scoreSizeRef) - w.cu*math.Log(a.lean.wire/scoreWireRef)
 	if x.s.opF > 0 {
 		fr := &dw.atOp
-		helix := a.n * math.Sqrt(math.Pi*math.Pi*p.dm*p.dm+a.pitch*a.pitch)
-		phi := proximityMinOver(a.lean.ld, b.lean.ld, 2*dw.r/b.pitch)
-		prox := 1 + (phi-1)*(fr.fs-1)/fr.fs
-		qub = x.qFromR(p, dw.rdcPerM*fr.fs*helix*prox)
+		helix := coil.HelixLength(a.n, p.dm, a.pitch)
+		phi := coil.ProximityMinOver(a.lean.ld, b.lean.ld, 2*dw.r/b.pitch)
+		prox := coil.PartialProximity(phi, fr.Fs)
+		qub = x.qFromR(p, dw.rdcPerM*fr.Fs*helix*prox)
 		ub += w.q*w.utility(qub) + w.srf*scoreSRFCap
 	}
 	if x.s.opF > 0 {
@@ -229,38 +232,21 @@ func (x *dsSearch) intervalBound(p *dsPair, a, b *dsKnot, interiorPen float64) (
 // helix at the SRF) at least the helix at f less all its internal
 // inductance, μ0·a·N/4. The helix at f is the target less the leads
 // (terminal target), or at least (target − leads)·g for an effective one.
-func (x *dsSearch) srfUpper(p *dsPair, nMax, ldA, ldB float64) float64 {
+func (x *search) srfUpper(p *pair, nMax, ldA, ldB float64) float64 {
 	dw := &x.wires[p.wi]
 	T := x.s.required
 	var lc float64
 	if x.s.effective {
 		lc = (T - dw.leadsMax) * x.grDiv
 	} else {
-		lc = T - dw.atMatch.leads
+		lc = T - dw.atMatch.Leads
 	}
-	l := lc - Mu0*(p.dm/2)*nMax/4
+	l := lc - coil.Mu0*(p.dm/2)*nMax/4
 	if !(l > 0) {
 		return math.Inf(1) // no useful bound
 	}
-	c := medhurstMinOver(ldA, ldB) * 1e-10 * p.dm
+	c := coil.MedhurstHMinOver(ldA, ldB) * 1e-10 * p.dm
 	return 1 / (twoPi * math.Sqrt(l*c))
-}
-
-// medhurstMinOver is the least MedhurstH over l/D in [a, b] (b may be
-// +Inf): H is piecewise linear in ln(l/D) between the table's rows, falls
-// before the table and rises after it, so the least is at an end or a row.
-func medhurstMinOver(a, b float64) float64 {
-	m, _ := MedhurstH(a)
-	if !math.IsInf(b, 1) {
-		hb, _ := MedhurstH(b)
-		m = math.Min(m, hb)
-	}
-	for i, ld := range medhurstLD {
-		if ld > a && ld < b {
-			m = math.Min(m, medhurstH[i])
-		}
-	}
-	return m
 }
 
 // spacingPenaltyMin is the least spacing term of E for pitch/d_o in [r1, r2].
@@ -283,100 +269,4 @@ func shapePenaltyMin(a, b float64) float64 {
 		return math.Log(a / 2)
 	}
 	return 0
-}
-
-// proxRow is Medhurst's Φ at one spacing d/p as a function of l/D: the
-// table's columns interpolated in d/p as ProximityFactor does, so that
-// bounds over a span of l/D cost a few comparisons.
-type proxRow struct {
-	col    [len(proximityLD)]float64
-	inf    float64                   // the l/D → ∞ limit
-	sufMin [len(proximityLD)]float64 // least of col[i:] and inf
-}
-
-func newProxRow(dOverP float64) proxRow {
-	var r proxRow
-	last := len(proximityDP) - 1
-	switch {
-	case dOverP <= 0:
-		for i := range r.col {
-			r.col[i] = 1
-		}
-		r.inf = 1
-	case dOverP < proximityDP[0]:
-		f := dOverP / proximityDP[0]
-		for i := range r.col {
-			r.col[i] = 1 + f*(proximityPhi[0][i]-1)
-		}
-		r.inf = 1 + f*(proximityInf[0]-1)
-	default:
-		if dOverP > 1 {
-			dOverP = 1
-		}
-		j := int(dOverP*10+1e-9) - 1
-		if j >= last {
-			r.col = proximityPhi[last]
-			r.inf = proximityInf[last]
-			break
-		}
-		t := (dOverP - proximityDP[j]) / (proximityDP[j+1] - proximityDP[j])
-		for i := range r.col {
-			r.col[i] = proximityPhi[j][i] + t*(proximityPhi[j+1][i]-proximityPhi[j][i])
-		}
-		r.inf = proximityInf[j] + t*(proximityInf[j+1]-proximityInf[j])
-	}
-	m := r.inf
-	for i := len(r.col) - 1; i >= 0; i-- {
-		m = math.Min(m, r.col[i])
-		r.sufMin[i] = m
-	}
-	return r
-}
-
-// at is Φ at l/D, interpolated as ProximityFactor does.
-func (r *proxRow) at(ld float64) float64 {
-	n := len(proximityLD)
-	if ld >= proximityLD[n-1] {
-		u := proximityLD[n-1] / ld // 1 … 0 (+Inf gives the limit)
-		return r.inf + u*(r.col[n-1]-r.inf)
-	}
-	i := 0
-	for i < n-2 && proximityLD[i+1] <= ld {
-		i++
-	}
-	t := (ld - proximityLD[i]) / (proximityLD[i+1] - proximityLD[i])
-	return r.col[i] + t*(r.col[i+1]-r.col[i])
-}
-
-// minOver is the least Φ over l/D in [a, b] (b may be +Inf): Φ is
-// piecewise linear between the columns and monotone beyond the last, so
-// the least is at an end or a column.
-func (r *proxRow) minOver(a, b float64) float64 {
-	m := math.Min(r.at(a), r.at(b))
-	for i, ld := range proximityLD {
-		if ld > a {
-			if math.IsInf(b, 1) {
-				return math.Min(m, r.sufMin[i])
-			}
-			if ld < b {
-				m = math.Min(m, r.col[i])
-			}
-		}
-	}
-	return m
-}
-
-// proximityMinOver is the least ProximityFactor over l/D in [ldA, ldB] at
-// spacing dOverP.
-func proximityMinOver(ldA, ldB, dOverP float64) float64 {
-	r := newProxRow(dOverP)
-	return r.minOver(ldA, ldB)
-}
-
-// proximityMin is a lower bound on ProximityFactor(l/D, d/p) over every
-// l/D, for spacing dOverP or closer: Φ rises with d/p in every column of
-// Medhurst's table, and the interpolation keeps that order.
-func proximityMin(dOverP float64) float64 {
-	r := newProxRow(dOverP)
-	return r.sufMin[0]
 }
