@@ -76,8 +76,8 @@ func TestTempFlagBadInput(t *testing.T) {
 	tests := []struct {
 		name, value string
 	}{
-		{"above range", "300C"},   // coil.MaxTemperatureC is 250 °C
-		{"below range", "-100C"},  // coil.MinTemperatureC is −60 °C
+		{"above range", "300C"},  // coil.MaxTemperatureC is 250 °C
+		{"below range", "-100C"}, // coil.MinTemperatureC is −60 °C
 		{"below absolute zero", "-5K"},
 		{"no unit", "80"},
 		{"a word", "hot"},
