@@ -32,6 +32,14 @@ var pageSizes = map[string][2]float64{
 	"Letter": {8.5 * 72, 11 * 72},                // ANSI/ASME Y14.1 Letter, 8.5 × 11 in (from memory)
 }
 
+// The sheets match the golden PDFs in testdata by what they show, never by
+// their bytes (a CPU that fuses multiply-adds writes some coordinates 0.01 pt
+// apart and breaks a rounding tie in the text the other way): the page count
+// and size (pdfinfo), the text of every page (pdftotext; a printed number
+// may be one unit off in its last digit), and every measured drawing (the
+// marked-content paths, point by point within two steps of the 0.01 pt
+// gofpdf writes to). go test ./sheets -update rewrites the goldens; look at
+// them before committing.
 func TestRenderGolden(t *testing.T) {
 	for _, paper := range []string{"A4", "Letter"} {
 		t.Run(paper, func(t *testing.T) {
@@ -47,10 +55,85 @@ func TestRenderGolden(t *testing.T) {
 			if err != nil {
 				t.Fatalf("golden %s missing (run go test ./sheets -update): %v", path, err)
 			}
-			if !bytes.Equal(got, want) {
-				t.Errorf("%s differs from the golden file; if the change is intended run go test ./sheets -update and look at the PDF", path)
+			hint := fmt.Sprintf("; if the change is intended run go test ./sheets -update and look at %s", path)
+			sameMeasurements(t, pageStreams(got), pageStreams(want), hint)
+
+			pdfinfo := testtools.Need(t, "pdfinfo", "poppler-utils")
+			pdftotext := testtools.Need(t, "pdftotext", "poppler-utils")
+			file := filepath.Join(t.TempDir(), "got.pdf")
+			if err := os.WriteFile(file, got, 0o644); err != nil {
+				t.Fatal(err)
+			}
+			pages := regexp.MustCompile(`(?m)^(Pages|Page size):.*$`)
+			infoGot, err := exec.Command(pdfinfo, file).Output()
+			if err != nil {
+				t.Fatal(err)
+			}
+			infoWant, err := exec.Command(pdfinfo, path).Output()
+			if err != nil {
+				t.Fatal(err)
+			}
+			if g, w := pages.FindAll(infoGot, -1), pages.FindAll(infoWant, -1); len(w) != 2 || !bytes.Equal(bytes.Join(g, nil), bytes.Join(w, nil)) {
+				t.Errorf("pdfinfo: got %q, want %q%s", g, w, hint)
+			}
+			textGot, err := exec.Command(pdftotext, "-raw", file, "-").Output()
+			if err != nil {
+				t.Fatal(err)
+			}
+			textWant, err := exec.Command(pdftotext, "-raw", path, "-").Output()
+			if err != nil {
+				t.Fatal(err)
+			}
+			if err := testtools.SameText(string(textGot), string(textWant)); err != nil {
+				t.Errorf("text differs from the golden: %v%s", err, hint)
 			}
 		})
+	}
+}
+
+// sameMeasurements compares the marked-content drawings of two renders
+// page by page: the same tags, paths, paint operators and point counts,
+// every point within 2·implTol (each of two builds rounds to 0.01 pt).
+func sameMeasurements(t *testing.T, got, want []string, hint string) {
+	t.Helper()
+	if len(got) != len(want) {
+		t.Fatalf("%d pages, want %d%s", len(got), len(want), hint)
+	}
+	tags := regexp.MustCompile(`/(TW\w+) BMC`)
+	for page := range want {
+		seen := map[string]bool{}
+		for _, m := range append(tags.FindAllStringSubmatch(want[page], -1), tags.FindAllStringSubmatch(got[page], -1)...) {
+			tag := m[1]
+			if seen[tag] {
+				continue
+			}
+			seen[tag] = true
+			pg, pw := markedPaths(t, got[page], tag), markedPaths(t, want[page], tag)
+			where := fmt.Sprintf("page %d %s", page+1, tag)
+			if len(pg) != len(pw) {
+				t.Errorf("%s: drawn %d times, want %d%s", where, len(pg), len(pw), hint)
+				continue
+			}
+			for i := range pw {
+				if len(pg[i]) != len(pw[i]) {
+					t.Errorf("%s #%d: %d paths, want %d%s", where, i, len(pg[i]), len(pw[i]), hint)
+					continue
+				}
+				for j, w := range pw[i] {
+					g := pg[i][j]
+					if g.paint != w.paint || len(g.pts) != len(w.pts) || len(g.rects) != len(w.rects) {
+						t.Errorf("%s #%d path %d: painted %q with %d points, want %q with %d%s", where, i, j, g.paint, len(g.pts), w.paint, len(w.pts), hint)
+						continue
+					}
+					for k := range w.pts {
+						if math.Abs(g.pts[k][0]-w.pts[k][0]) > 2*implTol || math.Abs(g.pts[k][1]-w.pts[k][1]) > 2*implTol {
+							t.Errorf("%s #%d path %d point %d: %v pt, want %v pt%s", where, i, j, k, g.pts[k], w.pts[k], hint)
+							break
+						}
+					}
+				}
+			}
+		}
 	}
 }
 

@@ -83,7 +83,7 @@ func TestDesignJSONKeys(t *testing.T) {
 		}
 	}
 	target := doc["target"].(map[string]any)
-	if r := target["required_inductance"].(float64); math.Abs(r-54.76e-9) > 0.01e-9 { // 1/((2π·145 MHz)²·22 pF), lc.go
+	if r := target["required_inductance"].(float64); math.Abs(r-54.76e-9) > 0.01e-9 { // 1/((2π·145 MHz)²·22 pF), coil/lc.go
 		t.Errorf("required_inductance %g", r)
 	}
 	cands := doc["candidates"].([]any)

@@ -148,16 +148,6 @@ func noArgs(cmd *cobra.Command, args []string) error {
 	return nil
 }
 
-// exactArgs requires n positional arguments.
-func exactArgs(n int, what string) cobra.PositionalArgs {
-	return func(cmd *cobra.Command, args []string) error {
-		if len(args) != n {
-			return usageErrorf("%s needs %s", cmd.CommandPath(), what)
-		}
-		return nil
-	}
-}
-
 // mutuallyExclusive reports two flags given together.
 func mutuallyExclusive(cmd *cobra.Command, a, b string) error {
 	if cmd.Flags().Changed(a) && cmd.Flags().Changed(b) {

@@ -1,6 +1,8 @@
 // Package testtools holds what tests in several packages share: the rule
 // for the external programs some tests run (ngspice, poppler's pdftotext,
-// pdfinfo and pdftoppm). Only test files import it.
+// pdfinfo and pdftoppm, nec2c) and the golden-file comparisons that hold on
+// every CPU (JSON numbers within a relative tolerance, rounded numbers in
+// text within one unit of their last digit). Only test files import it.
 package testtools
 
 import (
