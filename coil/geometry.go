@@ -2,6 +2,7 @@ package coil
 
 import (
 	"math"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -109,19 +110,19 @@ func (g *Geometry) Validate() error {
 	case !finite(df) || df <= 0:
 		return inputErrorf("former_diameter", "must be a positive length, e.g. 6mm")
 	case df < MinFormerDiameter || df > MaxFormerDiameter:
-		return inputErrorf("former_diameter", "%s is outside %s … %s", mm(df), mm(MinFormerDiameter), mm(MaxFormerDiameter))
+		return inputErrorf("former_diameter", "%s is outside %s … %s", quantity.FormatMillimetres(df), quantity.FormatMillimetres(MinFormerDiameter), quantity.FormatMillimetres(MaxFormerDiameter))
 	case !finite(g.Springback) || g.Springback < MinSpringback || g.Springback > MaxSpringback:
 		return inputErrorf("springback", "%.3g %% is outside %g … %g %%", g.Springback*100, MinSpringback*100, MaxSpringback*100)
 	case !finite(d) || d <= 0:
 		return inputErrorf("wire_diameter", "must be a positive length, e.g. 1mm or 18awg")
 	case d < MinWireDiameter || d > MaxWireDiameter:
-		return inputErrorf("wire_diameter", "%s is outside %s … %s", mm(d), mm(MinWireDiameter), mm(MaxWireDiameter))
+		return inputErrorf("wire_diameter", "%s is outside %s … %s", quantity.FormatMillimetres(d), quantity.FormatMillimetres(MinWireDiameter), quantity.FormatMillimetres(MaxWireDiameter))
 	case !finite(do) || do < 0:
 		return inputErrorf("wire_overall_diameter", "must be a positive length or zero for bare wire")
 	case do != 0 && do < d:
-		return inputErrorf("wire_overall_diameter", "%s is less than the bare diameter %s; give the diameter over the insulation", mm(do), mm(d))
+		return inputErrorf("wire_overall_diameter", "%s is less than the bare diameter %s; give the diameter over the insulation", quantity.FormatMillimetres(do), quantity.FormatMillimetres(d))
 	case do > 2*d+1e-3:
-		return inputErrorf("wire_overall_diameter", "%s is implausibly thick insulation on %s wire", mm(do), mm(d))
+		return inputErrorf("wire_overall_diameter", "%s is implausibly thick insulation on %s wire", quantity.FormatMillimetres(do), quantity.FormatMillimetres(d))
 	case !finite(n) || n < 1:
 		return inputErrorf("turns", "must be at least 1 (got %g)", n)
 	case n > MaxTurns:
@@ -131,13 +132,13 @@ func (g *Geometry) Validate() error {
 	case !finite(p) || p <= 0:
 		return inputErrorf("pitch", "must be a positive length, e.g. 1.5mm")
 	case p < g.overall()*(1-1e-9):
-		return inputErrorf("pitch", "%s is less than the wire's overall diameter %s; use a pitch of at least %s", mm(p), mm(g.overall()), mm(g.overall()))
+		return inputErrorf("pitch", "%s is less than the wire's overall diameter %s; use a pitch of at least %s", quantity.FormatMillimetres(p), quantity.FormatMillimetres(g.overall()), quantity.FormatMillimetres(g.overall()))
 	case p > MaxPitch:
-		return inputErrorf("pitch", "%s is more than %s", mm(p), mm(MaxPitch))
+		return inputErrorf("pitch", "%s is more than %s", quantity.FormatMillimetres(p), quantity.FormatMillimetres(MaxPitch))
 	case !finite(float64(g.LeadLength)) || g.LeadLength < 0:
 		return inputErrorf("lead_length", "must be zero or a positive length, e.g. 5mm")
 	case float64(g.LeadLength) > MaxLeadLength:
-		return inputErrorf("lead_length", "%s is more than %s", mm(float64(g.LeadLength)), mm(MaxLeadLength))
+		return inputErrorf("lead_length", "%s is more than %s", quantity.FormatMillimetres(float64(g.LeadLength)), quantity.FormatMillimetres(MaxLeadLength))
 	case !finite(float64(g.Temperature)) || g.Temperature < 0:
 		return inputErrorf("temperature", "must be an absolute temperature")
 	}
@@ -191,7 +192,7 @@ func PitchForWindingLength(n float64, overall, length unit.Length) (unit.Length,
 	if p < float64(overall)*(1-1e-9) {
 		minLen := (n-1)*float64(overall) + float64(overall)
 		return 0, inputErrorf("winding_length", "%s is shorter than %g close-wound turns (%s); use at least %s or fewer turns",
-			mm(float64(length)), n, mm(minLen), mm(minLen))
+			quantity.FormatMillimetres(float64(length)), n, quantity.FormatMillimetres(minLen), quantity.FormatMillimetres(minLen))
 	}
 	return unit.Length(p), nil
 }

@@ -2,6 +2,7 @@ package coil
 
 import (
 	"math"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -118,7 +119,7 @@ func Predict(g Geometry, f unit.Frequency) (Prediction, error) {
 	evaluate(&p, &g, float64(f))
 	if f > 0 && float64(f) > 0.9*float64(p.SRF) {
 		return p, inputErrorf("frequency", "%s is above 90 %% of the self-resonance %s (one end grounded): the coil is not a usable inductor there; use fewer turns, a smaller diameter or a wider pitch",
-			fmtHz(float64(f)), fmtHz(float64(p.SRF)))
+			quantity.FormatFrequency(float64(f)), quantity.FormatFrequency(float64(p.SRF)))
 	}
 	return p, nil
 }

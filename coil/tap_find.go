@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -121,7 +122,7 @@ func FindTap(g Geometry, f unit.Frequency, goal TapGoal, target float64) ([]TapC
 
 func goalString(g TapGoal, v float64) string {
 	if g == GoalBottomInductance {
-		return fmtH(v)
+		return quantity.FormatInductance(v)
 	}
 	return fmt.Sprintf("%.4g", v)
 }

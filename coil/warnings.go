@@ -3,6 +3,7 @@ package coil
 import (
 	"fmt"
 	"math"
+	"turnwise/internal/quantity"
 )
 
 // Warnings words the prediction's flags for a builder, most important
@@ -12,12 +13,12 @@ func (p *Prediction) Warnings() []string {
 	f := float64(p.Frequency)
 	if p.Flags&FlagNearSRF != 0 {
 		w = append(w, fmt.Sprintf("operating frequency %s is above a third of the self-resonance (SRF %s, one end grounded; SRF/3 is the common-practice limit): L and Q depend strongly on stray capacitance; prefer fewer turns or a smaller coil",
-			fmtHz(f), fmtHz(float64(p.SRF))))
+			quantity.FormatFrequency(f), quantity.FormatFrequency(float64(p.SRF))))
 	}
 	if p.Flags&FlagLongWire != 0 {
 		lambda := SpeedOfLight / f
 		w = append(w, fmt.Sprintf("the winding's wire (%.3g m) is longer than a tenth of a wavelength (%.3g m) at %s: the lumped model is only a guide",
-			float64(p.HelixWire), lambda/10, fmtHz(f)))
+			float64(p.HelixWire), lambda/10, quantity.FormatFrequency(f)))
 	}
 	if p.Flags&FlagMedhurstExtrap != 0 {
 		ld := float64(p.SheetLength) / float64(p.MeanDiameter)

@@ -6,6 +6,7 @@ import (
 	"io"
 	"regexp"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -27,18 +28,18 @@ func ParseBand(s string) (Band, error) {
 	if name, rest, ok := strings.Cut(t, "="); ok {
 		b.Name, t = strings.TrimSpace(name), strings.TrimSpace(rest)
 		if b.Name == "" {
-			return b, &QuantityError{Input: s, Want: "band", Reason: "empty name before '='; write e.g. 80m=3.5-3.8MHz"}
+			return b, &quantity.Error{Input: s, Want: "band", Reason: "empty name before '='; write e.g. 80m=3.5-3.8MHz"}
 		}
 	}
-	lo, hi, err := parseEdges(t, ParseFrequency)
+	lo, hi, err := parseEdges(t, quantity.ParseFrequency)
 	if err != nil {
-		return b, &QuantityError{Input: s, Want: "band", Reason: err.Error() + "; write LOW-HIGH, e.g. 3.5-3.8MHz or 80m=3.5-3.8MHz"}
+		return b, &quantity.Error{Input: s, Want: "band", Reason: err.Error() + "; write LOW-HIGH, e.g. 3.5-3.8MHz or 80m=3.5-3.8MHz"}
 	}
 	if lo <= 0 {
-		return b, &QuantityError{Input: s, Want: "band", Reason: "frequencies must be positive, e.g. 3.5-3.8MHz"}
+		return b, &quantity.Error{Input: s, Want: "band", Reason: "frequencies must be positive, e.g. 3.5-3.8MHz"}
 	}
 	if hi <= lo {
-		return b, &QuantityError{Input: s, Want: "band", Reason: "the lower edge must come first and be below the upper one, e.g. 3.5-3.8MHz"}
+		return b, &quantity.Error{Input: s, Want: "band", Reason: "the lower edge must come first and be below the upper one, e.g. 3.5-3.8MHz"}
 	}
 	b.Low, b.High = unit.Frequency(lo), unit.Frequency(hi)
 	return b, nil
@@ -50,15 +51,15 @@ func ParseBand(s string) (Band, error) {
 func ParseCapacitanceRange(s string) (lo, hi unit.Capacitance, err error) {
 	t := strings.TrimSpace(s)
 	if !strings.Contains(strings.TrimLeft(t, "+-"), "-") {
-		c, err := ParseCapacitance(t)
+		c, err := quantity.ParseCapacitance(t)
 		if err != nil {
 			return 0, 0, err
 		}
 		return c, c, rangeCheck(s, float64(c), float64(c))
 	}
-	l, h, err := parseEdges(t, ParseCapacitance)
+	l, h, err := parseEdges(t, quantity.ParseCapacitance)
 	if err != nil {
-		return 0, 0, &QuantityError{Input: s, Want: "capacitance range", Reason: err.Error() + "; write MIN-MAX, e.g. 12-365pF"}
+		return 0, 0, &quantity.Error{Input: s, Want: "capacitance range", Reason: err.Error() + "; write MIN-MAX, e.g. 12-365pF"}
 	}
 	return unit.Capacitance(l), unit.Capacitance(h), rangeCheck(s, l, h)
 }
@@ -66,9 +67,9 @@ func ParseCapacitanceRange(s string) (lo, hi unit.Capacitance, err error) {
 func rangeCheck(s string, lo, hi float64) error {
 	switch {
 	case lo < 0:
-		return &QuantityError{Input: s, Want: "capacitance range", Reason: "capacitance cannot be negative; write MIN-MAX, e.g. 12-365pF"}
+		return &quantity.Error{Input: s, Want: "capacitance range", Reason: "capacitance cannot be negative; write MIN-MAX, e.g. 12-365pF"}
 	case hi < lo:
-		return &QuantityError{Input: s, Want: "capacitance range", Reason: "the minimum comes first, e.g. 12-365pF"}
+		return &quantity.Error{Input: s, Want: "capacitance range", Reason: "the minimum comes first, e.g. 12-365pF"}
 	}
 	return nil
 }
@@ -104,7 +105,7 @@ func parseEdges[T ~float64](t string, parse func(string) (T, error)) (float64, f
 }
 
 func reasonOf(err error) string {
-	if qe, ok := err.(*QuantityError); ok {
+	if qe, ok := err.(*quantity.Error); ok {
 		return qe.Reason
 	}
 	return err.Error()

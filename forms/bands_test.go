@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 	"testing"
+	"turnwise/internal/quantity"
 )
 
 func TestParseBand(t *testing.T) {
@@ -33,9 +34,9 @@ func TestParseBand(t *testing.T) {
 			t.Parallel()
 			b, err := ParseBand(tc.in)
 			if tc.wantErrMatch != "" {
-				var qe *QuantityError
+				var qe *quantity.Error
 				if !errors.As(err, &qe) || !strings.Contains(err.Error(), tc.wantErrMatch) {
-					t.Errorf("err = %v, want QuantityError with %q", err, tc.wantErrMatch)
+					t.Errorf("err = %v, want quantity.Error with %q", err, tc.wantErrMatch)
 				}
 				return
 			}

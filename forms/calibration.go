@@ -193,7 +193,7 @@ func writeCalibration(b *strings.Builder, c Calibration) error {
 }
 
 // SpringbackText is how a springback is written to a stock file: a
-// percentage with two decimals, e.g. "4.12%", which ParsePercent reads.
+// percentage with two decimals, e.g. "4.12%", which quantity.ParsePercent reads.
 func SpringbackText(s float64) string {
 	t := strconv.FormatFloat(s*100, 'f', 2, 64)
 	if t == "-0.00" {

@@ -7,6 +7,7 @@ import (
 	"os"
 	"strings"
 	"testing"
+	"turnwise/internal/quantity"
 	"unicode/utf8"
 )
 
@@ -156,7 +157,7 @@ func TestSpringbackText(t *testing.T) {
 		if got != tc.want {
 			t.Errorf("%g: %q, want %q", tc.in, got, tc.want)
 		}
-		if back, err := ParsePercent(got); err != nil || math.Abs(back-tc.in) > 0.005e-2 {
+		if back, err := quantity.ParsePercent(got); err != nil || math.Abs(back-tc.in) > 0.005e-2 {
 			t.Errorf("%q reads back as %g, %v", got, back, err)
 		}
 	}

@@ -10,6 +10,7 @@ import (
 	"strconv"
 	"strings"
 	"sync"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -141,7 +142,7 @@ func (r dataRow) errorf(file, format string, args ...any) error {
 }
 
 func (r dataRow) length(file, field string) (unit.Length, error) {
-	l, err := ParseLength(r.fields[field])
+	l, err := quantity.ParseLength(r.fields[field])
 	if err != nil {
 		return 0, r.errorf(file, "%s: %v", field, err)
 	}

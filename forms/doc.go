@@ -7,11 +7,11 @@
 // Every size, value and frequency carries its unit; a bare number is refused
 // rather than guessed. Results are gonum unit types holding SI values:
 //
-//	ParseLength("0.177in")     → 0.0044958 m
-//	ParseLength("1-1/4in")     → 0.03175 m
-//	ParseInductance("0.048µH") → 4.8e-08 H
-//	ParseFrequency("7.1mhz")   → 7.1e+06 Hz (lowercase m is mega here)
-//	ParsePercent("3.1%")       → 0.031
+//	quantity.ParseLength("0.177in")     → 0.0044958 m
+//	quantity.ParseLength("1-1/4in")     → 0.03175 m
+//	quantity.ParseInductance("0.048µH") → 4.8e-08 H
+//	quantity.ParseFrequency("7.1mhz")   → 7.1e+06 Hz (lowercase m is mega here)
+//	quantity.ParsePercent("3.1%")       → 0.031
 //
 // # Catalogs
 //

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -92,7 +93,7 @@ func ParseInsulation(s string, bare unit.Length) (overall unit.Length, insulatio
 		}
 		return o, grade, nil
 	}
-	o, err := ParseLength(s)
+	o, err := quantity.ParseLength(s)
 	if err != nil {
 		if strings.TrimSpace(s) == "" || !startsWithDigit(s) {
 			return 0, "", fmt.Errorf("insulation %q: use none, grade1, grade2, grade3 or the overall diameter, e.g. %s", s, mm(bare*1.1))

@@ -3,13 +3,14 @@ package forms_test
 import (
 	"fmt"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"turnwise/forms"
 )
 
 func ExampleParseLength() {
 	for _, s := range []string{"4.5mm", "0.177in", "1/4in", "4.5", "48nH"} {
-		l, err := forms.ParseLength(s)
+		l, err := quantity.ParseLength(s)
 		if err != nil {
 			fmt.Println("error:", err)
 			continue

@@ -6,6 +6,7 @@ import (
 	"io"
 	"math"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -64,7 +65,7 @@ func LoadGangTable(r io.Reader, file string) (GangTable, error) {
 		} else if len(fields) != cols {
 			return fail("%d fields where the first row had %d; give section B on every row or on none", len(fields), cols)
 		}
-		s, err := ParsePercent(fields[0])
+		s, err := quantity.ParsePercent(fields[0])
 		if err != nil {
 			return fail("dial setting: %w", err)
 		}
@@ -73,12 +74,12 @@ func LoadGangTable(r io.Reader, file string) (GangTable, error) {
 		}
 		var p GangPoint
 		p.Setting = s
-		if p.A, err = ParseCapacitance(fields[1]); err != nil {
+		if p.A, err = quantity.ParseCapacitance(fields[1]); err != nil {
 			return fail("section A: %w", err)
 		}
 		p.B = p.A
 		if cols == 3 {
-			if p.B, err = ParseCapacitance(fields[2]); err != nil {
+			if p.B, err = quantity.ParseCapacitance(fields[2]); err != nil {
 				return fail("section B: %w", err)
 			}
 		}

@@ -7,6 +7,7 @@ import (
 	"regexp"
 	"strconv"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -34,7 +35,7 @@ func AWGDiameter(n int) (unit.Length, error) {
 	if n < awgMin || n > awgMax {
 		return 0, fmt.Errorf("awg %d: out of range; AWG runs from 0000 (write -3) to %d", n, awgMax)
 	}
-	return unit.Length(0.005 * inch * math.Pow(92, float64(36-n)/39)), nil
+	return unit.Length(0.005 * quantity.Inch * math.Pow(92, float64(36-n)/39)), nil
 }
 
 // SWGDiameter returns the bare diameter of Imperial Standard Wire Gauge n from

@@ -7,6 +7,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"turnwise/internal/quantity"
 )
 
 // Reading one [[coil]] of a job file: its winding, design target, tap and
@@ -75,7 +76,7 @@ func (l *jobLoader) winding(e *jobEntry, c *JobCoil) {
 	}
 	if _, present := e.m["springback"]; present {
 		if s, ok := e.str("springback", false, `"2%"`); ok {
-			if sb, err := ParsePercent(s); err != nil {
+			if sb, err := quantity.ParsePercent(s); err != nil {
 				e.fail("springback", "springback", err)
 			} else {
 				w.Springback = &sb
@@ -85,24 +86,24 @@ func (l *jobLoader) winding(e *jobEntry, c *JobCoil) {
 	if n, ok := e.number("turns", "5.25"); ok {
 		w.Turns = &n
 	}
-	w.Pitch, _ = quantity(e, "pitch", `"1.6mm"`, ParseLength, false)
-	w.Length, _ = quantity(e, "length", `"8mm"`, ParseLength, false)
+	w.Pitch, _ = quantityOf(e, "pitch", `"1.6mm"`, quantity.ParseLength, false)
+	w.Length, _ = quantityOf(e, "length", `"8mm"`, quantity.ParseLength, false)
 	if w.Pitch != nil && w.Length != nil {
 		e.fail("length", "length", errors.New("give pitch or length, not both (neither means close-wound)"))
 	}
-	w.Leads, _ = quantity(e, "leads", `"5mm"`, ParseLength, true)
+	w.Leads, _ = quantityOf(e, "leads", `"5mm"`, quantity.ParseLength, true)
 	if _, present := e.m["leads"]; !present {
 		e.missing(errors.New(`add leads = "5mm": the length of each lead to the solder joint ("0mm" if you measure at the winding); at VHF leads are often 10–20 % of the inductance`))
 	}
-	w.Temp, _ = quantity(e, "temp", `"40C"`, ParseTemperature, false)
-	w.Freq, _ = quantity(e, "freq", `"137.5MHz"`, ParseFrequency, false)
+	w.Temp, _ = quantityOf(e, "temp", `"40C"`, quantity.ParseTemperature, false)
+	w.Freq, _ = quantityOf(e, "freq", `"137.5MHz"`, quantity.ParseFrequency, false)
 }
 
 func (l *jobLoader) target(e *jobEntry, c *JobCoil) {
 	t := &JobTarget{}
-	t.Inductance, _ = quantity(e, "inductance", `"48nH"`, ParseInductance, false)
-	t.Cap, _ = quantity(e, "cap", `"22pF"`, ParseCapacitance, false)
-	t.Stray, _ = quantity(e, "stray", `"2pF"`, ParseCapacitance, true)
+	t.Inductance, _ = quantityOf(e, "inductance", `"48nH"`, quantity.ParseInductance, false)
+	t.Cap, _ = quantityOf(e, "cap", `"22pF"`, quantity.ParseCapacitance, false)
+	t.Stray, _ = quantityOf(e, "stray", `"2pF"`, quantity.ParseCapacitance, true)
 	if tol, ok := e.fraction("tolerance", `"2%"`); ok {
 		if *tol <= 0 || *tol >= 0.5 {
 			e.fail("tolerance", "tolerance", fmt.Errorf("%.4g %% is outside 0 … 50 %%; e.g. tolerance = \"2%%\"", *tol*100))
@@ -111,9 +112,9 @@ func (l *jobLoader) target(e *jobEntry, c *JobCoil) {
 		}
 	}
 	t.Support, _ = e.choice("support", []string{"mandrel", "former"})
-	t.MaxLength, _ = quantity(e, "max-length", `"15mm"`, ParseLength, false)
-	t.MaxDiameter, _ = quantity(e, "max-diameter", `"12mm"`, ParseLength, false)
-	t.MaxWireLength, _ = quantity(e, "max-wire-length", `"300mm"`, ParseLength, false)
+	t.MaxLength, _ = quantityOf(e, "max-length", `"15mm"`, quantity.ParseLength, false)
+	t.MaxDiameter, _ = quantityOf(e, "max-diameter", `"12mm"`, quantity.ParseLength, false)
+	t.MaxWireLength, _ = quantityOf(e, "max-wire-length", `"300mm"`, quantity.ParseLength, false)
 	if r, ok := e.number("min-srf-ratio", "3"); ok {
 		if r < 1 {
 			e.fail("min-srf-ratio", "min-srf-ratio", fmt.Errorf("%g is below 1; the coil must resonate above the operating frequency, e.g. min-srf-ratio = 3", r))
@@ -259,7 +260,7 @@ func (l *jobLoader) span(e *jobEntry, c *JobCoil) {
 		s.GangB, s.GangBSet = CapRange{lo, hi}, true
 	}
 	for _, k := range []string{"trim-a", "trim-b", "stray-a", "stray-b"} {
-		v, present := quantity(e, k, `"5pF"`, ParseCapacitance, true)
+		v, present := quantityOf(e, k, `"5pF"`, quantity.ParseCapacitance, true)
 		if !present {
 			if e.m[k] != nil {
 				ok = false

@@ -7,6 +7,7 @@ import (
 	"strconv"
 	"strings"
 	"time"
+	"turnwise/internal/quantity"
 )
 
 // Reading the values of one table of a job file, each error at its line.
@@ -135,9 +136,9 @@ func (e *jobEntry) integer(key string, lo, hi int, example string) (int, bool) {
 	return int(x), true
 }
 
-// quantity reads key as text with a unit, parsed by parse; the value must
+// quantityOf reads key as text with a unit, parsed by parse; the value must
 // be positive (or zero when zeroOK).
-func quantity[T ~float64](e *jobEntry, key, example string, parse func(string) (T, error), zeroOK bool) (*T, bool) {
+func quantityOf[T ~float64](e *jobEntry, key, example string, parse func(string) (T, error), zeroOK bool) (*T, bool) {
 	s, ok := e.str(key, false, example)
 	if !ok {
 		return nil, false
@@ -161,7 +162,7 @@ func (e *jobEntry) fraction(key, example string) (*float64, bool) {
 		return nil, false
 	}
 	if s, isStr := v.(string); isStr && strings.Contains(s, "%") {
-		x, err := ParsePercent(s)
+		x, err := quantity.ParsePercent(s)
 		if err != nil {
 			e.fail(key, key, err)
 			return nil, false

@@ -7,6 +7,7 @@ import (
 	"slices"
 	"strconv"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -60,7 +61,7 @@ func (c *Catalog) Wire(name string) (Wire, error) {
 	}
 	// A size is best answered with the neighbouring sizes, a name with names.
 	var sugg []string
-	if l, err := ParseLength(name); err == nil {
+	if l, err := quantity.ParseLength(name); err == nil {
 		var metric []Wire
 		for _, w := range c.Wires {
 			if w.System == "metric" && w.Conductor == "copper" {
@@ -152,7 +153,7 @@ func lookupSized[T any](rows []T, name string, get func(T) (string, unit.Length)
 	if i := findSize(rows, name, nameOf); i >= 0 {
 		return i, nil
 	}
-	l, err := ParseLength(name)
+	l, err := quantity.ParseLength(name)
 	if err == nil {
 		for i := len(rows) - 1; i >= 0; i-- {
 			if _, d := get(rows[i]); sameLength(d, l) {
@@ -177,7 +178,7 @@ func nameKey(s string) string {
 func sizeKey(s string) string {
 	f := strings.Fields(strings.ToLower(s))
 	for n := 1; n <= 2 && n <= len(f); n++ {
-		l, err := ParseLength(strings.Join(f[:n], ""))
+		l, err := quantity.ParseLength(strings.Join(f[:n], ""))
 		if err != nil || !(l > 0) {
 			continue
 		}

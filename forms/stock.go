@@ -8,6 +8,7 @@ import (
 	"io"
 	"slices"
 	"strings"
+	"turnwise/internal/quantity"
 	"unicode"
 	"unicode/utf8"
 
@@ -318,7 +319,7 @@ func (e *stockEntry) length(key string, lo, hi unit.Length, example string) (uni
 	if !ok {
 		return 0, false
 	}
-	v, err := ParseLength(s)
+	v, err := quantity.ParseLength(s)
 	if err != nil {
 		e.fail(key, key, err)
 		return 0, false
@@ -478,7 +479,7 @@ func (l *stockLoader) calibration(e *stockEntry, all *Catalog) {
 		if _, isStr := v.(string); !isStr {
 			e.fail("springback", "springback", errors.New(`write it as text with a percent sign, e.g. springback = "3.1%"`))
 		} else if s, _ := e.str("springback", true, `"3.1%"`); s != "" {
-			sb, err := ParsePercent(s)
+			sb, err := quantity.ParsePercent(s)
 			switch {
 			case err != nil:
 				e.fail("springback", "springback", err)

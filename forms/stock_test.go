@@ -6,6 +6,7 @@ import (
 	"os"
 	"strings"
 	"testing"
+	"turnwise/internal/quantity"
 
 	"github.com/BurntSushi/toml"
 )
@@ -227,10 +228,10 @@ func TestLoadStockSyntaxErrorUnwraps(t *testing.T) {
 	if !errors.As(err, &te) {
 		t.Errorf("error %v does not unwrap to toml.ParseError", err)
 	}
-	var qe *QuantityError
+	var qe *quantity.Error
 	_, err = LoadStock(strings.NewReader("[[mandrel]]\nname = \"r\"\ndiameter = \"6\"\n"), "x.toml")
 	if !errors.As(err, &qe) || qe.Want != "length" {
-		t.Errorf("error %v does not unwrap to a length *QuantityError", err)
+		t.Errorf("error %v does not unwrap to a length *quantity.Error", err)
 	}
 }
 

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"turnwise/coil"
 )
@@ -115,7 +116,7 @@ func (s *sheet) coilHeader(c *Coil, y, x, w float64) float64 {
 	if strings.Contains(c.Wire, ",") {
 		on = ", on the "
 	}
-	y = s.para(x, y, w, fmt.Sprintf("%s of %s%s%s (%s)", turnsWord(g.Turns), c.Wire, on, c.SupportName, how)) - 0.5
+	y = s.para(x, y, w, fmt.Sprintf("%s of %s%s%s (%s)", quantity.FormatTurnsWord(g.Turns), c.Wire, on, c.SupportName, how)) - 0.5
 	if c.Target != nil {
 		s.font("", bodySize)
 		t := "Designed to " + c.Target.Description
@@ -160,19 +161,19 @@ func (s *sheet) windingSteps(c *Coil) []string {
 	switch {
 	case c.CloseWound && loopTap:
 		st = append(st, fmt.Sprintf("Wind %s close together, each turn touching the last, pulled snug. At %s from the cold end, twist a small loop of wire out for the tap, then carry on.",
-			turnsWord(g.Turns), turnsWord(c.Tap.Turns)))
+			quantity.FormatTurnsWord(g.Turns), quantity.FormatTurnsWord(c.Tap.Turns)))
 	case c.CloseWound:
-		st = append(st, fmt.Sprintf("Wind %s close together, each turn touching the last, pulled snug.", turnsWord(g.Turns)))
+		st = append(st, fmt.Sprintf("Wind %s close together, each turn touching the last, pulled snug.", quantity.FormatTurnsWord(g.Turns)))
 	default:
-		st = append(st, fmt.Sprintf("Wind %s, pulled snug, the same way round as the drawing. Count them on the top, as its numbers do.", turnsWord(g.Turns)))
+		st = append(st, fmt.Sprintf("Wind %s, pulled snug, the same way round as the drawing. Count them on the top, as its numbers do.", quantity.FormatTurnsWord(g.Turns)))
 	}
 	if c.Support != "former" {
 		bore := u.of(float64(p.InsideDiameter))
 		switch {
 		case c.SpringbackSource == "calibration":
-			st = append(st, fmt.Sprintf("Slide the coil off; your calibration says the bore opens %s. Expect a bore of %s.", pct(g.Springback), bore))
+			st = append(st, fmt.Sprintf("Slide the coil off; your calibration says the bore opens %s. Expect a bore of %s.", quantity.FormatPercent(g.Springback), bore))
 		case g.Springback != 0:
-			st = append(st, fmt.Sprintf("Slide the coil off; the bore should open by %s. Expect a bore of %s.", pct(g.Springback), bore))
+			st = append(st, fmt.Sprintf("Slide the coil off; the bore should open by %s. Expect a bore of %s.", quantity.FormatPercent(g.Springback), bore))
 		default:
 			st = append(st, fmt.Sprintf("Slide the coil off and measure the bore. This sheet assumes it stays %s; a coil that springs open measures more L (turnwise trim --save learns your springback).", bore))
 		}
@@ -187,11 +188,11 @@ func (s *sheet) windingSteps(c *Coil) []string {
 		var tap string
 		switch {
 		case loopTap:
-			tap = fmt.Sprintf("Check the tap loop is %s from the cold end (ringed on the drawing). Scrape and tin it, then solder the tap lead to it.", turnsWord(t.Turns))
+			tap = fmt.Sprintf("Check the tap loop is %s from the cold end (ringed on the drawing). Scrape and tin it, then solder the tap lead to it.", quantity.FormatTurnsWord(t.Turns))
 		case enamel:
-			tap = fmt.Sprintf("Count %s from the cold end (ringed on the drawing). Scrape %s of enamel there and solder a short tap lead, hot and quick.", turnsWord(t.Turns), u.lead(2e-3))
+			tap = fmt.Sprintf("Count %s from the cold end (ringed on the drawing). Scrape %s of enamel there and solder a short tap lead, hot and quick.", quantity.FormatTurnsWord(t.Turns), u.lead(2e-3))
 		default:
-			tap = fmt.Sprintf("Count %s from the cold end (ringed on the drawing). Clean the wire there and solder a short tap lead, hot and quick.", turnsWord(t.Turns))
+			tap = fmt.Sprintf("Count %s from the cold end (ringed on the drawing). Clean the wire there and solder a short tap lead, hot and quick.", quantity.FormatTurnsWord(t.Turns))
 		}
 		if t.Purpose != "" {
 			tap += " " + t.Purpose
@@ -231,7 +232,7 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 		if t.Effective {
 			label = "target, effective L"
 		}
-		v := eng(t.Inductance, "H", 3)
+		v := quantity.FormatEng(t.Inductance, "H", 3)
 		if t.Tolerance > 0 {
 			v += fmt.Sprintf(" ± %.3g %%", t.Tolerance*100)
 		}
@@ -239,36 +240,36 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 	}
 	if f > 0 {
 		r = append(r,
-			[2]string{"L at the terminals", fmt.Sprintf("%s at %s", eng(float64(p.Inductance), "H", 3), hz(f))},
-			[2]string{"  coil + leads", fmt.Sprintf("%s + %s", eng(float64(p.InductanceCoilAtF), "H", 3), eng(float64(p.InductanceLeads), "H", 3))},
-			[2]string{"L effective at f", eng(float64(p.InductanceEffective), "H", 3) + " (self-C included)"},
+			[2]string{"L at the terminals", fmt.Sprintf("%s at %s", quantity.FormatEng(float64(p.Inductance), "H", 3), hz(f))},
+			[2]string{"  coil + leads", fmt.Sprintf("%s + %s", quantity.FormatEng(float64(p.InductanceCoilAtF), "H", 3), quantity.FormatEng(float64(p.InductanceLeads), "H", 3))},
+			[2]string{"L effective at f", quantity.FormatEng(float64(p.InductanceEffective), "H", 3) + " (self-C included)"},
 		)
 		if c.LowFrequency > 0 {
-			r = append(r, [2]string{"on an L meter", eng(c.LowFrequency, "H", 3) + " (low frequency)"})
+			r = append(r, [2]string{"on an L meter", quantity.FormatEng(c.LowFrequency, "H", 3) + " (low frequency)"})
 		}
 	} else {
 		r = append(r,
-			[2]string{"L at the terminals", eng(float64(p.Inductance), "H", 3) + " (low frequency)"},
-			[2]string{"  coil + leads", fmt.Sprintf("%s + %s", eng(float64(p.InductanceCoil), "H", 3), eng(float64(p.InductanceLeads), "H", 3))},
+			[2]string{"L at the terminals", quantity.FormatEng(float64(p.Inductance), "H", 3) + " (low frequency)"},
+			[2]string{"  coil + leads", fmt.Sprintf("%s + %s", quantity.FormatEng(float64(p.InductanceCoil), "H", 3), quantity.FormatEng(float64(p.InductanceLeads), "H", 3))},
 		)
 	}
 	r = append(r,
-		[2]string{"self-resonance", fmt.Sprintf("%s (%s … %s), one end grounded", eng(float64(p.SRF), "Hz", 3), eng(float64(p.SRFMin), "Hz", 3), eng(float64(p.SRFMax), "Hz", 3))},
-		[2]string{"self-capacitance", farads(float64(p.SelfCapacitance))},
+		[2]string{"self-resonance", fmt.Sprintf("%s (%s … %s), one end grounded", quantity.FormatEng(float64(p.SRF), "Hz", 3), quantity.FormatEng(float64(p.SRFMin), "Hz", 3), quantity.FormatEng(float64(p.SRFMax), "Hz", 3))},
+		[2]string{"self-capacitance", quantity.FormatCapacitance(float64(p.SelfCapacitance))},
 	)
 	if f > 0 {
 		r = append(r, [2]string{"Q at " + hz(f), fmt.Sprintf("%.0f (likely %.0f … %.0f)", p.Q, p.QMin, p.QMax)})
 	}
 	r = append(r, [2]string{"wire to cut", s.u.cut(float64(p.WireLength))})
 	if t := c.Tap; t != nil {
-		v := turnsWord(t.Turns) + " from the cold end"
+		v := quantity.FormatTurnsWord(t.Turns) + " from the cold end"
 		r = append(r, [2]string{"tap", v})
 		if t.Ratio > 0 {
 			r = append(r, [2]string{"  voltage at the tap", fmt.Sprintf("%.3g × the coil's (unloaded)", t.Ratio)})
 		}
 		if t.LBelow > 0 {
-			r = append(r, [2]string{"  sections", fmt.Sprintf("below %s, above %s", eng(t.LBelow, "H", 3), eng(t.LAbove, "H", 3))},
-				[2]string{"  coupling", fmt.Sprintf("M %s, k %.3f", eng(t.Mutual, "H", 3), t.Coupling)})
+			r = append(r, [2]string{"  sections", fmt.Sprintf("below %s, above %s", quantity.FormatEng(t.LBelow, "H", 3), quantity.FormatEng(t.LAbove, "H", 3))},
+				[2]string{"  coupling", fmt.Sprintf("M %s, k %.3f", quantity.FormatEng(t.Mutual, "H", 3), t.Coupling)})
 		}
 	}
 	return r
@@ -292,7 +293,7 @@ func (s *sheet) trimText(c *Coil) string {
 	b.WriteString("Squeeze the turns (shorter) to raise L, spread them (longer) to lower it. ")
 	if c.TrimLeast > 0 && c.TrimMost > 0 {
 		fmt.Fprintf(&b, "Reach: %s spread to 3 wire diameters … %s close-wound; beyond that, change the turns by ¼. ",
-			eng(c.TrimLeast, "H", 3), eng(c.TrimMost, "H", 3))
+			quantity.FormatEng(c.TrimLeast, "H", 3), quantity.FormatEng(c.TrimMost, "H", 3))
 	}
 	b.WriteString("turnwise trim turns a measurement into the change.")
 	return b.String()

@@ -3,6 +3,7 @@ package sheets
 import (
 	"fmt"
 	"math"
+	"turnwise/internal/quantity"
 
 	"github.com/jung-kurt/gofpdf"
 )
@@ -353,7 +354,7 @@ func (s *sheet) tapMark(v *view, c *Coil, top, bot float64) {
 	pdf.SetLineWidth(0.45)
 	pdf.Circle(x, y, r, "D")
 	s.font("B", smallSize+0.5)
-	label := "TAP: " + turnsWord(v.tap) + " from the cold end"
+	label := "TAP: " + quantity.FormatTurnsWord(v.tap) + " from the cold end"
 	onTop := v.tapOnTop()
 	var ly float64
 	if onTop {

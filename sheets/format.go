@@ -4,20 +4,15 @@ import (
 	"fmt"
 	"math"
 	"strings"
-
-	"turnwise/forms"
+	"turnwise/internal/quantity"
 )
 
-// Numbers are printed through forms' printers with the precision of
+// Numbers are printed through internal/quantity's printers with the precision of
 // `turnwise predict`'s table, so a page and the command agree digit for
 // digit; lengths to cut are the exception (cut, lead, stock below).
 
-func eng(v float64, unitSym string, sig int) string { return forms.FormatEng(v, unitSym, sig) }
-
-func farads(c float64) string { return forms.FormatCapacitance(c) }
-
 // hz prints a frequency with four significant figures.
-func hz(f float64) string { return eng(f, "Hz", 4) }
+func hz(f float64) string { return quantity.FormatEng(f, "Hz", 4) }
 
 // lengths prints lengths in the display unit.
 type lengths struct{ inches bool }
@@ -31,7 +26,7 @@ func (u lengths) of(m float64) string { return u.form().Format(m) }
 // checked with calipers (bore, outside diameter and length, pitch) keep
 // predict's precision through of.
 
-func (u lengths) form() forms.LengthFormat { return forms.LengthFormat{Inches: u.inches} }
+func (u lengths) form() quantity.LengthFormat { return quantity.LengthFormat{Inches: u.inches} }
 
 // cutRound rounds a cut length to the cut resolution (1 mm or 0.01 in).
 func (u lengths) cutRound(m float64) float64 { return u.form().RoundCut(m) }
@@ -67,19 +62,12 @@ func (u lengths) stock(m float64) string {
 	return fmt.Sprintf("%.0f mm", cm*10)
 }
 
-func turns(n float64) string { return forms.FormatTurns(n) }
-
-// turnsWord is "¼ turn", "1 turn", "1½ turns", "5 turns".
-func turnsWord(n float64) string { return forms.FormatTurnsWord(n) }
-
 func plural(n int, one, many string) string {
 	if n == 1 {
 		return one
 	}
 	return many
 }
-
-func pct(x float64) string { return forms.FormatPercent(x) }
 
 // latin maps the few characters Windows-1252 lacks to plain text, so the
 // core font never prints a question mark.

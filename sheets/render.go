@@ -6,6 +6,7 @@ import (
 	"io"
 	"math"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"github.com/jung-kurt/gofpdf"
 )
@@ -404,14 +405,14 @@ func (s *sheet) coilTable(x, y, w float64) float64 {
 	for i, c := range s.doc.Coils {
 		p := c.Prediction
 		g := p.Geometry
-		what := fmt.Sprintf("%s of %s on %s", turnsWord(g.Turns), shortWire(c), c.SupportName)
+		what := fmt.Sprintf("%s of %s on %s", quantity.FormatTurnsWord(g.Turns), shortWire(c), c.SupportName)
 		if c.Tap != nil {
-			what += ", tap " + turns(c.Tap.Turns)
+			what += ", tap " + quantity.FormatTurns(c.Tap.Turns)
 		}
 		if c.Span != nil {
 			what += ", two-gang"
 		}
-		ind := eng(float64(p.Inductance), "H", 3)
+		ind := quantity.FormatEng(float64(p.Inductance), "H", 3)
 		if p.Frequency > 0 {
 			ind += " at " + hz(float64(p.Frequency))
 		}

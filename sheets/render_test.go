@@ -14,6 +14,7 @@ import (
 	"strings"
 	"testing"
 	"time"
+	"turnwise/internal/quantity"
 
 	"turnwise/coil"
 	"turnwise/internal/testtools"
@@ -311,7 +312,7 @@ func TestPopplerReads(t *testing.T) {
 			for _, want := range []string{
 				"L1 input", "BUILD × 3", "5 turns", "TAP: 1 turn from the cold end", "pitch 2.25 mm",
 				"outside length " + fmt.Sprintf("%.2f mm", float64(v.WindingLength)*1e3),
-				eng(float64(v.Inductance), "H", 3) + " at 137.5 MHz", // µ and friends survive the encoding
+				quantity.FormatEng(float64(v.Inductance), "H", 3) + " at 137.5 MHz", // µ and friends survive the encoding
 				"Measure the 50 mm bar first", "CAUTION",
 			} {
 				if !strings.Contains(p2, want) {
@@ -319,7 +320,7 @@ func TestPopplerReads(t *testing.T) {
 				}
 			}
 			p3 := text(3)
-			for _, want := range []string{"HF front end", "28¼ turns", eng(float64(doc.Coils[1].Prediction.Inductance), "H", 3), "µH", "an invented warning"} {
+			for _, want := range []string{"HF front end", "28¼ turns", quantity.FormatEng(float64(doc.Coils[1].Prediction.Inductance), "H", 3), "µH", "an invented warning"} {
 				if !strings.Contains(p3, want) {
 					t.Errorf("page 3 lacks %q:\n%s", want, p3)
 				}
@@ -444,14 +445,14 @@ func TestRenderErrors(t *testing.T) {
 func TestFormat(t *testing.T) {
 	t.Parallel()
 	cases := []struct{ got, want string }{
-		{eng(4.8e-8, "H", 3), "48.0 nH"},
-		{eng(18.5e-6, "H", 3), "18.5 µH"},
-		{eng(137.5e6, "Hz", 4), "137.5 MHz"},
-		{eng(0, "H", 3), "0 H"},
-		{eng(math.NaN(), "H", 3), "n/a"},
-		{farads(0.323e-12), "0.323 pF"},
-		{turns(5.25), "5¼"}, {turns(5.5), "5½"}, {turns(5.75), "5¾"}, {turns(5), "5"},
-		{turnsWord(1), "1 turn"}, {turnsWord(1.25), "1¼ turns"}, {turnsWord(0.25), "¼ turn"}, {turnsWord(0.75), "¾ turn"},
+		{quantity.FormatEng(4.8e-8, "H", 3), "48.0 nH"},
+		{quantity.FormatEng(18.5e-6, "H", 3), "18.5 µH"},
+		{quantity.FormatEng(137.5e6, "Hz", 4), "137.5 MHz"},
+		{quantity.FormatEng(0, "H", 3), "0 H"},
+		{quantity.FormatEng(math.NaN(), "H", 3), "n/a"},
+		{quantity.FormatCapacitance(0.323e-12), "0.323 pF"},
+		{quantity.FormatTurns(5.25), "5¼"}, {quantity.FormatTurns(5.5), "5½"}, {quantity.FormatTurns(5.75), "5¾"}, {quantity.FormatTurns(5), "5"},
+		{quantity.FormatTurnsWord(1), "1 turn"}, {quantity.FormatTurnsWord(1.25), "1¼ turns"}, {quantity.FormatTurnsWord(0.25), "¼ turn"}, {quantity.FormatTurnsWord(0.75), "¾ turn"},
 		{lengths{}.of(2.25e-3), "2.25 mm"}, {lengths{inches: true}.of(25.4e-3), "1.000 in"},
 		{lengths{}.of(2.327), "2.327 m"},
 		// Cut lengths: to the millimetre, half away from zero.

@@ -6,6 +6,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"turnwise/internal/quantity"
 	"unicode"
 
 	"github.com/jung-kurt/gofpdf"
@@ -27,7 +28,7 @@ func (s *sheet) spanPage(c *Coil) {
 	s.font("", bodySize)
 	tapTurns := "the tap"
 	if c.Tap != nil {
-		tapTurns = "the tap (" + turns(c.Tap.Turns) + " turns from the cold end)"
+		tapTurns = "the tap (" + quantity.FormatTurns(c.Tap.Turns) + " turns from the cold end)"
 	}
 	desc := fmt.Sprintf("Two-gang capacitor on one shaft: section A (%s) across the whole coil, section B (%s) from %s to ground. Law: %s. Every dial setting tunes two frequencies at once, a low range and a high range.",
 		sp.GangA, cmp.Or(sp.GangB, sp.GangA), tapTurns, cmp.Or(sp.Law, "as given"))
@@ -108,7 +109,7 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 		s.dashed(0.4, 0.8)
 		pdf.Line(left, yy, right, yy)
 		s.dashed()
-		s.textRight(left-1.2, yy+0.9, eng(f, "Hz", 2))
+		s.textRight(left-1.2, yy+0.9, quantity.FormatEng(f, "Hz", 2))
 	}
 	for i := 0; i <= 10; i++ {
 		xx := xOf(float64(i) / 10)
@@ -145,7 +146,7 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 	// Band labels at the right edge.
 	s.font("", 6.5)
 	for _, b := range sp.Bands {
-		l := cmp.Or(b.Label, eng(b.Low, "Hz", 3)+"–"+eng(b.High, "Hz", 3))
+		l := cmp.Or(b.Label, quantity.FormatEng(b.Low, "Hz", 3)+"–"+quantity.FormatEng(b.High, "Hz", 3))
 		s.text(right+1.5, (ax.y(b.Low)+ax.y(b.High))/2+0.9, s.fit(l, x+w-right-2))
 	}
 	// Coincidences: the harmonic on the high range, joined to its
@@ -246,7 +247,7 @@ func (s *sheet) spanFindings(sp *Span) []string {
 		out = append(out, fmt.Sprintf("Gap of %s between the top of the low range and the bottom of the high range: frequencies there cannot be tuned.", hz(-sp.Overlap)))
 	}
 	for _, b := range sp.Bands {
-		name := cmp.Or(b.Label, eng(b.Low, "Hz", 3)+" – "+eng(b.High, "Hz", 3))
+		name := cmp.Or(b.Label, quantity.FormatEng(b.Low, "Hz", 3)+" – "+quantity.FormatEng(b.High, "Hz", 3))
 		switch b.Range {
 		case "low", "high", "both":
 			r := b.Range + " range"

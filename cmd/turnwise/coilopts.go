@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"strconv"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/pflag"
 	"gonum.org/v1/gonum/unit"
@@ -212,7 +213,7 @@ func resolveWireAs(cat *forms.Catalog, name, insulation, conductor string) (form
 
 // resolveWire accepts a stock or built-in name, a gauge or a bare diameter.
 func resolveWire(cat *forms.Catalog, s string) (forms.Wire, error) {
-	if d, err := forms.ParseLength(s); err == nil {
+	if d, err := quantity.ParseLength(s); err == nil {
 		return forms.Wire{
 			Name: s, System: "user", Bare: d, Overall: d, Insulation: "none",
 			Conductor: "copper", Source: "given on the command line", Origin: "command line",
@@ -230,7 +231,7 @@ func resolveWire(cat *forms.Catalog, s string) (forms.Wire, error) {
 	}
 	const fix = "give a gauge (22awg, 18swg), a bare diameter (1mm) or a stock wire name"
 	if looksLikeQuantity(s) {
-		_, perr := forms.ParseLength(s)
+		_, perr := quantity.ParseLength(s)
 		return forms.Wire{}, &flagError{"wire", fmt.Errorf("%w; %s", perr, fix)}
 	}
 	_, lookupErr := cat.Wire(s)
@@ -247,7 +248,7 @@ func resolveMandrel(cat *forms.Catalog, s string) (unit.Length, string, error) {
 	if m, err := cat.Mandrel(s); err == nil {
 		return m.Diameter, m.Name, nil
 	}
-	d, err := forms.ParseLength(s)
+	d, err := quantity.ParseLength(s)
 	if err != nil {
 		_, lookupErr := cat.Mandrel(s)
 		if looksLikeQuantity(s) {
@@ -262,7 +263,7 @@ func resolveFormer(cat *forms.Catalog, s string) (unit.Length, string, error) {
 	if f, err := cat.Former(s); err == nil {
 		return f.Diameter, f.Name, nil
 	}
-	d, err := forms.ParseLength(s)
+	d, err := quantity.ParseLength(s)
 	if err != nil {
 		_, lookupErr := cat.Former(s)
 		if looksLikeQuantity(s) {

@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
@@ -379,18 +380,18 @@ func writeDesignTable(w io.Writer, cat *forms.Catalog, so *designSearchOptions, 
 	tol := fmt.Sprintf("± %.3g %%", res.Tolerance*100)
 	leads := "2 × " + lf.fmt(float64(so.Leads)) + " leads"
 	if res.Effective {
-		c := farads(float64(so.Capacitance))
+		c := quantity.FormatCapacitance(float64(so.Capacitance))
 		if so.Stray > 0 {
-			c += " + " + farads(float64(so.Stray)) + " stray"
+			c += " + " + quantity.FormatCapacitance(float64(so.Stray)) + " stray"
 		}
 		fmt.Fprintf(w, "TARGET  resonate with %s at %s: %s effective at the terminals %s, %s included\n",
-			c, eng(float64(so.Freq), "Hz", 4), eng(float64(res.Required), "H", 3), tol, leads)
+			c, quantity.FormatEng(float64(so.Freq), "Hz", 4), quantity.FormatEng(float64(res.Required), "H", 3), tol, leads)
 	} else {
 		at := "at low frequency"
 		if f > 0 {
-			at = "at " + eng(f, "Hz", 4)
+			at = "at " + quantity.FormatEng(f, "Hz", 4)
 		}
-		fmt.Fprintf(w, "TARGET  %s at the terminals %s %s, %s included\n", eng(float64(res.Required), "H", 3), at, tol, leads)
+		fmt.Fprintf(w, "TARGET  %s at the terminals %s %s, %s included\n", quantity.FormatEng(float64(res.Required), "H", 3), at, tol, leads)
 	}
 	var limits []string
 	if so.MaxLength > 0 {
@@ -421,7 +422,7 @@ func writeDesignTable(w io.Writer, cat *forms.Catalog, so *designSearchOptions, 
 			p := c.Prediction
 			g := p.Geometry
 			fmt.Fprintf(w, "  Q %4.0f  %s long × %s across  %s turns of %s on %s\n", p.Q,
-				lf.fmt(float64(p.WindingLength)), lf.fmt(float64(p.OutsideDiameter)), fmtTurns(g.Turns), c.Wire.Name, c.Support.Name)
+				lf.fmt(float64(p.WindingLength)), lf.fmt(float64(p.OutsideDiameter)), quantity.FormatTurns(g.Turns), c.Wire.Name, c.Support.Name)
 		}
 	}
 	fmt.Fprintln(w)
@@ -438,16 +439,16 @@ func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c d
 	if c.Support.OnFormer {
 		how = "stays on the former"
 	}
-	fmt.Fprintf(w, "#%d  %s turns of %s on %s (%s)\n", rank, fmtTurns(g.Turns), describeWire(spec, lf), c.Support.Name, how)
+	fmt.Fprintf(w, "#%d  %s turns of %s on %s (%s)\n", rank, quantity.FormatTurns(g.Turns), describeWire(spec, lf), c.Support.Name, how)
 	overall := float64(g.OverallDiameter())
 	build := fmt.Sprintf("pitch %s (%.2f × wire), outside length %s, bore %s, outside %s, wire to cut %s",
 		lf.fmt(float64(g.Pitch)), float64(g.Pitch)/overall, lf.fmt(float64(p.WindingLength)),
 		lf.fmt(float64(p.InsideDiameter)), lf.fmt(float64(p.OutsideDiameter)), lf.FormatCut(float64(p.WireLength)))
 	switch c.SpringbackSource {
 	case "calibration":
-		build += fmt.Sprintf("; springback %s from your calibration (%s)", pct(g.Springback), c.Support.SpringbackNote)
+		build += fmt.Sprintf("; springback %s from your calibration (%s)", quantity.FormatPercent(g.Springback), c.Support.SpringbackNote)
 	case "support":
-		build += fmt.Sprintf("; springback %s (given)", pct(g.Springback))
+		build += fmt.Sprintf("; springback %s (given)", quantity.FormatPercent(g.Springback))
 	case "none":
 		build += "; springback 0 % assumed"
 	}
@@ -455,14 +456,14 @@ func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c d
 	f := float64(res.Frequency)
 	if f > 0 {
 		fmt.Fprintf(w, "    L %s at the terminals, %s effective at %s; Q %.0f (likely %.0f … %.0f); SRF %s (%.1f × f)\n",
-			eng(float64(p.Inductance), "H", 3), eng(float64(p.InductanceEffective), "H", 3), eng(f, "Hz", 4),
-			p.Q, p.QMin, p.QMax, eng(float64(p.SRF), "Hz", 3), float64(p.SRF)/f)
+			quantity.FormatEng(float64(p.Inductance), "H", 3), quantity.FormatEng(float64(p.InductanceEffective), "H", 3), quantity.FormatEng(f, "Hz", 4),
+			p.Q, p.QMin, p.QMax, quantity.FormatEng(float64(p.SRF), "Hz", 3), float64(p.SRF)/f)
 	} else {
-		fmt.Fprintf(w, "    L %s at the terminals (low frequency); SRF %s\n", eng(float64(p.Inductance), "H", 3), eng(float64(p.SRF), "Hz", 3))
+		fmt.Fprintf(w, "    L %s at the terminals (low frequency); SRF %s\n", quantity.FormatEng(float64(p.Inductance), "H", 3), quantity.FormatEng(float64(p.SRF), "Hz", 3))
 	}
-	trim := fmt.Sprintf("trim: %s close-wound … %s spread to 3 × wire", eng(float64(c.TrimMax), "H", 3), eng(float64(c.TrimMin), "H", 3))
+	trim := fmt.Sprintf("trim: %s close-wound … %s spread to 3 × wire", quantity.FormatEng(float64(c.TrimMax), "H", 3), quantity.FormatEng(float64(c.TrimMin), "H", 3))
 	if res.Effective && c.TuneLow > 0 && c.TuneHigh > 0 {
-		trim += fmt.Sprintf(" (resonance %s … %s)", eng(float64(c.TuneLow), "Hz", 4), eng(float64(c.TuneHigh), "Hz", 4))
+		trim += fmt.Sprintf(" (resonance %s … %s)", quantity.FormatEng(float64(c.TuneLow), "Hz", 4), quantity.FormatEng(float64(c.TuneHigh), "Hz", 4))
 	}
 	if c.TrimLengthPerPercent > 0 {
 		trim += fmt.Sprintf("; %s of length per 1 %% of L", lf.fmt(float64(c.TrimLengthPerPercent)))

@@ -20,6 +20,7 @@ import (
 	"fmt"
 	"math"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 
@@ -158,7 +159,7 @@ func designConstraints(cat *forms.Catalog, o *designSearchOptions) (design.Const
 // designSupports lists the mandrels and formers the search may use.
 func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]design.Support, error) {
 	if sb := o.Springback; sb != nil && !(*sb >= coil.MinSpringback && *sb <= coil.MaxSpringback) {
-		return nil, &flagError{"springback", fmt.Errorf("%s is outside %s … %s", pct(*sb), pct(coil.MinSpringback), pct(coil.MaxSpringback))}
+		return nil, &flagError{"springback", fmt.Errorf("%s is outside %s … %s", quantity.FormatPercent(*sb), quantity.FormatPercent(coil.MinSpringback), quantity.FormatPercent(coil.MaxSpringback))}
 	}
 	kind := o.Support
 	switch kind {
@@ -359,7 +360,7 @@ func designError(err error) error {
 
 // parseWireSize reads a bare diameter or a gauge for --min-wire/--max-wire.
 func parseWireSize(s string) (unit.Length, error) {
-	if d, err := forms.ParseLength(s); err == nil {
+	if d, err := quantity.ParseLength(s); err == nil {
 		return d, nil
 	}
 	w, ok, err := forms.ParseGauge(s)

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"turnwise/internal/quantity"
 
 	"turnwise/coil"
 	"turnwise/forms"
@@ -61,7 +62,7 @@ func exitCode(err error) int {
 		fe *flagError
 		ie *coil.InputError
 		pe *forms.ParseError
-		qe *forms.QuantityError
+		qe *quantity.Error
 	)
 	switch {
 	case errors.Is(err, coil.ErrInfeasible):

@@ -3,11 +3,10 @@ package main
 import (
 	"fmt"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 	"gonum.org/v1/gonum/unit"
-
-	"turnwise/forms"
 )
 
 // Quantity flags: each keeps what the user typed (for messages) and the
@@ -22,7 +21,7 @@ type lengthFlag struct {
 func (f *lengthFlag) String() string { return f.raw }
 func (f *lengthFlag) Type() string   { return "length" }
 func (f *lengthFlag) Set(s string) error {
-	v, err := forms.ParseLength(s)
+	v, err := quantity.ParseLength(s)
 	if err != nil {
 		return err
 	}
@@ -39,7 +38,7 @@ type frequencyFlag struct {
 func (f *frequencyFlag) String() string { return f.raw }
 func (f *frequencyFlag) Type() string   { return "frequency" }
 func (f *frequencyFlag) Set(s string) error {
-	v, err := forms.ParseFrequency(s)
+	v, err := quantity.ParseFrequency(s)
 	if err != nil {
 		return err
 	}
@@ -56,7 +55,7 @@ type inductanceFlag struct {
 func (f *inductanceFlag) String() string { return f.raw }
 func (f *inductanceFlag) Type() string   { return "inductance" }
 func (f *inductanceFlag) Set(s string) error {
-	v, err := forms.ParseInductance(s)
+	v, err := quantity.ParseInductance(s)
 	if err != nil {
 		return err
 	}
@@ -73,7 +72,7 @@ type capacitanceFlag struct {
 func (f *capacitanceFlag) String() string { return f.raw }
 func (f *capacitanceFlag) Type() string   { return "capacitance" }
 func (f *capacitanceFlag) Set(s string) error {
-	v, err := forms.ParseCapacitance(s)
+	v, err := quantity.ParseCapacitance(s)
 	if err != nil {
 		return err
 	}
@@ -90,7 +89,7 @@ type percentFlag struct {
 func (f *percentFlag) String() string { return f.raw }
 func (f *percentFlag) Type() string   { return "percent" }
 func (f *percentFlag) Set(s string) error {
-	v, err := forms.ParsePercent(s)
+	v, err := quantity.ParsePercent(s)
 	if err != nil {
 		return err
 	}
@@ -107,7 +106,7 @@ type temperatureFlag struct {
 func (f *temperatureFlag) String() string { return f.raw }
 func (f *temperatureFlag) Type() string   { return "temperature" }
 func (f *temperatureFlag) Set(s string) error {
-	v, err := forms.ParseTemperature(s)
+	v, err := quantity.ParseTemperature(s)
 	if err != nil {
 		return err
 	}

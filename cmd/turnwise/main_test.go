@@ -306,7 +306,9 @@ func TestImportDirection(t *testing.T) {
 
 // importViolations applies the import rule to one library package, given
 // its direct imports and all its dependencies:
-//   - coil imports the standard library and gonum only;
+//   - coil imports the standard library, gonum and the leaf
+//     internal/quantity (number printing) only;
+//   - internal/quantity imports the standard library and gonum/unit only;
 //   - coil and every package under it never reach forms, sheets, cmd,
 //     cobra (or pflag), gofpdf or the TOML reader;
 //   - forms never reaches coil (or a package under it), sheets or cmd;
@@ -317,8 +319,16 @@ func importViolations(pkg string, imports, deps []string) []string {
 	if pkg == "turnwise/coil" {
 		for _, imp := range imports {
 			std := !strings.Contains(strings.SplitN(imp, "/", 2)[0], ".") && !under(imp, "turnwise")
-			if !std && !under(imp, "gonum.org/v1/gonum") {
-				bad = append(bad, fmt.Sprintf("%s imports %s: coil imports the standard library and gonum only", pkg, imp))
+			if !std && !under(imp, "gonum.org/v1/gonum") && imp != "turnwise/internal/quantity" {
+				bad = append(bad, fmt.Sprintf("%s imports %s: coil imports the standard library, gonum and internal/quantity only", pkg, imp))
+			}
+		}
+	}
+	if pkg == "turnwise/internal/quantity" {
+		for _, imp := range imports {
+			std := !strings.Contains(strings.SplitN(imp, "/", 2)[0], ".") && !under(imp, "turnwise")
+			if !std && imp != "gonum.org/v1/gonum/unit" {
+				bad = append(bad, fmt.Sprintf("%s imports %s: internal/quantity is a leaf (standard library and gonum/unit only)", pkg, imp))
 			}
 		}
 	}

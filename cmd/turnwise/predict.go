@@ -7,6 +7,7 @@ import (
 	"io"
 	"strings"
 	"text/tabwriter"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 
@@ -132,22 +133,22 @@ func writePredictTable(w io.Writer, s coilSpec, p coil.Prediction, rec coilRecor
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
-	fmt.Fprintf(tw, "%s turns of %s on %s (%s)\n\n", fmtTurns(g.Turns), describeWire(s, lf), s.SupportName,
+	fmt.Fprintf(tw, "%s turns of %s on %s (%s)\n\n", quantity.FormatTurns(g.Turns), describeWire(s, lf), s.SupportName,
 		map[string]string{"mandrel": "slide off: self-supporting", "former": "stays on the former"}[s.SupportKind])
 
 	fmt.Fprintln(tw, "BUILD")
 	row("wind on", lf.fmt(float64(g.FormerDiameter))+" "+s.SupportKind)
 	switch s.SpringbackSource {
 	case "given":
-		row("springback", pct(g.Springback)+" (given)")
+		row("springback", quantity.FormatPercent(g.Springback)+" (given)")
 	case "calibration":
-		row("springback", pct(g.Springback)+" (your saved calibration: "+s.SpringbackNote+")")
+		row("springback", quantity.FormatPercent(g.Springback)+" (your saved calibration: "+s.SpringbackNote+")")
 	default:
 		if s.SupportKind == "mandrel" {
 			row("springback", "0 % assumed: measure the bore after release, or run `turnwise trim --save` once")
 		}
 	}
-	row("turns", fmtTurns(g.Turns))
+	row("turns", quantity.FormatTurns(g.Turns))
 	pitchNote := ""
 	if s.PitchSource == "close-wound" {
 		pitchNote = ", close-wound"
@@ -162,14 +163,14 @@ func writePredictTable(w io.Writer, s coilSpec, p coil.Prediction, rec coilRecor
 	f := float64(p.Frequency)
 	fmt.Fprintln(tw, "\nINDUCTANCE")
 	if f > 0 {
-		row("at the terminals, "+eng(f, "Hz", 4), fmt.Sprintf("%s  (coil %s + leads %s)", eng(float64(p.Inductance), "H", 3), eng(float64(p.InductanceCoilAtF), "H", 3), eng(float64(p.InductanceLeads), "H", 3)))
-		row("effective at "+eng(f, "Hz", 4), eng(float64(p.InductanceEffective), "H", 3)+"  (what a meter at f sees: self-capacitance included)")
-		row("coil alone, low frequency", eng(float64(p.InductanceCoil), "H", 3)+fmt.Sprintf("  (skin effect removes %s at f)", eng(float64(p.InductanceCoil-p.InductanceCoilAtF), "H", 2)))
+		row("at the terminals, "+quantity.FormatEng(f, "Hz", 4), fmt.Sprintf("%s  (coil %s + leads %s)", quantity.FormatEng(float64(p.Inductance), "H", 3), quantity.FormatEng(float64(p.InductanceCoilAtF), "H", 3), quantity.FormatEng(float64(p.InductanceLeads), "H", 3)))
+		row("effective at "+quantity.FormatEng(f, "Hz", 4), quantity.FormatEng(float64(p.InductanceEffective), "H", 3)+"  (what a meter at f sees: self-capacitance included)")
+		row("coil alone, low frequency", quantity.FormatEng(float64(p.InductanceCoil), "H", 3)+fmt.Sprintf("  (skin effect removes %s at f)", quantity.FormatEng(float64(p.InductanceCoil-p.InductanceCoilAtF), "H", 2)))
 	} else {
-		row("at the terminals, low frequency", fmt.Sprintf("%s  (coil %s + leads %s)", eng(float64(p.Inductance), "H", 3), eng(float64(p.InductanceCoil), "H", 3), eng(float64(p.InductanceLeads), "H", 3)))
+		row("at the terminals, low frequency", fmt.Sprintf("%s  (coil %s + leads %s)", quantity.FormatEng(float64(p.Inductance), "H", 3), quantity.FormatEng(float64(p.InductanceCoil), "H", 3), quantity.FormatEng(float64(p.InductanceLeads), "H", 3)))
 	}
-	row("current sheet (Nagaoka)", fmt.Sprintf("%s  (K = %.4f)", eng(float64(p.InductanceSheet), "H", 4), p.Nagaoka))
-	wh := eng(float64(p.InductanceWheeler), "H", 3)
+	row("current sheet (Nagaoka)", fmt.Sprintf("%s  (K = %.4f)", quantity.FormatEng(float64(p.InductanceSheet), "H", 4), p.Nagaoka))
+	wh := quantity.FormatEng(float64(p.InductanceWheeler), "H", 3)
 	if !p.WheelerValid {
 		wh += "  (outside Wheeler's range: coil shorter than 0.8 × radius)"
 	}
@@ -179,15 +180,15 @@ func writePredictTable(w io.Writer, s coilSpec, p coil.Prediction, rec coilRecor
 	}
 
 	fmt.Fprintln(tw, "\nSELF-RESONANCE (one end grounded)")
-	row("self-capacitance", farads(float64(p.SelfCapacitance))+" (Medhurst)")
-	row("SRF", fmt.Sprintf("%s  (Medhurst; a full-wave check puts it at %s … %s)", eng(float64(p.SRF), "Hz", 3), eng(float64(p.SRFMin), "Hz", 3), eng(float64(p.SRFMax), "Hz", 3)))
-	row("floating at both ends", fmt.Sprintf("%s … %s", eng(float64(p.SRFFloatingMin), "Hz", 3), eng(float64(p.SRFFloatingMax), "Hz", 3)))
+	row("self-capacitance", quantity.FormatCapacitance(float64(p.SelfCapacitance))+" (Medhurst)")
+	row("SRF", fmt.Sprintf("%s  (Medhurst; a full-wave check puts it at %s … %s)", quantity.FormatEng(float64(p.SRF), "Hz", 3), quantity.FormatEng(float64(p.SRFMin), "Hz", 3), quantity.FormatEng(float64(p.SRFMax), "Hz", 3)))
+	row("floating at both ends", fmt.Sprintf("%s … %s", quantity.FormatEng(float64(p.SRFFloatingMin), "Hz", 3), quantity.FormatEng(float64(p.SRFFloatingMax), "Hz", 3)))
 
 	if f > 0 {
-		fmt.Fprintf(tw, "\nLOSS AT %s\n", eng(f, "Hz", 4))
-		row("R dc", eng(float64(p.RDC), "Ω", 3))
+		fmt.Fprintf(tw, "\nLOSS AT %s\n", quantity.FormatEng(f, "Hz", 4))
+		row("R dc", quantity.FormatEng(float64(p.RDC), "Ω", 3))
 		row("skin depth", lf.fmt(float64(p.SkinDepth)))
-		row("R ac", fmt.Sprintf("%s  (skin × %.2f, proximity × %.2f)", eng(float64(p.RAC), "Ω", 3), p.SkinFactor, p.ProximityFactor))
+		row("R ac", fmt.Sprintf("%s  (skin × %.2f, proximity × %.2f)", quantity.FormatEng(float64(p.RAC), "Ω", 3), p.SkinFactor, p.ProximityFactor))
 		row("Q", fmt.Sprintf("%.0f  (likely %.0f … %.0f; an estimate, measure it)", p.Q, p.QMin, p.QMax))
 	}
 	return tw.Flush()

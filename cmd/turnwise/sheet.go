@@ -10,6 +10,7 @@ import (
 	"path/filepath"
 	"strings"
 	"time"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 
@@ -325,7 +326,7 @@ func jobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf leng
 			if math.Abs(miss) >= 0.1 {
 				off = fmt.Sprintf("%+.0f %%", miss*100)
 				c.Warnings = append(c.Warnings, fmt.Sprintf("tap-ratio %.3g: the nearest quarter-turn tap, at turn %s from the cold end, gives %.3g (%s); change the turns or the pitch to come closer",
-					*t.Ratio, strings.TrimPrefix(fmtTurns(s.TapTurns), "0"), s.Ratio, off))
+					*t.Ratio, strings.TrimPrefix(quantity.FormatTurns(s.TapTurns), "0"), s.Ratio, off))
 			}
 			c.Tap.Purpose = fmt.Sprintf("This is the quarter turn nearest the voltage ratio %.3g asked for (%s).", *t.Ratio, off)
 		}
@@ -487,15 +488,15 @@ func targetDescription(jc *forms.JobCoil, res design.Result) string {
 	t := jc.Target
 	tol := fmt.Sprintf(", L within ± %.3g %%", res.Tolerance*100)
 	if t.Cap != nil {
-		c := farads(float64(*t.Cap))
+		c := quantity.FormatCapacitance(float64(*t.Cap))
 		if t.Stray != nil && *t.Stray > 0 {
-			c += " + " + farads(float64(*t.Stray)) + " stray"
+			c += " + " + quantity.FormatCapacitance(float64(*t.Stray)) + " stray"
 		}
-		return fmt.Sprintf("resonate with %s at %s%s", c, eng(float64(*jc.Winding.Freq), "Hz", 4), tol)
+		return fmt.Sprintf("resonate with %s at %s%s", c, quantity.FormatEng(float64(*jc.Winding.Freq), "Hz", 4), tol)
 	}
-	d := eng(float64(*t.Inductance), "H", 3) + " at the terminals"
+	d := quantity.FormatEng(float64(*t.Inductance), "H", 3) + " at the terminals"
 	if jc.Winding.Freq != nil {
-		d += " at " + eng(float64(*jc.Winding.Freq), "Hz", 4)
+		d += " at " + quantity.FormatEng(float64(*jc.Winding.Freq), "Hz", 4)
 	}
 	return d + tol
 }

@@ -12,6 +12,7 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/pflag"
 
@@ -157,8 +158,8 @@ func TestSheetMatchesPredict(t *testing.T) {
 					}
 				}
 			}
-			if !strings.Contains(text, fmtTurns(js["turns"].(float64))+" turns of ") {
-				t.Errorf("page %d does not say %s turns", page, fmtTurns(js["turns"].(float64)))
+			if !strings.Contains(text, quantity.FormatTurns(js["turns"].(float64))+" turns of ") {
+				t.Errorf("page %d does not say %s turns", page, quantity.FormatTurns(js["turns"].(float64)))
 			}
 		})
 		page++

@@ -18,6 +18,7 @@ import (
 	"os"
 	"strings"
 	"text/tabwriter"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 	"gonum.org/v1/gonum/unit"
@@ -330,7 +331,7 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 // dialPct prints a dial setting as a builder reads the scale.
 func dialPct(x float64) string { return fmt.Sprintf("%.1f %%", x*100) }
 
-func hz(f unit.Frequency) string { return eng(float64(f), "Hz", 4) }
+func hz(f unit.Frequency) string { return quantity.FormatEng(float64(f), "Hz", 4) }
 
 func describeLaw(a tuning.GangSection) string {
 	switch a.Law {
@@ -345,15 +346,15 @@ func describeLaw(a tuning.GangSection) string {
 }
 
 func describeGang(a tuning.GangSection) string {
-	s := fmt.Sprintf("%s–%s", farads(float64(a.Min)), farads(float64(a.Max)))
+	s := fmt.Sprintf("%s–%s", quantity.FormatCapacitance(float64(a.Min)), quantity.FormatCapacitance(float64(a.Max)))
 	if a.Min == a.Max {
-		s = farads(float64(a.Min)) + " fixed"
+		s = quantity.FormatCapacitance(float64(a.Min)) + " fixed"
 	}
 	if a.Trimmer > 0 {
-		s += " + trimmer " + farads(float64(a.Trimmer))
+		s += " + trimmer " + quantity.FormatCapacitance(float64(a.Trimmer))
 	}
 	if a.Stray > 0 {
-		s += " + stray " + farads(float64(a.Stray))
+		s += " + stray " + quantity.FormatCapacitance(float64(a.Stray))
 	}
 	return s
 }
@@ -370,7 +371,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
 	fmt.Fprintf(tw, "%s of %s on %s, pitch %s, tapped %s from the cold end\n\n",
-		turnsWord(g.Turns), describeWire(s, lf), s.SupportName, lf.fmt(float64(g.Pitch)), turnsWord(sec.TapTurns))
+		quantity.FormatTurnsWord(g.Turns), describeWire(s, lf), s.SupportName, lf.fmt(float64(g.Pitch)), quantity.FormatTurnsWord(sec.TapTurns))
 
 	if p := out.Plan; p != nil {
 		fmt.Fprintln(tw, "TAP CHOICE")
@@ -378,7 +379,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		if !p.Feasible {
 			verdict = "no tap meets every requirement: this is the best compromise"
 		}
-		row("chosen tap", fmt.Sprintf("%s from the cold end (%s)", turnsWord(p.TapTurns), verdict))
+		row("chosen tap", fmt.Sprintf("%s from the cold end (%s)", quantity.FormatTurnsWord(p.TapTurns), verdict))
 		if set.VaryPitch {
 			row("chosen pitch", fmt.Sprintf("%s, outside length %s (you asked for %s)", lf.fmt(float64(p.Geometry.Pitch)), lf.fmt(float64(p.Geometry.WindingLength())), lf.fmt(float64(s.Geometry.Pitch))))
 		}
@@ -402,17 +403,17 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 	fmt.Fprintln(tw, "CIRCUIT")
 	row("section A", describeGang(a)+", "+describeLaw(a)+": top of the coil to ground")
 	row("section B", describeGang(b)+", "+describeLaw(b)+": tap to ground")
-	row("coil self-capacitance", farads(float64(sp.SelfCapacitance))+" across the whole coil (Medhurst)")
+	row("coil self-capacitance", quantity.FormatCapacitance(float64(sp.SelfCapacitance))+" across the whole coil (Medhurst)")
 	fmt.Fprintln(tw, "\nTAP")
 	row("where", fmt.Sprintf("%s up from the cold (grounded) end, %s along the coil from where the winding starts",
-		turnsWord(sec.TapTurns), lf.fmt(float64(sec.TapPosition))))
+		quantity.FormatTurnsWord(sec.TapTurns), lf.fmt(float64(sec.TapPosition))))
 	at := "low frequency"
 	if sec.Frequency > 0 {
 		at = hz(sec.Frequency)
 	}
-	row("L whole coil", eng(float64(sec.L), "H", 3)+" at "+at+", leads included")
-	row("L below / above the tap", eng(float64(sec.LB), "H", 3)+" / "+eng(float64(sec.LA), "H", 3)+" (cold lead below, hot lead above)")
-	row("mutual M, coupling k", fmt.Sprintf("%s, %.3f", eng(float64(sec.M), "H", 3), sec.K))
+	row("L whole coil", quantity.FormatEng(float64(sec.L), "H", 3)+" at "+at+", leads included")
+	row("L below / above the tap", quantity.FormatEng(float64(sec.LB), "H", 3)+" / "+quantity.FormatEng(float64(sec.LA), "H", 3)+" (cold lead below, hot lead above)")
+	row("mutual M, coupling k", fmt.Sprintf("%s, %.3f", quantity.FormatEng(float64(sec.M), "H", 3), sec.K))
 	row("voltage at the tap", fmt.Sprintf("%.3f of the voltage across the coil (unloaded)", sec.Ratio))
 
 	fmt.Fprintln(tw, "\nDIAL (0 % = plates fully open, 100 % = fully meshed)")
@@ -422,7 +423,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 		if r.FHigh > 0 {
 			high = hz(r.FHigh)
 		}
-		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\n", dialPct(r.Setting), farads(float64(r.CA)), farads(float64(r.CB)), hz(r.FLow), high)
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\n", dialPct(r.Setting), quantity.FormatCapacitance(float64(r.CA)), quantity.FormatCapacitance(float64(r.CB)), hz(r.FLow), high)
 	}
 
 	fmt.Fprintln(tw, "\nRANGES")
@@ -502,7 +503,7 @@ func writeSpanTable(w io.Writer, s coilSpec, set spanSettings, out spanOutcome, 
 }
 
 func bandName(b tuning.Band) string {
-	r := fmt.Sprintf("%s–%s", strings.TrimSuffix(eng(float64(b.Low), "Hz", 4), " MHz"), hz(b.High))
+	r := fmt.Sprintf("%s–%s", strings.TrimSuffix(quantity.FormatEng(float64(b.Low), "Hz", 4), " MHz"), hz(b.High))
 	if b.Low < 1e6 || b.High < 1e6 {
 		r = hz(b.Low) + "–" + hz(b.High)
 	}
@@ -758,7 +759,7 @@ func writeSpanChart(w io.Writer, sp tuning.Span) error {
 		f := math.Exp(hi - float64(r)/(height-1)*(hi-lo))
 		label := ""
 		if r%3 == 0 || r == height-1 {
-			label = eng(f, "Hz", 3)
+			label = quantity.FormatEng(f, "Hz", 3)
 			labelled[r] = true
 		}
 		if _, err := fmt.Fprintf(w, "%10s |%s\n", label, string(grid[r])); err != nil {

@@ -7,6 +7,7 @@ import (
 	"io"
 	"strings"
 	"text/tabwriter"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 
@@ -151,7 +152,7 @@ func runStock(_ context.Context, opts *stockCmdOptions, stdout io.Writer) error 
 	if want("calibration") && len(cat.Calibrations) > 0 {
 		fmt.Fprintln(tw, "CALIBRATION\twire\tspringback\tnote")
 		for _, c := range cat.Calibrations {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", c.Mandrel, c.Wire, pct(c.Springback), c.Note)
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", c.Mandrel, c.Wire, quantity.FormatPercent(c.Springback), c.Note)
 		}
 	}
 	return tw.Flush()

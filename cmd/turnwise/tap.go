@@ -10,11 +10,11 @@ import (
 	"strconv"
 	"strings"
 	"text/tabwriter"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 
 	"turnwise/coil"
-	"turnwise/forms"
 )
 
 // ratioFlag takes a ratio as a fraction (0.2), a percentage (20%) or
@@ -51,7 +51,7 @@ func parseRatio(s string) (float64, error) {
 		}
 		v = x / y
 	case strings.HasSuffix(t, "%"):
-		p, err := forms.ParsePercent(t)
+		p, err := quantity.ParsePercent(t)
 		if err != nil {
 			return 0, bad
 		}
@@ -220,7 +220,7 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 	if goalKey != "at" && findErr == nil && len(choices) == 1 && math.Abs(choices[0].Error) > 0.05 {
 		end := choices[0]
 		rec.Warnings = append(rec.Warnings, fmt.Sprintf("no quarter-turn tap on the winding reaches the target: the nearest, %s from the cold end, gives %s; for a finer tap near that end use more turns",
-			turnsWord(end.TapTurns), tapGoalValue(goal, end.Achieved)))
+			quantity.FormatTurnsWord(end.TapTurns), tapGoalValue(goal, end.Achieved)))
 	}
 	if g.Turns < 4 && goalKey != "at" {
 		rec.Warnings = append(rec.Warnings, "a coil this short has few tap positions: a quarter turn moves the ratio a lot; consider more turns")
@@ -265,15 +265,15 @@ func writeTapTable(w io.Writer, s coilSpec, p coil.Prediction, goal coil.TapGoal
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	at := "low frequency"
 	if p.Frequency > 0 {
-		at = eng(float64(p.Frequency), "Hz", 4)
+		at = quantity.FormatEng(float64(p.Frequency), "Hz", 4)
 	}
 	fmt.Fprintf(tw, "%s turns of %s on %s, pitch %s: %s at the terminals (%s, leads included)\n\n",
-		fmtTurns(g.Turns), describeWire(s, lf), s.SupportName, lf.fmt(float64(g.Pitch)), eng(float64(choices[0].L), "H", 3), at)
+		quantity.FormatTurns(g.Turns), describeWire(s, lf), s.SupportName, lf.fmt(float64(g.Pitch)), quantity.FormatEng(float64(choices[0].L), "H", 3), at)
 	switch goalKey {
 	case "at":
-		fmt.Fprintf(tw, "TAP AT %s TURNS FROM THE COLD END\n", fmtTurns(target))
+		fmt.Fprintf(tw, "TAP AT %s TURNS FROM THE COLD END\n", quantity.FormatTurns(target))
 	case "bottom_inductance":
-		fmt.Fprintf(tw, "TAP FOR %s BELOW THE TAP (nearest quarter turns)\n", eng(target, "H", 3))
+		fmt.Fprintf(tw, "TAP FOR %s BELOW THE TAP (nearest quarter turns)\n", quantity.FormatEng(target, "H", 3))
 	case "impedance_ratio":
 		fmt.Fprintf(tw, "TAP FOR AN IMPEDANCE RATIO OF %.4g (1:%.4g; nearest quarter turns)\n", target, 1/target)
 	default:
@@ -286,8 +286,8 @@ func writeTapTable(w io.Writer, s coilSpec, p coil.Prediction, goal coil.TapGoal
 	fmt.Fprintln(tw, header)
 	for _, c := range choices {
 		line := fmt.Sprintf("  %s\t%s\t%s\t%s\t%s\t%.3f\t%s\t%s",
-			turnsWord(c.TapTurns), lf.fmt(float64(c.TapPosition)), eng(float64(c.LB), "H", 3), eng(float64(c.LA), "H", 3),
-			eng(float64(c.M), "H", 3), c.K, ratioCell("%.4f", c.Ratio), ratioCell("%.4g", c.ImpedanceRatio()))
+			quantity.FormatTurnsWord(c.TapTurns), lf.fmt(float64(c.TapPosition)), quantity.FormatEng(float64(c.LB), "H", 3), quantity.FormatEng(float64(c.LA), "H", 3),
+			quantity.FormatEng(float64(c.M), "H", 3), c.K, ratioCell("%.4f", c.Ratio), ratioCell("%.4g", c.ImpedanceRatio()))
 		if goalKey != "at" {
 			line += "\t" + missCell(c.Error)
 		}
@@ -296,7 +296,7 @@ func writeTapTable(w io.Writer, s coilSpec, p coil.Prediction, goal coil.TapGoal
 	best := choices[0]
 	fmt.Fprintln(tw, "\nHOW TO PLACE IT")
 	fmt.Fprintf(tw, "  count %s up from the cold (grounded) end and solder the tap there: %s along the axis from the centre of the wire where the winding starts\n",
-		turnsWord(best.TapTurns), lf.fmt(float64(best.TapPosition)))
+		quantity.FormatTurnsWord(best.TapTurns), lf.fmt(float64(best.TapPosition)))
 	fmt.Fprintf(tw, "  turns ratio alone would say %.3f; the coupled sections give %.3f\n", best.TapTurns/g.Turns, best.Ratio)
 	fmt.Fprintln(tw, "\nNOTES")
 	fmt.Fprintln(tw, "  the cold lead is counted below the tap and the hot lead above it; the tap wire is not modelled: keep it short")
@@ -329,7 +329,7 @@ func missCell(e float64) string {
 // inductance.
 func tapGoalValue(goal coil.TapGoal, v float64) string {
 	if goal == coil.GoalBottomInductance {
-		return eng(v, "H", 3) + " below the tap"
+		return quantity.FormatEng(v, "H", 3) + " below the tap"
 	}
 	return fmt.Sprintf("%s %.4g (1:%.3g)", goal, v, 1/v)
 }

@@ -8,6 +8,7 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
+	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 	"gonum.org/v1/gonum/unit"
@@ -542,11 +543,11 @@ type targetFlag struct {
 func (f *targetFlag) String() string { return f.raw }
 func (f *targetFlag) Type() string   { return "L|F" }
 func (f *targetFlag) Set(s string) error {
-	if l, err := forms.ParseInductance(s); err == nil {
+	if l, err := quantity.ParseInductance(s); err == nil {
 		*f = targetFlag{raw: s, l: l, set: true}
 		return nil
 	}
-	if fr, err := forms.ParseFrequency(s); err == nil {
+	if fr, err := quantity.ParseFrequency(s); err == nil {
 		*f = targetFlag{raw: s, f: fr, isFreq: true, set: true}
 		return nil
 	}
@@ -566,11 +567,11 @@ func (f *resonanceListFlag) Set(s string) error {
 	if !ok {
 		return fmt.Errorf("%q: write a resonance and its capacitor as F@C, e.g. 9.81MHz@100pF", s)
 	}
-	fr, err := forms.ParseFrequency(strings.TrimSpace(fs))
+	fr, err := quantity.ParseFrequency(strings.TrimSpace(fs))
 	if err != nil {
 		return fmt.Errorf("%q: %w", s, err)
 	}
-	c, err := forms.ParseCapacitance(strings.TrimSpace(cs))
+	c, err := quantity.ParseCapacitance(strings.TrimSpace(cs))
 	if err != nil {
 		return fmt.Errorf("%q: %w", s, err)
 	}
@@ -591,14 +592,14 @@ func (f *capTolFlag) Type() string   { return "percent|C" }
 func (f *capTolFlag) Set(s string) error {
 	t := strings.TrimSpace(s)
 	if strings.HasSuffix(strings.ToLower(t), "f") {
-		c, err := forms.ParseCapacitance(t)
+		c, err := quantity.ParseCapacitance(t)
 		if err != nil {
 			return err
 		}
 		*f = capTolFlag{raw: s, abs: float64(c)}
 		return nil
 	}
-	v, err := forms.ParsePercent(t)
+	v, err := quantity.ParsePercent(t)
 	if err != nil {
 		return err
 	}

@@ -7,6 +7,7 @@ import (
 	"math"
 	"strings"
 	"text/tabwriter"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 
@@ -43,28 +44,28 @@ func sbPct(s float64) string {
 // intercept) in the same unit as its positive neighbours.
 func signedFarads(c float64) string {
 	if c < 0 {
-		return "−" + farads(-c)
+		return "−" + quantity.FormatCapacitance(-c)
 	}
-	return farads(c)
+	return quantity.FormatCapacitance(c)
 }
 
 // quarterTurns prints a turns difference: "¼ turn", "1½ turns".
-func quarterTurns(d float64) string { return turnsWord(math.Abs(d)) }
+func quarterTurns(d float64) string { return quantity.FormatTurnsWord(math.Abs(d)) }
 
 // expectText is the predicted value after the change, in the target's terms.
 func expectText(res *trimResult) string {
 	c := res.Correction
 	if res.Aim.Source == trim.TargetResonance && res.AfterResonance > 0 {
-		return fmt.Sprintf("resonance at %s", eng(float64(res.AfterResonance), "Hz", 4))
+		return fmt.Sprintf("resonance at %s", quantity.FormatEng(float64(res.AfterResonance), "Hz", 4))
 	}
 	// Three figures, but at least one decimal: "131 nH" for 130.6 nH would
 	// read as a 0.8 % miss of a 130 nH target that the 0.5 % rounding met.
-	after := eng(float64(c.After), "H", 3)
+	after := quantity.FormatEng(float64(c.After), "H", 3)
 	if !strings.Contains(after, ".") {
-		after = eng(float64(c.After), "H", 4)
+		after = quantity.FormatEng(float64(c.After), "H", 4)
 	}
 	if f := res.Target.Frequency; f > 0 {
-		return after + " at " + eng(float64(f), "Hz", 4)
+		return after + " at " + quantity.FormatEng(float64(f), "Hz", 4)
 	}
 	return after
 }
@@ -78,15 +79,15 @@ func trimInstruction(res *trimResult) string {
 	switch c.Action {
 	case trim.ActionNone:
 		if res.OnTarget {
-			s = fmt.Sprintf("leave it: %s is within %s of the target %s", eng(float64(c.Before), "H", 3), pct(res.Tolerance), eng(float64(c.Target), "H", 3))
+			s = fmt.Sprintf("leave it: %s is within %s of the target %s", quantity.FormatEng(float64(c.Before), "H", 3), quantity.FormatPercent(res.Tolerance), quantity.FormatEng(float64(c.Target), "H", 3))
 		} else {
-			s = fmt.Sprintf("leave it: the change is smaller than you can set; %s is %+.1f %% from the target", eng(float64(c.Before), "H", 3), res.Miss*100)
+			s = fmt.Sprintf("leave it: the change is smaller than you can set; %s is %+.1f %% from the target", quantity.FormatEng(float64(c.Before), "H", 3), res.Miss*100)
 		}
 	case trim.ActionSqueeze, trim.ActionSpread:
 		s = fmt.Sprintf("%s from %s to %s outside length; expect %s", c.Action, fmtLenStep(lf, float64(c.LengthBefore), step),
 			fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	case trim.ActionAddTurns:
-		s = fmt.Sprintf("rewind with %s (%s more) at %s outside length; expect %s", turnsWord(c.Geometry.Turns),
+		s = fmt.Sprintf("rewind with %s (%s more) at %s outside length; expect %s", quantity.FormatTurnsWord(c.Geometry.Turns),
 			quarterTurns(c.Geometry.Turns-res.Calibration.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	case trim.ActionRemoveTurns:
 		end := ""
@@ -94,10 +95,10 @@ func trimInstruction(res *trimResult) string {
 			end = " at the hot end" // the tap counts from the cold end
 		}
 		s = fmt.Sprintf("remove %s%s (%s left) and set %s outside length; expect %s", quarterTurns(res.Calibration.Geometry.Turns-c.Geometry.Turns), end,
-			turnsWord(c.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
+			quantity.FormatTurnsWord(c.Geometry.Turns), fmtLenStep(lf, float64(c.LengthAfter), step), expectText(res))
 	}
 	if t := res.Tap; t != nil && t.Moves() {
-		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", fmtTurns(t.Turns), turnsWord(t.NewTurns))
+		s += fmt.Sprintf("; move the tap from %s to %s from the cold end", quantity.FormatTurns(t.Turns), quantity.FormatTurnsWord(t.NewTurns))
 	}
 	return s
 }
@@ -107,22 +108,22 @@ func nextText(res *trimResult) string {
 	m, e := res.meas, res.Next
 	switch m.Kind {
 	case trim.MeasureDirect:
-		s := "the meter should read " + eng(float64(e.Inductance), "H", 3)
+		s := "the meter should read " + quantity.FormatEng(float64(e.Inductance), "H", 3)
 		if m.TestFrequency > 0 {
-			s += " at " + eng(float64(m.TestFrequency), "Hz", 3)
+			s += " at " + quantity.FormatEng(float64(m.TestFrequency), "Hz", 3)
 		}
 		if m.FixtureInductance > 0 || m.FixtureLeadLength > 0 {
 			s += " with the same fixture"
 		}
 		return s
 	case trim.MeasureResonance:
-		return fmt.Sprintf("it should resonate at %s with the same %s", eng(float64(e.Resonances[0].Frequency), "Hz", 4), farads(float64(e.Resonances[0].Capacitance)))
+		return fmt.Sprintf("it should resonate at %s with the same %s", quantity.FormatEng(float64(e.Resonances[0].Frequency), "Hz", 4), quantity.FormatCapacitance(float64(e.Resonances[0].Capacitance)))
 	case trim.MeasureInCircuit:
-		return fmt.Sprintf("the circuit should resonate at %s", eng(float64(e.Resonances[0].Frequency), "Hz", 4))
+		return fmt.Sprintf("the circuit should resonate at %s", quantity.FormatEng(float64(e.Resonances[0].Frequency), "Hz", 4))
 	}
 	var parts []string
 	for _, r := range e.Resonances {
-		parts = append(parts, fmt.Sprintf("%s with %s", eng(float64(r.Frequency), "Hz", 4), farads(float64(r.Capacitance))))
+		parts = append(parts, fmt.Sprintf("%s with %s", quantity.FormatEng(float64(r.Frequency), "Hz", 4), quantity.FormatCapacitance(float64(r.Capacitance))))
 	}
 	return "expect " + strings.Join(parts, ", ")
 }
@@ -141,27 +142,27 @@ func trimWarnings(res *trimResult) []string {
 func findingText(res *trimResult, f trim.Finding) string {
 	switch f.Kind {
 	case trim.SpringbackUnusual:
-		return fmt.Sprintf("the fitted springback %s is unusual for wire released from a mandrel (a few percent is typical; common practice): check --turns, --length, --leads and the fixture before trusting or saving it", pct(f.Value))
+		return fmt.Sprintf("the fitted springback %s is unusual for wire released from a mandrel (a few percent is typical; common practice): check --turns, --length, --leads and the fixture before trusting or saving it", quantity.FormatPercent(f.Value))
 	case trim.SpringbackOnFormer:
-		return fmt.Sprintf("a coil left on its former does not spring back: the fitted %s stands for model and measurement error (leads, uneven pitch, fixture); check them before saving it", pct(f.Value))
+		return fmt.Sprintf("a coil left on its former does not spring back: the fitted %s stands for model and measurement error (leads, uneven pitch, fixture); check them before saving it", quantity.FormatPercent(f.Value))
 	case trim.MissWithinUncertainty:
 		return fmt.Sprintf("the coil misses the target by %+.1f %%, less than the measurement's own uncertainty (±%.1f %%): the change may not be needed; measure more precisely first", f.Value*100, f.Limit*100)
 	case trim.NoStray:
 		return "no fixture stray given (--stray): 0 pF assumed; a probe or fixture adds some pF, which matters with a small test capacitor; the two-capacitor method (--resonance twice) measures it"
 	case trim.NegativeStray:
-		return fmt.Sprintf("the capacitance across the coil came out slightly negative (%s ± %s), within the readings' uncertainty: treat it as zero", signedFarads(f.Value), farads(f.Limit))
+		return fmt.Sprintf("the capacitance across the coil came out slightly negative (%s ± %s), within the readings' uncertainty: treat it as zero", signedFarads(f.Value), quantity.FormatCapacitance(f.Limit))
 	case trim.Scatter:
 		return fmt.Sprintf("the resonances scatter by %.2g %% about the fitted line, more than the frequency readings' accuracy: recheck the capacitor values", f.Value*100)
 	case trim.HighReadingFrequency:
 		return fmt.Sprintf("the reading at %s is above a third of the coil's self-resonance (%s): it leans on the self-capacitance estimate; a lower-frequency reading (a larger capacitor) calibrates better",
-			eng(f.Value, "Hz", 3), eng(f.Limit, "Hz", 3))
+			quantity.FormatEng(f.Value, "Hz", 3), quantity.FormatEng(f.Limit, "Hz", 3))
 	case trim.SectionDeparts:
 		name := map[trim.Section]string{trim.Bottom: "bottom (cold end to tap)", trim.Top: "top (tap to hot end)"}[f.Section]
 		return fmt.Sprintf("the %s section reads %+.1f %% against the rest of the coil, more than the readings' uncertainty: its turns are closer or wider than the rest, or the tap is not at %s",
-			name, f.Value*100, turnsWord(res.Tap.Turns))
+			name, f.Value*100, quantity.FormatTurnsWord(res.Tap.Turns))
 	case trim.TapOutOfReach:
 		t := res.Tap
-		return fmt.Sprintf("no quarter-turn tap gives the voltage ratio %.3f: the nearest, %s from the cold end, gives %.3f", t.WantRatio, turnsWord(t.NewTurns), t.RatioAfter)
+		return fmt.Sprintf("no quarter-turn tap gives the voltage ratio %.3f: the nearest, %s from the cold end, gives %.3f", t.WantRatio, quantity.FormatTurnsWord(t.NewTurns), t.RatioAfter)
 	case trim.NewWinding:
 		return fmt.Sprintf("adding turns means winding a new coil: cut %s of wire", res.lf.fmt(f.Value))
 	}
@@ -183,9 +184,9 @@ func kindText(k trim.MeasurementKind) string {
 func senseText(r trim.Reading) string {
 	switch {
 	case r.Kind == trim.MeasureTwoCapacitor:
-		return fmt.Sprintf("at the terminals near %s, self-capacitance separated", eng(float64(r.Frequency), "Hz", 3))
+		return fmt.Sprintf("at the terminals near %s, self-capacitance separated", quantity.FormatEng(float64(r.Frequency), "Hz", 3))
 	case r.Effective:
-		return "effective at " + eng(float64(r.Frequency), "Hz", 4) + ", self-capacitance included"
+		return "effective at " + quantity.FormatEng(float64(r.Frequency), "Hz", 4) + ", self-capacitance included"
 	}
 	return "at the terminals, low frequency"
 }
@@ -193,9 +194,9 @@ func senseText(r trim.Reading) string {
 func targetSenseText(t trim.Target) string {
 	switch {
 	case t.Effective:
-		return "effective at " + eng(float64(t.Frequency), "Hz", 4)
+		return "effective at " + quantity.FormatEng(float64(t.Frequency), "Hz", 4)
 	case t.Frequency > 0:
-		return "at the terminals at " + eng(float64(t.Frequency), "Hz", 4)
+		return "at the terminals at " + quantity.FormatEng(float64(t.Frequency), "Hz", 4)
 	}
 	return "at the terminals, low frequency"
 }
@@ -207,49 +208,49 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
-	fmt.Fprintf(tw, "Trim: %s turns of %s on %s (%s)\n\n", fmtTurns(g.Turns), describeWire(res.tc.spec, lf), res.tc.spec.SupportName,
+	fmt.Fprintf(tw, "Trim: %s turns of %s on %s (%s)\n\n", quantity.FormatTurns(g.Turns), describeWire(res.tc.spec, lf), res.tc.spec.SupportName,
 		map[string]string{"mandrel": "slid off: self-supporting", "former": "stays on the former"}[res.tc.spec.SupportKind])
 	fmt.Fprintf(tw, "→ %s\n", res.instruction)
 
 	fmt.Fprintf(tw, "\nMEASUREMENT (%s)\n", kindText(r.Kind))
 	switch m.Kind {
 	case trim.MeasureDirect:
-		v := eng(float64(m.Inductance), "H", 4)
+		v := quantity.FormatEng(float64(m.Inductance), "H", 4)
 		if m.FixtureInductance > 0 {
-			v += " − fixture " + eng(float64(m.FixtureInductance), "H", 3)
+			v += " − fixture " + quantity.FormatEng(float64(m.FixtureInductance), "H", 3)
 		}
 		if m.TestFrequency > 0 {
-			v += " at " + eng(float64(m.TestFrequency), "Hz", 3)
+			v += " at " + quantity.FormatEng(float64(m.TestFrequency), "Hz", 3)
 		}
 		row("reading", v)
 	case trim.MeasureResonance, trim.MeasureInCircuit:
 		rs := m.Resonances[0]
-		v := fmt.Sprintf("%s with %s", eng(float64(rs.Frequency), "Hz", 4), farads(float64(rs.Capacitance)))
+		v := fmt.Sprintf("%s with %s", quantity.FormatEng(float64(rs.Frequency), "Hz", 4), quantity.FormatCapacitance(float64(rs.Capacitance)))
 		if m.Stray > 0 {
-			v += " + " + farads(float64(m.Stray)) + " stray"
+			v += " + " + quantity.FormatCapacitance(float64(m.Stray)) + " stray"
 		}
 		row("reading", v)
 	default:
 		var parts []string
 		for _, rs := range m.Resonances {
-			parts = append(parts, fmt.Sprintf("%s with %s", eng(float64(rs.Frequency), "Hz", 4), farads(float64(rs.Capacitance))))
+			parts = append(parts, fmt.Sprintf("%s with %s", quantity.FormatEng(float64(rs.Frequency), "Hz", 4), quantity.FormatCapacitance(float64(rs.Capacitance))))
 		}
 		row("readings", strings.Join(parts, ", "))
 	}
 	if m.FixtureLeadLength > 0 {
 		row("fixture leads", "2 × "+lf.fmt(float64(m.FixtureLeadLength))+" of extra wire (in the model for the reading)")
 	}
-	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", eng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
+	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", quantity.FormatEng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
 	if r.Kind == trim.MeasureTwoCapacitor {
-		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", signedFarads(float64(r.TotalStray)), farads(float64(r.TotalStrayUncertainty))))
-		sc := fmt.Sprintf("Medhurst %s", farads(float64(cal.SelfCapacitance)))
+		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", signedFarads(float64(r.TotalStray)), quantity.FormatCapacitance(float64(r.TotalStrayUncertainty))))
+		sc := fmt.Sprintf("Medhurst %s", quantity.FormatCapacitance(float64(cal.SelfCapacitance)))
 		if ct := cal.SelfCapacitanceAtTerminals; res.SelfCapacitanceThroughLeads {
 			// Long leads: the line sees the self-capacitance through them.
-			sc = fmt.Sprintf("Medhurst %s across the winding, %s at the terminals through the leads", farads(float64(cal.SelfCapacitance)), farads(float64(ct)))
+			sc = fmt.Sprintf("Medhurst %s across the winding, %s at the terminals through the leads", quantity.FormatCapacitance(float64(cal.SelfCapacitance)), quantity.FormatCapacitance(float64(ct)))
 		}
 		if m.Stray > 0 {
 			u := float64(res.MeasuredSelfCapacitanceUncertainty)
-			sc = fmt.Sprintf("%s ± %s measured (less --stray %s); %s", signedFarads(float64(cal.MeasuredSelfCapacitance)), farads(u), farads(float64(m.Stray)), sc)
+			sc = fmt.Sprintf("%s ± %s measured (less --stray %s); %s", signedFarads(float64(cal.MeasuredSelfCapacitance)), quantity.FormatCapacitance(u), quantity.FormatCapacitance(float64(m.Stray)), sc)
 		}
 		row("self-capacitance", sc)
 		if len(m.Resonances) > 2 {
@@ -263,24 +264,24 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	case "calibration":
 		sbNote = "your saved springback " + sbPct(g.Springback)
 	}
-	row("the model expected", fmt.Sprintf("%s  (%s): the coil reads %+.1f %%", eng(float64(cal.ModelBefore), "H", 4), sbNote, res.Deviation*100))
+	row("the model expected", fmt.Sprintf("%s  (%s): the coil reads %+.1f %%", quantity.FormatEng(float64(cal.ModelBefore), "H", 4), sbNote, res.Deviation*100))
 
 	fmt.Fprintln(tw, "\nTHE COIL AS BUILT")
 	row("springback", fmt.Sprintf("%s  (%s … %s within the reading's uncertainty)", sbPct(cal.Springback), sbPct(cal.SpringbackLow), sbPct(cal.SpringbackHigh)))
 	row("effective diameter", fmt.Sprintf("%s wire-centre, bore %s", lf.fmt(float64(cal.EffectiveDiameter)), lf.fmt(float64(cal.Geometry.InsideDiameter()))))
-	row("inductance", fmt.Sprintf("%s  (%s)", eng(float64(c.Before), "H", 4), targetSenseText(res.Target)))
+	row("inductance", fmt.Sprintf("%s  (%s)", quantity.FormatEng(float64(c.Before), "H", 4), targetSenseText(res.Target)))
 
 	fmt.Fprintln(tw, "\nCORRECTION")
-	tgt := eng(float64(c.Target), "H", 4) + " " + targetSenseText(res.Target)
+	tgt := quantity.FormatEng(float64(c.Target), "H", 4) + " " + targetSenseText(res.Target)
 	switch res.Aim.Source {
 	case trim.TargetModel:
 		tgt += " (the model's value for the coil as specified)"
 	case trim.TargetResonance:
-		tgt = fmt.Sprintf("resonance at %s with %s: %s", eng(float64(res.Aim.Resonance), "Hz", 4), farads(float64(res.Aim.Capacitance)), tgt)
+		tgt = fmt.Sprintf("resonance at %s with %s: %s", quantity.FormatEng(float64(res.Aim.Resonance), "Hz", 4), quantity.FormatCapacitance(float64(res.Aim.Capacitance)), tgt)
 	}
 	row("target", tgt)
-	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", eng(float64(c.WindowLeast), "H", 3), lf.fmt(float64(res.LoosePitch)),
-		eng(float64(c.WindowMost), "H", 3), fmtTurns(g.Turns)))
+	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", quantity.FormatEng(float64(c.WindowLeast), "H", 3), lf.fmt(float64(res.LoosePitch)),
+		quantity.FormatEng(float64(c.WindowMost), "H", 3), quantity.FormatTurns(g.Turns)))
 	ng := c.Geometry
 	switch c.Action {
 	case trim.ActionNone:
@@ -288,18 +289,18 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	default:
 		row("action", c.Action.String())
 		if ng.Turns != g.Turns {
-			row("turns", fmt.Sprintf("%s, was %s", fmtTurns(ng.Turns), fmtTurns(g.Turns)))
+			row("turns", fmt.Sprintf("%s, was %s", quantity.FormatTurns(ng.Turns), quantity.FormatTurns(g.Turns)))
 		}
 		row("outside length", fmt.Sprintf("%s (pitch %s), was %s", fmtLenStep(lf, float64(c.LengthAfter), c.LengthStep), lf.fmt(float64(ng.Pitch)), fmtLenStep(lf, float64(c.LengthBefore), c.LengthStep)))
-		row("predicted", fmt.Sprintf("%s  (%+.2f %% from the target)", eng(float64(c.After), "H", 4), res.MissAfter*100))
+		row("predicted", fmt.Sprintf("%s  (%+.2f %% from the target)", quantity.FormatEng(float64(c.After), "H", 4), res.MissAfter*100))
 	}
 	if c.LengthPerPercent > 0 {
 		row("fine trim", fmt.Sprintf("%s of outside length per 1 %% of L", lf.fmt(float64(c.LengthPerPercent))))
 	}
 	if t := res.Tap; t != nil {
-		tapLine := fmt.Sprintf("%s from the cold end, voltage ratio %.3f (as built) → %.3f; wanted %.3f", turnsWord(t.NewTurns), t.RatioBefore, t.RatioAfter, t.WantRatio)
+		tapLine := fmt.Sprintf("%s from the cold end, voltage ratio %.3f (as built) → %.3f; wanted %.3f", quantity.FormatTurnsWord(t.NewTurns), t.RatioBefore, t.RatioAfter, t.WantRatio)
 		if t.Moves() {
-			tapLine = "move from " + fmtTurns(t.Turns) + " to " + tapLine
+			tapLine = "move from " + quantity.FormatTurns(t.Turns) + " to " + tapLine
 		} else {
 			tapLine = "stays at " + tapLine
 		}
@@ -313,7 +314,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 					continue
 				}
 				row(sec.name, fmt.Sprintf("%s ± %.1f %% measured, %s in the model; springback %s alone",
-					eng(float64(sec.fit.Reading.Inductance), "H", 3), sec.fit.Reading.Uncertainty*100, eng(float64(sec.fit.Model), "H", 3), pct(sec.fit.Springback)))
+					quantity.FormatEng(float64(sec.fit.Reading.Inductance), "H", 3), sec.fit.Reading.Uncertainty*100, quantity.FormatEng(float64(sec.fit.Model), "H", 3), quantity.FormatPercent(sec.fit.Springback)))
 			}
 			if s.MeasuredRatio != 0 {
 				row("tap ratio, measured", fmt.Sprintf("%.3f (model %.3f): the offset is kept when the tap moves", s.MeasuredRatio, s.ModelRatio))
@@ -335,7 +336,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 			row("added", a)
 		}
 		if s.Superseded != nil {
-			row("supersedes", fmt.Sprintf("springback %s (%s)", pct(s.Superseded.Springback), s.Superseded.Note))
+			row("supersedes", fmt.Sprintf("springback %s (%s)", quantity.FormatPercent(s.Superseded.Springback), s.Superseded.Note))
 		}
 		row("from now on", "predict and design use it for this mandrel and wire (unless --springback is given)")
 	}

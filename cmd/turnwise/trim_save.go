@@ -8,6 +8,7 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"turnwise/internal/quantity"
 
 	"turnwise/coil/trim"
 	"turnwise/forms"
@@ -112,13 +113,13 @@ func calibrationNote(res *trimResult) string {
 	var how string
 	switch r.Kind {
 	case trim.MeasureDirect:
-		how = "meter " + eng(float64(r.Inductance), "H", 3)
+		how = "meter " + quantity.FormatEng(float64(r.Inductance), "H", 3)
 	case trim.MeasureResonance, trim.MeasureInCircuit:
 		rs := res.meas.Resonances[0]
-		how = fmt.Sprintf("resonance %s with %s", eng(float64(rs.Frequency), "Hz", 4), farads(float64(rs.Capacitance)))
+		how = fmt.Sprintf("resonance %s with %s", quantity.FormatEng(float64(rs.Frequency), "Hz", 4), quantity.FormatCapacitance(float64(rs.Capacitance)))
 	default:
-		how = fmt.Sprintf("two-capacitor method, L %s", eng(float64(r.Inductance), "H", 3))
+		how = fmt.Sprintf("two-capacitor method, L %s", quantity.FormatEng(float64(r.Inductance), "H", 3))
 	}
 	return fmt.Sprintf("trim: %s ±%.1f %% on %s turns, %s long (springback %s … %s)", how, r.Uncertainty*100,
-		fmtTurns(g.Turns), res.lf.fmt(float64(g.WindingLength())), pct(res.Calibration.SpringbackLow), pct(res.Calibration.SpringbackHigh))
+		quantity.FormatTurns(g.Turns), res.lf.fmt(float64(g.WindingLength())), quantity.FormatPercent(res.Calibration.SpringbackLow), quantity.FormatPercent(res.Calibration.SpringbackHigh))
 }

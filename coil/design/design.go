@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"turnwise/coil"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -329,7 +330,7 @@ func (r rule) reason(s Support) string {
 	df := float64(s.Diameter)
 	switch r {
 	case ruleSupportRange:
-		return fmt.Sprintf("supports outside %s … %s are outside the model", coil.FormatLength(coil.MinFormerDiameter), coil.FormatLength(coil.MaxFormerDiameter))
+		return fmt.Sprintf("supports outside %s … %s are outside the model", quantity.FormatMillimetres(coil.MinFormerDiameter), quantity.FormatMillimetres(coil.MaxFormerDiameter))
 	case ruleInsulation:
 		return "insulation too thick for the model"
 	case ruleMinWire:
@@ -337,15 +338,15 @@ func (r rule) reason(s Support) string {
 	case ruleMaxWire:
 		return "thicker than the maximum wire"
 	case ruleHandMin:
-		return fmt.Sprintf("finer than %s breaks when wound by hand", coil.FormatLength(HandMinWire))
+		return fmt.Sprintf("finer than %s breaks when wound by hand", quantity.FormatMillimetres(HandMinWire))
 	case ruleHandMax:
-		return fmt.Sprintf("thicker than %s needs a bending jig", coil.FormatLength(HandMaxWire))
+		return fmt.Sprintf("thicker than %s needs a bending jig", quantity.FormatMillimetres(HandMaxWire))
 	case ruleBend:
 		return "the support is less than twice the wire diameter"
 	case ruleStiffAbs:
-		return fmt.Sprintf("a self-supporting coil needs wire of at least %s", coil.FormatLength(SelfSupportMinWire))
+		return fmt.Sprintf("a self-supporting coil needs wire of at least %s", quantity.FormatMillimetres(SelfSupportMinWire))
 	case ruleStiffRatio:
-		return fmt.Sprintf("a self-supporting coil on %s needs wire of at least %s (1/15 of the diameter)", coil.FormatLength(df), coil.FormatLength(SelfSupportWireRatio*df))
+		return fmt.Sprintf("a self-supporting coil on %s needs wire of at least %s (1/15 of the diameter)", quantity.FormatMillimetres(df), quantity.FormatMillimetres(SelfSupportWireRatio*df))
 	}
 	return ""
 }
@@ -409,7 +410,7 @@ func resolve(t Target, c Constraints) (settings, error) {
 		}
 		s.required = float64(coil.InductanceForResonance(t.Resonance, t.Capacitance+t.Stray))
 		if !(s.required >= 1e-12 && s.required <= 1) {
-			return s, inputErrorf("capacitance", "resonating at %s needs %.3g H, outside 1 pH … 1 H", coil.FormatFrequency(s.matchF), s.required)
+			return s, inputErrorf("capacitance", "resonating at %s needs %.3g H, outside 1 pH … 1 H", quantity.FormatFrequency(s.matchF), s.required)
 		}
 	}
 	bl := func(v unit.Length) bool { return !finite(float64(v)) || v < 0 }
@@ -419,7 +420,7 @@ func resolve(t Target, c Constraints) (settings, error) {
 	case bl(c.MaxLength), bl(c.MaxDiameter), bl(c.MaxWireLength), bl(c.MinWire), bl(c.MaxWire):
 		return s, inputErrorf("constraints", "length limits must be finite and not negative")
 	case c.MinWire > 0 && c.MaxWire > 0 && c.MinWire > c.MaxWire:
-		return s, inputErrorf("min_wire", "%s is more than the maximum wire %s", coil.FormatLength(float64(c.MinWire)), coil.FormatLength(float64(c.MaxWire)))
+		return s, inputErrorf("min_wire", "%s is more than the maximum wire %s", quantity.FormatMillimetres(float64(c.MinWire)), quantity.FormatMillimetres(float64(c.MaxWire)))
 	case !finite(c.MinSRFRatio) || c.MinSRFRatio < 0 || (c.MinSRFRatio > 0 && c.MinSRFRatio < 1.2) || c.MinSRFRatio > 100:
 		return s, inputErrorf("min_srf_ratio", "%g is outside 1.2 … 100 (the model needs the SRF well above f; 3 is common practice)", c.MinSRFRatio)
 	case !finite(c.TrimMargin) || c.TrimMargin < 0 || c.TrimMargin > 0.3:
@@ -443,12 +444,12 @@ func resolve(t Target, c Constraints) (settings, error) {
 	}
 	if fd := c.FreeDiameter; fd != nil {
 		if bl(fd.Min) || bl(fd.Max) || (fd.Max > 0 && fd.Min > fd.Max) {
-			return s, inputErrorf("free_diameter", "the range %s … %s is not a range", coil.FormatLength(float64(fd.Min)), coil.FormatLength(float64(fd.Max)))
+			return s, inputErrorf("free_diameter", "the range %s … %s is not a range", quantity.FormatMillimetres(float64(fd.Min)), quantity.FormatMillimetres(float64(fd.Max)))
 		}
 	}
 	for _, sp := range c.Supports {
 		if !finite(float64(sp.Diameter)) || sp.Diameter <= 0 {
-			return s, inputErrorf("supports", "%q: diameter %s is not a diameter", sp.Name, coil.FormatLength(float64(sp.Diameter)))
+			return s, inputErrorf("supports", "%q: diameter %s is not a diameter", sp.Name, quantity.FormatMillimetres(float64(sp.Diameter)))
 		}
 		if !finite(sp.Springback) || sp.Springback < coil.MinSpringback || sp.Springback > coil.MaxSpringback {
 			return s, inputErrorf("springback", "%q: %.3g %% is outside %g … %g %%", sp.Name, sp.Springback*100, coil.MinSpringback*100, coil.MaxSpringback*100)
@@ -457,7 +458,7 @@ func resolve(t Target, c Constraints) (settings, error) {
 	for _, w := range c.Wires {
 		d, do := float64(w.Diameter), float64(w.Overall)
 		if !finite(d) || d <= 0 || !finite(do) || (do != 0 && do < d) {
-			return s, inputErrorf("wires", "%q: diameters %s over %s are not a wire", w.Name, coil.FormatLength(d), coil.FormatLength(do))
+			return s, inputErrorf("wires", "%q: diameters %s over %s are not a wire", w.Name, quantity.FormatMillimetres(d), quantity.FormatMillimetres(do))
 		}
 		if w.Conductor < coil.Copper || w.Conductor > coil.Tinned {
 			return s, inputErrorf("wires", "%q: unknown conductor", w.Name)

@@ -6,6 +6,7 @@ import (
 	"sort"
 	"strings"
 	"turnwise/coil"
+	"turnwise/internal/quantity"
 )
 
 // When no coil fits, Design says which constraint binds and what is
@@ -92,7 +93,7 @@ func (m *missLog) relaxed(constraint string, c *found, s *settings) {
 // describe names a coil for a message: "5¼ turns of 1.00mm on 6mm drill".
 func (x *search) describe(n near) string {
 	sup, _ := x.support(n.pair)
-	s := fmt.Sprintf("%s turns of %s on %s", coil.FormatTurns(n.n), x.wire(n.pair).Name, sup.Name)
+	s := fmt.Sprintf("%s turns of %s on %s", quantity.FormatTurns(n.n), x.wire(n.pair).Name, sup.Name)
 	if n.pitch > 0 {
 		s += fmt.Sprintf(" at %s pitch", shortMM(n.pitch))
 	}
@@ -102,10 +103,10 @@ func (x *search) describe(n near) string {
 func (x *search) targetWords() string {
 	s := x.s
 	if s.effective {
-		return fmt.Sprintf("resonance at %s with %s (%s effective)", coil.FormatFrequency(s.matchF),
-			coil.FormatCapacitance(float64(s.t.Capacitance+s.t.Stray)), coil.FormatInductance(s.required))
+		return fmt.Sprintf("resonance at %s with %s (%s effective)", quantity.FormatFrequency(s.matchF),
+			quantity.FormatCapacitanceShort(float64(s.t.Capacitance+s.t.Stray)), quantity.FormatInductance(s.required))
 	}
-	return coil.FormatInductance(s.required)
+	return quantity.FormatInductance(s.required)
 }
 
 // infeasible builds the error for a search that found nothing.
@@ -157,7 +158,7 @@ func (x *search) infeasible() error {
 	if x.miss.selfResonant && x.miss.small == nil {
 		return &InfeasibleError{Constraint: "min_srf_ratio", Message: fmt.Sprintf(
 			"no coil in the stock reaches %s below its own self-resonance: at %s every one that could resonates by itself; use more capacitance (less inductance), a smaller support, or a strip line",
-			x.targetWords(), coil.FormatFrequency(s.matchF))}
+			x.targetWords(), quantity.FormatFrequency(s.matchF))}
 	}
 	if len(binds) == 0 && x.multipleLimits() {
 		return &InfeasibleError{Constraint: "limits", Message: fmt.Sprintf(
@@ -198,7 +199,7 @@ func (x *search) bindMessage(name string, n near) string {
 		msg := fmt.Sprintf("no coil reaches %s within %s outside length: the shortest that does is %s (%s); allow %s",
 			tw, shortMM(float64(c.MaxLength)), shortMM(n.value), x.describe(n), shortMM(math.Ceil(n.value*2e3)/2e3))
 		if l, nn, ok := x.mostWithin(n.pair, float64(c.MaxLength)); ok && l < s.required*(1-s.tol) {
-			msg += fmt.Sprintf(", or accept %s from %s turns close-wound on the same support", coil.FormatInductance(l), coil.FormatTurns(nn))
+			msg += fmt.Sprintf(", or accept %s from %s turns close-wound on the same support", quantity.FormatInductance(l), quantity.FormatTurns(nn))
 		}
 		return msg
 	case "max_diameter":
@@ -210,7 +211,7 @@ func (x *search) bindMessage(name string, n near) string {
 	case "min_srf_ratio":
 		ratio := n.value / s.opF
 		return fmt.Sprintf("no coil for %s keeps its self-resonance at %g × %s = %s: the highest is %s (%.3g × f) with %s; accept a ratio of %.2g, or a smaller inductance or a smaller support",
-			tw, s.srfRatio, coil.FormatFrequency(s.opF), coil.FormatFrequency(s.srfRatio*s.opF), coil.FormatFrequency(n.value), ratio, x.describe(n), math.Floor(ratio*10)/10)
+			tw, s.srfRatio, quantity.FormatFrequency(s.opF), quantity.FormatFrequency(s.srfRatio*s.opF), quantity.FormatFrequency(n.value), ratio, x.describe(n), math.Floor(ratio*10)/10)
 	}
 	return "no coil meets " + tw
 }
@@ -232,10 +233,10 @@ func (x *search) smallMessage() string {
 	lead := float64(s.c.LeadLength)
 	if sm.n == 0 {
 		return fmt.Sprintf("%s is less than the two %s leads alone (%s even with %s, the thickest wire that fits): shorten the leads, or make the leads the inductor",
-			x.targetWords(), shortMM(lead), coil.FormatInductance(sm.value), x.wire(sm.pair).Name)
+			x.targetWords(), shortMM(lead), quantity.FormatInductance(sm.value), x.wire(sm.pair).Name)
 	}
 	return fmt.Sprintf("%s is below what the stock can make: the least is %s spread to %g × the wire, %s; use shorter leads, a smaller support or a strip line",
-		x.targetWords(), x.describe(*sm), coil.LoosestPitchFactor, coil.FormatInductance(sm.value))
+		x.targetWords(), x.describe(*sm), coil.LoosestPitchFactor, quantity.FormatInductance(sm.value))
 }
 
 func (x *search) rulesMessage() string {

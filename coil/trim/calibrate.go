@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"turnwise/coil"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -174,9 +175,9 @@ func readingError(r Reading, err error) error {
 	var ie *coil.InputError
 	if errors.As(err, &ie) && ie.Param == "frequency" {
 		if r.Kind == MeasureDirect {
-			return inputErrorf("test_frequency", "the meter's test frequency %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use the reading; measure at a lower test frequency", coil.FormatFrequency(float64(r.Frequency)))
+			return inputErrorf("test_frequency", "the meter's test frequency %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use the reading; measure at a lower test frequency", quantity.FormatFrequency(float64(r.Frequency)))
 		}
-		return inputErrorf("resonance", "the reading at %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use it; measure with a larger capacitor (a lower frequency)", coil.FormatFrequency(float64(r.Frequency)))
+		return inputErrorf("resonance", "the reading at %s is at or above 90 %% of this coil's self-resonance: the lumped model cannot use it; measure with a larger capacitor (a lower frequency)", quantity.FormatFrequency(float64(r.Frequency)))
 	}
 	return err
 }
@@ -207,11 +208,11 @@ func bisectSpringback(value func(s float64) float64, want float64, param, what s
 	vlo, vhi := value(lo), value(hi)
 	if want < vlo {
 		return 0, inputErrorf(param, "%s is less than %s can be even if its bore were 20 %% smaller than the mandrel (%s): check the turns, length and leads, and the reading's unit",
-			coil.FormatInductance(want), what, coil.FormatInductance(vlo))
+			quantity.FormatInductance(want), what, quantity.FormatInductance(vlo))
 	}
 	if want > vhi {
 		return 0, inputErrorf(param, "%s is more than %s can be even with 50 %% springback (%s): check the turns, length and leads, and the reading's unit",
-			coil.FormatInductance(want), what, coil.FormatInductance(vhi))
+			quantity.FormatInductance(want), what, quantity.FormatInductance(vhi))
 	}
 	for range 100 {
 		mid := (lo + hi) / 2

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"turnwise/coil"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -275,13 +276,13 @@ func findTurns(g coil.Geometry, t Target, more bool) (float64, error) {
 			ok, err := reaches(q / 4)
 			if err != nil {
 				return 0, &infeasibleError{fmt.Sprintf("the target %s needs more turns than %s, and with %g turns the coil's self-resonance is already too close to %s; use a larger diameter, which needs fewer turns",
-					coil.FormatInductance(want), coil.FormatTurns(g.Turns), q/4, coil.FormatFrequency(float64(t.Frequency)))}
+					quantity.FormatInductance(want), quantity.FormatTurns(g.Turns), q/4, quantity.FormatFrequency(float64(t.Frequency)))}
 			}
 			if ok {
 				break
 			}
 			if q == coil.MaxTurns*4 {
-				return 0, &infeasibleError{fmt.Sprintf("the target %s is out of reach: even %d close-wound turns are not enough", coil.FormatInductance(want), coil.MaxTurns)}
+				return 0, &infeasibleError{fmt.Sprintf("the target %s is out of reach: even %d close-wound turns are not enough", quantity.FormatInductance(want), coil.MaxTurns)}
 			}
 			lastBad = q
 			step *= 2
@@ -303,7 +304,7 @@ func findTurns(g coil.Geometry, t Target, more bool) (float64, error) {
 		_, loose := windowPitches(withTurns(1))
 		v, _ := t.Of(withPitch(withTurns(1), loose))
 		return 0, &infeasibleError{fmt.Sprintf("the target %s is below what a single turn of this wire on this diameter gives (%s at its loosest): use a smaller diameter",
-			coil.FormatInductance(want), coil.FormatInductance(float64(v)))}
+			quantity.FormatInductance(want), quantity.FormatInductance(float64(v)))}
 	}
 	lo, hi := 4.0, q0 // lo reaches, hi does not
 	for hi-lo > 1 {
@@ -390,7 +391,7 @@ func ResonanceWith(g coil.Geometry, capacitance unit.Capacitance) (unit.Frequenc
 	hi := 0.9 * float64(p0.SRF)
 	lo := 0.5 / (twoPi * math.Sqrt(float64(p0.Inductance)*c))
 	if lo >= hi || h(hi) < 0 {
-		return 0, inputErrorf("resonance", "%s across this coil does not resonate below 90 %% of its self-resonance; use a larger capacitor", coil.FormatCapacitance(c))
+		return 0, inputErrorf("resonance", "%s across this coil does not resonate below 90 %% of its self-resonance; use a larger capacitor", quantity.FormatCapacitanceShort(c))
 	}
 	for range 200 {
 		mid := (lo + hi) / 2

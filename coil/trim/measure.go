@@ -4,6 +4,7 @@ import (
 	"math"
 	"slices"
 	"turnwise/coil"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -168,11 +169,11 @@ func (m *Measurement) validateTolerances() error {
 		v    unit.Capacitance
 	}{{"capacitor", m.CapacitorToleranceAbs}, {"stray", m.StrayTolerance}} {
 		if !finite(float64(c.v)) || c.v < 0 || c.v > 1e-6 {
-			return inputErrorf("tolerance", "%s tolerance %s is not a sensible capacitance", c.name, coil.FormatCapacitance(float64(c.v)))
+			return inputErrorf("tolerance", "%s tolerance %s is not a sensible capacitance", c.name, quantity.FormatCapacitanceShort(float64(c.v)))
 		}
 	}
 	if fl := float64(m.FixtureLeadLength); !finite(fl) || fl < 0 || fl > coil.MaxLeadLength {
-		return inputErrorf("fixture_lead_length", "must be zero or a length up to %s", coil.FormatLength(coil.MaxLeadLength))
+		return inputErrorf("fixture_lead_length", "must be zero or a length up to %s", quantity.FormatMillimetres(coil.MaxLeadLength))
 	}
 	return nil
 }
@@ -188,12 +189,12 @@ func (m *Measurement) reduceDirect() (Reading, error) {
 	case !finite(l) || l <= 0:
 		return Reading{}, inputErrorf("measured_inductance", "must be a positive inductance, e.g. 52nH")
 	case l > 1:
-		return Reading{}, inputErrorf("measured_inductance", "%s is not the reading of a single-layer air coil; check the unit (nH, uH)", coil.FormatInductance(l))
+		return Reading{}, inputErrorf("measured_inductance", "%s is not the reading of a single-layer air coil; check the unit (nH, uH)", quantity.FormatInductance(l))
 	case !finite(fix) || fix < 0:
 		return Reading{}, inputErrorf("fixture_inductance", "must be zero or positive: the meter's reading with its clips shorted")
 	case fix >= l:
 		return Reading{}, inputErrorf("fixture_inductance", "%s is not less than the reading %s: the fixture allowance is the meter's reading with its clips shorted together, well below the coil's",
-			coil.FormatInductance(fix), coil.FormatInductance(l))
+			quantity.FormatInductance(fix), quantity.FormatInductance(l))
 	}
 	if f := float64(m.TestFrequency); !finite(f) || f < 0 || f > coil.MaxFrequency {
 		return Reading{}, inputErrorf("test_frequency", "must be between 0 and 10 GHz, e.g. 1MHz")
@@ -272,14 +273,14 @@ func (m *Measurement) reduceLine() (Reading, error) {
 				distinct = true
 				if rs[i].Frequency <= rs[j].Frequency {
 					return Reading{}, inputErrorf("resonance", "the larger capacitor (%s) gave the same or a higher resonance (%s) than the smaller one (%s at %s); a larger capacitor always tunes lower: check which reading goes with which capacitor",
-						coil.FormatCapacitance(float64(cj)), coil.FormatFrequency(float64(rs[j].Frequency)), coil.FormatCapacitance(float64(ci)), coil.FormatFrequency(float64(rs[i].Frequency)))
+						quantity.FormatCapacitanceShort(float64(cj)), quantity.FormatFrequency(float64(rs[j].Frequency)), quantity.FormatCapacitanceShort(float64(ci)), quantity.FormatFrequency(float64(rs[i].Frequency)))
 				}
 			}
 		}
 	}
 	if !distinct {
 		return Reading{}, inputErrorf("resonance", "all readings use the same capacitance (%s); the method needs two different capacitors, ideally 1:4 apart",
-			coil.FormatCapacitance(float64(rs[0].Capacitance)))
+			quantity.FormatCapacitanceShort(float64(rs[0].Capacitance)))
 	}
 	l, c0, resid := fitLine(rs)
 
@@ -309,11 +310,11 @@ func (m *Measurement) reduceLine() (Reading, error) {
 	}
 	if c0 < -(uC0 + 0.1e-12) {
 		return Reading{}, inputErrorf("resonance", "the readings imply a negative capacitance across the coil (%s ± %s); a frequency or a capacitor value is off: measure the capacitors and read the resonances again",
-			coil.FormatCapacitance(c0), coil.FormatCapacitance(uC0))
+			quantity.FormatCapacitanceShort(c0), quantity.FormatCapacitanceShort(uC0))
 	}
 	for _, r := range rs {
 		if float64(r.Capacitance)+c0 <= 0 {
-			return Reading{}, inputErrorf("resonance", "the readings are inconsistent: the fitted stray (%s) cancels the %s capacitor", coil.FormatCapacitance(c0), coil.FormatCapacitance(float64(r.Capacitance)))
+			return Reading{}, inputErrorf("resonance", "the readings are inconsistent: the fitted stray (%s) cancels the %s capacitor", quantity.FormatCapacitanceShort(c0), quantity.FormatCapacitanceShort(float64(r.Capacitance)))
 		}
 	}
 	logSum := 0.0

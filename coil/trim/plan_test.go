@@ -245,7 +245,7 @@ func TestPlanTapKeepsOffset(t *testing.T) {
 	}
 }
 
-// trim imports coil and the standard library and gonum, nothing of the
+// trim imports coil, internal/quantity, the standard library and gonum, nothing of the
 // command, the sheets or the catalogs.
 func TestImports(t *testing.T) {
 	if testing.Short() {
@@ -256,7 +256,7 @@ func TestImports(t *testing.T) {
 		t.Fatalf("go list: %v\n%s", err, out)
 	}
 	for _, dep := range strings.Fields(string(out)) {
-		if strings.HasPrefix(dep, "turnwise/") && dep != "turnwise/coil" && dep != "turnwise/coil/trim" {
+		if strings.HasPrefix(dep, "turnwise/") && dep != "turnwise/coil" && dep != "turnwise/coil/trim" && dep != "turnwise/internal/quantity" {
 			t.Errorf("trim imports %s", dep)
 		}
 		if strings.Contains(dep, "cobra") || strings.Contains(dep, "gofpdf") {

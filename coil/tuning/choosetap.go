@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 	"turnwise/coil"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/optimize"
 	"gonum.org/v1/gonum/unit"
@@ -317,7 +318,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 		if room >= margin {
 			continue
 		}
-		edge := fmt.Sprintf("the %s range runs %s to %s", name, coil.FormatFrequency(float64(rg.Min)), coil.FormatFrequency(float64(rg.Max)))
+		edge := fmt.Sprintf("the %s range runs %s to %s", name, quantity.FormatFrequency(float64(rg.Min)), quantity.FormatFrequency(float64(rg.Max)))
 		out = append(out, fmt.Sprintf("band %s is not inside either range with %.0f %% to spare (%s)",
 			bandWithEdges(b.Band), margin*100, edge))
 	}
@@ -325,7 +326,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 		out = append(out, "the circuit has no high range")
 	} else if s.overShort > 0 {
 		if sp.Overlap < 0 {
-			out = append(out, fmt.Sprintf("the ranges leave a gap from %s to %s", coil.FormatFrequency(float64(sp.Low.Max)), coil.FormatFrequency(float64(sp.High.Min))))
+			out = append(out, fmt.Sprintf("the ranges leave a gap from %s to %s", quantity.FormatFrequency(float64(sp.Low.Max)), quantity.FormatFrequency(float64(sp.High.Min))))
 		} else {
 			out = append(out, fmt.Sprintf("the ranges overlap by only %.1f %% (less than %.0f %%)", float64(sp.Overlap)/float64(sp.High.Min)*100, margin*100))
 		}
@@ -333,7 +334,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 	if s.coincidence > 0 {
 		for _, co := range sp.Coincidences {
 			out = append(out, fmt.Sprintf("the %s harmonic of the low range%s falls inside the high range's passband at %.1f %% of the dial (%s against %s)",
-				ordinal(co.Order), inBand(co.Band), co.Setting*100, coil.FormatFrequency(float64(co.Harmonic)), coil.FormatFrequency(float64(co.FHigh))))
+				ordinal(co.Order), inBand(co.Band), co.Setting*100, quantity.FormatFrequency(float64(co.Harmonic)), quantity.FormatFrequency(float64(co.FHigh))))
 		}
 	}
 	return out

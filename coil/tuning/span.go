@@ -5,6 +5,7 @@ import (
 	"math"
 	"sort"
 	"turnwise/coil"
+	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
 )
@@ -607,17 +608,17 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 	switch {
 	case top > srf:
 		w = append(w, fmt.Sprintf("the top of the %s range, %s, is above the coil's self-resonance %s: the lumped circuit does not hold there and the real range will fall well short; move the tap or use a coil with fewer turns",
-			name, coil.FormatFrequency(float64(unit.Frequency(top))), coil.FormatFrequency(float64(unit.Frequency(srf)))))
+			name, quantity.FormatFrequency(float64(unit.Frequency(top))), quantity.FormatFrequency(float64(unit.Frequency(srf)))))
 	case top > srf/3:
 		w = append(w, fmt.Sprintf("the top of the %s range, %s, is above a third of the coil's self-resonance %s (common practice limit): expect the real range to fall short there",
-			name, coil.FormatFrequency(float64(unit.Frequency(top))), coil.FormatFrequency(float64(unit.Frequency(srf)))))
+			name, quantity.FormatFrequency(float64(unit.Frequency(top))), quantity.FormatFrequency(float64(unit.Frequency(srf)))))
 	}
 	if !sp.HasHigh {
 		w = append(w, "the circuit has one resonance only (section B at zero capacitance, or the tap at an end of the coil): there is no high range")
 	}
 	if sp.HasHigh && sp.Overlap < 0 {
 		w = append(w, fmt.Sprintf("the ranges do not meet: a gap from %s to %s that neither range tunes; %s",
-			coil.FormatFrequency(float64(sp.Low.Max)), coil.FormatFrequency(float64(sp.High.Min)), sp.GapAdvice()))
+			quantity.FormatFrequency(float64(sp.Low.Max)), quantity.FormatFrequency(float64(sp.High.Min)), sp.GapAdvice()))
 	}
 	for _, b := range sp.Bands {
 		if !b.Covered {
@@ -626,12 +627,12 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 	}
 	for _, co := range sp.Coincidences {
 		where := fmt.Sprintf("is %s from the high range's peak %s, inside its %s passband (only %.1f dB down)",
-			coil.FormatFrequency(float64(unit.Frequency(math.Abs(float64(co.Offset))))), coil.FormatFrequency(float64(co.FHigh)), coil.FormatFrequency(float64(co.Passband)), co.AttenuationDB)
+			quantity.FormatFrequency(float64(unit.Frequency(math.Abs(float64(co.Offset))))), quantity.FormatFrequency(float64(co.FHigh)), quantity.FormatFrequency(float64(co.Passband)), co.AttenuationDB)
 		if co.OnPeak() {
-			where = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband", coil.FormatFrequency(float64(co.Passband)))
+			where = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband", quantity.FormatFrequency(float64(co.Passband)))
 		}
 		w = append(w, fmt.Sprintf("harmonic coincidence at %.1f %% of the dial (0 %% = plates open): low range at %s%s, its %s harmonic %s %s",
-			co.Setting*100, coil.FormatFrequency(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), coil.FormatFrequency(float64(co.Harmonic)), where))
+			co.Setting*100, quantity.FormatFrequency(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), quantity.FormatFrequency(float64(co.Harmonic)), where))
 	}
 	return w
 }
@@ -640,15 +641,15 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 // on this winding does.
 func (sp *Span) GapAdvice() string {
 	if sp.WidestOverlap >= 0 {
-		return fmt.Sprintf("a tap %g turns from the cold end makes them overlap by %s", sp.WidestOverlapTap, coil.FormatFrequency(float64(sp.WidestOverlap)))
+		return fmt.Sprintf("a tap %g turns from the cold end makes them overlap by %s", sp.WidestOverlapTap, quantity.FormatFrequency(float64(sp.WidestOverlap)))
 	}
-	return fmt.Sprintf("no tap on this winding closes it (the best, %g turns from the cold end, still leaves %s): the capacitance swing, maximum to minimum with the strays, is too small", sp.WidestOverlapTap, coil.FormatFrequency(float64(-sp.WidestOverlap)))
+	return fmt.Sprintf("no tap on this winding closes it (the best, %g turns from the cold end, still leaves %s): the capacitance swing, maximum to minimum with the strays, is too small", sp.WidestOverlapTap, quantity.FormatFrequency(float64(-sp.WidestOverlap)))
 }
 
 // bandWithEdges is "80m (3.5 MHz–3.8 MHz)", or the edges alone for a
 // band without a name.
 func bandWithEdges(b Band) string {
-	edges := fmt.Sprintf("%s–%s", coil.FormatFrequency(float64(b.Low)), coil.FormatFrequency(float64(b.High)))
+	edges := fmt.Sprintf("%s–%s", quantity.FormatFrequency(float64(b.Low)), quantity.FormatFrequency(float64(b.High)))
 	if b.Name == "" {
 		return edges
 	}

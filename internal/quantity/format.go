@@ -1,4 +1,4 @@
-package forms
+package quantity
 
 import (
 	"fmt"
@@ -51,7 +51,7 @@ type LengthFormat struct{ Inches bool }
 // m from 1 m), or inches with three (one from 10 in, mil below 0.01 in).
 func (f LengthFormat) Format(m float64) string {
 	if f.Inches {
-		in := m / inch
+		in := m / Inch
 		switch {
 		case in != 0 && math.Abs(in) < 0.01:
 			return fmt.Sprintf("%.2f mil", in*1000)
@@ -109,7 +109,7 @@ func FormatPercent(x float64) string { return fmt.Sprintf("%.3g %%", x*100) }
 // CutStep is the resolution of a length to cut: 1 mm, or 0.01 in.
 func (f LengthFormat) CutStep() float64 {
 	if f.Inches {
-		return inch / 100
+		return Inch / 100
 	}
 	return 1e-3
 }
@@ -125,7 +125,7 @@ func (f LengthFormat) RoundCut(m float64) float64 {
 func (f LengthFormat) FormatCut(m float64) string {
 	m = f.RoundCut(m)
 	if f.Inches {
-		in := m / inch
+		in := m / Inch
 		if math.Abs(in) >= 10 {
 			return fmt.Sprintf("%.1f in", in)
 		}

@@ -1,4 +1,4 @@
-package forms
+package quantity
 
 import (
 	"errors"
@@ -35,12 +35,12 @@ func runQuantityCases(t *testing.T, want string, parse func(string) (float64, er
 				if err == nil {
 					t.Fatalf("parse(%q) = %g, want error containing %q", tc.in, got, tc.err)
 				}
-				var qe *QuantityError
+				var qe *Error
 				if !errors.As(err, &qe) {
-					t.Fatalf("parse(%q) error %T, want *QuantityError", tc.in, err)
+					t.Fatalf("parse(%q) error %T, want *Error", tc.in, err)
 				}
 				if qe.Want != want || qe.Input != tc.in {
-					t.Errorf("QuantityError = %+v, want Want %q Input %q", qe, want, tc.in)
+					t.Errorf("Error = %+v, want Want %q Input %q", qe, want, tc.in)
 				}
 				if !strings.Contains(err.Error(), tc.err) {
 					t.Errorf("parse(%q) error %q, want it to contain %q", tc.in, err, tc.err)
@@ -192,7 +192,7 @@ func TestParsePercent(t *testing.T) {
 }
 
 // FuzzParseLength checks that ParseLength never panics, never returns a
-// non-finite value and always returns a *QuantityError on failure.
+// non-finite value and always returns a *Error on failure.
 func FuzzParseLength(f *testing.F) {
 	for _, s := range []string{"4.5mm", "0.177in", `0.177"`, "1-1/4in", "250µm", "10mil", "1e308in", "NaN", "48nH", "0,5mm", "1/0in", "", " ", "-0m", "9999999999999999999999/1in"} {
 		f.Add(s)
@@ -200,9 +200,9 @@ func FuzzParseLength(f *testing.F) {
 	f.Fuzz(func(t *testing.T, s string) {
 		l, err := ParseLength(s)
 		if err != nil {
-			var qe *QuantityError
+			var qe *Error
 			if !errors.As(err, &qe) {
-				t.Fatalf("ParseLength(%q) error %T, want *QuantityError", s, err)
+				t.Fatalf("ParseLength(%q) error %T, want *Error", s, err)
 			}
 			return
 		}

@@ -1,4 +1,4 @@
-package forms
+package quantity
 
 import (
 	"fmt"
@@ -10,14 +10,14 @@ import (
 	"gonum.org/v1/gonum/unit"
 )
 
-// QuantityError reports a quantity string that could not be read.
-type QuantityError struct {
+// Error reports a quantity string that could not be read.
+type Error struct {
 	Input  string // the text as given
 	Want   string // "length", "inductance", "capacitance", "frequency", "percentage", "temperature"
 	Reason string // what is wrong and how to fix it
 }
 
-func (e *QuantityError) Error() string {
+func (e *Error) Error() string {
 	return fmt.Sprintf("%s %q: %s", e.Want, e.Input, e.Reason)
 }
 
@@ -43,7 +43,7 @@ type dimension struct {
 	convert func(v float64, b *base) float64
 }
 
-const inch = 0.0254 // m, exact by definition (1959 international inch)
+const Inch = 0.0254 // m, exact by definition (1959 international Inch)
 
 var (
 	lengthDim = &dimension{
@@ -53,8 +53,8 @@ var (
 		units: "mm, cm, m, um, in, mil or thou",
 		bases: []base{
 			{symbol: "m", names: []string{"m"}, factor: 1, prefixes: "numc"},
-			{symbol: "in", names: []string{"in", "inch", "inches", `"`, "″"}, factor: inch},
-			{symbol: "mil", names: []string{"mil", "mils", "thou"}, factor: inch / 1000},
+			{symbol: "in", names: []string{"in", "Inch", "inches", `"`, "″"}, factor: Inch},
+			{symbol: "mil", names: []string{"mil", "mils", "thou"}, factor: Inch / 1000},
 		},
 	}
 	inductanceDim = &dimension{
@@ -142,7 +142,7 @@ func ParseTemperature(s string) (unit.Temperature, error) {
 // "-2.5%" give 0.03, 0.03 and -0.025. A bare number is a percentage too.
 func ParsePercent(s string) (float64, error) {
 	fail := func(reason string) (float64, error) {
-		return 0, &QuantityError{Input: s, Want: "percentage", Reason: reason}
+		return 0, &Error{Input: s, Want: "percentage", Reason: reason}
 	}
 	t := strings.TrimSpace(s)
 	if t == "" {
@@ -169,7 +169,7 @@ func ParsePercent(s string) (float64, error) {
 // parse reads a number and a unit of dimension d and returns the SI value.
 func (d *dimension) parse(s string) (float64, error) {
 	fail := func(reason string) (float64, error) {
-		return 0, &QuantityError{Input: s, Want: d.want, Reason: reason}
+		return 0, &Error{Input: s, Want: d.want, Reason: reason}
 	}
 	t := strings.TrimSpace(s)
 	if t == "" {
