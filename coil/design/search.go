@@ -1,7 +1,6 @@
 package design
 
 import (
-	"fmt"
 	"math"
 	"slices"
 	"sort"
@@ -390,17 +389,17 @@ func (x *search) uniqueRows() (sups, wires []int) {
 		}
 		wires = append(wires, i)
 	}
-	sups, x.thinnedSupports = thinRows(sups, func(i int) (float64, float64, string) {
+	sups, x.thinnedSupports = thinRows(sups, func(i int) (float64, float64, rowClass) {
 		sp := &c.Supports[i]
-		return float64(sp.Diameter), float64(sp.Diameter), fmt.Sprint(sp.OnFormer, sp.Springback)
+		return float64(sp.Diameter), float64(sp.Diameter), rowClass{onFormer: sp.OnFormer, springback: sp.Springback}
 	}, func(i int) bool { return calS[c.Supports[i].Name] })
-	wires, x.thinnedWires = thinRows(wires, func(i int) (float64, float64, string) {
+	wires, x.thinnedWires = thinRows(wires, func(i int) (float64, float64, rowClass) {
 		w := &c.Wires[i]
 		do := w.Overall
 		if do == 0 {
 			do = w.Diameter
 		}
-		return float64(w.Diameter), float64(do), fmt.Sprint(w.Conductor)
+		return float64(w.Diameter), float64(do), rowClass{conductor: w.Conductor}
 	}, func(i int) bool { return calW[c.Wires[i].Name] })
 	return sups, wires
 }
@@ -421,16 +420,24 @@ const (
 	thinStep  = 0.01
 )
 
+// rowClass is what rows must share to be thinned together: a support's
+// kind and springback, a wire's conductor.
+type rowClass struct {
+	onFormer   bool
+	springback float64
+	conductor  coil.Conductor
+}
+
 // thinRows thins the rows idx (already in stock order) when they are
 // dense (see denseRows). key returns a row's two diameters and its class;
 // keep reports rows that are never dropped (named in a calibration). It
 // returns the rows to search and how many it dropped.
-func thinRows(idx []int, key func(int) (d, do float64, class string), keep func(int) bool) ([]int, int) {
+func thinRows(idx []int, key func(int) (d, do float64, class rowClass), keep func(int) bool) ([]int, int) {
 	type row struct {
 		i     int
 		d, do float64
 	}
-	byClass := map[string][]row{}
+	byClass := map[rowClass][]row{}
 	for _, i := range idx {
 		d, do, cl := key(i)
 		byClass[cl] = append(byClass[cl], row{i, d, do})
@@ -463,7 +470,7 @@ func thinRows(idx []int, key func(int) (d, do float64, class string), keep func(
 		return idx, 0
 	}
 	within := func(a, b float64) bool { return math.Abs(a/b-1) < thinStep }
-	kept := map[string][]row{}
+	kept := map[rowClass][]row{}
 	out := idx[:0:0]
 	for _, i := range idx {
 		d, do, cl := key(i)
