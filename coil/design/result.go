@@ -309,6 +309,9 @@ func (x *search) warnings(cs []Candidate) []string {
 			break
 		}
 	}
+	if x.thinnedSupports+x.thinnedWires > 0 {
+		w = append(w, fmt.Sprintf("dense stock: %d support and %d wire rows within %.0f %% of a row listed before them were searched as that row", x.thinnedSupports, x.thinnedWires, thinStep*100))
+	}
 	if len(cs) < s.top {
 		w = append(w, fmt.Sprintf("only %d distinct coil(s) meet the target and the limits", len(cs)))
 	}
