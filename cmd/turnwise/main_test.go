@@ -12,6 +12,7 @@ import (
 	"strings"
 	"testing"
 
+	"turnwise/internal/report"
 	"turnwise/internal/testtools"
 )
 
@@ -175,7 +176,7 @@ func TestPredictJSONKeys(t *testing.T) {
 	if _, ok := doc["warnings"].([]any); !ok {
 		t.Error("warnings is not an array")
 	}
-	if doc["schema"] != float64(schemaVersion) {
+	if doc["schema"] != float64(report.SchemaVersion) {
 		t.Error("schema missing")
 	}
 }
