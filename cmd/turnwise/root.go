@@ -36,7 +36,7 @@ Every command prints a table, or JSON with --json (SI units: H, F, Hz, m, Ω).
 	root.SetOut(g.stdout)
 	root.SetErr(g.stderr)
 	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error {
-		return &usageError{msg: err.Error()}
+		return &usageError{Msg: err.Error()}
 	})
 	root.AddCommand(
 		newPredictCmd(g),

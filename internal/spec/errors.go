@@ -1,0 +1,35 @@
+package spec
+
+import (
+	"errors"
+	"fmt"
+
+	"turnwise/coil"
+)
+
+// UsageError is bad input found before the model runs: a missing or
+// conflicting option, a value that does not parse. The message names the
+// command's flag (a job file's key has the same name).
+type UsageError struct{ Msg string }
+
+func (e *UsageError) Error() string { return e.Msg }
+
+// Usagef formats a *UsageError.
+func Usagef(format string, args ...any) error {
+	return &UsageError{Msg: fmt.Sprintf(format, args...)}
+}
+
+// FlagError attaches the flag (or job key) an error belongs to.
+type FlagError struct {
+	Flag string
+	Err  error
+}
+
+func (e *FlagError) Error() string {
+	var ie *coil.InputError
+	if errors.As(e.Err, &ie) {
+		return "--" + e.Flag + ": " + ie.Reason
+	}
+	return "--" + e.Flag + ": " + e.Err.Error()
+}
+func (e *FlagError) Unwrap() error { return e.Err }
