@@ -156,6 +156,21 @@ func searchConstraints(cat *forms.Catalog, o *SearchOptions) (design.Constraints
 	return c, nil
 }
 
+// SearchLists is the catalog as the design search's lists of supports and
+// wires under o: the one conversion, used by Search and by the search's
+// benchmarks.
+func SearchLists(cat *forms.Catalog, o *SearchOptions) ([]design.Support, []design.WireOption, error) {
+	sups, err := searchSupports(cat, o)
+	if err != nil {
+		return nil, nil, err
+	}
+	wires, err := searchWires(cat, o)
+	if err != nil {
+		return nil, nil, err
+	}
+	return sups, wires, nil
+}
+
 // searchSupports lists the mandrels and formers the search may use.
 func searchSupports(cat *forms.Catalog, o *SearchOptions) ([]design.Support, error) {
 	if sb := o.Springback; sb != nil && !(*sb >= coil.MinSpringback && *sb <= coil.MaxSpringback) {
