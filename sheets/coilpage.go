@@ -108,7 +108,7 @@ func (s *sheet) coilHeader(c *Coil, y, x, w float64) float64 {
 	y += 6.5
 	g := c.Prediction.Geometry
 	how := "slide it off the mandrel: self-supporting"
-	if c.Support == "former" {
+	if c.Support == coil.SupportFormer {
 		how = "it stays on the former"
 	}
 	s.font("", 10)
@@ -150,7 +150,7 @@ func (s *sheet) windingSteps(c *Coil) []string {
 	if enamel {
 		st = append(st, fmt.Sprintf("Strip %s of enamel at each end (scrape, or a solder pot for solderable enamel) and tin the ends.", u.lead(float64(coil.CutAllowance)/2)))
 	}
-	if c.Support == "former" {
+	if c.Support == coil.SupportFormer {
 		st = append(st, fmt.Sprintf("Fix the cold end on the %s (two small holes, or tape), leaving %s of lead plus the strip allowance.", c.SupportName, lead))
 	} else {
 		st = append(st, fmt.Sprintf("Clamp the %s in a vice by its tip, plain shank out. Leave %s of lead plus the strip allowance at the cold end.", c.SupportName, lead))
@@ -167,10 +167,10 @@ func (s *sheet) windingSteps(c *Coil) []string {
 	default:
 		st = append(st, fmt.Sprintf("Wind %s, pulled snug, the same way round as the drawing. Count them on the top, as its numbers do.", quantity.FormatTurnsWord(g.Turns)))
 	}
-	if c.Support != "former" {
+	if c.Support != coil.SupportFormer {
 		bore := u.of(float64(p.InsideDiameter))
 		switch {
-		case c.SpringbackSource == "calibration":
+		case c.SpringbackSource == coil.SpringbackCalibration:
 			st = append(st, fmt.Sprintf("Slide the coil off; your calibration says the bore opens %s. Expect a bore of %s.", quantity.FormatPercent(g.Springback), bore))
 		case g.Springback != 0:
 			st = append(st, fmt.Sprintf("Slide the coil off; the bore should open by %s. Expect a bore of %s.", quantity.FormatPercent(g.Springback), bore))

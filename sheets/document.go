@@ -38,12 +38,12 @@ type Coil struct {
 	Wire    string
 	WireKey string
 
-	Support     string // "mandrel" (slid off, self-supporting) or "former" (stays on)
-	SupportName string // "6mm drill", "pvc 25mm"
+	Support     coil.SupportKind // slid off a mandrel (self-supporting) or stays on a former
+	SupportName string           // "6mm drill", "pvc 25mm"
 
-	// SpringbackSource is "given", "calibration" or "none"; the note is the
-	// calibration's own.
-	SpringbackSource string
+	// SpringbackSource says where the springback came from; the note is
+	// the calibration's own.
+	SpringbackSource coil.SpringbackSource
 	SpringbackNote   string
 	CloseWound       bool
 

@@ -66,11 +66,11 @@ func (o *coilOptions) addFlags(fs *pflag.FlagSet) {
 type coilSpec struct {
 	Geometry         coil.Geometry
 	Wire             forms.Wire
-	SupportKind      string // "mandrel" or "former"
+	SupportKind      coil.SupportKind
 	SupportName      string
-	SpringbackSource string // "given", "calibration", "none"
+	SpringbackSource coil.SpringbackSource
 	SpringbackNote   string
-	PitchSource      string // "pitch", "length", "close-wound"
+	PitchSource      coil.PitchSource
 }
 
 // resolve turns the flags into a geometry, looking names up in cat.
@@ -105,17 +105,15 @@ func (o *coilOptions) resolve(cat *forms.Catalog) (coilSpec, error) {
 		LeadLength:   o.leads.v,
 		Temperature:  o.temp.v,
 	}
-	supportFlag := "mandrel"
 	if o.mandrel != "" {
-		s.SupportKind = "mandrel"
+		s.SupportKind = coil.SupportMandrel
 		d, name, err := resolveMandrel(cat, o.mandrel)
 		if err != nil {
 			return s, err
 		}
 		g.FormerDiameter, s.SupportName = d, name
 	} else {
-		supportFlag = "former"
-		s.SupportKind = "former"
+		s.SupportKind = coil.SupportFormer
 		d, name, err := resolveFormer(cat, o.former)
 		if err != nil {
 			return s, err
@@ -125,12 +123,12 @@ func (o *coilOptions) resolve(cat *forms.Catalog) (coilSpec, error) {
 
 	switch {
 	case o.springback.set:
-		g.Springback, s.SpringbackSource = o.springback.v, "given"
+		g.Springback, s.SpringbackSource = o.springback.v, coil.SpringbackGiven
 	default:
 		if c, ok := cat.Springback(s.SupportName, w.Name); ok {
-			g.Springback, s.SpringbackSource, s.SpringbackNote = c.Springback, "calibration", c.Note
+			g.Springback, s.SpringbackSource, s.SpringbackNote = c.Springback, coil.SpringbackCalibration, c.Note
 		} else {
-			s.SpringbackSource = "none"
+			s.SpringbackSource = coil.SpringbackNone
 		}
 	}
 
@@ -140,31 +138,32 @@ func (o *coilOptions) resolve(cat *forms.Catalog) (coilSpec, error) {
 	}
 	switch {
 	case o.pitch.set:
-		g.Pitch, s.PitchSource = o.pitch.v, "pitch"
+		g.Pitch, s.PitchSource = o.pitch.v, coil.PitchGiven
 	case o.length.set:
 		p, err := coil.PitchForWindingLength(o.turns.v, overall, o.length.v)
 		if err != nil {
 			return s, &flagError{"length", err}
 		}
-		g.Pitch, s.PitchSource = p, "length"
+		g.Pitch, s.PitchSource = p, coil.PitchFromLength
 	default:
-		g.Pitch, s.PitchSource = overall, "close-wound"
+		g.Pitch, s.PitchSource = overall, coil.PitchCloseWound
 	}
 	if err := g.Validate(); err != nil {
-		return s, o.attachFlag(err, supportFlag, s.PitchSource)
+		return s, o.attachFlag(err, s.SupportKind, s.PitchSource)
 	}
 	s.Geometry = g
 	return s, nil
 }
 
 // attachFlag names the flag a coil.InputError belongs to.
-func (o *coilOptions) attachFlag(err error, supportFlag, pitchSource string) error {
+// The support's flag is named after its kind (--mandrel or --former).
+func (o *coilOptions) attachFlag(err error, support coil.SupportKind, pitchSource coil.PitchSource) error {
 	var ie *coil.InputError
 	if !errors.As(err, &ie) {
 		return err
 	}
 	flag := map[string]string{
-		"former_diameter":       supportFlag,
+		"former_diameter":       support.String(),
 		"wire_diameter":         "wire",
 		"wire_overall_diameter": "insulation",
 		"turns":                 "turns",
@@ -177,7 +176,7 @@ func (o *coilOptions) attachFlag(err error, supportFlag, pitchSource string) err
 	}[ie.Param]
 	if ie.Param == "pitch" {
 		flag = "pitch"
-		if pitchSource == "length" {
+		if pitchSource == coil.PitchFromLength {
 			flag = "length"
 		}
 	}

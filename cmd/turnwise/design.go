@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"strings"
+	"turnwise/coil"
 	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
@@ -236,9 +237,9 @@ func runDesign(_ context.Context, opts *designOptions, srfGiven bool, stdout, st
 // designSpec is the coilSpec of a candidate, its wire described by the
 // row the search took it from.
 func designSpec(rows map[string]forms.Wire, c design.Candidate) coilSpec {
-	kind := "mandrel"
+	kind := coil.SupportMandrel
 	if c.Support.OnFormer {
-		kind = "former"
+		kind = coil.SupportFormer
 	}
 	w, ok := rows[c.Wire.Name]
 	if !ok {
@@ -249,10 +250,13 @@ func designSpec(rows map[string]forms.Wire, c design.Candidate) coilSpec {
 		w = forms.Wire{Name: c.Wire.Name, System: "user", Bare: c.Wire.Diameter, Overall: overall,
 			Insulation: "custom", Conductor: c.Wire.Conductor.String(), Origin: "design"}
 	}
-	src := map[string]string{"support": "given", "calibration": "calibration", "none": "none", "former": "none"}[c.SpringbackSource]
+	src := c.SpringbackSource
+	if src == coil.SpringbackOnFormer {
+		src = coil.SpringbackNone
+	}
 	return coilSpec{
 		Geometry: c.Prediction.Geometry, Wire: w, SupportKind: kind, SupportName: c.Support.Name,
-		SpringbackSource: src, SpringbackNote: c.Support.SpringbackNote, PitchSource: "pitch",
+		SpringbackSource: src, SpringbackNote: c.Support.SpringbackNote, PitchSource: coil.PitchGiven,
 	}
 }
 
@@ -445,11 +449,11 @@ func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c d
 		lf.fmt(float64(g.Pitch)), float64(g.Pitch)/overall, lf.fmt(float64(p.WindingLength)),
 		lf.fmt(float64(p.InsideDiameter)), lf.fmt(float64(p.OutsideDiameter)), lf.FormatCut(float64(p.WireLength)))
 	switch c.SpringbackSource {
-	case "calibration":
+	case coil.SpringbackCalibration:
 		build += fmt.Sprintf("; springback %s from your calibration (%s)", quantity.FormatPercent(g.Springback), c.Support.SpringbackNote)
-	case "support":
+	case coil.SpringbackGiven:
 		build += fmt.Sprintf("; springback %s (given)", quantity.FormatPercent(g.Springback))
-	case "none":
+	case coil.SpringbackNone:
 		build += "; springback 0 % assumed"
 	}
 	fmt.Fprintf(w, "    %s\n", build)

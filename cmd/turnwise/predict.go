@@ -134,23 +134,23 @@ func writePredictTable(w io.Writer, s coilSpec, p coil.Prediction, rec coilRecor
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
 	fmt.Fprintf(tw, "%s turns of %s on %s (%s)\n\n", quantity.FormatTurns(g.Turns), describeWire(s, lf), s.SupportName,
-		map[string]string{"mandrel": "slide off: self-supporting", "former": "stays on the former"}[s.SupportKind])
+		map[coil.SupportKind]string{coil.SupportMandrel: "slide off: self-supporting", coil.SupportFormer: "stays on the former"}[s.SupportKind])
 
 	fmt.Fprintln(tw, "BUILD")
-	row("wind on", lf.fmt(float64(g.FormerDiameter))+" "+s.SupportKind)
+	row("wind on", lf.fmt(float64(g.FormerDiameter))+" "+s.SupportKind.String())
 	switch s.SpringbackSource {
-	case "given":
+	case coil.SpringbackGiven:
 		row("springback", quantity.FormatPercent(g.Springback)+" (given)")
-	case "calibration":
+	case coil.SpringbackCalibration:
 		row("springback", quantity.FormatPercent(g.Springback)+" (your saved calibration: "+s.SpringbackNote+")")
 	default:
-		if s.SupportKind == "mandrel" {
+		if s.SupportKind == coil.SupportMandrel {
 			row("springback", "0 % assumed: measure the bore after release, or run `turnwise trim --save` once")
 		}
 	}
 	row("turns", quantity.FormatTurns(g.Turns))
 	pitchNote := ""
-	if s.PitchSource == "close-wound" {
+	if s.PitchSource == coil.PitchCloseWound {
 		pitchNote = ", close-wound"
 	}
 	row("pitch", fmt.Sprintf("%s (%.2f × wire%s)", lf.fmt(float64(g.Pitch)), float64(g.Pitch)/rec.WireOverallDiameter, pitchNote))

@@ -81,11 +81,11 @@ func newCoilRecord(s coilSpec, p coil.Prediction) coilRecord {
 		w = []string{}
 	}
 	return coilRecord{
-		Support:             s.SupportKind,
+		Support:             s.SupportKind.String(),
 		SupportName:         s.SupportName,
 		FormerDiameter:      float64(g.FormerDiameter),
 		Springback:          g.Springback,
-		SpringbackSource:    s.SpringbackSource,
+		SpringbackSource:    s.SpringbackSource.String(),
 		Wire:                s.Wire.Name,
 		WireSource:          s.Wire.Source,
 		Insulation:          s.Wire.Insulation,

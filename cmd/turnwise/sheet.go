@@ -363,7 +363,7 @@ func newSheetCoil(spec coilSpec, p coil.Prediction, lf lengthFormatter) sheets.C
 		SupportName:      spec.SupportName,
 		SpringbackSource: spec.SpringbackSource,
 		SpringbackNote:   spec.SpringbackNote,
-		CloseWound:       spec.PitchSource == "close-wound" || math.Abs(float64(p.Geometry.Pitch)-float64(p.Geometry.OverallDiameter())) < 1e-9,
+		CloseWound:       spec.PitchSource == coil.PitchCloseWound || math.Abs(float64(p.Geometry.Pitch)-float64(p.Geometry.OverallDiameter())) < 1e-9,
 		Prediction:       p,
 		Warnings:         p.Warnings(),
 	}
@@ -459,9 +459,9 @@ func designJobCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog) (desig
 // in the catalog for the page's description.
 func candidateSpec(cat *forms.Catalog, c design.Candidate) coilSpec {
 	g := c.Prediction.Geometry
-	kind := "mandrel"
+	kind := coil.SupportMandrel
 	if c.Support.OnFormer {
-		kind = "former"
+		kind = coil.SupportFormer
 	}
 	w, err := cat.Wire(c.Wire.Name)
 	if err != nil {
@@ -471,12 +471,9 @@ func candidateSpec(cat *forms.Catalog, c design.Candidate) coilSpec {
 		}
 	}
 	src := c.SpringbackSource
-	if src == "support" {
-		src = "given"
-	}
-	pitch := "pitch"
+	pitch := coil.PitchGiven
 	if math.Abs(float64(g.Pitch)-float64(g.OverallDiameter())) < 1e-9 {
-		pitch = "close-wound"
+		pitch = coil.PitchCloseWound
 	}
 	return coilSpec{
 		Geometry: g, Wire: w, SupportKind: kind, SupportName: c.Support.Name,

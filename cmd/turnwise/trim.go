@@ -218,7 +218,7 @@ func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string)
 		Measurement: m,
 		Tolerance:   opts.tolerance.v,
 		LengthSteps: trim.LengthSteps(lf.Inches),
-		OnFormer:    tc.spec.SupportKind == "former",
+		OnFormer:    tc.spec.SupportKind == coil.SupportFormer,
 	}
 	switch {
 	case opts.target.isFreq:

@@ -7,6 +7,7 @@ import (
 	"math"
 	"strings"
 	"text/tabwriter"
+	"turnwise/coil"
 	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
@@ -209,7 +210,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
 	fmt.Fprintf(tw, "Trim: %s turns of %s on %s (%s)\n\n", quantity.FormatTurns(g.Turns), describeWire(res.tc.spec, lf), res.tc.spec.SupportName,
-		map[string]string{"mandrel": "slid off: self-supporting", "former": "stays on the former"}[res.tc.spec.SupportKind])
+		map[coil.SupportKind]string{coil.SupportMandrel: "slid off: self-supporting", coil.SupportFormer: "stays on the former"}[res.tc.spec.SupportKind])
 	fmt.Fprintf(tw, "→ %s\n", res.instruction)
 
 	fmt.Fprintf(tw, "\nMEASUREMENT (%s)\n", kindText(r.Kind))
@@ -259,9 +260,9 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	}
 	sbNote := "no springback assumed"
 	switch res.tc.spec.SpringbackSource {
-	case "given":
+	case coil.SpringbackGiven:
 		sbNote = "springback " + sbPct(g.Springback) + " as given"
-	case "calibration":
+	case coil.SpringbackCalibration:
 		sbNote = "your saved springback " + sbPct(g.Springback)
 	}
 	row("the model expected", fmt.Sprintf("%s  (%s): the coil reads %+.1f %%", quantity.FormatEng(float64(cal.ModelBefore), "H", 4), sbNote, res.Deviation*100))
@@ -492,7 +493,7 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 	d.SelfCapacitanceModel = float64(cal.SelfCapacitance)
 	d.ModelInductance = float64(cal.ModelBefore)
 	d.InductanceTerminal = float64(cal.Measured)
-	d.SpringbackBefore, d.SpringbackSource = g.Springback, res.tc.spec.SpringbackSource
+	d.SpringbackBefore, d.SpringbackSource = g.Springback, res.tc.spec.SpringbackSource.String()
 	d.Springback, d.SpringbackLow, d.SpringbackHigh = cal.Springback, cal.SpringbackLow, cal.SpringbackHigh
 	d.EffectiveDiameter = float64(cal.EffectiveDiameter)
 	d.EffectiveInsideDiameter = float64(cal.Geometry.InsideDiameter())

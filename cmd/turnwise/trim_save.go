@@ -8,6 +8,7 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
+	"turnwise/coil"
 	"turnwise/internal/quantity"
 
 	"turnwise/coil/trim"
@@ -68,7 +69,7 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error
 	add := &forms.Catalog{}
 	s := &savedCalibration{Path: tc.stock.path, Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.Calibration.Springback}
 	const source = "given on the command line; added by turnwise trim --save"
-	if spec.SupportKind == "mandrel" {
+	if spec.SupportKind == coil.SupportMandrel {
 		if _, err := lookup.Mandrel(spec.SupportName); err != nil {
 			add.Mandrels = append(add.Mandrels, forms.Mandrel{Name: spec.SupportName, Diameter: g.FormerDiameter, Kind: "rod", Source: source})
 			s.Added = append(s.Added, fmt.Sprintf("mandrel %q (%s)", spec.SupportName, res.lf.fmt(float64(g.FormerDiameter))))
