@@ -253,7 +253,7 @@ func resolveMandrel(cat *forms.Catalog, s string) (unit.Length, string, error) {
 		if looksLikeQuantity(s) {
 			return 0, "", &flagError{"mandrel", err}
 		}
-		return 0, "", &flagError{"mandrel", fmt.Errorf("%v; or give a diameter such as 6mm", lookupErr)}
+		return 0, "", &flagError{"mandrel", fmt.Errorf("%w; or give a diameter such as 6mm", lookupErr)}
 	}
 	return d, fmt.Sprintf("%s rod", s), nil
 }
@@ -268,7 +268,7 @@ func resolveFormer(cat *forms.Catalog, s string) (unit.Length, string, error) {
 		if looksLikeQuantity(s) {
 			return 0, "", &flagError{"former", err}
 		}
-		return 0, "", &flagError{"former", fmt.Errorf("%v; or give an outside diameter such as 20mm", lookupErr)}
+		return 0, "", &flagError{"former", fmt.Errorf("%w; or give an outside diameter such as 20mm", lookupErr)}
 	}
 	return d, fmt.Sprintf("%s former", s), nil
 }

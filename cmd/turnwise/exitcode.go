@@ -28,10 +28,15 @@ EXIT STATUS
      constraint binds and what is nearest`
 
 // usageError is bad input found by the command layer: a missing or
-// conflicting flag, a value that does not parse.
-type usageError struct{ msg string }
+// conflicting flag, a value that does not parse. err, when set, is the
+// cause msg was made from (a cobra flag or command-line error).
+type usageError struct {
+	msg string
+	err error
+}
 
 func (e *usageError) Error() string { return e.msg }
+func (e *usageError) Unwrap() error { return e.err }
 
 func usageErrorf(format string, args ...any) error {
 	return &usageError{msg: fmt.Sprintf(format, args...)}

@@ -52,7 +52,7 @@ func jobCatalog(job *forms.Job, so *stockOptions, flagsGiven bool) (*forms.Catal
 		var ue *usageError
 		if errors.As(err, &ue) {
 			return nil, &forms.ParseError{Kind: "job", File: job.File, Line: job.KeyLine("stock"), Field: "stock",
-				Err: fmt.Errorf("%q (read as %s) cannot be used: %s", job.Stock, opts.path, ue.msg)}
+				Err: fmt.Errorf("%q (read as %s) cannot be used: %w", job.Stock, opts.path, ue)}
 		}
 	}
 	return cat, err
@@ -138,7 +138,7 @@ func jobCoilError(job *forms.Job, c *forms.JobCoil, err error) error {
 	}
 	var ue *usageError
 	if errors.As(err, &ue) {
-		return jobFieldError(job, c, "", errors.New(ue.msg))
+		return jobFieldError(job, c, "", ue)
 	}
 	if errors.Is(err, coil.ErrInfeasible) {
 		return fmt.Errorf("job %q: line %d: %s: %w", job.File, c.Line, c.Label(), err)
