@@ -283,7 +283,7 @@ func jobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf leng
 		c = newSheetCoil(spec, cand.Prediction, lf)
 		c.Target = &sheets.Target{
 			Description: targetDescription(jc, res),
-			Inductance:  float64(res.Required),
+			Inductance:  res.Required,
 			Effective:   res.Effective,
 			Tolerance:   res.Tolerance,
 			Rank:        1,
@@ -369,14 +369,14 @@ func newSheetCoil(spec coilSpec, p coil.Prediction, lf lengthFormatter) sheets.C
 	}
 	if p.Frequency > 0 {
 		if p0, err := coil.Predict(p.Geometry, 0); err == nil {
-			c.LowFrequency = float64(p0.Inductance)
+			c.LowFrequency = p0.Inductance
 		}
 	}
 	if dl, err := coil.LengthPerPercent(p.Geometry, p.Frequency); err == nil {
-		c.TrimPerPercent = float64(dl)
+		c.TrimPerPercent = dl
 	}
 	if least, most, err := coil.Window(p.Geometry, p.Frequency); err == nil {
-		c.TrimLeast, c.TrimMost = float64(least), float64(most)
+		c.TrimLeast, c.TrimMost = least, most
 	}
 	return c
 }
@@ -385,9 +385,9 @@ func sheetTap(s coil.Sections) *sheets.Tap {
 	return &sheets.Tap{
 		Turns:    s.TapTurns,
 		Ratio:    s.Ratio,
-		LBelow:   float64(s.LB),
-		LAbove:   float64(s.LA),
-		Mutual:   float64(s.M),
+		LBelow:   s.LB,
+		LAbove:   s.LA,
+		Mutual:   s.M,
 		Coupling: s.K,
 	}
 }
@@ -537,22 +537,22 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 		GangB:     describeGang(b),
 		Capacitor: sheetCapacitor(a, b),
 		Law:       describeLaw(a),
-		Overlap:   float64(sp.Overlap),
+		Overlap:   sp.Overlap,
 		Notes:     sp.Warnings,
 	}
 	for _, d := range sp.Dial {
-		s.Dial = append(s.Dial, sheets.DialPoint{Setting: d.Setting, FLow: float64(d.FLow), FHigh: float64(d.FHigh)})
+		s.Dial = append(s.Dial, sheets.DialPoint{Setting: d.Setting, FLow: d.FLow, FHigh: d.FHigh})
 	}
 	for _, bc := range sp.Bands {
 		where, on := bc.Placement()
-		sb := sheets.Band{Low: float64(bc.Band.Low), High: float64(bc.Band.High), Label: bc.Band.Name,
+		sb := sheets.Band{Low: bc.Band.Low, High: bc.Band.High, Label: bc.Band.Name,
 			Range: where.String(), DialLow: on.SettingAtLow, DialHigh: on.SettingAtHigh}
 		s.Bands = append(s.Bands, sb)
 	}
 	for _, co := range sp.Coincidences {
 		s.Coincidences = append(s.Coincidences, sheets.Coincidence{
 			Setting: co.Setting, Order: co.Order, Band: co.Band,
-			FLow: float64(co.FLow), FHigh: float64(co.FHigh), Depth: co.Depth,
+			FLow: co.FLow, FHigh: co.FHigh, Depth: co.Depth,
 		})
 	}
 	var chosen *sheets.Tap
