@@ -192,7 +192,7 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 	}
 	out, spanErr := spec.BuildSpan(cs.Geometry, set)
 	if spanErr != nil && !errors.Is(spanErr, coil.ErrInfeasible) {
-		return spec.AttachFlag(spanErr, cs.SupportKind, cs.PitchSource)
+		return spec.AttachFlag(spanErr, cs.SupportKind.String(), cs.PitchSource)
 	}
 	if out.Plan == nil && spanErr != nil {
 		return spanErr

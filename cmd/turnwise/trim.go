@@ -211,7 +211,7 @@ func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string)
 		Measurement: m,
 		Tolerance:   opts.tolerance.v,
 		LengthSteps: trim.LengthSteps(lf.Inches),
-		OnFormer:    tc.spec.SupportKind == "former",
+		OnFormer:    tc.spec.SupportKind == coil.SupportFormer,
 	}
 	switch {
 	case opts.target.isFreq:
@@ -489,9 +489,9 @@ func (tc trimCoil) coilError(o *trimOptions, err error) error {
 		return &flagError{Flag: "freq", Err: err}
 	}
 	if tc.job != nil {
-		return spec.JobCoilError(tc.job, tc.jobEntry, spec.AttachFlag(err, tc.spec.SupportKind, tc.spec.PitchSource))
+		return spec.JobCoilError(tc.job, tc.jobEntry, spec.AttachFlag(err, tc.spec.SupportKind.String(), tc.spec.PitchSource))
 	}
-	return spec.AttachFlag(err, tc.spec.SupportKind, tc.spec.PitchSource)
+	return spec.AttachFlag(err, tc.spec.SupportKind.String(), tc.spec.PitchSource)
 }
 
 // trimError names the flag (or job key) an error of trim.Plan belongs to.

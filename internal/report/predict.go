@@ -15,10 +15,10 @@ func WritePredictTable(w io.Writer, s spec.Spec, p coil.Prediction, rec CoilReco
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
 	fmt.Fprintf(tw, "%s turns of %s on %s (%s)\n\n", quantity.FormatTurns(g.Turns), spec.DescribeWire(s, lf), s.SupportName,
-		map[string]string{"mandrel": "slide off: self-supporting", "former": "stays on the former"}[s.SupportKind])
+		map[coil.SupportKind]string{coil.SupportMandrel: "slide off: self-supporting", coil.SupportFormer: "stays on the former"}[s.SupportKind])
 
 	fmt.Fprintln(tw, "BUILD")
-	row("wind on", lf.Format(float64(g.FormerDiameter))+" "+s.SupportKind)
+	row("wind on", lf.Format(float64(g.FormerDiameter))+" "+s.SupportKind.String())
 	switch s.SpringbackSource {
 	case "given":
 		row("springback", quantity.FormatPercent(g.Springback)+" (given)")

@@ -84,11 +84,11 @@ func NewCoilRecord(s spec.Spec, p coil.Prediction) CoilRecord {
 		w = []string{}
 	}
 	return CoilRecord{
-		Support:             s.SupportKind,
+		Support:             s.SupportKind.String(),
 		SupportName:         s.SupportName,
 		FormerDiameter:      float64(g.FormerDiameter),
 		Springback:          g.Springback,
-		SpringbackSource:    s.SpringbackSource,
+		SpringbackSource:    s.SpringbackSource.String(),
 		Wire:                s.Wire.Name,
 		WireSource:          s.Wire.Source,
 		Insulation:          s.Wire.Insulation,

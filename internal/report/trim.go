@@ -7,6 +7,7 @@ import (
 	"math"
 	"strings"
 	"text/tabwriter"
+	"turnwise/coil"
 	"turnwise/coil/trim"
 	"turnwise/forms"
 	"turnwise/internal/quantity"
@@ -217,7 +218,7 @@ func WriteTrimTable(w io.Writer, res *Trim) error {
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
 	fmt.Fprintf(tw, "Trim: %s turns of %s on %s (%s)\n\n", quantity.FormatTurns(g.Turns), spec.DescribeWire(res.Coil, lf), res.Coil.SupportName,
-		map[string]string{"mandrel": "slid off: self-supporting", "former": "stays on the former"}[res.Coil.SupportKind])
+		map[coil.SupportKind]string{coil.SupportMandrel: "slid off: self-supporting", coil.SupportFormer: "stays on the former"}[res.Coil.SupportKind])
 	fmt.Fprintf(tw, "→ %s\n", res.Instruction)
 
 	fmt.Fprintf(tw, "\nMEASUREMENT (%s)\n", kindText(r.Kind))
@@ -269,7 +270,7 @@ func WriteTrimTable(w io.Writer, res *Trim) error {
 	switch res.Coil.SpringbackSource {
 	case "given":
 		sbNote = "springback " + sbPct(g.Springback) + " as given"
-	case "calibration":
+	case coil.SpringbackCalibration:
 		sbNote = "your saved springback " + sbPct(g.Springback)
 	}
 	row("the model expected", fmt.Sprintf("%s  (%s): the coil reads %+.1f %%", quantity.FormatEng(float64(cal.ModelBefore), "H", 4), sbNote, res.Deviation*100))
@@ -498,7 +499,7 @@ func WriteTrimJSON(w io.Writer, res *Trim) error {
 	d.SelfCapacitanceModel = float64(cal.SelfCapacitance)
 	d.ModelInductance = float64(cal.ModelBefore)
 	d.InductanceTerminal = float64(cal.Measured)
-	d.SpringbackBefore, d.SpringbackSource = g.Springback, res.Coil.SpringbackSource
+	d.SpringbackBefore, d.SpringbackSource = g.Springback, res.Coil.SpringbackSource.String()
 	d.Springback, d.SpringbackLow, d.SpringbackHigh = cal.Springback, cal.SpringbackLow, cal.SpringbackHigh
 	d.EffectiveDiameter = float64(cal.EffectiveDiameter)
 	d.EffectiveInsideDiameter = float64(cal.Geometry.InsideDiameter())

@@ -18,11 +18,11 @@ import (
 type Spec struct {
 	Geometry         coil.Geometry
 	Wire             forms.Wire
-	SupportKind      string // "mandrel" or "former"
+	SupportKind      coil.SupportKind
 	SupportName      string
-	SpringbackSource string // "given", "calibration", "none"
+	SpringbackSource coil.SpringbackSource // given, calibration or none
 	SpringbackNote   string
-	PitchSource      string // "pitch", "length", "close-wound"
+	PitchSource      coil.PitchSource
 }
 
 // closeWound reports a pitch equal to the wire's overall diameter.
@@ -36,9 +36,9 @@ func closeWound(g coil.Geometry) bool {
 // close-wound pitch called so.
 func FromCandidate(rows map[string]forms.Wire, c design.Candidate) Spec {
 	g := c.Prediction.Geometry
-	kind := "mandrel"
+	kind := coil.SupportMandrel
 	if c.Support.OnFormer {
-		kind = "former"
+		kind = coil.SupportFormer
 	}
 	w, ok := rows[c.Wire.Name]
 	if !ok {
@@ -52,10 +52,13 @@ func FromCandidate(rows map[string]forms.Wire, c design.Candidate) Spec {
 			w.Insulation = "custom"
 		}
 	}
-	src := map[string]string{"support": "given", "calibration": "calibration", "none": "none", "former": "none"}[c.SpringbackSource]
-	pitch := "pitch"
+	src := c.SpringbackSource
+	if src == coil.SpringbackOnFormer {
+		src = coil.SpringbackNone // a coil left on its former has no springback to report
+	}
+	pitch := coil.PitchGiven
 	if closeWound(g) {
-		pitch = "close-wound"
+		pitch = coil.PitchCloseWound
 	}
 	return Spec{
 		Geometry: g, Wire: w, SupportKind: kind, SupportName: c.Support.Name,
@@ -72,7 +75,7 @@ func Predict(cat *forms.Catalog, o forms.JobWinding, f unit.Frequency) (Spec, co
 	}
 	p, err := coil.Predict(s.Geometry, f)
 	if err != nil {
-		return s, p, AttachFlag(err, s.SupportKind, s.PitchSource)
+		return s, p, AttachFlag(err, s.SupportKind.String(), s.PitchSource)
 	}
 	return s, p, nil
 }
@@ -119,7 +122,7 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 	}
 	supportFlag := "mandrel"
 	if o.Mandrel != "" {
-		s.SupportKind = "mandrel"
+		s.SupportKind = coil.SupportMandrel
 		d, name, err := ResolveMandrel(cat, o.Mandrel)
 		if err != nil {
 			return s, err
@@ -127,7 +130,7 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 		g.FormerDiameter, s.SupportName = d, name
 	} else {
 		supportFlag = "former"
-		s.SupportKind = "former"
+		s.SupportKind = coil.SupportFormer
 		d, name, err := ResolveFormer(cat, o.Former)
 		if err != nil {
 			return s, err
@@ -137,10 +140,10 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 
 	switch {
 	case o.Springback != nil:
-		g.Springback, s.SpringbackSource = *o.Springback, "given"
+		g.Springback, s.SpringbackSource = *o.Springback, coil.SpringbackGiven
 	default:
 		if c, ok := cat.Springback(s.SupportName, w.Name); ok {
-			g.Springback, s.SpringbackSource, s.SpringbackNote = c.Springback, "calibration", c.Note
+			g.Springback, s.SpringbackSource, s.SpringbackNote = c.Springback, coil.SpringbackCalibration, c.Note
 		} else {
 			s.SpringbackSource = "none"
 		}
@@ -152,15 +155,15 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 	}
 	switch {
 	case o.Pitch != nil:
-		g.Pitch, s.PitchSource = *o.Pitch, "pitch"
+		g.Pitch, s.PitchSource = *o.Pitch, coil.PitchGiven
 	case o.Length != nil:
 		p, err := coil.PitchForWindingLength(*o.Turns, overall, *o.Length)
 		if err != nil {
 			return s, &FlagError{Flag: "length", Err: err}
 		}
-		g.Pitch, s.PitchSource = p, "length"
+		g.Pitch, s.PitchSource = p, coil.PitchFromLength
 	default:
-		g.Pitch, s.PitchSource = overall, "close-wound"
+		g.Pitch, s.PitchSource = overall, coil.PitchCloseWound
 	}
 	if err := g.Validate(); err != nil {
 		return s, AttachFlag(err, supportFlag, s.PitchSource)
@@ -171,7 +174,7 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 
 // AttachFlag names the flag a coil.InputError belongs to: supportFlag is
 // "mandrel" or "former", pitchSource the Spec's.
-func AttachFlag(err error, supportFlag, pitchSource string) error {
+func AttachFlag(err error, supportFlag string, pitchSource coil.PitchSource) error {
 	var ie *coil.InputError
 	if !errors.As(err, &ie) {
 		return err
@@ -190,7 +193,7 @@ func AttachFlag(err error, supportFlag, pitchSource string) error {
 	}[ie.Param]
 	if ie.Param == "pitch" {
 		flag = "pitch"
-		if pitchSource == "length" {
+		if pitchSource == coil.PitchFromLength {
 			flag = "length"
 		}
 	}
@@ -268,7 +271,7 @@ func ResolveMandrel(cat *forms.Catalog, s string) (unit.Length, string, error) {
 		if looksLikeQuantity(s) {
 			return 0, "", &FlagError{Flag: "mandrel", Err: err}
 		}
-		return 0, "", &FlagError{Flag: "mandrel", Err: fmt.Errorf("%v; or give a diameter such as 6mm", lookupErr)}
+		return 0, "", &FlagError{Flag: "mandrel", Err: fmt.Errorf("%w; or give a diameter such as 6mm", lookupErr)}
 	}
 	return d, fmt.Sprintf("%s rod", s), nil
 }
@@ -284,7 +287,7 @@ func ResolveFormer(cat *forms.Catalog, s string) (unit.Length, string, error) {
 		if looksLikeQuantity(s) {
 			return 0, "", &FlagError{Flag: "former", Err: err}
 		}
-		return 0, "", &FlagError{Flag: "former", Err: fmt.Errorf("%v; or give an outside diameter such as 20mm", lookupErr)}
+		return 0, "", &FlagError{Flag: "former", Err: fmt.Errorf("%w; or give an outside diameter such as 20mm", lookupErr)}
 	}
 	return d, fmt.Sprintf("%s former", s), nil
 }

@@ -10,9 +10,13 @@ import (
 // UsageError is bad input found before the model runs: a missing or
 // conflicting option, a value that does not parse. The message names the
 // command's flag (a job file's key has the same name).
-type UsageError struct{ Msg string }
+type UsageError struct {
+	Msg string
+	Err error // the cause Msg was made from, when there is one (a cobra flag error)
+}
 
 func (e *UsageError) Error() string { return e.Msg }
+func (e *UsageError) Unwrap() error { return e.Err }
 
 // Usagef formats a *UsageError.
 func Usagef(format string, args ...any) error {

@@ -126,7 +126,7 @@ func PredictJobCoil(job *forms.Job, c *forms.JobCoil, cat *forms.Catalog) (Spec,
 	}
 	p, err := coil.Predict(spec.Geometry, f)
 	if err != nil {
-		return spec, p, JobCoilError(job, c, AttachFlag(err, spec.SupportKind, spec.PitchSource))
+		return spec, p, JobCoilError(job, c, AttachFlag(err, spec.SupportKind.String(), spec.PitchSource))
 	}
 	return spec, p, nil
 }

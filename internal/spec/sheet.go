@@ -1,6 +1,8 @@
 package spec
 
 import (
+	"gonum.org/v1/gonum/unit"
+
 	"errors"
 	"fmt"
 	"math"
@@ -57,7 +59,7 @@ func JobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf quan
 		c = NewSheetCoil(spec, cand.Prediction, lf)
 		c.Target = &sheets.Target{
 			Description: targetDescription(jc, res),
-			Inductance:  float64(res.Required),
+			Inductance:  unit.Inductance(res.Required),
 			Effective:   res.Effective,
 			Tolerance:   res.Tolerance,
 			Rank:        1,
@@ -145,14 +147,14 @@ func NewSheetCoil(spec Spec, p coil.Prediction, lf quantity.LengthFormat) sheets
 	}
 	if p.Frequency > 0 {
 		if p0, err := coil.Predict(p.Geometry, 0); err == nil {
-			c.LowFrequency = float64(p0.Inductance)
+			c.LowFrequency = unit.Inductance(p0.Inductance)
 		}
 	}
 	if dl, err := coil.LengthPerPercent(p.Geometry, p.Frequency); err == nil {
-		c.TrimPerPercent = float64(dl)
+		c.TrimPerPercent = unit.Length(dl)
 	}
 	if least, most, err := coil.Window(p.Geometry, p.Frequency); err == nil {
-		c.TrimLeast, c.TrimMost = float64(least), float64(most)
+		c.TrimLeast, c.TrimMost = unit.Inductance(least), unit.Inductance(most)
 	}
 	return c
 }
@@ -162,9 +164,9 @@ func SheetTap(s coil.Sections) *sheets.Tap {
 	return &sheets.Tap{
 		Turns:    s.TapTurns,
 		Ratio:    s.Ratio,
-		LBelow:   float64(s.LB),
-		LAbove:   float64(s.LA),
-		Mutual:   float64(s.M),
+		LBelow:   unit.Inductance(s.LB),
+		LAbove:   unit.Inductance(s.LA),
+		Mutual:   unit.Inductance(s.M),
 		Coupling: s.K,
 	}
 }
@@ -290,22 +292,22 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 		GangB:     DescribeGang(b),
 		Capacitor: sheetCapacitor(a, b),
 		Law:       DescribeLaw(a),
-		Overlap:   float64(sp.Overlap),
+		Overlap:   unit.Frequency(sp.Overlap),
 		Notes:     sp.Warnings,
 	}
 	for _, d := range sp.Dial {
-		s.Dial = append(s.Dial, sheets.DialPoint{Setting: d.Setting, FLow: float64(d.FLow), FHigh: float64(d.FHigh)})
+		s.Dial = append(s.Dial, sheets.DialPoint{Setting: d.Setting, FLow: unit.Frequency(d.FLow), FHigh: unit.Frequency(d.FHigh)})
 	}
 	for _, bc := range sp.Bands {
 		where, on := bc.Placement()
-		sb := sheets.Band{Low: float64(bc.Band.Low), High: float64(bc.Band.High), Label: bc.Band.Name,
+		sb := sheets.Band{Low: unit.Frequency(bc.Band.Low), High: unit.Frequency(bc.Band.High), Label: bc.Band.Name,
 			Range: where.String(), DialLow: on.SettingAtLow, DialHigh: on.SettingAtHigh}
 		s.Bands = append(s.Bands, sb)
 	}
 	for _, co := range sp.Coincidences {
 		s.Coincidences = append(s.Coincidences, sheets.Coincidence{
 			Setting: co.Setting, Order: co.Order, Band: co.Band,
-			FLow: float64(co.FLow), FHigh: float64(co.FHigh), Depth: co.Depth,
+			FLow: unit.Frequency(co.FLow), FHigh: unit.Frequency(co.FHigh), Depth: co.Depth,
 		})
 	}
 	var chosen *sheets.Tap
