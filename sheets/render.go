@@ -113,6 +113,9 @@ type sheet struct {
 	doc  *Document
 	w, h float64 // page size, mm
 	u    lengths
+
+	style  string           // the current font style
+	glyphW map[glyphKey]int // glyph widths by style and rune
 }
 
 func newSheet(doc *Document, opt Options) *sheet {
@@ -129,7 +132,7 @@ func newSheet(doc *Document, opt Options) *sheet {
 	pdf.AliasNbPages("{nb}")
 	pdf.SetLineJoinStyle("round")
 	w, h := pdf.GetPageSize()
-	s := &sheet{pdf: pdf, tr: pdf.UnicodeTranslatorFromDescriptor(""), doc: doc, w: w, h: h, u: lengths{inches: doc.Units == "in"}}
+	s := &sheet{pdf: pdf, tr: pdf.UnicodeTranslatorFromDescriptor(""), doc: doc, w: w, h: h, u: lengths{inches: doc.Units == "in"}, glyphW: map[glyphKey]int{}}
 	pdf.SetFooterFunc(s.footer)
 	return s
 }
@@ -156,7 +159,10 @@ func (s *sheet) footer() {
 
 // --- text helpers -------------------------------------------------------
 
-func (s *sheet) font(style string, size float64) { s.pdf.SetFont("Helvetica", style, size) }
+func (s *sheet) font(style string, size float64) {
+	s.style = style
+	s.pdf.SetFont("Helvetica", style, size)
+}
 
 func (s *sheet) black() {
 	s.pdf.SetDrawColor(0, 0, 0)
@@ -176,16 +182,60 @@ func (s *sheet) textRight(x, y float64, str string) { s.text(x-s.width(str), y, 
 
 func (s *sheet) textCenter(x, y float64, str string) { s.text(x-s.width(str)/2, y, str) }
 
+// Text is measured in glyph units summed rune by rune (the core fonts have
+// no kerning, so this is exactly what gofpdf measures), which keeps fitting
+// and wrapping linear in the length of the text: a 200 KB title or a
+// 3,000-character word costs one pass, not one measurement per character.
+
+// glyphs returns the width of each rune of str in the current font, in
+// thousandths of the font size.
+func (s *sheet) glyphs(str string) []int {
+	out := make([]int, 0, len(str))
+	for _, r := range str {
+		k := glyphKey{s.style, r}
+		w, ok := s.glyphW[k]
+		if !ok {
+			w = s.pdf.GetStringSymbolWidth(s.enc(string(r)))
+			s.glyphW[k] = w
+		}
+		out = append(out, w)
+	}
+	return out
+}
+
+type glyphKey struct {
+	style string
+	r     rune
+}
+
+// units converts a width in mm to glyph units at the current font size.
+func (s *sheet) units(w float64) float64 {
+	_, size := s.pdf.GetFontSize() // in mm, the document's unit
+	if size <= 0 {
+		return 0
+	}
+	return w * 1000 / size
+}
+
 // fit shortens str with an ellipsis to fit w.
 func (s *sheet) fit(str string, w float64) string {
-	if s.width(str) <= w {
+	g := s.glyphs(str)
+	limit := s.units(w)
+	total := 0
+	for _, x := range g {
+		total += x
+	}
+	if float64(total) <= limit {
 		return str
 	}
+	limit -= float64(s.glyphs("…")[0])
 	r := []rune(str)
-	for len(r) > 1 && s.width(string(r)+"…") > w {
-		r = r[:len(r)-1]
+	n, sum := 0, 0
+	for n < len(r)-1 && float64(sum+g[n]) <= limit {
+		sum += g[n]
+		n++
 	}
-	return string(r) + "…"
+	return string(r[:max(n, 1)]) + "…"
 }
 
 // lineH is the baseline-to-baseline distance for the current font size.
@@ -194,25 +244,49 @@ func (s *sheet) lineH() float64 {
 	return pt/ptPerMM + lineGap
 }
 
-// wrap splits str into lines no wider than w in the current font.
+// wrap splits str into lines no wider than w in the current font. A word
+// wider than w is broken between characters, so nothing runs off the
+// right edge and nothing is dropped.
 func (s *sheet) wrap(str string, w float64) []string {
 	var out []string
+	limit := s.units(w)
+	space := float64(s.glyphs(" ")[0])
 	for _, para := range strings.Split(str, "\n") {
 		words := strings.Fields(para)
 		if len(words) == 0 {
 			out = append(out, "")
 			continue
 		}
-		line := words[0]
-		for _, wd := range words[1:] {
-			if s.width(line+" "+wd) <= w {
-				line += " " + wd
+		var line []rune
+		lineW := 0.0
+		for _, wd := range words {
+			r := []rune(wd)
+			g := s.glyphs(wd)
+			ww := 0.0
+			for _, x := range g {
+				ww += float64(x)
+			}
+			if len(line) > 0 && lineW+space+ww <= limit {
+				line = append(append(line, ' '), r...)
+				lineW += space + ww
 				continue
 			}
-			out = append(out, line)
-			line = wd
+			if len(line) > 0 {
+				out = append(out, string(line))
+				line, lineW = nil, 0
+			}
+			// Hard-break a word wider than the line.
+			start, acc := 0, 0.0
+			for i := range r {
+				if acc+float64(g[i]) > limit && i > start {
+					out = append(out, string(r[start:i]))
+					start, acc = i, 0
+				}
+				acc += float64(g[i])
+			}
+			line, lineW = append(line, r[start:]...), acc
 		}
-		out = append(out, line)
+		out = append(out, string(line))
 	}
 	return out
 }
