@@ -71,7 +71,7 @@ func (s *sheet) bomLines() ([]*wireLine, []*supportLine, []string) {
 	return wires, supports, parts
 }
 
-func (s *sheet) billOfMaterials(x, y, w float64) float64 {
+func (s *sheet) billOfMaterials(f *flow, x, w float64) {
 	allow := s.doc.Allowance
 	if allow == 0 {
 		allow = DefaultAllowance
@@ -79,27 +79,25 @@ func (s *sheet) billOfMaterials(x, y, w float64) float64 {
 	wires, supports, parts := s.bomLines()
 
 	// Wire.
-	s.font("B", smallSize)
-	cols := []float64{w - 36 - 30 - 52, 52, 30, 36}
-	heads := []string{"wire", "for", "batch total", fmt.Sprintf("have at least (+%.0f %%)", allow*100)}
-	s.row(x, y, cols, heads)
-	y += 4.2
+	t := &table{x: x, cols: []float64{w - 36 - 30 - 52, 52, 30, 36},
+		heads:  []string{"wire", "for", "batch total", fmt.Sprintf("have at least (+%.0f %%)", allow*100)},
+		styles: []string{"", "", "", ""}}
+	f.startTable(t)
 	for _, wl := range wires {
-		s.font("", bodySize)
-		cells := []string{wl.desc, strings.Join(wl.uses, ", "), s.u.cut(wl.total), s.u.stock(wl.total * (1 + allow))}
-		y = s.wrappedRow(x, y, cols, cells, 3)
+		f.tableRow(t, []string{wl.desc, strings.Join(wl.uses, ", "), s.u.cut(wl.total), s.u.stock(wl.total * (1 + allow))})
 	}
+	f.endTable()
 	s.font("", smallSize)
-	y = s.para(x, y+0.6, w, fmt.Sprintf("Batch total: each coil page's wire to cut × how many to build. Cut lengths include the leads and %s per coil for stripping and soldering. The allowance covers a coil that goes wrong, rounded up; it is common practice, not a rule.", s.u.lead(float64(coil.CutAllowance))))
+	f.y += 0.6
+	f.para(x, w, fmt.Sprintf("Batch total: each coil page's wire to cut × how many to build. Cut lengths include the leads and %s per coil for stripping and soldering. The allowance covers a coil that goes wrong, rounded up; it is common practice, not a rule.", s.u.lead(float64(coil.CutAllowance))))
 
 	// Mandrels and formers.
-	y += 2.5
-	s.font("B", smallSize)
-	cols = []float64{w - 26 - 60 - 40, 26, 60, 40}
-	s.row(x, y, cols, []string{"wind on", "diameter", "for", "need"})
-	y += 4.2
+	f.y += 2.5
+	t = &table{x: x, cols: []float64{w - 26 - 60 - 40, 26, 60, 40},
+		heads:  []string{"wind on", "diameter", "for", "need"},
+		styles: []string{"", "", "", ""}}
+	f.startTable(t)
 	for _, m := range supports {
-		s.font("", bodySize)
 		need := "1 to share (the coil slides off)"
 		if m.kind == "former" {
 			need = fmt.Sprintf("%d, each at least %s long", m.count, s.u.cut(s.u.cutUp(m.longest+2*formerMargin)))
@@ -108,21 +106,21 @@ func (s *sheet) billOfMaterials(x, y, w float64) float64 {
 		if m.kind == "former" {
 			kind = "former"
 		}
-		cells := []string{m.name + " (" + kind + ")", s.u.of(m.diameter), strings.Join(m.uses, ", "), need}
-		y = s.wrappedRow(x, y, cols, cells, 3)
+		f.tableRow(t, []string{m.name + " (" + kind + ")", s.u.of(m.diameter), strings.Join(m.uses, ", "), need})
 	}
+	f.endTable()
 	if len(parts) > 0 {
-		y += 2.5
+		f.y += 2.5
+		f.need(4.2 + s.lineH())
 		s.font("B", smallSize)
-		s.text(x, y, "other parts")
-		y += 4.2
+		s.text(x, f.y, "other parts")
+		f.y += 4.2
 		s.font("", bodySize)
 		for _, p := range parts {
-			y = s.para(x, y, w, p)
+			f.para(x, w, p)
 		}
 	}
 	s.font("", bodySize)
-	return y
 }
 
 // row draws one line of cells in the current font.
@@ -133,22 +131,3 @@ func (s *sheet) row(x, y float64, cols []float64, cells []string) {
 	}
 }
 
-// wrappedRow draws cells, wrapping each in its column up to maxLines
-// lines, and returns the y below the tallest.
-func (s *sheet) wrappedRow(x, y float64, cols []float64, cells []string, maxLines int) float64 {
-	lh := s.lineH()
-	tallest := 1
-	for i, c := range cells {
-		lines := s.wrap(c, cols[i]-1.5)
-		if len(lines) > maxLines {
-			lines = lines[:maxLines]
-			lines[maxLines-1] = s.fit(lines[maxLines-1]+" …", cols[i]-1.5)
-		}
-		for j, l := range lines {
-			s.text(x, y+float64(j)*lh, l)
-		}
-		tallest = max(tallest, len(lines))
-		x += cols[i]
-	}
-	return y + float64(tallest)*lh + 0.4
-}

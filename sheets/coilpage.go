@@ -15,6 +15,7 @@ const (
 	logRowH     = 7.0
 	minLogRows  = 2
 	maxLogRows  = 4
+	minDrawH    = 40.0 // the least height kept for the side view
 )
 
 // coilPage draws one coil's page. The side view gets the height the text
@@ -39,6 +40,29 @@ func (s *sheet) coilPage(c *Coil) {
 	cautions := s.cautionItems(c)
 	cautH := s.cautionHeight(w, cautions)
 	logH := func(rows int) float64 { return 8 + float64(rows+1)*logRowH }
+
+	// The coil's notes, as many lines as leave the drawing room; the rest
+	// continue on the next page.
+	var rest []string
+	if strings.TrimSpace(c.Notes) != "" {
+		s.font("I", bodySize)
+		lh := s.lineH()
+		lines := s.wrap(c.Notes, w)
+		room := s.bottom() - y - 4 - colsH - checkBlockH - logH(minLogRows) - cautH - 4*sectionGap - minDrawH
+		k := len(lines)
+		if float64(k)*lh > room {
+			k = max(0, int(room/lh)-1)
+			rest = lines[k:]
+			lines = append(lines[:k:k], "(the notes continue after this page)")
+		}
+		y += 0.5
+		for _, l := range lines {
+			s.text(x, y, l)
+			y += lh
+		}
+		s.font("", bodySize)
+	}
+	y += 4
 	avail := func(rows int) float64 {
 		return s.bottom() - y - 4 - colsH - checkBlockH - logH(rows) - cautH - 4*sectionGap
 	}
@@ -91,6 +115,14 @@ func (s *sheet) coilPage(c *Coil) {
 	y = s.checkBlock(x, y+sectionGap, w, c)
 	y = s.measurementLog(x, y+sectionGap, w, rows)
 	s.cautionBox(x, y+sectionGap, w, cautions, c.HighVoltage)
+
+	if len(rest) > 0 {
+		f := s.newFlow(0, c.Name+": notes")
+		f.newPage()
+		s.font("I", bodySize)
+		f.lines(x, rest)
+		s.font("", bodySize)
+	}
 }
 
 // valueLabelW is the label column of the predicted values.
@@ -129,12 +161,8 @@ func (s *sheet) coilHeader(c *Coil, y, x, w float64) float64 {
 		}
 		y = s.para(x, y+0.5, w, t)
 	}
-	if strings.TrimSpace(c.Notes) != "" {
-		s.font("I", bodySize)
-		y = s.para(x, y+0.5, w, c.Notes)
-	}
 	s.font("", bodySize)
-	return y + 4
+	return y
 }
 
 // windingSteps are the instructions, in order. Lengths to cut are to the
