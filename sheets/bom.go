@@ -130,4 +130,3 @@ func (s *sheet) row(x, y float64, cols []float64, cells []string) {
 		x += cols[i]
 	}
 }
-
