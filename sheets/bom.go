@@ -30,19 +30,24 @@ type supportLine struct {
 	longest    float64 // m, the longest winding on it
 }
 
+// nameW is the most a coil's name takes in the bill of materials, mm.
+const nameW = 40.0
+
 func (s *sheet) bomLines() ([]*wireLine, []*supportLine, []string) {
 	var wires []*wireLine
 	var supports []*supportLine
 	var parts []string
+	s.font("", bodySize)
 	for _, c := range s.doc.Coils {
 		p := c.Prediction
+		name := s.fit(c.Name, nameW) // a label: a very long name is shortened
 		key := shortWire(c)
 		i := slices.IndexFunc(wires, func(w *wireLine) bool { return w.key == key })
 		if i < 0 {
 			wires = append(wires, &wireLine{key: key, desc: c.Wire})
 			i = len(wires) - 1
 		}
-		wires[i].uses = append(wires[i].uses, fmt.Sprintf("%s × %d", c.Name, c.Quantity))
+		wires[i].uses = append(wires[i].uses, fmt.Sprintf("%s × %d", name, c.Quantity))
 		// The builder cuts what the page prints, so the total adds up by
 		// hand from the coil pages.
 		wires[i].total += s.u.cutRound(float64(p.WireLength)) * float64(c.Quantity)
@@ -52,7 +57,7 @@ func (s *sheet) bomLines() ([]*wireLine, []*supportLine, []string) {
 			supports = append(supports, &supportLine{kind: c.Support, name: c.SupportName, diameter: float64(p.Geometry.FormerDiameter)})
 			j = len(supports) - 1
 		}
-		supports[j].uses = append(supports[j].uses, c.Name)
+		supports[j].uses = append(supports[j].uses, name)
 		supports[j].count += c.Quantity
 		supports[j].longest = max(supports[j].longest, float64(p.WindingLength))
 
@@ -65,7 +70,7 @@ func (s *sheet) bomLines() ([]*wireLine, []*supportLine, []string) {
 			default:
 				gang = sp.GangA + " per section"
 			}
-			parts = append(parts, fmt.Sprintf("two-gang variable capacitor, %s, for %s: %d", gang, c.Name, c.Quantity))
+			parts = append(parts, fmt.Sprintf("two-gang variable capacitor, %s, for %s: %d", gang, name, c.Quantity))
 		}
 	}
 	return wires, supports, parts

@@ -1,6 +1,7 @@
 package sheets
 
 import (
+	"bytes"
 	"fmt"
 	"math"
 	"os"
@@ -10,6 +11,7 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+	"time"
 
 	"gonum.org/v1/gonum/unit"
 
@@ -250,4 +252,36 @@ func TestLongTextKept(t *testing.T) {
 		t.Errorf("%d pages: the notes were not continued", pages)
 	}
 	checkInside(t, "A4", bbox)
+}
+
+// Fitting a long title or coil name is linear: a 200 KB title and a 200 KB
+// coil name render in well under a second (they took minutes when every
+// character removed was measured again).
+func TestLongTitleFast(t *testing.T) {
+	t.Parallel()
+	big := strings.Repeat("Long title ", 200_000/11)
+	c := manyCoils(t, 1)
+	c[0].Name = strings.Repeat("N", 200_000)
+	doc := Document{Title: big, Date: testDate, Coils: c}
+	start := time.Now()
+	pdf := render(t, doc, Options{})
+	if d := time.Since(start); d > 2*time.Second { // generous: about 0.1 s here, minutes before
+		t.Errorf("a 200 KB title and name took %v to render", d)
+	}
+	_, text, words := readBack(t, pdf)
+	if !strings.Contains(text[0], "Long title Long title") || !strings.Contains(text[0], "…") {
+		t.Errorf("the cover does not show the title shortened with an ellipsis")
+	}
+	checkInside(t, "A4", words)
+}
+
+func BenchmarkLongTitle(b *testing.B) {
+	doc := Document{Title: strings.Repeat("Long title ", 200_000/11), Date: testDate, Coils: manyCoils(b, 1)}
+	var buf bytes.Buffer
+	for b.Loop() {
+		buf.Reset()
+		if err := Render(&buf, doc, Options{}); err != nil {
+			b.Fatal(err)
+		}
+	}
 }
