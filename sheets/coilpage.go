@@ -66,7 +66,8 @@ func (s *sheet) coilPage(c *Coil) {
 	avail := func(rows int) float64 {
 		return s.bottom() - y - 4 - colsH - checkBlockH - logH(rows) - cautH - 4*sectionGap
 	}
-	// The largest scale that fits, giving up log rows before scale.
+	// The largest true scale that fits, giving up log rows before scale;
+	// past 1:10, a schematic.
 	v := newView(c)
 	rows, fits := maxLogRows, false
 	for _, sc := range scales {
@@ -83,23 +84,69 @@ func (s *sheet) coilPage(c *Coil) {
 	}
 	if !fits {
 		rows = minLogRows
+		v.setScale(v.fitScale(w, math.Max(avail(rows), minDrawH)))
+		v.schematic = true
+	}
+	// A small coil at 1:1 gets an enlarged detail beside it.
+	var dv *view
+	if v.sc == 1 && !v.schematic && v.od < smallCoil {
+		for _, k := range detailScales {
+			d := newView(c)
+			d.detail = true
+			d.setScale(k)
+			if v.totalW+d.totalW+4 > w {
+				continue
+			}
+			for r := rows; r >= minLogRows; r-- {
+				if d.height <= avail(r) {
+					dv, rows = d, r
+					break
+				}
+			}
+			if dv != nil {
+				break
+			}
+		}
 	}
 	drawH := math.Max(v.height, avail(rows))
 
 	// Side view.
 	s.font("B", 9)
-	title := "SIDE VIEW, " + strings.ToUpper(scaleLabel(v.sc))
+	title := "SIDE VIEW, " + strings.ToUpper(v.scaleLabel())
 	s.text(x, y, title)
 	tw := s.width(title)
 	s.font("", smallSize)
-	if v.sc == 1 {
+	switch {
+	case v.schematic:
+		s.text(x+tw+3, y, s.fit("too large for this page even at 1:10: the drawing shows the parts, every number is true size", w-tw-3))
+	case dv != nil:
+		s.text(x+tw+3, y, "left: hold the finished coil against it; measure the 50 mm bar first")
+	case v.sc == 1:
 		s.text(x+tw+3, y, "hold the finished coil against it; measure the 50 mm bar first")
-	} else {
+	default:
 		s.text(x+tw+3, y, "the coil is too large to draw full size here; every number is true size")
 	}
 	s.pdf.SetLineWidth(0.35)
 	s.pdf.Line(x, y+1.2, x+w, y+1.2)
-	s.sideView(v, c, x, y+4+(drawH-v.height)/2, w)
+	if dv == nil {
+		s.sideView(v, c, x, y+4+(drawH-v.height)/2, w)
+	} else {
+		lw := v.totalW + 2
+		s.sideView(v, c, x, y+4+(drawH-v.height)/2, lw)
+		dx, dw := x+lw+2, w-lw-2
+		s.pdf.SetLineWidth(0.3)
+		s.dashed(2, 1)
+		s.pdf.Rect(dx, y+2.5, dw, drawH+1, "D")
+		s.dashed()
+		s.sideView(dv, c, dx, y+4+(drawH-dv.height)/2, dw)
+		s.font("B", smallSize)
+		label := fmt.Sprintf("DETAIL %.0f:1, NOT FULL SIZE", dv.sc)
+		s.pdf.SetFillColor(255, 255, 255)
+		lwd := s.width(label) + 2
+		s.pdf.Rect(dx+dw-lwd-1, y+2.6, lwd, 3.6, "F")
+		s.black()
+		s.text(dx+dw-lwd, y+5.4, label)
+	}
 	y += 4 + drawH
 
 	// Steps and predicted values side by side.

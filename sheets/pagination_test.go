@@ -285,3 +285,39 @@ func BenchmarkLongTitle(b *testing.B) {
 		}
 	}
 }
+
+// Drawings use only the promised scales: 1:1, 1:2, 1:5, 1:10; a coil too
+// large even for 1:10 is a schematic marked NOT TO SCALE; a coil under
+// 10 mm across gets an enlarged detail marked NOT FULL SIZE beside the
+// true-size view.
+func TestDrawingScales(t *testing.T) {
+	t.Parallel()
+	long := coil.Geometry{FormerDiameter: 110e-3, WireDiameter: 2e-3, Turns: 460, Pitch: 5e-3, LeadLength: 50e-3} // 2.3 m long
+	doc := Document{Title: "Scales", Date: testDate, Coils: []Coil{
+		{Name: "Long", Support: "former", SupportName: "pipe", Prediction: predicted(t, long, 0)},
+		vhfCoil(t),
+	}}
+	pdf := render(t, doc, Options{Uncompressed: true})
+	st := pageStreams(pdf)
+	if !strings.Contains(st[1], "(SIDE VIEW, NOT TO SCALE: SCHEMATIC)") || !strings.Contains(st[1], "even at 1:10") {
+		t.Error("the 2.3 m coil is not marked NOT TO SCALE")
+	}
+	if regexp.MustCompile(`1:(20|50)\b`).MatchString(st[1]) {
+		t.Error("the 2.3 m coil is drawn at a scale the README does not promise")
+	}
+	if !strings.Contains(st[2], "(SIDE VIEW, FULL SIZE, 1:1)") || !strings.Contains(st[2], "(DETAIL 4:1, NOT FULL SIZE)") {
+		t.Error("the small coil lacks its true-size view or its marked detail")
+	}
+	const ptmm = 72 / 25.4
+	do := float64(doc.Coils[1].Prediction.Geometry.WireDiameter) * 1e3 * ptmm
+	for tag, k := range map[string]float64{"TWWireDots": 1, "TWDetailWireDots": 4} {
+		dots := markedPaths(t, st[2], tag)
+		if len(dots) != 1 || len(dots[0]) == 0 {
+			t.Fatalf("%s not drawn once", tag)
+		}
+		x0, _, x1, _ := dots[0][0].bbox()
+		if math.Abs((x1-x0)-k*do) > implTol*k {
+			t.Errorf("%s: the wire is %.3f pt across, want %g × %.3f pt", tag, x1-x0, k, do)
+		}
+	}
+}
