@@ -321,3 +321,29 @@ func TestDrawingScales(t *testing.T) {
 		}
 	}
 }
+
+// The chart page prints every stretch of the dial a band is on, as the
+// span command does, with ends that differ, and no band is thinner than a
+// grid line.
+func TestSpanFindings(t *testing.T) {
+	t.Parallel()
+	sp := &Span{Bands: []Band{
+		// The cramped spot at the low range's end and the usable stretch on the high range (invented layout data).
+		{Label: "20m", Low: 14.0e6, High: 14.35e6, Range: "both", DialLow: 0.012, DialHigh: 0.009,
+			Ranges: []BandRange{{Range: "low", DialLow: 0.012, DialHigh: 0.009, Whole: true}, {Range: "high", DialLow: 0.62, DialHigh: 0.55, Whole: true}}},
+		{Label: "30m", Low: 10.1e6, High: 10.15e6, Range: "low", DialLow: 0.0502, DialHigh: 0.0498},
+	}}
+	s := newSheet(&Document{Date: testDate, Title: "x"}, Options{})
+	got := strings.Join(s.spanFindings(sp), "\n")
+	for _, want := range []string{
+		"20m: low range, dial 0.9 % to 1.2 %; high range, dial 55.0 % to 62.0 %.",
+		"30m: low range, dial 4.98 % to 5.02 %.",
+	} {
+		if !strings.Contains(got, want) {
+			t.Errorf("findings lack %q:\n%s", want, got)
+		}
+	}
+	if minBandH <= 0.1*2 { // the grid line is 0.1 mm wide (spanChart)
+		t.Errorf("a band %g mm high can hide under a grid line", minBandH)
+	}
+}

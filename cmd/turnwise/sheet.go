@@ -550,6 +550,9 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 		where, on := bc.Placement()
 		sb := sheets.Band{Low: float64(bc.Band.Low), High: float64(bc.Band.High), Label: bc.Band.Name,
 			Range: where.String(), DialLow: on.SettingAtLow, DialHigh: on.SettingAtHigh}
+		for _, r := range bc.Ranges {
+			sb.Ranges = append(sb.Ranges, sheets.BandRange{Range: r.Range, DialLow: r.SettingAtLow, DialHigh: r.SettingAtHigh, Whole: r.Whole})
+		}
 		s.Bands = append(s.Bands, sb)
 	}
 	for _, co := range sp.Coincidences {
