@@ -2,6 +2,9 @@ package sheets
 
 import (
 	"fmt"
+	"math"
+	"regexp"
+	"strconv"
 	"slices"
 	"strings"
 
@@ -41,11 +44,16 @@ func (s *sheet) bomLines() ([]*wireLine, []*supportLine, []string) {
 	for _, c := range s.doc.Coils {
 		p := c.Prediction
 		name := s.fit(c.Name, nameW) // a label: a very long name is shortened
-		key := shortWire(c)
+		// The same wire is one line however it was described: same bare
+		// and overall diameter, same conductor.
+		g := p.Geometry
+		key := fmt.Sprintf("%.9g|%.9g|%v", float64(g.WireDiameter), float64(g.OverallDiameter()), g.Conductor)
 		i := slices.IndexFunc(wires, func(w *wireLine) bool { return w.key == key })
 		if i < 0 {
 			wires = append(wires, &wireLine{key: key, desc: c.Wire})
 			i = len(wires) - 1
+		} else if !statesSize(wires[i].desc, float64(g.WireDiameter)) && statesSize(c.Wire, float64(g.WireDiameter)) {
+			wires[i].desc = c.Wire // the row's own words, e.g. "0.315mm", over a rounded size
 		}
 		wires[i].uses = append(wires[i].uses, fmt.Sprintf("%s × %d", name, c.Quantity))
 		// The builder cuts what the page prints, so the total adds up by
@@ -126,6 +134,20 @@ func (s *sheet) billOfMaterials(f *flow, x, w float64) {
 		}
 	}
 	s.font("", bodySize)
+}
+
+// leadingMM is a description's leading size in millimetres, "0.315mm …".
+var leadingMM = regexp.MustCompile(`^\s*(\d+(?:\.\d+)?)\s*mm\b`)
+
+// statesSize reports whether desc begins with the bare diameter d (m)
+// exactly, as a stock row names its wire.
+func statesSize(desc string, d float64) bool {
+	m := leadingMM.FindStringSubmatch(desc)
+	if m == nil {
+		return false
+	}
+	v, err := strconv.ParseFloat(m[1], 64)
+	return err == nil && math.Abs(v*1e-3-d) < 1e-12
 }
 
 // row draws one line of cells in the current font.

@@ -347,3 +347,32 @@ func TestSpanFindings(t *testing.T) {
 		t.Errorf("a band %g mm high can hide under a grid line", minBandH)
 	}
 }
+
+// The same wire described two ways is one line of the bill of materials,
+// printed as its stock row states it.
+func TestBOMMergesWire(t *testing.T) {
+	t.Parallel()
+	c := manyCoils(t, 4) // C0001 and C0004 share the 1 mm wire, C0002 the 0.60 mm one, C0003 the 0.315 mm one
+	c[3].Wire, c[3].WireKey = "1.0 mm bare silver-plated wire", "1.0 mm bare silver-plated wire"
+	c[2].Wire, c[2].WireKey = "0.32 mm copper wire, grade 1 enamel (0.35 mm overall)", "0.32 mm copper wire, grade 1 enamel (0.35 mm overall)"
+	extra := c[2]
+	extra.Name = "C0005"
+	extra.Wire, extra.WireKey = "0.315mm copper wire, grade 1 enamel (0.35 mm overall)", "0.315mm copper wire, grade 1 enamel (0.35 mm overall)"
+	c = append(c, extra)
+	doc := Document{Title: "merge", Date: testDate, Coils: c}
+	if err := check(&doc); err != nil {
+		t.Fatal(err)
+	}
+	wires, _, _ := newSheet(&doc, Options{}).bomLines()
+	if len(wires) != 3 {
+		t.Fatalf("%d wire lines, want 3", len(wires))
+	}
+	for _, w := range wires {
+		if strings.HasPrefix(w.desc, "0.32 mm") || strings.HasPrefix(w.desc, "1.0 mm") {
+			t.Errorf("wire printed as %q, not as its row states it", w.desc)
+		}
+	}
+	if got := strings.Join(wires[0].uses, ", "); got != "C0001 × 1, C0004 × 1" {
+		t.Errorf("1 mm wire for %q", got)
+	}
+}
