@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"math"
 	"regexp"
-	"strconv"
 	"slices"
+	"strconv"
 	"strings"
 
 	"turnwise/coil"
