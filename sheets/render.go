@@ -41,6 +41,9 @@ func Render(w io.Writer, doc Document, opt Options) error {
 			s.spanPage(&doc.Coils[i])
 		}
 	}
+	for i := range doc.Circuits {
+		s.circuitPage(&doc.Circuits[i], i)
+	}
 	s.pdf.Close()
 	if err := s.pdf.Error(); err != nil {
 		return fmt.Errorf("sheets: %w", err)
