@@ -196,6 +196,9 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 			return usageErrorf("--touchstone %s: this circuit has %d port(s); name the file %s", opts.touchstone, len(m.Net.Ports), want)
 		}
 	}
+	if len(set.Bands) == 0 {
+		set.Bands = fileBands(c)
+	}
 	r, err := analyzeCircuit(m, set)
 	if err != nil {
 		return err

@@ -1,10 +1,13 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/cmplx"
+	"path/filepath"
 	"sort"
+	"turnwise/forms"
 
 	"turnwise/coil"
 	"turnwise/coil/circuit"
@@ -264,4 +267,46 @@ func (r *circuitResult) sheetCircuit() *sheets.Circuit {
 	}
 	sort.SliceStable(c.Bands, func(i, j int) bool { return c.Bands[i].Low < c.Bands[j].Low })
 	return c
+}
+
+// jobCircuitPage computes a circuit named in a job file (its path relative
+// to the job file) for the build sheet, with the circuit file's own bands.
+func jobCircuitPage(job *forms.Job, path string, so *stockOptions, stockGiven bool) (*sheets.Circuit, error) {
+	full := path
+	if !filepath.IsAbs(full) {
+		full = filepath.Join(filepath.Dir(job.File), path)
+	}
+	c, err := loadCircuitFile(full)
+	if err != nil {
+		var ue *usageError
+		if errors.As(err, &ue) {
+			return nil, &forms.ParseError{Kind: "job", File: job.File, Line: job.KeyLine("circuit"), Field: "circuit",
+				Err: fmt.Errorf("%q (read as %s) does not exist; the path is relative to the job file", path, full)}
+		}
+		return nil, err
+	}
+	cat, err := jobCatalog(job, so, stockGiven)
+	if err != nil {
+		return nil, err
+	}
+	m, err := buildCircuit(c, cat, so, stockGiven)
+	if err != nil {
+		return nil, err
+	}
+	r, err := analyzeCircuit(m, circuitSettings{Points: 401, Bands: fileBands(c)})
+	if err != nil {
+		return nil, err
+	}
+	page := r.sheetCircuit()
+	page.Source = filepath.Base(c.File)
+	return page, nil
+}
+
+// fileBands are a circuit file's own bands.
+func fileBands(c *forms.Circuit) []circuit.Band {
+	var out []circuit.Band
+	for _, b := range c.Bands {
+		out = append(out, circuit.Band{Name: b.Name, Low: float64(b.Low), High: float64(b.High)})
+	}
+	return out
 }

@@ -5,10 +5,13 @@ import (
 	"math"
 	"math/cmplx"
 	"os"
+	"os/exec"
 	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
+
+	"turnwise/internal/testtools"
 )
 
 type circuitOut struct {
@@ -281,3 +284,31 @@ func TestCircuitDemos(t *testing.T) {
 }
 
 func strconvFormat(x float64) string { return strconv.FormatFloat(x, 'f', 9, 64) }
+
+// A job file that names a circuit gets a circuit page on its build sheet.
+func TestSheetCircuitPage(t *testing.T) {
+	pdftotext := testtools.Need(t, "pdftotext", "poppler-utils")
+	dir := t.TempDir()
+	abs, err := filepath.Abs("../../testdata/circuits/filter137.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	job := filepath.Join(dir, "job.toml")
+	text := "title = \"circuit night\"\ndate = 2026-03-14\ncircuit = \"" + abs + "\"\n[[coil]]\nname = \"L1\"\nmandrel = \"6mm drill\"\nwire = \"1mm\"\nturns = 5\nlength = \"10mm\"\nleads = \"4mm\"\n"
+	if err := os.WriteFile(job, []byte(text), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	pdf := filepath.Join(dir, "out.pdf")
+	if _, errOut, code := runCLI(t, "sheet", job, "-o", pdf); code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	out, err := exec.Command(pdftotext, pdf, "-").Output()
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"Circuit: 137 MHz three-coil band-pass filter", "Resonances at port 1", "Bands", "137 MHz"} {
+		if !strings.Contains(strings.ToLower(string(out)), strings.ToLower(want)) {
+			t.Errorf("the sheet does not show %q", want)
+		}
+	}
+}
