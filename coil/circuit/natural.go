@@ -25,9 +25,15 @@ type Mode struct {
 // the parallel ones. Each wound coil's inductance is taken at the mode's
 // own frequency by fixed-point iteration.
 func (s *Solver) NaturalFrequencies(fMax float64, shortPort1 bool) ([]Mode, error) {
-	short := -1
+	// Ports other than port 1 are tied to ground: their terminations (tens
+	// of ohms) are far below a tank's impedance at resonance, so a part in
+	// series between the ports (a trap) shows at port 1 as it works.
+	short := map[int]bool{}
+	for _, pt := range s.net.Ports[1:] {
+		short[pt.Node] = true
+	}
 	if shortPort1 {
-		short = s.net.Ports[0].Node
+		short[s.net.Ports[0].Node] = true
 	}
 	// First pass with every coil at a low frequency.
 	f0 := []float64{}
@@ -90,10 +96,10 @@ func nearest(ms []Mode, f float64) Mode {
 	return best
 }
 
-// eigen solves Γ·v = ω²·C·v with every coil's model at f; node short is
-// tied to ground (−1 for none). w02 scales the pencil (the eigenvalues
+// eigen solves Γ·v = ω²·C·v with every coil's model at f; the nodes in
+// short are tied to ground. w02 scales the pencil (the eigenvalues
 // near it are the most accurate); 0 takes tr Γ / tr C.
-func (s *Solver) eigen(f float64, short int, w02 float64) ([]Mode, error) {
+func (s *Solver) eigen(f float64, short map[int]bool, w02 float64) ([]Mode, error) {
 	if err := s.values(f); err != nil {
 		return nil, err
 	}
@@ -164,7 +170,7 @@ func (s *Solver) eigen(f float64, short int, w02 float64) ([]Mode, error) {
 	// scaling below sees only the modes that matter.
 	var capIdx, noCap []int
 	for i := 1; i < nn; i++ {
-		if i == short || (c[i*nn+i] == 0 && gam[i*nn+i] == 0) {
+		if short[i] || (c[i*nn+i] == 0 && gam[i*nn+i] == 0) {
 			continue
 		}
 		if c[i*nn+i] > 0 {
@@ -245,7 +251,19 @@ func (s *Solver) eigen(f float64, short int, w02 float64) ([]Mode, error) {
 	}
 	var chB mat.Cholesky
 	if !chB.Factorize(bm) {
-		return nil, ErrSingular
+		// A part of the network that floats once the resistors and port
+		// terminations are gone (a trap between two ports): a tiny
+		// capacitance to ground from every node gives its common mode a
+		// zero frequency, which is dropped below, and moves the others by
+		// about 1e-12 relative.
+		eps := 1e-12 * trC / float64(m)
+		for r := 0; r < m; r++ {
+			bm.SetSym(r, r, bm.At(r, r)+eps)
+			cm.SetSym(r, r, cm.At(r, r)+eps)
+		}
+		if !chB.Factorize(bm) {
+			return nil, ErrSingular
+		}
 	}
 	var lt mat.TriDense
 	chB.LTo(&lt)
