@@ -23,11 +23,12 @@ type wireLine struct {
 
 // supportLine is one mandrel or former.
 type supportLine struct {
-	kind, name string
-	diameter   float64 // m
-	uses       []string
-	count      int     // coils wound on it
-	longest    float64 // m, the longest winding on it
+	kind     coil.SupportKind
+	name     string
+	diameter float64 // m
+	uses     []string
+	count    int     // coils wound on it
+	longest  float64 // m, the longest winding on it
 }
 
 func (s *sheet) bomLines() ([]*wireLine, []*supportLine, []string) {
@@ -101,11 +102,11 @@ func (s *sheet) billOfMaterials(x, y, w float64) float64 {
 	for _, m := range supports {
 		s.font("", bodySize)
 		need := "1 to share (the coil slides off)"
-		if m.kind == "former" {
+		if m.kind == coil.SupportFormer {
 			need = fmt.Sprintf("%d, each at least %s long", m.count, s.u.cut(s.u.cutUp(m.longest+2*formerMargin)))
 		}
 		kind := "mandrel"
-		if m.kind == "former" {
+		if m.kind == coil.SupportFormer {
 			kind = "former"
 		}
 		cells := []string{m.name + " (" + kind + ")", s.u.of(m.diameter), strings.Join(m.uses, ", "), need}

@@ -108,7 +108,7 @@ func (s *sheet) coilHeader(c *Coil, y, x, w float64) float64 {
 	y += 6.5
 	g := c.Prediction.Geometry
 	how := "slide it off the mandrel: self-supporting"
-	if c.Support == "former" {
+	if c.Support == coil.SupportFormer {
 		how = "it stays on the former"
 	}
 	s.font("", 10)
@@ -150,7 +150,7 @@ func (s *sheet) windingSteps(c *Coil) []string {
 	if enamel {
 		st = append(st, fmt.Sprintf("Strip %s of enamel at each end (scrape, or a solder pot for solderable enamel) and tin the ends.", u.lead(float64(coil.CutAllowance)/2)))
 	}
-	if c.Support == "former" {
+	if c.Support == coil.SupportFormer {
 		st = append(st, fmt.Sprintf("Fix the cold end on the %s (two small holes, or tape), leaving %s of lead plus the strip allowance.", c.SupportName, lead))
 	} else {
 		st = append(st, fmt.Sprintf("Clamp the %s in a vice by its tip, plain shank out. Leave %s of lead plus the strip allowance at the cold end.", c.SupportName, lead))
@@ -167,10 +167,10 @@ func (s *sheet) windingSteps(c *Coil) []string {
 	default:
 		st = append(st, fmt.Sprintf("Wind %s, pulled snug, the same way round as the drawing. Count them on the top, as its numbers do.", quantity.FormatTurnsWord(g.Turns)))
 	}
-	if c.Support != "former" {
+	if c.Support != coil.SupportFormer {
 		bore := u.of(float64(p.InsideDiameter))
 		switch {
-		case c.SpringbackSource == "calibration":
+		case c.SpringbackSource == coil.SpringbackCalibration:
 			st = append(st, fmt.Sprintf("Slide the coil off; your calibration says the bore opens %s. Expect a bore of %s.", quantity.FormatPercent(g.Springback), bore))
 		case g.Springback != 0:
 			st = append(st, fmt.Sprintf("Slide the coil off; the bore should open by %s. Expect a bore of %s.", quantity.FormatPercent(g.Springback), bore))
@@ -232,7 +232,7 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 		if t.Effective {
 			label = "target, effective L"
 		}
-		v := quantity.FormatEng(t.Inductance, "H", 3)
+		v := quantity.FormatEng(float64(t.Inductance), "H", 3)
 		if t.Tolerance > 0 {
 			v += fmt.Sprintf(" ± %.3g %%", t.Tolerance*100)
 		}
@@ -245,7 +245,7 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 			[2]string{"L effective at f", quantity.FormatEng(float64(p.InductanceEffective), "H", 3) + " (self-C included)"},
 		)
 		if c.LowFrequency > 0 {
-			r = append(r, [2]string{"on an L meter", quantity.FormatEng(c.LowFrequency, "H", 3) + " (low frequency)"})
+			r = append(r, [2]string{"on an L meter", quantity.FormatEng(float64(c.LowFrequency), "H", 3) + " (low frequency)"})
 		}
 	} else {
 		r = append(r,
@@ -268,8 +268,8 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 			r = append(r, [2]string{"  voltage at the tap", fmt.Sprintf("%.3g × the coil's (unloaded)", t.Ratio)})
 		}
 		if t.LBelow > 0 {
-			r = append(r, [2]string{"  sections", fmt.Sprintf("below %s, above %s", quantity.FormatEng(t.LBelow, "H", 3), quantity.FormatEng(t.LAbove, "H", 3))},
-				[2]string{"  coupling", fmt.Sprintf("M %s, k %.3f", quantity.FormatEng(t.Mutual, "H", 3), t.Coupling)})
+			r = append(r, [2]string{"  sections", fmt.Sprintf("below %s, above %s", quantity.FormatEng(float64(t.LBelow), "H", 3), quantity.FormatEng(float64(t.LAbove), "H", 3))},
+				[2]string{"  coupling", fmt.Sprintf("M %s, k %.3f", quantity.FormatEng(float64(t.Mutual), "H", 3), t.Coupling)})
 		}
 	}
 	return r
@@ -288,12 +288,12 @@ func (s *sheet) rowsHeight(w, labelW float64, rows [][2]string) float64 {
 func (s *sheet) trimText(c *Coil) string {
 	var b strings.Builder
 	if c.TrimPerPercent > 0 {
-		fmt.Fprintf(&b, "1 %% of L = %s of outside length. ", s.u.of(c.TrimPerPercent))
+		fmt.Fprintf(&b, "1 %% of L = %s of outside length. ", s.u.of(float64(c.TrimPerPercent)))
 	}
 	b.WriteString("Squeeze the turns (shorter) to raise L, spread them (longer) to lower it. ")
 	if c.TrimLeast > 0 && c.TrimMost > 0 {
 		fmt.Fprintf(&b, "Reach: %s spread to 3 wire diameters … %s close-wound; beyond that, change the turns by ¼. ",
-			quantity.FormatEng(c.TrimLeast, "H", 3), quantity.FormatEng(c.TrimMost, "H", 3))
+			quantity.FormatEng(float64(c.TrimLeast), "H", 3), quantity.FormatEng(float64(c.TrimMost), "H", 3))
 	}
 	b.WriteString("turnwise trim turns a measurement into the change.")
 	return b.String()

@@ -3,6 +3,7 @@ package sheets
 import (
 	"fmt"
 	"math"
+	"turnwise/coil"
 	"turnwise/internal/quantity"
 
 	"github.com/jung-kurt/gofpdf"
@@ -119,7 +120,7 @@ func (s *sheet) sideView(v *view, c *Coil, x, y, w float64) {
 	s.dashed(3, 1, 0.6, 1)
 	pdf.Line(xStart-5, v.ya, xEnd+5, v.ya)
 	idT, idB := v.ya-v.id*v.sc/2, v.ya+v.id*v.sc/2
-	if c.Support == "former" {
+	if c.Support == coil.SupportFormer {
 		// The former: a tube running on past the winding, solid.
 		s.dashed()
 		ext := math.Min(10, v.leadDrawn+2)

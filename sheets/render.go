@@ -95,7 +95,7 @@ func check(doc *Document) error {
 		}
 		if c.Span != nil {
 			for _, d := range c.Span.Dial {
-				if !finite(d.FLow) || !finite(d.FHigh) || !finite(d.Setting) || d.FLow < 0 || d.FHigh < 0 {
+				if !finite(float64(d.FLow)) || !finite(float64(d.FHigh)) || !finite(d.Setting) || d.FLow < 0 || d.FHigh < 0 {
 					return fmt.Errorf("sheets: coil %q: dial point %+v is not finite and positive", c.Name, d)
 				}
 			}

@@ -68,14 +68,14 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 	ax := freqAxis{top: y + 2, bot: y + h}
 	lo, hi := math.Inf(1), 0.0
 	for _, d := range sp.Dial {
-		for _, f := range []float64{d.FLow, d.FHigh} {
+		for _, f := range []float64{float64(d.FLow), float64(d.FHigh)} {
 			if f > 0 {
 				lo, hi = math.Min(lo, f), math.Max(hi, f)
 			}
 		}
 	}
 	for _, b := range sp.Bands {
-		lo, hi = math.Min(lo, b.Low), math.Max(hi, b.High)
+		lo, hi = math.Min(lo, float64(b.Low)), math.Max(hi, float64(b.High))
 	}
 	if !(hi > lo) {
 		lo, hi = 1e6, 10e6
@@ -86,7 +86,7 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 	// Bands: hatched, clipped to the plot.
 	pdf.ClipRect(left, ax.top, right-left, ax.bot-ax.top, false)
 	for _, b := range sp.Bands {
-		y1, y2 := ax.y(b.High), ax.y(b.Low)
+		y1, y2 := ax.y(float64(b.High)), ax.y(float64(b.Low))
 		pdf.SetFillColor(215, 215, 215)
 		pdf.Rect(left, y1, right-left, y2-y1, "F")
 		pdf.SetDrawColor(90, 90, 90)
@@ -138,16 +138,16 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 		}
 	}
 	pdf.SetLineWidth(0.7)
-	curve(func(d DialPoint) float64 { return d.FLow })
+	curve(func(d DialPoint) float64 { return float64(d.FLow) })
 	s.dashed(2.2, 1.2)
-	curve(func(d DialPoint) float64 { return d.FHigh })
+	curve(func(d DialPoint) float64 { return float64(d.FHigh) })
 	s.dashed()
 
 	// Band labels at the right edge.
 	s.font("", 6.5)
 	for _, b := range sp.Bands {
-		l := cmp.Or(b.Label, quantity.FormatEng(b.Low, "Hz", 3)+"–"+quantity.FormatEng(b.High, "Hz", 3))
-		s.text(right+1.5, (ax.y(b.Low)+ax.y(b.High))/2+0.9, s.fit(l, x+w-right-2))
+		l := cmp.Or(b.Label, quantity.FormatEng(float64(b.Low), "Hz", 3)+"–"+quantity.FormatEng(float64(b.High), "Hz", 3))
+		s.text(right+1.5, (ax.y(float64(b.Low))+ax.y(float64(b.High)))/2+0.9, s.fit(l, x+w-right-2))
 	}
 	// Coincidences: the harmonic on the high range, joined to its
 	// fundamental on the low range.
@@ -155,11 +155,11 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 		xx := xOf(c.Setting)
 		pdf.SetLineWidth(0.25)
 		s.dashed(0.5, 0.5)
-		pdf.Line(xx, ax.y(c.FLow), xx, ax.y(float64(c.Order)*c.FLow))
+		pdf.Line(xx, ax.y(float64(c.FLow)), xx, ax.y(float64(c.Order)*float64(c.FLow)))
 		s.dashed()
 		pdf.SetLineWidth(0.35)
-		pdf.Circle(xx, ax.y(c.FLow), 1.2, "D")
-		sq := ax.y(float64(c.Order) * c.FLow)
+		pdf.Circle(xx, ax.y(float64(c.FLow)), 1.2, "D")
+		sq := ax.y(float64(c.Order) * float64(c.FLow))
 		pdf.Polygon([]gofpdf.PointType{{X: xx, Y: sq - 1.7}, {X: xx + 1.5, Y: sq + 1}, {X: xx - 1.5, Y: sq + 1}}, "F")
 		s.font("B", 6.5)
 		s.text(xx+2, sq-1.5, fmt.Sprintf("%d×", c.Order))
@@ -232,7 +232,7 @@ func (s *sheet) dialTable(x, y, w float64, sp *Span) float64 {
 			break
 		}
 		d := sp.Dial[j]
-		s.row(x, y, cols, []string{fmt.Sprintf("%.0f %%", d.Setting*100), hz(d.FLow), hz(d.FHigh)})
+		s.row(x, y, cols, []string{fmt.Sprintf("%.0f %%", d.Setting*100), hz(float64(d.FLow)), hz(float64(d.FHigh))})
 		y += s.lineH()
 	}
 	return y
@@ -242,12 +242,12 @@ func (s *sheet) dialTable(x, y, w float64, sp *Span) float64 {
 func (s *sheet) spanFindings(sp *Span) []string {
 	var out []string
 	if sp.Overlap >= 0 {
-		out = append(out, fmt.Sprintf("The two ranges overlap by %s: no gap in coverage.", hz(sp.Overlap)))
+		out = append(out, fmt.Sprintf("The two ranges overlap by %s: no gap in coverage.", hz(float64(sp.Overlap))))
 	} else {
-		out = append(out, fmt.Sprintf("Gap of %s between the top of the low range and the bottom of the high range: frequencies there cannot be tuned.", hz(-sp.Overlap)))
+		out = append(out, fmt.Sprintf("Gap of %s between the top of the low range and the bottom of the high range: frequencies there cannot be tuned.", hz(float64(-sp.Overlap))))
 	}
 	for _, b := range sp.Bands {
-		name := cmp.Or(b.Label, quantity.FormatEng(b.Low, "Hz", 3)+" – "+quantity.FormatEng(b.High, "Hz", 3))
+		name := cmp.Or(b.Label, quantity.FormatEng(float64(b.Low), "Hz", 3)+" – "+quantity.FormatEng(float64(b.High), "Hz", 3))
 		switch b.Range {
 		case "low", "high", "both":
 			r := b.Range + " range"
@@ -272,7 +272,7 @@ func (s *sheet) spanFindings(sp *Span) []string {
 			in = " (in " + c.Band + ")"
 		}
 		out = append(out, fmt.Sprintf("At dial %.0f %%: the low range is at %s%s and its %s harmonic, %s, falls in the high range's passband (tuned to %s; %.2f of the way from the peak to the -3 dB edge). A receiver with a harmonic-rich oscillator hears both.",
-			c.Setting*100, hz(c.FLow), in, ordinal(c.Order), hz(float64(c.Order)*c.FLow), hz(c.FHigh), c.Depth))
+			c.Setting*100, hz(float64(c.FLow)), in, ordinal(c.Order), hz(float64(c.Order)*float64(c.FLow)), hz(float64(c.FHigh)), c.Depth))
 	}
 	for _, n := range sp.Notes {
 		out = append(out, sentence(n))
