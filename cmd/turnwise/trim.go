@@ -184,6 +184,11 @@ func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) err
 	if err != nil {
 		return err
 	}
+	if m.Kind == trim.MeasureSweep {
+		if m.Sweep, err = opts.sweepReading(float64(tc.freq)); err != nil {
+			return err
+		}
+	}
 	res, err := trimCompute(opts, tc, m, via)
 	if err != nil {
 		return err
@@ -293,16 +298,7 @@ func (o *trimOptions) measurement() (trim.Measurement, string, error) {
 	switch {
 	case o.sweepFile != "":
 		via = "sweep"
-		_, _, fit, err := o.sweep.load(o.sweepFile, float64(o.freq.v))
-		if err != nil {
-			return m, "", err
-		}
-		m.Kind = trim.MeasureSweep
-		m.Sweep = trim.SweepFit{
-			Inductance: unit.Inductance(fit.InductanceLow.Value), Uncertainty: fit.InductanceLow.Uncertainty / fit.InductanceLow.Value,
-			Frequency: unit.Frequency(fit.Frequency), Capacitance: unit.Capacitance(fit.SelfCapacitance.Value),
-			CapacitanceUncertainty: unit.Capacitance(fit.SelfCapacitance.Uncertainty), Residual: fit.Residual,
-		}
+		m.Kind = trim.MeasureSweep // fitted in runTrim, at the coil's frequency
 	case o.measuredL.set:
 		m.Kind, m.Inductance, via = trim.MeasureDirect, o.measuredL.v, "measured-l"
 		m.TestFrequency, m.FixtureInductance = o.meterFreq.v, o.fixtureL.v
@@ -616,4 +612,18 @@ func (f *capTolFlag) Set(s string) error {
 	}
 	*f = capTolFlag{raw: s, rel: v}
 	return nil
+}
+
+// sweepReading fits the --sweep file with L read at f (the coil's
+// operating frequency; zero for the lowest frequency fitted).
+func (o *trimOptions) sweepReading(f float64) (trim.SweepFit, error) {
+	_, _, fit, err := o.sweep.load(o.sweepFile, f)
+	if err != nil {
+		return trim.SweepFit{}, err
+	}
+	return trim.SweepFit{
+		Inductance: unit.Inductance(fit.InductanceLow.Value), Uncertainty: fit.InductanceLow.Uncertainty / fit.InductanceLow.Value,
+		Frequency: unit.Frequency(fit.Frequency), Capacitance: unit.Capacitance(fit.SelfCapacitance.Value),
+		CapacitanceUncertainty: unit.Capacitance(fit.SelfCapacitance.Uncertainty), Residual: fit.Residual,
+	}, nil
 }
