@@ -125,6 +125,17 @@ type Band struct {
 	// DialLow and DialHigh are the settings tuning the band's edges on
 	// that range (the low range's when both).
 	DialLow, DialHigh float64
+	// Ranges are every range that reaches the band, as the span command
+	// lists them; when given, the chart page prints each stretch of the
+	// dial, not only DialLow … DialHigh.
+	Ranges []BandRange
+}
+
+// BandRange is where a band sits on one range.
+type BandRange struct {
+	Range             string  // "low" or "high"
+	DialLow, DialHigh float64 // settings tuning the band's low and high edge
+	Whole             bool    // the whole band is on this range
 }
 
 // Coincidence is a dial setting where a harmonic of the low range falls in

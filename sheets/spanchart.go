@@ -46,9 +46,13 @@ func (s *sheet) spanPage(c *Coil) {
 	rx, rw := x+tw+6, w-tw-6
 	yr := s.heading(rx, top, rw, "What the chart says")
 	s.font("", bodySize)
-	yr = s.bullets(rx, yr, rw, s.spanFindings(sp))
-	_ = yr
+	f := s.newFlow(yr, c.Name+": tuning chart")
+	f.bullets(rx, rw, s.spanFindings(sp))
 }
+
+// minBandH is the least height a band is drawn with, mm: wider than a
+// grid line, so none hides under one.
+const minBandH = 1.2
 
 // freqAxis maps frequency to the chart's y on a log scale.
 type freqAxis struct {
@@ -83,21 +87,6 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 	ax.lo, ax.hi = lo/1.08, hi*1.08
 	xOf := func(setting float64) float64 { return left + setting*(right-left) }
 
-	// Bands: hatched, clipped to the plot.
-	pdf.ClipRect(left, ax.top, right-left, ax.bot-ax.top, false)
-	for _, b := range sp.Bands {
-		y1, y2 := ax.y(float64(b.High)), ax.y(float64(b.Low))
-		pdf.SetFillColor(215, 215, 215)
-		pdf.Rect(left, y1, right-left, y2-y1, "F")
-		pdf.SetDrawColor(90, 90, 90)
-		pdf.SetLineWidth(0.15)
-		for xx := left - (y2 - y1); xx < right; xx += 2.2 {
-			pdf.Line(xx, y2, xx+(y2-y1), y1)
-		}
-		s.black()
-	}
-	pdf.ClipEnd()
-
 	// Frame and grid.
 	s.black()
 	pdf.SetLineWidth(0.3)
@@ -117,6 +106,28 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 		s.textCenter(xx, ax.bot+3.8, fmt.Sprintf("%d", i*10))
 	}
 	s.textCenter((left+right)/2, ax.bot+7.2, "dial setting, % of rotation: 0 = plates fully open (least capacitance), 100 = fully meshed")
+
+	// Bands: hatched, clipped to the plot, drawn over the grid and edged.
+	pdf.ClipRect(left, ax.top, right-left, ax.bot-ax.top, false)
+	for _, b := range sp.Bands {
+		y1, y2 := ax.y(float64(b.High)), ax.y(float64(b.Low))
+		if y2-y1 < minBandH { // a narrow band stays visible above a grid line
+			m := (y1 + y2) / 2
+			y1, y2 = m-minBandH/2, m+minBandH/2
+		}
+		pdf.SetFillColor(215, 215, 215)
+		pdf.Rect(left, y1, right-left, y2-y1, "F")
+		pdf.SetDrawColor(90, 90, 90)
+		pdf.SetLineWidth(0.15)
+		for xx := left - (y2 - y1); xx < right; xx += 2.2 {
+			pdf.Line(xx, y2, xx+(y2-y1), y1)
+		}
+		s.black()
+		pdf.SetLineWidth(0.2)
+		pdf.Line(left, y1, right, y1)
+		pdf.Line(left, y2, right, y2)
+	}
+	pdf.ClipEnd()
 
 	// The two ranges.
 	curve := func(get func(DialPoint) float64) {
@@ -248,17 +259,27 @@ func (s *sheet) spanFindings(sp *Span) []string {
 	}
 	for _, b := range sp.Bands {
 		name := cmp.Or(b.Label, quantity.FormatEng(float64(b.Low), "Hz", 3)+" – "+quantity.FormatEng(float64(b.High), "Hz", 3))
+		if len(b.Ranges) > 0 {
+			var parts []string
+			for _, r := range b.Ranges {
+				p := fmt.Sprintf("%s range, dial %s", r.Range, dialStretch(r.DialLow, r.DialHigh))
+				if !r.Whole {
+					p = fmt.Sprintf("%s range reaches only part of it, dial %s", r.Range, dialStretch(r.DialLow, r.DialHigh))
+				}
+				parts = append(parts, p)
+			}
+			out = append(out, name+": "+strings.Join(parts, "; ")+".")
+			continue
+		}
 		switch b.Range {
 		case "low", "high", "both":
 			r := b.Range + " range"
 			if b.Range == "both" {
 				r = "both ranges (dial for the low one)"
 			}
-			lo, hi := min(b.DialLow, b.DialHigh), max(b.DialLow, b.DialHigh)
-			out = append(out, fmt.Sprintf("%s: %s, dial %.0f %% to %.0f %%.", name, r, lo*100, hi*100))
+			out = append(out, fmt.Sprintf("%s: %s, dial %s.", name, r, dialStretch(b.DialLow, b.DialHigh)))
 		case "part":
-			lo, hi := min(b.DialLow, b.DialHigh), max(b.DialLow, b.DialHigh)
-			out = append(out, fmt.Sprintf("%s: only partly reached (dial %.0f %% to %.0f %%); trim the capacitor or move the tap.", name, lo*100, hi*100))
+			out = append(out, fmt.Sprintf("%s: only partly reached (dial %s); trim the capacitor or move the tap.", name, dialStretch(b.DialLow, b.DialHigh)))
 		default:
 			out = append(out, name+": NOT reached by either range.")
 		}
@@ -278,6 +299,19 @@ func (s *sheet) spanFindings(sp *Span) []string {
 		out = append(out, sentence(n))
 	}
 	return out
+}
+
+// dialStretch prints a stretch of the dial, lower setting first, with as
+// many decimals (one to three) as make its two ends differ.
+func dialStretch(a, b float64) string {
+	lo, hi := min(a, b), max(a, b)
+	for d := 1; d <= 3; d++ {
+		l, h := fmt.Sprintf("%.*f %%", d, lo*100), fmt.Sprintf("%.*f %%", d, hi*100)
+		if l != h {
+			return l + " to " + h
+		}
+	}
+	return fmt.Sprintf("%.3f %%", lo*100)
 }
 
 // sentence capitalises the first letter and ends with a full stop.

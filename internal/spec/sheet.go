@@ -302,6 +302,9 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 		where, on := bc.Placement()
 		sb := sheets.Band{Low: unit.Frequency(bc.Band.Low), High: unit.Frequency(bc.Band.High), Label: bc.Band.Name,
 			Range: where.String(), DialLow: on.SettingAtLow, DialHigh: on.SettingAtHigh}
+		for _, r := range bc.Ranges {
+			sb.Ranges = append(sb.Ranges, sheets.BandRange{Range: r.Range, DialLow: r.SettingAtLow, DialHigh: r.SettingAtHigh, Whole: r.Whole})
+		}
 		s.Bands = append(s.Bands, sb)
 	}
 	for _, co := range sp.Coincidences {
