@@ -8,6 +8,7 @@ import (
 
 	"turnwise/coil"
 	"turnwise/forms"
+	"turnwise/forms/touchstone"
 )
 
 // Exit codes, the same for every command (design.md).
@@ -38,6 +39,7 @@ func exitCode(err error) int {
 		ie *coil.InputError
 		pe *forms.ParseError
 		qe *quantity.Error
+		te *touchstone.ParseError
 	)
 	switch {
 	case errors.Is(err, coil.ErrInfeasible):
@@ -45,7 +47,7 @@ func exitCode(err error) int {
 	case errors.Is(err, forms.ErrNotFound):
 		return exitBadInput
 	case errors.As(err, &ue), errors.As(err, &fe), errors.As(err, &ie),
-		errors.As(err, &pe), errors.As(err, &qe):
+		errors.As(err, &pe), errors.As(err, &qe), errors.As(err, &te):
 		return exitBadInput
 	}
 	return exitFailure

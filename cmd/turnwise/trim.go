@@ -50,6 +50,10 @@ type trimOptions struct {
 	measuredBottom inductanceFlag
 	measuredTop    inductanceFlag
 
+	// A measured sweep (turnwise fit's flags).
+	sweepFile string
+	sweep     sweepOptions
+
 	save  bool
 	units *choiceFlag
 	json  bool
@@ -125,6 +129,8 @@ local regulations and licensed practice for anything that transmits.
 	fs := cmd.Flags()
 	opts.coil.addFlags(fs)
 	opts.stock.addFlags(fs)
+	fs.StringVar(&opts.sweepFile, "sweep", "", "a network analyser's sweep of the coil (Touchstone .s1p/.s2p): the fitted L at --freq is the measurement (see turnwise fit; --fixture, --open, --short)")
+	opts.sweep.addFlags(cmd)
 	fs.StringVar(&opts.job, "job", "", "take the coil from this job file (with --coil NAME) instead of the coil flags")
 	fs.StringVar(&opts.coilName, "coil", "", "the coil's name in the --job file")
 	fs.Var(&opts.freq, "freq", "operating frequency: the target is the inductance at the terminals there (default: low frequency)")
@@ -177,6 +183,11 @@ func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) err
 	tc, err := opts.resolveCoil()
 	if err != nil {
 		return err
+	}
+	if m.Kind == trim.MeasureSweep {
+		if m.Sweep, err = opts.sweepReading(float64(tc.freq)); err != nil {
+			return err
+		}
 	}
 	res, err := trimCompute(opts, tc, m, via)
 	if err != nil {
@@ -251,7 +262,7 @@ func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string)
 func (o *trimOptions) measurement() (trim.Measurement, string, error) {
 	var m trim.Measurement
 	given := 0
-	for _, set := range []bool{o.measuredL.set, o.measuredF.set, len(o.resonances.v) > 0} {
+	for _, set := range []bool{o.measuredL.set, o.measuredF.set, len(o.resonances.v) > 0, o.sweepFile != ""} {
 		if set {
 			given++
 		}
@@ -260,7 +271,7 @@ func (o *trimOptions) measurement() (trim.Measurement, string, error) {
 	case given == 0:
 		return m, "", usageErrorf("give a measurement: --measured-l 52nH (an inductance meter), --measured-f F with --with-cap C (a test capacitor) or --circuit-cap C (in its circuit), or --resonance F1@C1 --resonance F2@C2 (two-capacitor method)")
 	case given > 1:
-		return m, "", usageErrorf("give one measurement: --measured-l, --measured-f or --resonance, not several")
+		return m, "", usageErrorf("give one measurement: --measured-l, --measured-f, --resonance or --sweep, not several")
 	}
 	for _, t := range []struct {
 		flag string
@@ -285,6 +296,9 @@ func (o *trimOptions) measurement() (trim.Measurement, string, error) {
 	m.FixtureLeadLength = o.fixtureLeads.v
 	via := ""
 	switch {
+	case o.sweepFile != "":
+		via = "sweep"
+		m.Kind = trim.MeasureSweep // fitted in runTrim, at the coil's frequency
 	case o.measuredL.set:
 		m.Kind, m.Inductance, via = trim.MeasureDirect, o.measuredL.v, "measured-l"
 		m.TestFrequency, m.FixtureInductance = o.meterFreq.v, o.fixtureL.v
@@ -598,4 +612,18 @@ func (f *capTolFlag) Set(s string) error {
 	}
 	*f = capTolFlag{raw: s, rel: v}
 	return nil
+}
+
+// sweepReading fits the --sweep file with L read at f (the coil's
+// operating frequency; zero for the lowest frequency fitted).
+func (o *trimOptions) sweepReading(f float64) (trim.SweepFit, error) {
+	_, _, fit, err := o.sweep.load(o.sweepFile, f)
+	if err != nil {
+		return trim.SweepFit{}, err
+	}
+	return trim.SweepFit{
+		Inductance: unit.Inductance(fit.InductanceLow.Value), Uncertainty: fit.InductanceLow.Uncertainty / fit.InductanceLow.Value,
+		Frequency: unit.Frequency(fit.Frequency), Capacitance: unit.Capacitance(fit.SelfCapacitance.Value),
+		CapacitanceUncertainty: unit.Capacitance(fit.SelfCapacitance.Uncertainty), Residual: fit.Residual,
+	}, nil
 }

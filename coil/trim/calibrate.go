@@ -152,7 +152,7 @@ func Calibrate(g coil.Geometry, m Measurement) (Calibration, error) {
 	}
 	c.Measured = p.Inductance
 	c.SelfCapacitance = p.SelfCapacitance
-	if r.Kind == MeasureTwoCapacitor {
+	if r.Kind == MeasureTwoCapacitor || r.Kind == MeasureSweep {
 		c.MeasuredSelfCapacitance = r.TotalStray - m.Stray
 	}
 	return c, nil

@@ -335,7 +335,7 @@ func ExpectedReading(g coil.Geometry, cal Calibration, m Measurement) (Expected,
 	gm.LeadLength += m.FixtureLeadLength
 	r := cal.Reading
 	switch m.Kind {
-	case MeasureDirect:
+	case MeasureDirect, MeasureSweep:
 		v, err := r.sense().of(gm)
 		if err != nil {
 			return e, err

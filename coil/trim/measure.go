@@ -25,6 +25,10 @@ const (
 	// capacitors, which give both L and the total capacitance already
 	// across the coil (fixture stray plus the coil's self-capacitance).
 	MeasureTwoCapacitor
+	// MeasureSweep is a network analyser's sweep fitted with the coil's
+	// equivalent model (package coil/sweep): the fitted inductance at a
+	// frequency, its uncertainty and the capacitance across the coil.
+	MeasureSweep
 )
 
 // String is the name used in JSON: direct, resonance, in_circuit,
@@ -39,6 +43,8 @@ func (k MeasurementKind) String() string {
 		return "in_circuit"
 	case MeasureTwoCapacitor:
 		return "two_capacitor"
+	case MeasureSweep:
+		return "sweep"
 	}
 	return "unknown"
 }
@@ -89,10 +95,28 @@ type Measurement struct {
 	// FrequencyTolerance is the frequency reading's relative accuracy.
 	FrequencyTolerance float64
 
+	// Sweep is the fitted sweep (MeasureSweep).
+	Sweep SweepFit
+
 	// FixtureLeadLength is extra straight wire on each lead between the
 	// coil's solder points and the instrument during the measurement; the
 	// model adds it to the leads when it compares.
 	FixtureLeadLength unit.Length
+}
+
+// SweepFit is what a fitted sweep says (MeasureSweep): the equivalent
+// model's L — the terminal inductance without the self-capacitance, as
+// the two-capacitor line gives it — at Frequency, with its relative
+// uncertainty, and the capacitance the fit puts across the coil
+// (self-capacitance plus whatever stray the fixture correction left).
+type SweepFit struct {
+	Inductance             unit.Inductance
+	Uncertainty            float64
+	Frequency              unit.Frequency
+	Capacitance            unit.Capacitance
+	CapacitanceUncertainty unit.Capacitance
+	// Residual is the fit's rms residual (in S units).
+	Residual float64
 }
 
 // Reading is a measurement reduced to one inductance with its uncertainty.
@@ -142,6 +166,8 @@ func (m Measurement) Reduce() (Reading, error) {
 		return m.reduceResonance()
 	case MeasureTwoCapacitor:
 		return m.reduceLine()
+	case MeasureSweep:
+		return m.reduceSweep()
 	}
 	return Reading{}, inputErrorf("measurement", "no measurement given: give an inductance reading or a resonance")
 }
@@ -374,4 +400,35 @@ func fitLine(rs []Resonance) (l, c0, resid float64) {
 		resid = math.Sqrt(ss / n)
 	}
 	return l, c0, resid
+}
+
+// maxSweepUncertainty is the largest relative uncertainty of a fitted L
+// that is still a reading (the same bound as the two-capacitor line's).
+const maxSweepUncertainty = maxLineUncertainty
+
+func (m *Measurement) reduceSweep() (Reading, error) {
+	s := m.Sweep
+	l, f := float64(s.Inductance), float64(s.Frequency)
+	switch {
+	case !finite(l) || l <= 0 || l > 1:
+		return Reading{}, inputErrorf("sweep", "the fitted inductance %s is not a coil's", quantity.FormatInductance(l))
+	case !finite(f) || f < 0 || f > coil.MaxFrequency:
+		return Reading{}, inputErrorf("sweep", "the fit's frequency must be between 0 and 10 GHz")
+	case !finite(s.Uncertainty) || s.Uncertainty < 0:
+		return Reading{}, inputErrorf("sweep", "the fit's uncertainty must be zero or positive")
+	case s.Uncertainty > maxSweepUncertainty:
+		return Reading{}, inputErrorf("sweep", "the sweep cannot fix L: ±%.0f %%; sweep wider or with less noise", s.Uncertainty*100)
+	case !finite(float64(s.Capacitance)) || s.Capacitance < 0 || s.Capacitance > 1e-6:
+		return Reading{}, inputErrorf("sweep", "the fitted capacitance must be a small positive capacitance")
+	}
+	return Reading{
+		Kind:                  MeasureSweep,
+		Inductance:            s.Inductance,
+		Uncertainty:           s.Uncertainty,
+		Frequency:             s.Frequency,
+		Effective:             false,
+		TotalStray:            s.Capacitance,
+		TotalStrayUncertainty: s.CapacitanceUncertainty,
+		FitResidual:           s.Residual,
+	}, nil
 }

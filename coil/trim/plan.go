@@ -217,7 +217,7 @@ func Plan(req Request) (*Result, error) {
 	res.OnTarget = math.Abs(res.Miss) <= req.Tolerance
 	res.MissAfter = float64(c.After)/float64(c.Target) - 1
 	_, res.LoosePitch = coil.WindowPitches(g)
-	if r.Kind == MeasureTwoCapacitor {
+	if r.Kind == MeasureTwoCapacitor || r.Kind == MeasureSweep {
 		ct, cs := cal.SelfCapacitanceAtTerminals, cal.SelfCapacitance
 		res.SelfCapacitanceThroughLeads = math.Abs(float64(ct/cs)-1) > SelfCapacitanceLeadsLimit
 		res.MeasuredSelfCapacitanceUncertainty = unit.Capacitance(math.Hypot(float64(r.TotalStrayUncertainty), float64(req.Measurement.StrayTolerance)))

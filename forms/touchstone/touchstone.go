@@ -38,7 +38,8 @@ type Data struct {
 var ErrData = errors.New("touchstone: data cannot be written")
 
 // Write writes d as a version 1.1 file with the parameters as
-// real/imaginary pairs and frequencies in Hz. Each comment becomes a "!"
+// real/imaginary pairs and frequencies in Hz; Y and Z are written
+// normalised to Z0, as version 1.1 prescribes (Read scales them back). Each comment becomes a "!"
 // line at the top.
 func Write(w io.Writer, d Data, comments []string) error {
 	if d.Ports != 1 && d.Ports != 2 {
@@ -71,6 +72,13 @@ func Write(w io.Writer, d Data, comments []string) error {
 		}
 		bw.WriteString(num(p.Frequency))
 		for _, v := range vals {
+			// Version 1.1 normalises Y and Z to the reference impedance.
+			switch d.Param {
+			case Z:
+				v /= complex(d.Z0, 0)
+			case Y:
+				v *= complex(d.Z0, 0)
+			}
 			if math.IsNaN(real(v)) || math.IsNaN(imag(v)) || math.IsInf(real(v), 0) || math.IsInf(imag(v), 0) {
 				return fmt.Errorf("%w: a value at %g Hz is not finite", ErrData, p.Frequency)
 			}

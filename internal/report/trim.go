@@ -129,6 +129,8 @@ func nextText(res *Trim) string {
 		return fmt.Sprintf("it should resonate at %s with the same %s", quantity.FormatEng(float64(e.Resonances[0].Frequency), "Hz", 4), quantity.FormatCapacitance(float64(e.Resonances[0].Capacitance)))
 	case trim.MeasureInCircuit:
 		return fmt.Sprintf("the circuit should resonate at %s", quantity.FormatEng(float64(e.Resonances[0].Frequency), "Hz", 4))
+	case trim.MeasureSweep:
+		return "the fitted L of a new sweep should be " + quantity.FormatEng(float64(e.Inductance), "H", 4)
 	}
 	var parts []string
 	for _, r := range e.Resonances {
@@ -186,12 +188,16 @@ func kindText(k trim.MeasurementKind) string {
 		return "resonance with a known capacitor"
 	case trim.MeasureInCircuit:
 		return "resonance in its circuit"
+	case trim.MeasureSweep:
+		return "network analyser sweep, fitted"
 	}
 	return "two-capacitor method"
 }
 
 func senseText(r trim.Reading) string {
 	switch {
+	case r.Kind == trim.MeasureSweep:
+		return fmt.Sprintf("fitted L at %s, self-capacitance separated", quantity.FormatEng(float64(r.Frequency), "Hz", 4))
 	case r.Kind == trim.MeasureTwoCapacitor:
 		return fmt.Sprintf("at the terminals near %s, self-capacitance separated", quantity.FormatEng(float64(r.Frequency), "Hz", 3))
 	case r.Effective:
@@ -239,6 +245,8 @@ func WriteTrimTable(w io.Writer, res *Trim) error {
 			v += " + " + quantity.FormatCapacitance(float64(m.Stray)) + " stray"
 		}
 		row("reading", v)
+	case trim.MeasureSweep:
+		row("fit", fmt.Sprintf("self-capacitance %s ± %s, residual %.2g (see turnwise fit)", quantity.FormatCapacitance(float64(m.Sweep.Capacitance)), quantity.FormatCapacitance(float64(m.Sweep.CapacitanceUncertainty)), m.Sweep.Residual))
 	default:
 		var parts []string
 		for _, rs := range m.Resonances {

@@ -1,0 +1,131 @@
+package main
+
+import (
+	"encoding/json"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/unit"
+	"turnwise/coil"
+	"turnwise/internal/spec"
+)
+
+var demoSweep = []string{"../../testdata/sweep/l1-as-wound.s1p", "--open", "../../testdata/sweep/jig-open.s1p", "--short", "../../testdata/sweep/jig-short.s1p"}
+
+func TestFitDemo(t *testing.T) {
+	out, errOut, code := runCLI(t, append([]string{"fit"}, demoSweep...)...)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	for _, want := range []string{"L, low frequency", "SRF", "Q at", "residual"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("table lacks %q:\n%s", want, out)
+		}
+	}
+	out, errOut, code = runCLI(t, append([]string{"fit", "--json", "--freq", "137.5MHz"}, demoSweep...)...)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var rec map[string]any
+	if err := json.Unmarshal([]byte(out), &rec); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"inductance", "inductance_low_frequency", "self_capacitance", "srf", "q", "r_dc_part", "residual", "uncertainty", "points_used", "fixture", "warnings"} {
+		if _, ok := rec[k]; !ok {
+			t.Errorf("JSON lacks %q", k)
+		}
+	}
+	u := rec["uncertainty"].(map[string]any)
+	for _, k := range []string{"inductance", "inductance_low_frequency", "self_capacitance", "srf", "q", "r_dc_part"} {
+		if _, ok := u[k]; !ok {
+			t.Errorf("uncertainty lacks %q", k)
+		}
+	}
+	if rec["fixture"] != "reflection" || rec["frequency"].(float64) != 137.5e6 {
+		t.Errorf("fixture %v frequency %v", rec["fixture"], rec["frequency"])
+	}
+}
+
+// The demo coil was synthesised with 6 % springback (invented, see
+// internal/sweepfile/demo_test.go): trim --sweep must find it, and its
+// correction applied to that coil must land on the target when the model
+// predicts it afresh.
+func TestTrimSweepLandsDemoCoil(t *testing.T) {
+	args := append([]string{"trim", "--job", "../../testdata/club-night.toml", "--coil", "L1 filter input", "--json", "--sweep"}, demoSweep...)
+	out, errOut, code := runCLI(t, args...)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var rec struct {
+		Springback       float64 `json:"springback"`
+		NewPitch         float64 `json:"new_pitch"`
+		NewTurns         float64 `json:"new_turns"`
+		TargetInductance float64 `json:"target_inductance"`
+		TargetFrequency  float64 `json:"target_frequency"`
+	}
+	if err := json.Unmarshal([]byte(out), &rec); err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(rec.Springback-0.06) > 0.003 {
+		t.Errorf("springback %g, the demo coil was wound with 0.06", rec.Springback)
+	}
+	job, err := spec.LoadJob("../../testdata/club-night.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, _ := job.Coil("L1 filter input")
+	cat, _ := spec.JobCatalog(job, "", "", false)
+	s, err := spec.ResolveJobCoil(job, c, cat)
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := s.Geometry
+	g.Springback = 0.06
+	g.Pitch = unitLength(rec.NewPitch)
+	if rec.NewTurns > 0 {
+		g.Turns = rec.NewTurns
+	}
+	p, err := coil.Predict(g, unitFrequency(rec.TargetFrequency))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if miss := float64(p.Inductance)/rec.TargetInductance - 1; math.Abs(miss) > 0.01 {
+		t.Errorf("corrected coil re-predicted %.4g H against the target %.4g H: %+.2f %%", float64(p.Inductance), rec.TargetInductance, miss*100)
+	}
+}
+
+func TestFitRefusals(t *testing.T) {
+	dir := t.TempDir()
+	bad := filepath.Join(dir, "bad.s1p")
+	os.WriteFile(bad, []byte("# MHz S RI R 50\n1 0.5 0\n2 0.5 0 7\n"), 0o644)
+	plot := filepath.Join(dir, "fit.svg")
+	checkRefusal(t, []string{"fit", bad, "--plot", plot}, exitBadInput, "line 3")
+	if _, err := os.Stat(plot); err == nil {
+		t.Error("a plot was written for a malformed file")
+	}
+	checkRefusal(t, []string{"fit", bad, "--fixture", "thru"}, exitBadInput, "--fixture")
+	checkRefusal(t, []string{"fit", demoSweep[0], "--plot", filepath.Join(dir, "x.pdf")}, exitBadInput, "--plot")
+	checkRefusal(t, []string{"fit", demoSweep[0], "--open", demoSweep[2]}, exitBadInput, "--short")
+	checkRefusal(t, []string{"fit", demoSweep[0], "--compare"}, exitBadInput, "--compare")
+	checkRefusal(t, []string{"trim", "--job", "../../testdata/club-night.toml", "--coil", "L1 filter input", "--sweep", bad}, exitBadInput, "line 3")
+}
+
+func TestFitPlotAndCompare(t *testing.T) {
+	plot := filepath.Join(t.TempDir(), "fit.png")
+	out, errOut, code := runCLI(t, append([]string{"fit", "--compare", "--mandrel", "6mm drill", "--wire", "1.00mm silver-plated", "--turns", "5", "--length", "10mm", "--leads", "4mm", "--springback", "6%", "--freq", "137.5MHz", "--plot", plot}, demoSweep...)...)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	if !strings.Contains(out, "difference") {
+		t.Errorf("no comparison:\n%s", out)
+	}
+	b, err := os.ReadFile(plot)
+	if err != nil || !strings.HasPrefix(string(b), "\x89PNG") {
+		t.Errorf("plot not a PNG: %v", err)
+	}
+}
+
+func unitLength(m float64) unit.Length { return unit.Length(m) }

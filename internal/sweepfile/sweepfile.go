@@ -1,0 +1,87 @@
+package sweepfile
+
+import (
+	"bytes"
+	"fmt"
+	"os"
+
+	"turnwise/coil"
+	"turnwise/coil/sweep"
+	"turnwise/forms/touchstone"
+)
+
+// Files names the sweep of the coil and, optionally, the jig's open and
+// short sweeps (both or neither), measured with the same fixture.
+type Files struct {
+	Sweep       string
+	Open, Short string
+	Fixture     sweep.Fixture
+}
+
+// Loaded is a sweep ready for the fit.
+type Loaded struct {
+	Points []sweep.Point
+	Ports  int
+	Z0     float64
+	// Corrected reports that open/short correction was applied.
+	Corrected bool
+}
+
+// Load reads the files and returns the coil's impedance.
+func Load(f Files) (Loaded, error) {
+	if (f.Open == "") != (f.Short == "") {
+		return Loaded{}, &coil.InputError{Param: "open", Reason: "open/short correction needs both --open and --short files of the jig"}
+	}
+	pts, d, err := ReadImpedance(f.Sweep, f.Fixture)
+	if err != nil {
+		return Loaded{}, err
+	}
+	out := Loaded{Points: pts, Ports: d.Ports, Z0: d.Z0}
+	if f.Open == "" {
+		return out, nil
+	}
+	open, _, err := ReadImpedance(f.Open, f.Fixture)
+	if err != nil {
+		return Loaded{}, err
+	}
+	short, _, err := ReadImpedance(f.Short, f.Fixture)
+	if err != nil {
+		return Loaded{}, err
+	}
+	if out.Points, err = sweep.Correct(pts, open, short); err != nil {
+		return Loaded{}, err
+	}
+	out.Corrected = true
+	return out, nil
+}
+
+// ReadImpedance reads one Touchstone file (the port count from its
+// extension) and converts it with the fixture.
+func ReadImpedance(name string, fx sweep.Fixture) ([]sweep.Point, touchstone.Data, error) {
+	b, err := os.ReadFile(name)
+	if err != nil {
+		return nil, touchstone.Data{}, err
+	}
+	d, err := touchstone.Read(bytes.NewReader(b), touchstone.PortsFromName(name))
+	if err != nil {
+		return nil, d, fmt.Errorf("%s: %w", name, err)
+	}
+	pts, err := Impedance(d, fx)
+	if err != nil {
+		return nil, d, fmt.Errorf("%s: %w", name, err)
+	}
+	return pts, d, nil
+}
+
+// Impedance converts read data with the fixture.
+func Impedance(d touchstone.Data, fx sweep.Fixture) ([]sweep.Point, error) {
+	s, err := d.ToS()
+	if err != nil {
+		return nil, &coil.InputError{Param: "sweep", Reason: err.Error()}
+	}
+	sp := make([]sweep.SPoint, len(s.Points))
+	for i, p := range s.Points {
+		sp[i] = sweep.SPoint{Frequency: p.Frequency, S: p.M}
+	}
+	return sweep.Impedance(fx, d.Ports, d.Z0, sp)
+}
