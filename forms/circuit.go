@@ -150,7 +150,6 @@ var (
 	circuitResKeys  = slices.Concat(circuitEnds, []string{"value", "notes"})
 	circuitCplKeys  = []string{"name", "parts", "k"}
 	circuitPortKeys = []string{"node", "z0", "name"}
-	circuitLoadKeys = []string{"node"}
 )
 
 // Limits: beyond them a file is not a circuit a builder draws.

@@ -43,7 +43,7 @@ func (l *jobLoader) circuitCoil(i int, m map[string]any) CircuitCoil {
 	default:
 		jc := JobCoil{Name: c.Name, Quantity: 1, Line: ce.Line, keys: map[string]jobKey{}}
 		for k, v := range ce.keys {
-			jc.keys[k] = jobKey{raw: v.raw, line: v.line}
+			jc.keys[k] = jobKey(v)
 		}
 		l.winding(e, &jc)
 		if _, ok := m["turns"]; !ok {
