@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"math/cmplx"
 	"os"
 	"path/filepath"
 	"strings"
@@ -15,6 +14,8 @@ import (
 	"turnwise/coil/circuit"
 	"turnwise/forms"
 	"turnwise/forms/touchstone"
+	"turnwise/internal/report"
+	"turnwise/internal/spec"
 	"turnwise/sheets"
 )
 
@@ -105,9 +106,9 @@ to your licence and local regulations.
 	return cmd
 }
 
-// settings parses the flags into circuitSettings.
-func (o *circuitOptions) settings() (circuitSettings, error) {
-	set := circuitSettings{From: float64(o.from.v), To: float64(o.to.v), Points: o.points,
+// settings parses the flags into spec.CircuitSettings.
+func (o *circuitOptions) settings() (spec.CircuitSettings, error) {
+	set := spec.CircuitSettings{From: float64(o.from.v), To: float64(o.to.v), Points: o.points,
 		LO: float64(o.lo.v), IF: float64(o.ifreq.v), Signal: float64(o.signal.v)}
 	if o.points < 2 || o.points > 1_000_000 {
 		return set, usageErrorf("--points %d: give 2 to 1000000 points", o.points)
@@ -178,7 +179,7 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 	if err != nil {
 		return err
 	}
-	c, err := loadCircuitFile(opts.file)
+	c, err := spec.LoadCircuitFile(opts.file)
 	if err != nil {
 		return err
 	}
@@ -186,7 +187,7 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 	if err != nil {
 		return err
 	}
-	m, err := buildCircuit(c, cat, opts.stock, opts.stockGiven)
+	m, err := spec.BuildCircuit(c, cat, opts.stock.path, opts.stock.use.v, opts.stockGiven)
 	if err != nil {
 		return err
 	}
@@ -197,9 +198,9 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 		}
 	}
 	if len(set.Bands) == 0 {
-		set.Bands = fileBands(c)
+		set.Bands = spec.FileBands(c)
 	}
-	r, err := analyzeCircuit(m, set)
+	r, err := spec.AnalyzeCircuit(m, set)
 	if err != nil {
 		return err
 	}
@@ -207,7 +208,7 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 	if opts.plot != "" {
 		format := strings.TrimPrefix(strings.ToLower(filepath.Ext(opts.plot)), ".")
 		if err := writeFileAtomic(opts.plot, 0o644, stdout, func(w io.Writer) error {
-			return sheets.PlotCircuit(w, r.sheetCircuit(), format, 160, 100)
+			return sheets.PlotCircuit(w, r.SheetCircuit(), format, 160, 100)
 		}); err != nil {
 			return withFlag("plot", err)
 		}
@@ -226,26 +227,19 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 		}
 		s, err := circuit.NewSolver(m.Net)
 		if err != nil {
-			return m.fileError(err)
+			return m.FileError(err)
 		}
 		if err := writeFileAtomic(opts.spice, 0o644, stdout, func(w io.Writer) error {
-			return s.WriteSpice(w, circuit.SpiceOptions{Title: "* " + titleOr(r), At: at,
+			return s.WriteSpice(w, circuit.SpiceOptions{Title: "* " + r.TitleOrFile(), At: at,
 				From: r.Freqs[0], To: r.Freqs[len(r.Freqs)-1], Points: len(r.Freqs), Log: r.Log})
 		}); err != nil {
 			return withFlag("spice", err)
 		}
 	}
 	if opts.json {
-		return writeCircuitJSON(stdout, r)
+		return report.WriteCircuitJSON(stdout, r)
 	}
-	return writeCircuitTable(stdout, r)
-}
-
-func titleOr(r *circuitResult) string {
-	if r.Title != "" {
-		return r.Title
-	}
-	return filepath.Base(r.File)
+	return report.WriteCircuitTable(stdout, r)
 }
 
 // withFlag names the flag an output error came from.
@@ -257,7 +251,7 @@ func withFlag(flag string, err error) error {
 }
 
 // writeCircuitTouchstone writes the sweep's S parameters.
-func writeCircuitTouchstone(w io.Writer, m *circuitModel, r *circuitResult) error {
+func writeCircuitTouchstone(w io.Writer, m *spec.CircuitModel, r *spec.CircuitResult) error {
 	d := touchstone.Data{Ports: r.Ports, Param: touchstone.S, Z0: m.Net.Ports[0].Z0}
 	for _, resp := range r.Sweep {
 		d.Points = append(d.Points, touchstone.Point{Frequency: resp.Frequency, M: resp.S})
@@ -265,8 +259,5 @@ func writeCircuitTouchstone(w io.Writer, m *circuitModel, r *circuitResult) erro
 	if r.Ports == 2 && m.Net.Ports[1].Z0 != m.Net.Ports[0].Z0 {
 		return usageErrorf("the two ports have different reference impedances; Touchstone 1.1 has one")
 	}
-	return touchstone.Write(w, d, []string{"turnwise circuit: " + titleOr(r), "computed response, not a measurement"})
+	return touchstone.Write(w, d, []string{"turnwise circuit: " + r.TitleOrFile(), "computed response, not a measurement"})
 }
-
-// cabs is |z| with no NaN.
-func cabs(z complex128) float64 { return cmplx.Abs(z) }

@@ -236,6 +236,8 @@ func TestCircuitBadFileWritesNothing(t *testing.T) {
 		{"dangling node", "[[capacitor]]\nname = \"C\"\nfrom = \"a\"\nto = \"gnd\"\nvalue = \"1pF\"\n[[capacitor]]\nname = \"C2\"\nfrom = \"a\"\nto = \"b\"\nvalue = \"1pF\"\n[[port]]\nnode = \"a\"\n", `line 9: capacitor "C2": to`},
 		{"port on gnd", "[[capacitor]]\nname = \"C\"\nfrom = \"a\"\nto = \"gnd\"\nvalue = \"1pF\"\n[[port]]\nnode = \"gnd\"\n", `line 7: port 1: node`},
 		{"shorted", "[[capacitor]]\nname = \"C\"\nfrom = \"a\"\nto = \"a\"\nvalue = \"1pF\"\n[[port]]\nnode = \"a\"\n", `line 4: capacitor "C": to`},
+		{"unknown wire", "[[coil]]\nname = \"L1\"\nfrom = \"a\"\nto = \"gnd\"\nmandrel = \"6mm\"\nwire = \"unobtainium\"\nturns = 5\nleads = \"5mm\"\n[[capacitor]]\nname = \"C1\"\nfrom = \"a\"\nto = \"gnd\"\nvalue = \"10pF\"\n[[port]]\nnode = \"a\"\n", `line 6: coil "L1": wire`},
+		{"job file missing", "[[coil]]\nname = \"L1\"\nfrom = \"a\"\nto = \"gnd\"\njob = \"nowhere.toml\"\ncoil = \"L1\"\n[[capacitor]]\nname = \"C1\"\nfrom = \"a\"\nto = \"gnd\"\nvalue = \"10pF\"\n[[port]]\nnode = \"a\"\n", `line 5: coil "L1": job`},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			file := writeTemp(t, "bad.toml", tc.text)

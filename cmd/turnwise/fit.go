@@ -3,10 +3,7 @@ package main
 import (
 	"context"
 	"errors"
-	"fmt"
 	"io"
-	"math"
-	"math/cmplx"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -14,7 +11,6 @@ import (
 
 	"turnwise/coil"
 	"turnwise/coil/sweep"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/sweepfile"
 )
@@ -40,23 +36,8 @@ func (o *sweepOptions) addFlags(cmd *cobra.Command) {
 
 // load reads and fits the sweep in file at f (0: the lowest frequency fitted).
 func (o *sweepOptions) load(file string, f float64) (sweepfile.Loaded, sweep.Fixture, *sweep.Fit, error) {
-	var fx sweep.Fixture
-	var err error
-	switch {
-	case o.fixture != "":
-		if fx, err = sweep.ParseFixture(o.fixture); err != nil {
-			return sweepfile.Loaded{}, 0, nil, &flagError{Flag: "fixture", Err: err}
-		}
-	case strings.HasSuffix(strings.ToLower(file), ".s2p"):
-		fx = sweep.Series
-	default:
-		fx = sweep.Reflection
-	}
-	ld, err := sweepfile.Load(sweepfile.Files{Sweep: file, Open: o.open, Short: o.short, Fixture: fx})
-	if err != nil {
-		return ld, fx, nil, sweepFlagError(err)
-	}
-	fit, err := sweep.FitModel(ld.Points, sweep.Options{FMin: float64(o.from.v), FMax: float64(o.to.v), Frequency: f, LeadInductance: o.lead})
+	ld, fx, fit, err := sweepfile.Fit(sweepfile.Request{File: file, Fixture: o.fixture, Open: o.open, Short: o.short,
+		FMin: float64(o.from.v), FMax: float64(o.to.v), Frequency: f, Lead: o.lead})
 	if err != nil {
 		return ld, fx, nil, sweepFlagError(err)
 	}
@@ -65,8 +46,8 @@ func (o *sweepOptions) load(file string, f float64) (sweepfile.Loaded, sweep.Fix
 
 // sweepFlagError names the flag a sweep error belongs to.
 func sweepFlagError(err error) error {
-	var ie *coil.InputError
-	if !asInputError(err, &ie) {
+	ie, ok := errors.AsType[*coil.InputError](err)
+	if !ok {
 		return err
 	}
 	flag := map[string]string{"fixture": "fixture", "open": "open", "short": "short", "freq": "freq", "fit_range": "fit-to"}[ie.Param]
@@ -155,7 +136,7 @@ func runFit(_ context.Context, opts *fitOptions, stdout, _ io.Writer) error {
 	var model *coil.Prediction
 	var asWound *coil.Geometry
 	if opts.compare {
-		ff := frequencyFlag{v: unitFrequency(fit.Frequency), set: true}
+		ff := frequencyFlag{v: unit.Frequency(fit.Frequency), set: true}
 		s, p, err := predictCoil(&opts.coil, opts.stock, ff)
 		if err != nil {
 			return err
@@ -165,14 +146,8 @@ func runFit(_ context.Context, opts *fitOptions, stdout, _ io.Writer) error {
 	rec := report.NewFitRecord(opts.file, fx, ld.Corrected, opts.sweep.lead, fit, model)
 	if opts.plot != "" {
 		format, _ := sweepfile.PlotFormat(opts.plot)
-		curves := []sweepfile.Curve{{Name: "fit", Z: fit.Model.Coil}}
-		if asWound != nil {
-			g := *asWound
-			curves = append(curves, sweepfile.Curve{Name: "model as wound", Z: func(f float64) complex128 { return modelZ(g, f) }})
-		}
-		title := fmt.Sprintf("%s: L %s, SRF %s", opts.file, formatL(fit.InductanceLow.Value), formatF(fit.SRF.Value))
 		if err := writeFileAtomic(opts.plot, 0o644, stdout, func(w io.Writer) error {
-			return sweepfile.Plot(w, format, title, ld.Points, curves)
+			return sweepfile.PlotFit(w, format, opts.file, ld, fit, asWound)
 		}); err != nil {
 			return err
 		}
@@ -182,21 +157,3 @@ func runFit(_ context.Context, opts *fitOptions, stdout, _ io.Writer) error {
 	}
 	return report.WriteFitText(stdout, rec)
 }
-
-// modelZ is the impedance of the model of g at f: the winding with its
-// self-capacitance behind the leads (coil.ModelAt); NaN where it has none.
-func modelZ(g coil.Geometry, f float64) complex128 {
-	m, err := coil.ModelAt(g, unitFrequency(f))
-	if err != nil {
-		return cmplx.NaN()
-	}
-	w := 2 * math.Pi * f
-	zl := complex(float64(m.R), w*float64(m.L))
-	zc := zl / (1 + zl*complex(0, w*float64(m.SelfCapacitance)))
-	return zc + complex(float64(m.RLeads), w*float64(m.LLeads))
-}
-
-func unitFrequency(f float64) unit.Frequency            { return unit.Frequency(f) }
-func formatL(h float64) string                          { return quantity.FormatInductance(h) }
-func formatF(f float64) string                          { return quantity.FormatFrequency(f) }
-func asInputError(err error, ie **coil.InputError) bool { return errors.As(err, ie) }

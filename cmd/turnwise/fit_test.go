@@ -128,4 +128,5 @@ func TestFitPlotAndCompare(t *testing.T) {
 	}
 }
 
-func unitLength(m float64) unit.Length { return unit.Length(m) }
+func unitLength(m float64) unit.Length       { return unit.Length(m) }
+func unitFrequency(f float64) unit.Frequency { return unit.Frequency(f) }

@@ -298,7 +298,7 @@ func TestImportDirection(t *testing.T) {
 			t.Error(v)
 		}
 	}
-	for _, pkg := range []string{"turnwise/coil", "turnwise/forms", "turnwise/sheets", "turnwise/internal/spec", "turnwise/internal/report"} {
+	for _, pkg := range []string{"turnwise/coil", "turnwise/forms", "turnwise/sheets", "turnwise/internal/spec", "turnwise/internal/report", "turnwise/internal/sweepfile"} {
 		if !seen[pkg] {
 			t.Errorf("go list did not list %s", pkg)
 		}
@@ -315,6 +315,8 @@ func TestImportDirection(t *testing.T) {
 //   - forms never reaches coil (or a package under it), sheets or cmd;
 //   - internal/spec and internal/report import, of this module, only coil,
 //     coil/*, forms, internal/quantity and sheets (report also spec);
+//   - internal/sweepfile imports, of this module, only coil, coil/*,
+//     forms, forms/* and internal/quantity;
 //   - no library package reaches cmd, cobra or pflag; only sheets uses gofpdf.
 func importViolations(pkg string, imports, deps []string) []string {
 	under := func(p, root string) bool { return p == root || strings.HasPrefix(p, root+"/") }
@@ -342,6 +344,15 @@ func importViolations(pkg string, imports, deps []string) []string {
 				pkg == "turnwise/internal/report" && imp == "turnwise/internal/spec"
 			if !ok {
 				bad = append(bad, fmt.Sprintf("%s imports %s: it may import coil, coil/*, forms, internal/quantity, sheets (report also internal/spec)", pkg, imp))
+			}
+		}
+	}
+	if pkg == "turnwise/internal/sweepfile" {
+		for _, imp := range imports {
+			ok := !under(imp, "turnwise") || under(imp, "turnwise/coil") || under(imp, "turnwise/forms") ||
+				imp == "turnwise/internal/quantity"
+			if !ok {
+				bad = append(bad, fmt.Sprintf("%s imports %s: it may import coil, coil/*, forms, forms/* and internal/quantity", pkg, imp))
 			}
 		}
 	}
@@ -386,6 +397,9 @@ func TestImportViolations(t *testing.T) {
 		{"spec imports report", "turnwise/internal/spec", []string{"turnwise/internal/report"}, []string{"turnwise/internal/report"}, 1},
 		{"spec reaches cobra", "turnwise/internal/spec", nil, []string{"github.com/spf13/cobra"}, 1},
 		{"report imports cmd", "turnwise/internal/report", []string{"turnwise/cmd/turnwise"}, []string{"turnwise/cmd/turnwise"}, 2},
+		{"sweepfile reads Touchstone and plots", "turnwise/internal/sweepfile", []string{"turnwise/coil/sweep", "turnwise/forms/touchstone", "gonum.org/v1/plot"}, []string{"turnwise/coil", "gonum.org/v1/plot"}, 0},
+		{"sweepfile imports spec", "turnwise/internal/sweepfile", []string{"turnwise/internal/spec"}, []string{"turnwise/internal/spec"}, 1},
+		{"sweepfile reaches cobra", "turnwise/internal/sweepfile", nil, []string{"github.com/spf13/cobra"}, 1},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {

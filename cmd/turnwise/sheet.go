@@ -232,7 +232,7 @@ func sheetDocument(opts *sheetOptions) (sheets.Document, []string, error) {
 			warnings = append(warnings, w...)
 		}
 		for _, path := range job.Circuits {
-			c, err := jobCircuitPage(job, path, opts.stock, opts.stockGiven)
+			c, err := spec.JobCircuitPage(job, path, opts.stock.path, opts.stock.use.v, opts.stockGiven)
 			if err != nil {
 				return doc, nil, err
 			}

@@ -1,6 +1,7 @@
 // Package report renders results as the commands print them: the text
 // tables and JSON records of predict, design, tap, span (with its text
-// chart), trim (with the wording of its findings) and stock. Writers take
+// chart), trim (with the wording of its findings), stock, fit and
+// circuit (spec.CircuitResult). Writers take
 // plain result values (coil.Prediction, design.Result, tuning.Span,
 // report.Trim, spec.Spec for provenance) and an io.Writer, and return
 // errors. JSON numbers are SI base units with snake_case keys and a

@@ -4,9 +4,13 @@
 // winding, FromCandidate for a design candidate: support name and kind,
 // pitch source, springback source, wire row, conductor, close-wound
 // detection), the glue into the design search (Search), the two-gang
-// settings (BuildSpan), job files (LoadJob, JobCatalog, ResolveJobCoil)
-// and the build-sheet pages of job coils (JobSheetCoil). It never prints
-// and never exits; bad input is a *UsageError or *FlagError naming the
+// settings (BuildSpan), job files (LoadJob, JobCatalog, ResolveJobCoil),
+// the build-sheet pages of job coils (JobSheetCoil), and circuit files:
+// LoadCircuitFile and BuildCircuit (a coil/circuit.Network with each
+// wound coil resolved here, faults mapped to the file's line and key),
+// AnalyzeCircuit (resonances, sweep, bands, strays, rejection, mixer
+// products) and JobCircuitPage (a job's circuit on the build sheet). It
+// never prints and never exits; bad input is a *UsageError or *FlagError naming the
 // command's flag (a job file's key has the same name).
 //
 // It imports coil, coil/*, forms, internal/quantity and sheets; never cmd

@@ -10,6 +10,8 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/unit"
+
 	"turnwise/coil"
 	"turnwise/coil/sweep"
 	"turnwise/forms/touchstone"
@@ -115,5 +117,64 @@ func TestPlot(t *testing.T) {
 	}
 	if _, err := PlotFormat("x.pdf"); err == nil {
 		t.Error("pdf accepted")
+	}
+}
+
+// Fit picks the fixture from the extension when none is named, reads the
+// named one, and refuses an unknown one with Param "fixture"; the fitted L
+// is the invented coil's.
+func TestFitRequest(t *testing.T) {
+	dir := t.TempDir()
+	file := writeS1P(t, dir, "c.s1p", coilZ)
+	for _, tc := range []struct {
+		name, fixture string
+		want          sweep.Fixture
+		param         string
+	}{
+		{"default for .s1p", "", sweep.Reflection, ""},
+		{"named", "reflection", sweep.Reflection, ""},
+		{"unknown", "sideways", 0, "fixture"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			_, fx, fit, err := Fit(Request{File: file, Fixture: tc.fixture})
+			if tc.param != "" {
+				var ie *coil.InputError
+				if !errors.As(err, &ie) || ie.Param != tc.param {
+					t.Fatalf("error %v, want *coil.InputError for %q", err, tc.param)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatal(err)
+			}
+			if fx != tc.want {
+				t.Errorf("fixture %v, want %v", fx, tc.want)
+			}
+			if got := fit.InductanceLow.Value; math.Abs(got/60e-9-1) > 0.01 { // coilZ's 60 nH (invented), 1 % fit tolerance
+				t.Errorf("L %g H, want 60 nH within 1 %%", got)
+			}
+		})
+	}
+}
+
+// ModelZ is the series equivalent coil.ModelAt gives, recomputed here from
+// its parts: below the self-resonance its reactance is inductive and well
+// below it Im Z/ω is the model's L within the self-capacitance's share.
+func TestModelZ(t *testing.T) {
+	g := coil.Geometry{FormerDiameter: 6e-3, WireDiameter: 1e-3, Turns: 5, Pitch: 2e-3, LeadLength: 5e-3}
+	f := 10e6
+	m, err := coil.ModelAt(g, unit.Frequency(f))
+	if err != nil {
+		t.Fatal(err)
+	}
+	z := ModelZ(g, f)
+	w := 2 * math.Pi * f
+	l := imag(z) / w
+	want := float64(m.L) + float64(m.LLeads)
+	if math.Abs(l/want-1) > 0.01 { // the self-capacitance raises L by about (f/SRF)², far under 1 % at 10 MHz
+		t.Errorf("Im Z/ω = %g H, want %g H within 1 %%", l, want)
+	}
+	if real(z) <= 0 || cmplx.IsNaN(z) {
+		t.Errorf("Z = %v: want a finite positive loss", z)
 	}
 }

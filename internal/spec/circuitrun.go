@@ -1,4 +1,4 @@
-package main
+package spec
 
 import (
 	"errors"
@@ -7,17 +7,16 @@ import (
 	"math/cmplx"
 	"path/filepath"
 	"sort"
-	"turnwise/forms"
-	"turnwise/internal/spec"
 
 	"turnwise/coil"
 	"turnwise/coil/circuit"
+	"turnwise/forms"
 	"turnwise/internal/quantity"
 	"turnwise/sheets"
 )
 
-// circuitSettings is what to compute for a network.
-type circuitSettings struct {
+// CircuitSettings is what to compute for a network.
+type CircuitSettings struct {
 	From, To float64 // 0: the default range
 	Points   int
 	Log      *bool // nil: log when the range spans more than a decade
@@ -27,8 +26,8 @@ type circuitSettings struct {
 	Signal   float64 // the wanted input; 0: LO ± IF, whichever passes better
 }
 
-// circuitResult is everything `turnwise circuit` reports.
-type circuitResult struct {
+// CircuitResult is everything `turnwise circuit` reports.
+type CircuitResult struct {
 	Title      string
 	File       string
 	Ports      int
@@ -41,36 +40,48 @@ type circuitResult struct {
 	Fits       []circuit.BandFit
 	Strays     []circuit.Stray
 	Self       []circuit.SelfResonance
-	Rejection  []rejectionRow
+	Rejection  []RejectionRow
 	Wanted     float64
-	Products   []productRow
+	Products   []ProductRow
 	Passband   *circuit.Passband
 	Warnings   []string
 }
 
-type rejectionRow struct {
+// TitleOrFile is the circuit's title, or its file's base name when it has
+// none: the heading of the table, the Touchstone comment and the SPICE
+// title line.
+func (r *CircuitResult) TitleOrFile() string {
+	if r.Title != "" {
+		return r.Title
+	}
+	return filepath.Base(r.File)
+}
+
+// RejectionRow is the response at one --at frequency.
+type RejectionRow struct {
 	Frequency float64
 	Z         complex128
 	S21       float64 // |S21|, two ports
 	DB        float64 // below the reference, positive
 }
 
-type productRow struct {
+// ProductRow is one mixer product with its rejection.
+type ProductRow struct {
 	circuit.Product
 	Relation string  // "2*LO - 1*f = IF"
 	DB       float64 // below the wanted signal, positive
 }
 
-// db is 20·log10 x, floored at −300 dB so no infinity reaches the output.
-func db(x float64) float64 { return 20 * math.Log10(math.Max(x, 1e-15)) }
+// DB is 20·log10 x, floored at −300 dB so no infinity reaches the output.
+func DB(x float64) float64 { return 20 * math.Log10(math.Max(x, 1e-15)) }
 
-// analyzeCircuit runs every computation the settings ask for.
-func analyzeCircuit(m *circuitModel, set circuitSettings) (*circuitResult, error) {
+// AnalyzeCircuit runs every computation the settings ask for.
+func AnalyzeCircuit(m *CircuitModel, set CircuitSettings) (*CircuitResult, error) {
 	s, err := circuit.NewSolver(m.Net)
 	if err != nil {
-		return nil, m.fileError(err)
+		return nil, m.FileError(err)
 	}
-	r := &circuitResult{Title: m.File.Title, File: m.File.File, Ports: len(m.Net.Ports)}
+	r := &CircuitResult{Title: m.File.Title, File: m.File.File, Ports: len(m.Net.Ports)}
 	fMax := 1e9
 	if set.To > 0 {
 		fMax = set.To
@@ -91,7 +102,7 @@ func analyzeCircuit(m *circuitModel, set circuitSettings) (*circuitResult, error
 		to = set.To
 	}
 	if !(to > from) {
-		return nil, usageErrorf("--from %s is not below --to %s; give a range low to high", quantity.FormatFrequency(from), quantity.FormatFrequency(to))
+		return nil, Usagef("--from %s is not below --to %s; give a range low to high", quantity.FormatFrequency(from), quantity.FormatFrequency(to))
 	}
 	r.Log = to/from > 10
 	if set.Log != nil {
@@ -99,7 +110,7 @@ func analyzeCircuit(m *circuitModel, set circuitSettings) (*circuitResult, error
 	}
 	r.Freqs, err = circuit.Frequencies(from, to, set.Points, r.Log)
 	if err != nil {
-		return nil, usageErrorf("--points: %v", err)
+		return nil, Usagef("--points: %v", err)
 	}
 	r.Sweep, err = s.Sweep(r.Freqs)
 	if err != nil {
@@ -135,19 +146,19 @@ func analyzeCircuit(m *circuitModel, set circuitSettings) (*circuitResult, error
 	}
 	r.Self, err = s.SelfResonances(floating)
 	if err != nil {
-		return nil, m.fileError(err)
+		return nil, m.FileError(err)
 	}
 	for i := range set.Bands {
 		if set.Bands[i].Name == "" {
-			set.Bands[i].Name = bandRange(set.Bands[i])
+			set.Bands[i].Name = BandRange(set.Bands[i])
 		}
 	}
 	r.Fits, r.Strays = circuit.FitBands(set.Bands, r.Resonances, r.Self)
 	for _, f := range r.Fits {
 		if f.Resonance < 0 {
-			r.Warnings = append(r.Warnings, fmt.Sprintf("band %s (%s): no resonance within 10 %% of it", circuitBandName(f.Band), bandRange(f.Band)))
+			r.Warnings = append(r.Warnings, fmt.Sprintf("band %s (%s): no resonance within 10 %% of it", CircuitBandName(f.Band), BandRange(f.Band)))
 		} else if !f.Inside {
-			r.Warnings = append(r.Warnings, fmt.Sprintf("band %s: the nearest resonance, %s, is outside the band (%+.1f %% from its centre)", circuitBandName(f.Band), quantity.FormatFrequency(f.Frequency), f.Offset*100))
+			r.Warnings = append(r.Warnings, fmt.Sprintf("band %s: the nearest resonance, %s, is outside the band (%+.1f %% from its centre)", CircuitBandName(f.Band), quantity.FormatFrequency(f.Frequency), f.Offset*100))
 		}
 	}
 	for _, st := range r.Strays {
@@ -170,9 +181,9 @@ func analyzeCircuit(m *circuitModel, set circuitSettings) (*circuitResult, error
 	for _, f := range set.At {
 		resp, err := s.Response(f)
 		if err != nil {
-			return nil, &flagError{Flag: "at", Err: err}
+			return nil, &FlagError{Flag: "at", Err: err}
 		}
-		row := rejectionRow{Frequency: f, Z: resp.Zin, DB: db(ref) - db(resp.Gain())}
+		row := RejectionRow{Frequency: f, Z: resp.Zin, DB: DB(ref) - DB(resp.Gain())}
 		if r.Ports == 2 {
 			row.S21 = cmplx.Abs(resp.S[1][0])
 		}
@@ -186,9 +197,9 @@ func analyzeCircuit(m *circuitModel, set circuitSettings) (*circuitResult, error
 	return r, nil
 }
 
-func (r *circuitResult) mixer(s *circuit.Solver, set circuitSettings) error {
+func (r *CircuitResult) mixer(s *circuit.Solver, set CircuitSettings) error {
 	if !(set.LO > 0 && set.IF > 0) {
-		return usageErrorf("--lo and --if go together: give both, e.g. --lo 116MHz --if 29MHz")
+		return Usagef("--lo and --if go together: give both, e.g. --lo 116MHz --if 29MHz")
 	}
 	cands := []float64{set.LO + set.IF}
 	if d := math.Abs(set.LO - set.IF); d > 0 {
@@ -200,18 +211,18 @@ func (r *circuitResult) mixer(s *circuit.Solver, set circuitSettings) error {
 		for _, f := range cands {
 			g, err := s.GainAt(f)
 			if err != nil {
-				return &flagError{Flag: "lo", Err: err}
+				return &FlagError{Flag: "lo", Err: err}
 			}
 			if g > best {
 				best, wanted = g, f
 			}
 		}
 	} else if math.Abs(wanted-cands[0]) > 1e-9*wanted && (len(cands) < 2 || math.Abs(wanted-cands[1]) > 1e-9*wanted) {
-		return usageErrorf("--signal %s is neither LO + IF nor |LO - IF|; give the frequency the converter is for", quantity.FormatFrequency(wanted))
+		return Usagef("--signal %s is neither LO + IF nor |LO - IF|; give the frequency the converter is for", quantity.FormatFrequency(wanted))
 	}
 	ps, err := circuit.Products(set.LO, set.IF, wanted, coil.MaxFrequency)
 	if err != nil {
-		return usageErrorf("--lo/--if: %v", err)
+		return Usagef("--lo/--if: %v", err)
 	}
 	gw, err := s.GainAt(wanted)
 	if err != nil {
@@ -230,31 +241,33 @@ func (r *circuitResult) mixer(s *circuit.Solver, set circuitSettings) error {
 		case float64(p.M)*set.LO > float64(p.N)*p.Frequency:
 			rel = fmt.Sprintf("%d*LO - %d*f = IF", p.M, p.N)
 		}
-		r.Products = append(r.Products, productRow{Product: p, Relation: rel, DB: db(gw) - db(g)})
+		r.Products = append(r.Products, ProductRow{Product: p, Relation: rel, DB: DB(gw) - DB(g)})
 	}
 	return nil
 }
 
-func circuitBandName(b circuit.Band) string {
+// CircuitBandName is the band's name, or its range when it has none.
+func CircuitBandName(b circuit.Band) string {
 	if b.Name != "" {
 		return b.Name
 	}
-	return bandRange(b)
+	return BandRange(b)
 }
 
-func bandRange(b circuit.Band) string {
+// BandRange prints a band as LOW-HIGH.
+func BandRange(b circuit.Band) string {
 	return quantity.FormatFrequency(b.Low) + "-" + quantity.FormatFrequency(b.High)
 }
 
-// sheetCircuit is the result as the build sheet and the plot draw it.
-func (r *circuitResult) sheetCircuit() *sheets.Circuit {
+// SheetCircuit returns the result as the build sheet and the plot draw it.
+func (r *CircuitResult) SheetCircuit() *sheets.Circuit {
 	c := &sheets.Circuit{Title: r.Title, Source: r.File, TwoPort: r.Ports == 2, Freqs: r.Freqs, LogX: r.Log, Warnings: r.Warnings}
 	if c.Title == "" {
 		c.Title = r.File
 	}
 	for _, resp := range r.Sweep {
 		if c.TwoPort {
-			c.Values = append(c.Values, db(cmplx.Abs(resp.S[1][0])))
+			c.Values = append(c.Values, DB(cmplx.Abs(resp.S[1][0])))
 		} else {
 			c.Values = append(c.Values, math.Max(cmplx.Abs(resp.Zin), 1e-9))
 		}
@@ -270,41 +283,41 @@ func (r *circuitResult) sheetCircuit() *sheets.Circuit {
 	return c
 }
 
-// jobCircuitPage computes a circuit named in a job file (its path relative
+// JobCircuitPage computes a circuit named in a job file (its path relative
 // to the job file) for the build sheet, with the circuit file's own bands.
-func jobCircuitPage(job *forms.Job, path string, so *stockOptions, stockGiven bool) (*sheets.Circuit, error) {
+func JobCircuitPage(job *forms.Job, path, stockPath, use string, stockGiven bool) (*sheets.Circuit, error) {
 	full := path
 	if !filepath.IsAbs(full) {
 		full = filepath.Join(filepath.Dir(job.File), path)
 	}
-	c, err := loadCircuitFile(full)
+	c, err := LoadCircuitFile(full)
 	if err != nil {
-		var ue *usageError
+		var ue *UsageError
 		if errors.As(err, &ue) {
 			return nil, &forms.ParseError{Kind: "job", File: job.File, Line: job.KeyLine("circuit"), Field: "circuit",
 				Err: fmt.Errorf("%q (read as %s) does not exist; the path is relative to the job file", path, full)}
 		}
 		return nil, err
 	}
-	cat, err := spec.JobCatalog(job, so.path, so.use.v, stockGiven)
+	cat, err := JobCatalog(job, stockPath, use, stockGiven)
 	if err != nil {
 		return nil, err
 	}
-	m, err := buildCircuit(c, cat, so, stockGiven)
+	m, err := BuildCircuit(c, cat, stockPath, use, stockGiven)
 	if err != nil {
 		return nil, err
 	}
-	r, err := analyzeCircuit(m, circuitSettings{Points: 401, Bands: fileBands(c)})
+	r, err := AnalyzeCircuit(m, CircuitSettings{Points: 401, Bands: FileBands(c)})
 	if err != nil {
 		return nil, err
 	}
-	page := r.sheetCircuit()
+	page := r.SheetCircuit()
 	page.Source = filepath.Base(c.File)
 	return page, nil
 }
 
-// fileBands are a circuit file's own bands.
-func fileBands(c *forms.Circuit) []circuit.Band {
+// FileBands are a circuit file's own bands.
+func FileBands(c *forms.Circuit) []circuit.Band {
 	var out []circuit.Band
 	for _, b := range c.Bands {
 		out = append(out, circuit.Band{Name: b.Name, Low: float64(b.Low), High: float64(b.High)})

@@ -1,11 +1,10 @@
-package main
+package spec
 
 import (
 	"errors"
 	"fmt"
 	"os"
 	"path/filepath"
-	"turnwise/internal/spec"
 
 	"turnwise/coil/circuit"
 	"turnwise/forms"
@@ -16,13 +15,13 @@ import (
 // inline winding) or as a job file's coil (job = ..., coil = ...). The
 // matching and temperature commands build on these too.
 
-// loadCircuitFile reads and checks a circuit file. A missing file is a
+// LoadCircuitFile reads and checks a circuit file. A missing file is a
 // usage error, a malformed one a *forms.ParseError (both exit 2).
-func loadCircuitFile(path string) (*forms.Circuit, error) {
+func LoadCircuitFile(path string) (*forms.Circuit, error) {
 	f, err := os.Open(path)
 	if err != nil {
 		if errors.Is(err, os.ErrNotExist) {
-			return nil, usageErrorf("circuit file %q does not exist; check the path (demos are in testdata/circuits/)", path)
+			return nil, Usagef("circuit file %q does not exist; check the path (demos are in testdata/circuits/)", path)
 		}
 		return nil, fmt.Errorf("read circuit file: %w", err)
 	}
@@ -30,12 +29,12 @@ func loadCircuitFile(path string) (*forms.Circuit, error) {
 	return forms.LoadCircuit(f, path)
 }
 
-// circuitModel is a circuit file made ready to solve.
-type circuitModel struct {
+// CircuitModel is a circuit file made ready to solve.
+type CircuitModel struct {
 	File *forms.Circuit
 	Net  *circuit.Network
 	// Coils holds each wound coil's resolved winding, by part index.
-	Coils map[int]spec.Spec
+	Coils map[int]Spec
 	// Mounting is each wound coil's mounting ("grounded" or "floating"),
 	// by part index.
 	Mounting map[int]string
@@ -46,7 +45,7 @@ type circuitModel struct {
 }
 
 // PartIndex returns the index of the named part, or -1.
-func (m *circuitModel) PartIndex(name string) int {
+func (m *CircuitModel) PartIndex(name string) int {
 	for i, p := range m.Net.Parts {
 		if p.Name == name {
 			return i
@@ -55,13 +54,14 @@ func (m *circuitModel) PartIndex(name string) int {
 	return -1
 }
 
-// buildCircuit turns a circuit file into a network. cat is the stock for
-// inline windings; so and flagsGiven choose the stock for coils taken from
-// a job file, as sheet does. Errors are *forms.ParseError at the line and
-// key at fault.
-func buildCircuit(c *forms.Circuit, cat *forms.Catalog, so *stockOptions, flagsGiven bool) (*circuitModel, error) {
-	m := &circuitModel{File: c, Net: &circuit.Network{Nodes: []string{forms.GroundNode}},
-		Coils: map[int]spec.Spec{}, Mounting: map[int]string{}}
+// BuildCircuit turns a circuit file into a network. cat is the stock for
+// inline windings; stockPath, use and flagsGiven (the --stock and --use
+// flags, and whether either was given) choose the stock for coils taken
+// from a job file, as sheet does (JobCatalog). Errors are
+// *forms.ParseError at the line and key at fault.
+func BuildCircuit(c *forms.Circuit, cat *forms.Catalog, stockPath, use string, flagsGiven bool) (*CircuitModel, error) {
+	m := &CircuitModel{File: c, Net: &circuit.Network{Nodes: []string{forms.GroundNode}},
+		Coils: map[int]Spec{}, Mounting: map[int]string{}}
 	nodes := map[string]int{forms.GroundNode: circuit.Ground}
 	node := func(name string) int {
 		if i, ok := nodes[name]; ok {
@@ -77,15 +77,15 @@ func buildCircuit(c *forms.Circuit, cat *forms.Catalog, so *stockOptions, flagsG
 	jobs := map[string]*forms.Job{}
 	for i := range c.Coils {
 		k := &c.Coils[i]
-		var sp spec.Spec
+		var sp Spec
 		var err error
 		if k.Winding != nil {
-			sp, err = spec.ResolveJobCoil(&forms.Job{File: c.File}, k.Winding, cat)
+			sp, err = ResolveJobCoil(&forms.Job{File: c.File}, k.Winding, cat)
 			if err != nil {
 				return nil, asCircuitError(err, c.File)
 			}
 		} else {
-			sp, err = circuitJobCoil(c, k, jobs, so, flagsGiven)
+			sp, err = circuitJobCoil(c, k, jobs, stockPath, use, flagsGiven)
 			if err != nil {
 				return nil, err
 			}
@@ -134,14 +134,14 @@ func buildCircuit(c *forms.Circuit, cat *forms.Catalog, so *stockOptions, flagsG
 		m.Net.Ports = append(m.Net.Ports, circuit.Port{Node: node(pt.Node), Z0: pt.Z0})
 	}
 	if err := m.Net.Validate(); err != nil {
-		return nil, m.fileError(err)
+		return nil, m.FileError(err)
 	}
 	return m, nil
 }
 
 // circuitJobCoil resolves a coil taken from a job file, the job read
 // relative to the circuit file and with its own stock.
-func circuitJobCoil(c *forms.Circuit, k *forms.CircuitCoil, jobs map[string]*forms.Job, so *stockOptions, flagsGiven bool) (spec.Spec, error) {
+func circuitJobCoil(c *forms.Circuit, k *forms.CircuitCoil, jobs map[string]*forms.Job, stockPath, use string, flagsGiven bool) (Spec, error) {
 	path := k.Job
 	if !filepath.IsAbs(path) {
 		path = filepath.Join(filepath.Dir(c.File), path)
@@ -152,28 +152,28 @@ func circuitJobCoil(c *forms.Circuit, k *forms.CircuitCoil, jobs map[string]*for
 	job, ok := jobs[path]
 	if !ok {
 		var err error
-		job, err = spec.LoadJob(path)
+		job, err = LoadJob(path)
 		if err != nil {
-			var ue *usageError
+			var ue *UsageError
 			if errors.As(err, &ue) {
-				return spec.Spec{}, fail("job", fmt.Errorf("%q (read as %s) does not exist; the path is relative to the circuit file", k.Job, path))
+				return Spec{}, fail("job", fmt.Errorf("%q (read as %s) does not exist; the path is relative to the circuit file", k.Job, path))
 			}
-			return spec.Spec{}, err // the job file's own error, at its line
+			return Spec{}, err // the job file's own error, at its line
 		}
 		jobs[path] = job
 	}
 	jc, err := job.Coil(k.JobCoil)
 	if err != nil {
-		return spec.Spec{}, fail("coil", err)
+		return Spec{}, fail("coil", err)
 	}
 	if jc.Target != nil {
-		return spec.Spec{}, fail("coil", fmt.Errorf("%s of %s is a design target, not a fixed winding; design it and put its turns in the job file first", jc.Label(), k.Job))
+		return Spec{}, fail("coil", fmt.Errorf("%s of %s is a design target, not a fixed winding; design it and put its turns in the job file first", jc.Label(), k.Job))
 	}
-	cat, err := spec.JobCatalog(job, so.path, so.use.v, flagsGiven)
+	cat, err := JobCatalog(job, stockPath, use, flagsGiven)
 	if err != nil {
-		return spec.Spec{}, err
+		return Spec{}, err
 	}
-	return spec.ResolveJobCoil(job, jc, cat)
+	return ResolveJobCoil(job, jc, cat)
 }
 
 // asCircuitError relabels an error the job-coil resolver made for an inline
@@ -186,9 +186,9 @@ func asCircuitError(err error, file string) error {
 	return err
 }
 
-// fileError maps a network fault (*circuit.Error names a part, a node or
+// FileError maps a network fault (*circuit.Error names a part, a node or
 // "port") to the file's line and key.
-func (m *circuitModel) fileError(err error) error {
+func (m *CircuitModel) FileError(err error) error {
 	var ce *circuit.Error
 	if !errors.As(err, &ce) {
 		return err

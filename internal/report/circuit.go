@@ -1,4 +1,4 @@
-package main
+package report
 
 import (
 	"encoding/json"
@@ -8,6 +8,7 @@ import (
 	"text/tabwriter"
 
 	"turnwise/internal/quantity"
+	"turnwise/internal/spec"
 )
 
 // The table and JSON writers for `turnwise circuit`.
@@ -99,7 +100,9 @@ type circuitPassbandJSON struct {
 	High          float64 `json:"high"`
 }
 
-func writeCircuitJSON(w io.Writer, r *circuitResult) error {
+// WriteCircuitJSON writes the result as `turnwise circuit --json` prints
+// it (SI units).
+func WriteCircuitJSON(w io.Writer, r *spec.CircuitResult) error {
 	out := circuitJSON{Title: r.Title, File: r.File, Ports: r.Ports, Reference: r.PeakFreq, Wanted: r.Wanted,
 		Resonances: []circuitResonanceJSON{}, Sweep: []circuitSweepJSON{}, Bands: []circuitBandJSON{}, SelfRes: []circuitSelfResJSON{},
 		Rejection: []circuitRejectionJSON{}, Products: []circuitProductJSON{}, Warnings: []string{}}
@@ -111,7 +114,7 @@ func writeCircuitJSON(w io.Writer, r *circuitResult) error {
 	for _, resp := range r.Sweep {
 		p := circuitSweepJSON{Frequency: resp.Frequency, ZRe: real(resp.Zin), ZIm: imag(resp.Zin)}
 		if r.Ports == 2 {
-			s21, s11 := db(cmplx.Abs(resp.S[1][0])), db(cmplx.Abs(resp.S[0][0]))
+			s21, s11 := spec.DB(cmplx.Abs(resp.S[1][0])), spec.DB(cmplx.Abs(resp.S[0][0]))
 			p.S21DB, p.S11DB = &s21, &s11
 		}
 		out.Sweep = append(out.Sweep, p)
@@ -131,7 +134,7 @@ func writeCircuitJSON(w io.Writer, r *circuitResult) error {
 	for _, rj := range r.Rejection {
 		row := circuitRejectionJSON{Frequency: rj.Frequency, DB: rj.DB, ZRe: real(rj.Z), ZIm: imag(rj.Z)}
 		if r.Ports == 2 {
-			v := db(rj.S21)
+			v := spec.DB(rj.S21)
 			row.S21DB = &v
 		}
 		out.Rejection = append(out.Rejection, row)
@@ -149,10 +152,11 @@ func writeCircuitJSON(w io.Writer, r *circuitResult) error {
 	return enc.Encode(out)
 }
 
-func writeCircuitTable(w io.Writer, r *circuitResult) error {
+// WriteCircuitTable writes the result as tables.
+func WriteCircuitTable(w io.Writer, r *spec.CircuitResult) error {
 	fz := func(v float64) string { return quantity.FormatEng(v, "ohm", 4) }
 	hzs := quantity.FormatFrequency
-	fmt.Fprintf(w, "%s\n", titleOr(r))
+	fmt.Fprintf(w, "%s\n", r.TitleOrFile())
 	fmt.Fprintf(w, "%d port(s); sweep %s to %s, %d points (%s)\n\n", r.Ports, hzs(r.Freqs[0]), hzs(r.Freqs[len(r.Freqs)-1]), len(r.Freqs),
 		map[bool]string{true: "log", false: "linear"}[r.Log])
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
@@ -183,7 +187,7 @@ func writeCircuitTable(w io.Writer, r *circuitResult) error {
 			if f.Resonance >= 0 {
 				by, off = hzs(f.Frequency), fmt.Sprintf("%+.2f %%", f.Offset*100)
 			}
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", circuitBandName(f.Band), bandRange(f.Band), by, off)
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", spec.CircuitBandName(f.Band), spec.BandRange(f.Band), by, off)
 		}
 		tw.Flush()
 	}
@@ -197,7 +201,7 @@ func writeCircuitTable(w io.Writer, r *circuitResult) error {
 		for _, rj := range r.Rejection {
 			s21 := "-"
 			if r.Ports == 2 {
-				s21 = fmt.Sprintf("%.2f dB", db(rj.S21))
+				s21 = fmt.Sprintf("%.2f dB", spec.DB(rj.S21))
 			}
 			fmt.Fprintf(tw, "%s\t%s\t%s\t%.2f dB\n", hzs(rj.Frequency), fz(cmplx.Abs(rj.Z)), s21, rj.DB)
 		}
@@ -229,6 +233,7 @@ func writeCircuitTable(w io.Writer, r *circuitResult) error {
 	return nil
 }
 
+// orDash prints a passband edge, or says it lies beyond the sweep.
 func orDash(f float64) string {
 	if f > 0 {
 		return quantity.FormatFrequency(f)
