@@ -64,6 +64,52 @@ type engine struct {
 	values []float64 // scratch: capacitances
 	fast   *fastNet  // nil: search with the circuit solver itself
 	z      complex128
+	gridW  [][3]complex128 // per dial grid node: Z_in for the three reference loads
+}
+
+// The reference loads the grid's Möbius maps are fitted through.
+var mobiusZ = [3]complex128{10, 50, 250}
+
+// gridByMobius fills vals with |Γ| at every dial grid node for the
+// current load. For fixed capacitors the input impedance is a Möbius
+// (bilinear) function of the load impedance, Z_in = (A·z + B)/(C·z + D)
+// from the chain matrix, so it is fixed by its values at three loads:
+// with K the cross-ratio of (z, z1, z2, z3),
+//
+//	Z_in = (w1·(w2 − w3) − K·w3·(w2 − w1)) / ((w2 − w3) − K·(w2 − w1)).
+//
+// The three values per node are solved once per frequency; each load then
+// costs a few complex operations per node. The grid only chooses the
+// starts; every value the search keeps comes from the network itself.
+func (e *engine) gridByMobius(vals []float64, total, n int, pos func(int, []float64)) {
+	if e.gridW == nil {
+		e.gridW = make([][3]complex128, total)
+		u := make([]float64, len(e.adj))
+		for idx := range total {
+			pos(idx, u)
+			for k := range e.values {
+				e.values[k] = e.capacitance(k, u[k])
+			}
+			for m, zr := range mobiusZ {
+				w, ok := e.fast.zin(e.values, zr)
+				if !ok {
+					w = cmplx.Inf()
+				}
+				e.gridW[idx][m] = w
+			}
+		}
+	}
+	z1, z2, z3 := mobiusZ[0], mobiusZ[1], mobiusZ[2]
+	kk := (e.z - z1) * (z2 - z3) / ((e.z - z3) * (z2 - z1))
+	z0 := complex(e.fast.z0, 0)
+	for idx, w := range e.gridW {
+		zi := (w[0]*(w[1]-w[2]) - kk*w[2]*(w[1]-w[0])) / ((w[1] - w[2]) - kk*(w[1]-w[0]))
+		g := cmplx.Abs((zi - z0) / (zi + z0))
+		if math.IsNaN(g) || g > 1 {
+			g = 1
+		}
+		vals[idx] = g
+	}
 }
 
 func newEngine(p *prepared, f float64) (*engine, error) {
@@ -152,6 +198,15 @@ func (e *engine) solverGamma(u []float64) float64 {
 	return g
 }
 
+// nearMiss is the |Γ| below which a load the Newton route did not match
+// gets a derivative-free second look: three times the limit's SWR − 1
+// (SWR 2.5 for a 1.5 limit). A load further off sits in a local minimum
+// the Newton route has already found.
+func nearMiss(limit float64) float64 {
+	s := swr(limit)
+	return gammaFor(1 + 3*(s-1))
+}
+
 // fold maps the optimiser's unbounded coordinate to a dial position.
 func fold(x float64) float64 { return 0.5 - 0.5*math.Cos(math.Pi*x) }
 
@@ -182,9 +237,13 @@ func (e *engine) search(limit float64, first bool) []candidate {
 			idx /= n
 		}
 	}
-	for idx := range total {
-		pos(idx, u)
-		vals[idx] = e.gamma(u)
+	if e.fast != nil {
+		e.gridByMobius(vals, total, n, pos)
+	} else {
+		for idx := range total {
+			pos(idx, u)
+			vals[idx] = e.gamma(u)
+		}
 	}
 	// Local minima of the grid, diagonals included.
 	var starts []int
@@ -200,8 +259,13 @@ func (e *engine) search(limit float64, first bool) []candidate {
 	var out []candidate
 	for _, idx := range starts {
 		pos(idx, u)
-		c := e.local(u, 0.6/float64(n-1))
-		if vals[idx] < c.gamma { // the optimiser never does worse than its start
+		var c candidate
+		if e.fast != nil {
+			c = e.levenberg(u)
+		} else {
+			c = e.local(u, 0.6/float64(n-1))
+		}
+		if vals[idx] < c.gamma { // never worse than the start
 			c = candidate{u: append([]float64(nil), u...), gamma: vals[idx]}
 		}
 		out = append(out, c)
@@ -210,6 +274,14 @@ func (e *engine) search(limit float64, first bool) []candidate {
 		}
 	}
 	sort.Slice(out, func(a, b int) bool { return out[a].gamma < out[b].gamma })
+	if e.fast != nil && len(out) > 0 && out[0].gamma > limit && out[0].gamma < nearMiss(limit) {
+		// Not within the limit by Newton's route from any start: one
+		// Nelder–Mead from the best end point, which needs no derivative
+		// and settles on a minimum at the box's edge.
+		if nm := e.local(out[0].u, 0.6/float64(n-1)); nm.gamma < out[0].gamma {
+			out = append([]candidate{nm}, out...)
+		}
+	}
 	return out
 }
 
