@@ -14,9 +14,9 @@ import (
 // frequency: its section inductors (top and bottom for a tapped coil; the
 // winding, and the leads when it has them, for one without), by index.
 type coilParts struct {
-	orig          int // index in the user's network
-	top, bottom   int // tapped: sections; untapped: winding in top, −1
-	leads         int // untapped with leads: the leads' inductor, else −1
+	orig           int // index in the user's network
+	top, bottom    int // tapped: sections; untapped: winding in top, −1
+	leads          int // untapped with leads: the leads' inductor, else −1
 	hot, tap, cold int
 }
 
