@@ -67,6 +67,9 @@ func TestMatchedPointsRecheck(t *testing.T) {
 				continue
 			}
 			got := solverSWR(t, s, fm.Frequency, pt)
+			if n == 0 {
+				t.Logf("first: claimed %.15g solver %.15g", pt.SWR, got)
+			}
 			n++
 			worst = math.Max(worst, math.Abs(got-pt.SWR))
 			if got > DefaultSWR+1e-9 || math.Abs(got-pt.SWR) > 1e-6 {
