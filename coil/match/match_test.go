@@ -332,3 +332,40 @@ func TestBadInputs(t *testing.T) {
 		})
 	}
 }
+
+// ChooseTap's best tap has at least the coverage of every tap Map gives
+// for the same grid, and its coverage equals Map's at that tap.
+func TestChooseTap(t *testing.T) {
+	if testing.Short() {
+		t.Skip("maps every quarter turn")
+	}
+	grid := Grid{RMin: 5, RMax: 2000, NR: 4, XMin: -1000, XMax: 1000, NX: 4}
+	freqs := []float64{3.6e6, 14.2e6}
+	best, err := ChooseTap(context.Background(), tappedCoupler(8), Options{Frequencies: freqs, Grid: grid}, "L1", 3)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(best) != 3 || best[0].Coverage < best[1].Coverage || best[1].Coverage < best[2].Coverage {
+		t.Fatalf("ranking %+v", best)
+	}
+	for _, tap := range []float64{2, 8, best[0].TapTurns} {
+		r, err := Map(context.Background(), tappedCoupler(tap), Options{Frequencies: freqs, Grid: grid})
+		if err != nil {
+			t.Fatal(err)
+		}
+		cov := 0.0
+		for _, fm := range r.Frequencies {
+			cov += fm.Coverage / float64(len(freqs))
+		}
+		if cov > best[0].Coverage+1e-12 {
+			t.Errorf("tap %g covers %g, above the chosen tap %g's %g", tap, cov, best[0].TapTurns, best[0].Coverage)
+		}
+		if tap == best[0].TapTurns && math.Abs(cov-best[0].Coverage) > 1e-12 {
+			t.Errorf("chosen tap: ChooseTap %g, Map %g", best[0].Coverage, cov)
+		}
+	}
+	t.Logf("best taps %+v", best)
+	if _, err := ChooseTap(context.Background(), tappedCoupler(8), Options{Frequencies: freqs}, "C1", 3); err == nil {
+		t.Error("a capacitor accepted as the tapped coil")
+	}
+}
