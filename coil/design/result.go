@@ -298,7 +298,7 @@ func (x *search) warnings(cs []Candidate) []string {
 		w = append(w, "no operating frequency: Q and the self-resonance were not ranked; give one to rank by them")
 	}
 	for _, c := range cs {
-		if c.SpringbackSource == "none" {
+		if c.SpringbackSource == coil.SpringbackNone {
 			w = append(w, "springback 0 % assumed for mandrel coils without a saved calibration: measure the bore after release, or run `turnwise trim --save` once, and the next design on that mandrel accounts for it")
 			break
 		}

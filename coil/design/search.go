@@ -223,7 +223,7 @@ func (x *search) prepareWires() {
 
 // support returns the pair's support with its springback applied, and
 // where that came from.
-func (x *search) support(p *pair) (Support, string) {
+func (x *search) support(p *pair) (Support, coil.SpringbackSource) {
 	var sup Support
 	if p.free != nil {
 		sup = *p.free
@@ -234,13 +234,13 @@ func (x *search) support(p *pair) (Support, string) {
 	case p.cal >= 0:
 		cal := x.s.c.Calibrations[p.cal]
 		sup.Springback, sup.SpringbackNote = cal.Springback, cal.Note
-		return sup, "calibration"
+		return sup, coil.SpringbackCalibration
 	case sup.Springback != 0:
-		return sup, "support"
+		return sup, coil.SpringbackGiven
 	case sup.OnFormer:
-		return sup, "former"
+		return sup, coil.SpringbackOnFormer
 	}
-	return sup, "none"
+	return sup, coil.SpringbackNone
 }
 
 func (x *search) wire(p *pair) WireOption { return x.s.c.Wires[p.wi] }
