@@ -350,10 +350,19 @@ func (e *engine) coilLoss(st circuit.State, orig int) float64 {
 	w := 0.0
 	for _, li := range []int{c.top, c.bottom, c.leads} {
 		if li >= 0 {
-			w += st.PartLoss(li)
+			w += e.sectionLoss(st, li)
 		}
 	}
 	return w
+}
+
+// sectionLoss is the power dissipated in a coil section's resistance,
+// ½·R·|I|² for a peak phasor. ½·Re(V·I*) across a section would also carry
+// the power the mutual inductance moves between the sections (it cancels
+// only in their sum) and can come out negative.
+func (e *engine) sectionLoss(st circuit.State, li int) float64 {
+	i := cmplxAbs(st.PartCurrent(li))
+	return 0.5 * e.ln.net.Parts[li].ESR * i * i
 }
 
 // stress is every capacitor's, inductor's and coil section's voltage and
@@ -380,8 +389,8 @@ func (e *engine) stress(st circuit.State, k float64) []PartStress {
 					big = ib
 				}
 				out = append(out, entry(pp.Name, whole, big, e.coilLoss(st, i)),
-					entry(pp.Name+" top", st.PartVoltage(c.top), it, st.PartLoss(c.top)),
-					entry(pp.Name+" bottom", st.PartVoltage(c.bottom), ib, st.PartLoss(c.bottom)))
+					entry(pp.Name+" top", st.PartVoltage(c.top), it, e.sectionLoss(st, c.top)),
+					entry(pp.Name+" bottom", st.PartVoltage(c.bottom), ib, e.sectionLoss(st, c.bottom)))
 				continue
 			}
 			cur := st.PartCurrent(c.top)
