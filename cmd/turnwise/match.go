@@ -10,6 +10,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"sort"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -181,6 +182,17 @@ func (o *matchOptions) request() (match.Options, []string, error) {
 	if len(mo.Frequencies) == 0 {
 		return mo, nil, usageErrorf("give at least one --freq (e.g. --freq 7.1MHz), --band or --bands")
 	}
+	// Lowest frequency first, each label with its frequency.
+	order := make([]int, len(mo.Frequencies))
+	for i := range order {
+		order[i] = i
+	}
+	sort.SliceStable(order, func(a, b int) bool { return mo.Frequencies[order[a]] < mo.Frequencies[order[b]] })
+	fs, ls := make([]float64, len(order)), make([]string, len(order))
+	for k, i := range order {
+		fs[k], ls[k] = mo.Frequencies[i], labels[i]
+	}
+	mo.Frequencies, labels = fs, ls
 	rLo, rHi, err := spec.ParseOhmRange(o.loadR)
 	if err != nil {
 		return mo, nil, &flagError{Flag: "load-r", Err: err}

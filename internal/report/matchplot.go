@@ -18,7 +18,7 @@ import (
 
 // WriteMatchPlot draws the matched region of the load plane, one panel
 // per frequency (R on a logarithmic axis, X linear): a filled dot where a
-// load is matched, a small cross where it is not. format is "svg" or
+// load is matched, a small grey cross where it is not. format is "svg" or
 // "png".
 func WriteMatchPlot(w io.Writer, format string, req MatchRequest, res *match.Result) error {
 	n := len(res.Frequencies)
@@ -46,7 +46,7 @@ func WriteMatchPlot(w io.Writer, format string, req MatchRequest, res *match.Res
 	missColor := color.RGBA{R: 0xa0, G: 0xa0, B: 0xa0, A: 0xff}
 	for i, fm := range res.Frequencies {
 		p := plot.New()
-		p.Title.Text = fmt.Sprintf("%s: %.0f %% matched", MatchFrequencyName(fm.Frequency, req.label(i)), 100*fm.Coverage)
+		p.Title.Text = fmt.Sprintf("%s: %.0f %% at SWR ≤ %.3g", MatchFrequencyName(fm.Frequency, req.label(i)), 100*fm.Coverage, res.SWR)
 		p.X.Label.Text = "load R (Ω)"
 		p.Y.Label.Text = "load X (Ω)"
 		p.X.Scale = plot.LogScale{}
@@ -74,10 +74,6 @@ func WriteMatchPlot(w io.Writer, format string, req MatchRequest, res *match.Res
 			}
 			s.GlyphStyle = draw.GlyphStyle{Color: matchedColor, Radius: vg.Points(3.2), Shape: draw.CircleGlyph{}}
 			p.Add(s)
-			if i == 0 {
-				p.Legend.Add(fmt.Sprintf("SWR ≤ %.3g", res.SWR), s)
-				p.Legend.Top = true
-			}
 		}
 		// The axes span the whole grid, matched or not, with a margin.
 		g := res.Grid
