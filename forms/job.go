@@ -26,6 +26,8 @@ type Job struct {
 	Date  time.Time // date to print; zero means the day the sheets are made
 	Notes string
 	Coils []JobCoil
+	// Coupler is the [coupler] table (job_coupler.go); nil when absent.
+	Coupler *JobCoupler
 
 	lines map[string]int // top-level key -> line
 }
@@ -145,7 +147,7 @@ type CapRange struct{ Min, Max unit.Capacitance }
 
 // Keys a job file takes, in the order a reader meets them.
 var (
-	jobTopKeys  = []string{"title", "paper", "units", "stock", "use", "date", "notes", "coil"}
+	jobTopKeys  = []string{"title", "paper", "units", "stock", "use", "date", "notes", "coupler", "coil"}
 	jobCoilKeys = []string{
 		"name", "quantity", "notes",
 		"mandrel", "former", "wire", "insulation", "conductor", "springback",
@@ -181,6 +183,7 @@ const (
 //	use   = "both"                      # builtin, mine or both
 //	date  = 2026-03-14                  # printed on the cover; default today
 //	notes = "..."
+//	[coupler] circuit = "..." bands = [...] power = "100W"   # a match map page (job_coupler.go)
 //
 //	[[coil]]                            # a fixed winding: predict's flags
 //	name = "L1"                         # required, unique
@@ -292,6 +295,7 @@ func (l *jobLoader) load(doc map[string]any) *Job {
 		job.Notes = s
 	}
 
+	job.Coupler = l.coupler(doc)
 	v, present := doc["coil"]
 	if !present {
 		top.fail("", "", errors.New("no coils: add a [[coil]] section with at least a name"))

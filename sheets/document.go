@@ -22,6 +22,8 @@ type Document struct {
 	Allowance float64
 
 	Coils []Coil
+	// Couplers get a match map page each, after the coils (couplerpage.go).
+	Couplers []Coupler
 }
 
 // DefaultAllowance is added to the batch's wire total: one coil in ten

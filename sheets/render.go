@@ -60,6 +60,9 @@ func (s *sheet) draw() {
 			s.spanPage(c)
 		}
 	}
+	for i := range s.doc.Couplers {
+		s.couplerPage(&s.doc.Couplers[i])
+	}
 	s.pages = starts
 }
 

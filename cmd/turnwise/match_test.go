@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"fmt"
 	"math"
 	"math/cmplx"
 	"os"
@@ -252,5 +253,52 @@ func TestMatchChooseTap(t *testing.T) {
 	}
 	if !strings.Contains(out, "Tap of L1 by matched share") || strings.Count(out, " turns  ") < 3 {
 		t.Errorf("no tap ranking:\n%s", out)
+	}
+}
+
+// The demo job's coupler page shows, per band, the coverage `turnwise
+// match --json` gives for the same circuit, bands and power, with the
+// stress table and the cautions.
+func TestSheetCouplerPage(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	file := filepath.Join(t.TempDir(), "demo.pdf")
+	if _, stderr, code := runCLI(t, "sheet", demoJob, "-o", file); code != exitOK {
+		t.Fatalf("sheet: %s", stderr)
+	}
+	text := pageText(t, file, 8)
+	args := []string{"match", couplerFile, "--power", "100W", "--json"}
+	job, _ := loadDemo(t)
+	if job.Coupler == nil || len(job.Coupler.Bands) == 0 {
+		t.Fatal("the demo job has no [coupler] with bands")
+	}
+	for _, b := range job.Coupler.Bands {
+		args = append(args, "--band", fmt.Sprintf("%s=%gMHz-%gMHz", b.Name, float64(b.Low)/1e6, float64(b.High)/1e6))
+	}
+	out, errOut, code := runCLI(t, args...)
+	if code != exitOK {
+		t.Fatalf("match: %s", errOut)
+	}
+	var doc matchJSON
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	for _, fr := range doc.Frequencies {
+		matched := 0
+		for _, p := range fr.Points {
+			if p.Matched {
+				matched++
+			}
+		}
+		want := fmt.Sprintf("(%s): ", fr.Band)
+		want2 := fmt.Sprintf("matched (%d of %d)", matched, len(fr.Points))
+		i := strings.Index(text, want)
+		if i < 0 || !strings.Contains(text[i:min(len(text), i+80)], want2) {
+			t.Errorf("coupler page lacks %q … %q", want, want2)
+		}
+	}
+	for _, w := range []string{"match map", "WORST STRESS PER PART", "CAUTION", "RF burns", "local regulations", "Heating rule"} {
+		if !strings.Contains(text, w) {
+			t.Errorf("coupler page lacks %q", w)
+		}
 	}
 }

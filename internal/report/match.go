@@ -206,7 +206,7 @@ func MatchSummary(req MatchRequest, res *match.Result) []string {
 // MatchWorstRows is the stress table: one row per part, worst over the
 // map at the stated power, with its limit and whether it is exceeded.
 func MatchWorstRows(ws []match.Worst) [][]string {
-	rows := [][]string{{"part", "V peak", "V rms at that load", "I rms", "dissipation", "limit", ""}}
+	rows := [][]string{{"part", "V peak", "V rms", "I rms", "dissipation", "limit", ""}}
 	for _, w := range ws {
 		limit, flag := "", "ok"
 		if w.Rating > 0 {
