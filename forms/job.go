@@ -29,6 +29,8 @@ type Job struct {
 	// Circuits are circuit files as written (relative to the job file):
 	// each gets a page on the build sheet.
 	Circuits []string
+	// Coupler is the [coupler] table (job_coupler.go); nil when absent.
+	Coupler *JobCoupler
 
 	lines map[string]int // top-level key -> line
 }
@@ -148,7 +150,7 @@ type CapRange struct{ Min, Max unit.Capacitance }
 
 // Keys a job file takes, in the order a reader meets them.
 var (
-	jobTopKeys  = []string{"title", "paper", "units", "stock", "use", "date", "notes", "circuit", "coil"}
+	jobTopKeys  = []string{"title", "paper", "units", "stock", "use", "date", "notes", "circuit", "coupler", "coil"}
 	jobCoilKeys = []string{
 		"name", "quantity", "notes",
 		"mandrel", "former", "wire", "insulation", "conductor", "springback",
@@ -185,6 +187,7 @@ const (
 //	date  = 2026-03-14                  # printed on the cover; default today
 //	notes = "..."
 //	circuit = "circuits/filter.toml"    # or a list: a circuit page each
+//	[coupler] circuit = "..." bands = [...] power = "100W"   # a match map page (job_coupler.go)
 //
 //	[[coil]]                            # a fixed winding: predict's flags
 //	name = "L1"                         # required, unique
@@ -312,6 +315,7 @@ func (l *jobLoader) load(doc map[string]any) *Job {
 	default:
 		top.fail("circuit", "circuit", errors.New(`write circuit = "filter.toml" (a circuit file, relative to the job file) or a list of them`))
 	}
+	job.Coupler = l.coupler(doc)
 	v, present := doc["coil"]
 	if !present {
 		top.fail("", "", errors.New("no coils: add a [[coil]] section with at least a name"))

@@ -26,6 +26,9 @@ type Document struct {
 	// Circuits are the networks the coils go into: a page each, after
 	// the coils (sheets/circuitpage.go).
 	Circuits []Circuit
+
+	// Couplers get a match map page each, after the coils (couplerpage.go).
+	Couplers []Coupler
 }
 
 // DefaultAllowance is added to the batch's wire total: one coil in ten

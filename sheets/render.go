@@ -63,6 +63,9 @@ func (s *sheet) draw() {
 	for i := range s.doc.Circuits {
 		s.circuitPage(&s.doc.Circuits[i], i)
 	}
+	for i := range s.doc.Couplers {
+		s.couplerPage(&s.doc.Couplers[i])
+	}
 	s.pages = starts
 }
 

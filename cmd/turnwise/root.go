@@ -49,6 +49,7 @@ Every command prints a table, or JSON with --json (SI units: H, F, Hz, m, Ω).
 		newDesignCmd(g),
 		newCircuitCmd(g),
 		newFitCmd(g),
+		newMatchCmd(g),
 	)
 	return root
 }

@@ -165,6 +165,10 @@ func runSheet(_ context.Context, opts *sheetOptions, stdout, stderr io.Writer) e
 	if name == "-" {
 		name = "standard output"
 	}
+	if n := len(doc.Couplers); n > 0 {
+		what += fmt.Sprintf(", %d coupler %s", n, sheetPlural(n, "page", "pages"))
+		pages += n
+	}
 	fmt.Fprintf(report, "wrote %s: %d pages (%s), %s\n", name, pages+charts, what, doc.Paper)
 	fmt.Fprintln(report, "Print at 100 % (actual size) and measure the 50 mm bar on each page before using the drawings.")
 	return nil
@@ -237,6 +241,14 @@ func sheetDocument(opts *sheetOptions) (sheets.Document, []string, error) {
 				return doc, nil, err
 			}
 			doc.Circuits = append(doc.Circuits, *c)
+		}
+		if job.Coupler != nil {
+			cp, w, err := couplerSheetPage(job, opts.stock, opts.stockGiven)
+			if err != nil {
+				return doc, nil, err
+			}
+			doc.Couplers = append(doc.Couplers, cp)
+			warnings = append(warnings, w...)
 		}
 	}
 	doc.Paper, doc.Units = cmp.Or(doc.Paper, "A4"), cmp.Or(doc.Units, "mm")

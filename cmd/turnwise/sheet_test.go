@@ -57,8 +57,8 @@ func TestSheetDemo(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	// Cover, five coil pages, one tuning chart.
-	if !regexp.MustCompile(`Pages:\s+7\n`).Match(info) || !strings.Contains(string(info), "A4") {
+	// Cover, five coil pages, one tuning chart, one coupler page.
+	if !regexp.MustCompile(`Pages:\s+8\n`).Match(info) || !strings.Contains(string(info), "A4") {
 		t.Errorf("pdfinfo:\n%s", info)
 	}
 }
