@@ -28,7 +28,7 @@ func ModelAt(g Geometry, f unit.Frequency) (SeriesModel, error) {
 		return SeriesModel{}, inputErrorf("frequency", "must be between 0 and 10 GHz, e.g. 145MHz")
 	}
 	var p Prediction
-	evaluate(&p, &g, float64(f))
+	evaluate(&p, &g, float64(f), Grounded)
 	return seriesModel(&p), nil
 }
 

@@ -35,6 +35,7 @@ func (f *turnsFlag) Set(s string) error {
 // coilOptions are the flags that describe one wound coil; predict, sheet,
 // tap, span and trim share them.
 type coilOptions struct {
+	mounting   string
 	mandrel    string
 	former     string
 	wire       string
@@ -49,6 +50,7 @@ type coilOptions struct {
 }
 
 func (o *coilOptions) addFlags(fs *pflag.FlagSet) {
+	fs.StringVar(&o.mounting, "mounting", "grounded", "how the coil is mounted, which sets the self-resonance used for effective L and Q: grounded (one end on ground) or floating (both ends live)")
 	fs.StringVar(&o.mandrel, "mandrel", "", "wind on this mandrel and slide it out (self-supporting): a stock name or a diameter, e.g. 6mm or 1/4in")
 	fs.StringVar(&o.former, "former", "", "wind on this former and leave the coil on it: a stock name or an outside diameter, e.g. 20mm")
 	fs.StringVar(&o.wire, "wire", "", "a gauge (22awg, 18swg), a diameter (1mm: bare copper unless --insulation says otherwise) or a stock wire name")

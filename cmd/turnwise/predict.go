@@ -66,7 +66,11 @@ func predictCoil(co *coilOptions, so *stockOptions, f frequencyFlag) (coilSpec, 
 	if err != nil {
 		return spec, coil.Prediction{}, err
 	}
-	p, err := coil.Predict(spec.Geometry, f.v)
+	m, err := coil.ParseMounting(co.mounting)
+	if err != nil {
+		return spec, coil.Prediction{}, fmt.Errorf("--mounting: %w", err)
+	}
+	p, err := coil.PredictMounted(spec.Geometry, f.v, m)
 	if err != nil {
 		return spec, p, co.attachFlag(err, spec.SupportKind, spec.PitchSource)
 	}
@@ -181,8 +185,14 @@ func writePredictTable(w io.Writer, s coilSpec, p coil.Prediction, rec coilRecor
 
 	fmt.Fprintln(tw, "\nSELF-RESONANCE (one end grounded)")
 	row("self-capacitance", quantity.FormatCapacitance(float64(p.SelfCapacitance))+" (Medhurst)")
-	row("SRF", fmt.Sprintf("%s  (Medhurst; a full-wave check puts it at %s … %s)", quantity.FormatEng(float64(p.SRF), "Hz", 3), quantity.FormatEng(float64(p.SRFMin), "Hz", 3), quantity.FormatEng(float64(p.SRFMax), "Hz", 3)))
-	row("floating at both ends", fmt.Sprintf("%s … %s", quantity.FormatEng(float64(p.SRFFloatingMin), "Hz", 3), quantity.FormatEng(float64(p.SRFFloatingMax), "Hz", 3)))
+	used := func(m coil.Mounting) string {
+		if p.SRFMounting == m {
+			return "; used for effective L and Q"
+		}
+		return ""
+	}
+	row("SRF, one end grounded", fmt.Sprintf("%s ± %.0f %%  (helical-line model; ± is its worst difference from NEC-2 on the reference coils%s)", quantity.FormatEng(float64(p.SRF), "Hz", 3), p.SRFUncertainty*100, used(coil.Grounded)))
+	row("SRF, both ends floating", fmt.Sprintf("%s ± %.0f %%%s", quantity.FormatEng(float64(p.SRFFloating), "Hz", 3), p.SRFUncertainty*100, strings.TrimPrefix(used(coil.Floating), ";")))
 
 	if f > 0 {
 		fmt.Fprintf(tw, "\nLOSS AT %s\n", quantity.FormatEng(f, "Hz", 4))
