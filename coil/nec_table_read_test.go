@@ -57,3 +57,18 @@ func readNECTable(t testing.TB, path string) []necRow {
 	}
 	return rows
 }
+
+// ref is the reference resonance of a row: the finer segmentation where
+// it was run, else the base one.
+func (r necRow) ref(grounded bool) float64 {
+	if grounded {
+		if r.Grounded2 > 0 {
+			return r.Grounded2
+		}
+		return r.Grounded
+	}
+	if r.Free2 > 0 {
+		return r.Free2
+	}
+	return r.Free
+}

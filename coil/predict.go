@@ -82,6 +82,8 @@ type Prediction struct {
 	SRFFloating    unit.Frequency
 	SRFUncertainty float64
 	SRFMounting    Mounting
+	// SRFFloatingUncertainty is SRFUncertainty for SRFFloating.
+	SRFFloatingUncertainty float64
 
 	// Loss at f.
 	RDC             unit.Resistance // winding + leads at the conductor temperature
@@ -100,6 +102,14 @@ type Prediction struct {
 // f is within 10 % of, or above, the self-resonance.
 func Predict(g Geometry, f unit.Frequency) (Prediction, error) {
 	return PredictMounted(g, f, Grounded)
+}
+
+// SRFUsedUncertainty is the relative uncertainty of SRFUsed.
+func (p *Prediction) SRFUsedUncertainty() float64 {
+	if p.SRFMounting == Floating {
+		return p.SRFFloatingUncertainty
+	}
+	return p.SRFUncertainty
 }
 
 // SRFUsed is the self-resonance of the prediction's mounting.
@@ -183,13 +193,14 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	cs, srfG, inTable := c.SelfResonance(r, rho)
 	srfF := c.FloatingResonance()
 	p.SelfCapacitance = unit.Capacitance(cs)
-	u := SRFUncertainty
+	u, uf := SRFUncertainty, SRFFloatingUncertainty
 	if !inTable {
-		u = SRFUncertaintyOutside
+		u, uf = SRFUncertaintyOutside, SRFUncertaintyOutside
 	}
+	p.SRFFloatingUncertainty = uf
 	p.SRF, p.SRFFloating, p.SRFUncertainty, p.SRFMounting = unit.Frequency(srfG), unit.Frequency(srfF), u, m
 	p.SRFMin, p.SRFMax = unit.Frequency(srfG*(1-u)), unit.Frequency(srfG*(1+u))
-	p.SRFFloatingMin, p.SRFFloatingMax = unit.Frequency(srfF*(1-u)), unit.Frequency(srfF*(1+u))
+	p.SRFFloatingMin, p.SRFFloatingMax = unit.Frequency(srfF*(1-uf)), unit.Frequency(srfF*(1+uf))
 	srf := srfG
 	if m == Floating {
 		srf = srfF

@@ -22,10 +22,7 @@ func TestSRFFit(t *testing.T) {
 		for _, g := range []bool{true, false} {
 			for _, r := range rows {
 				c := r.C
-				ref := r.Free
-				if g {
-					ref = r.Grounded
-				}
+				ref := r.ref(g)
 				e := math.Log(HelixSRF(c.N, c.P, c.Wd, c.D, RosaMutual(c.N), g) / ref)
 				s += e * e
 			}
@@ -48,10 +45,7 @@ func TestSRFFit(t *testing.T) {
 	for _, g := range []bool{true, false} {
 		for _, r := range rows {
 			c := r.C
-			ref := r.Free
-			if g {
-				ref = r.Grounded
-			}
+			ref := r.ref(g)
 			t.Logf("%-22s %+.2f%%", c.Name, 100*(HelixSRF(c.N, c.P, c.Wd, c.D, RosaMutual(c.N), g)/ref-1))
 		}
 	}

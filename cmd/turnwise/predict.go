@@ -192,7 +192,7 @@ func writePredictTable(w io.Writer, s coilSpec, p coil.Prediction, rec coilRecor
 		return ""
 	}
 	row("SRF, one end grounded", fmt.Sprintf("%s ± %.0f %%  (helical-line model; ± is its worst difference from NEC-2 on the reference coils%s)", quantity.FormatEng(float64(p.SRF), "Hz", 3), p.SRFUncertainty*100, used(coil.Grounded)))
-	row("SRF, both ends floating", fmt.Sprintf("%s ± %.0f %%%s", quantity.FormatEng(float64(p.SRFFloating), "Hz", 3), p.SRFUncertainty*100, strings.TrimPrefix(used(coil.Floating), ";")))
+	row("SRF, both ends floating", fmt.Sprintf("%s ± %.0f %%%s", quantity.FormatEng(float64(p.SRFFloating), "Hz", 3), p.SRFFloatingUncertainty*100, strings.TrimPrefix(used(coil.Floating), ";")))
 
 	if f > 0 {
 		fmt.Fprintf(tw, "\nLOSS AT %s\n", quantity.FormatEng(f, "Hz", 4))

@@ -57,6 +57,7 @@ type coilRecord struct {
 	SRFMounting          string   `json:"srf_mounting"`
 	SRFFloating          float64  `json:"srf_floating"`
 	SRFUncertainty       float64  `json:"srf_uncertainty"`
+	SRFFloatingUncert    float64  `json:"srf_floating_uncertainty"`
 	SRFFloatingMin       float64  `json:"srf_floating_min"`
 	SRFFloatingMax       float64  `json:"srf_floating_max"`
 	InductanceEffective  float64  `json:"inductance_effective"`
@@ -127,6 +128,7 @@ func newCoilRecord(s coilSpec, p coil.Prediction) coilRecord {
 		SRFMounting:         p.SRFMounting.String(),
 		SRFFloating:         float64(p.SRFFloating),
 		SRFUncertainty:      p.SRFUncertainty,
+		SRFFloatingUncert:   p.SRFFloatingUncertainty,
 		SRFFloatingMin:      float64(p.SRFFloatingMin),
 		SRFFloatingMax:      float64(p.SRFFloatingMax),
 		InductanceEffective: float64(p.InductanceEffective),
