@@ -103,3 +103,11 @@ func SRFValid(lOverD, pOverD float64) bool {
 }
 
 func clamp(x, lo, hi float64) float64 { return math.Min(math.Max(x, lo), hi) }
+
+// Description says what mounting m is, for messages and sheets.
+func (m Mounting) Description() string {
+	if m == Floating {
+		return "both ends floating"
+	}
+	return "one end grounded"
+}
