@@ -11,7 +11,9 @@ import (
 
 // TestSRFAgainstNEC checks the model against the committed NEC-2 table
 // (testdata/nec/srf.csv, made by TestNECTable under the necfull tag):
-// every reference coil within the uncertainty the model states.
+// every reference coil within the in-sample worst case of the fitted
+// constants (a regression guard on srfFitted; the stated uncertainty is the
+// larger held-out one, srf_fit_test.go).
 func TestSRFAgainstNEC(t *testing.T) {
 	rows := readNECTable(t, filepath.Join("..", "testdata", "nec", "srf.csv"))
 	if len(rows) < 15 {
@@ -23,7 +25,7 @@ func TestSRFAgainstNEC(t *testing.T) {
 			for _, tc := range []struct {
 				grounded bool
 				tol      float64
-			}{{true, SRFUncertainty}, {false, SRFFloatingUncertainty}} {
+			}{{true, 0.025}, {false, 0.06}} { // in-sample worst −2.4 %, −5.7 % (TestSRFFit)
 				got := HelixSRF(c.N, c.P, c.Wd, c.D, RosaMutual(c.N), tc.grounded)
 				if e := relErr(got, r.ref(tc.grounded)); e > tc.tol {
 					t.Errorf("grounded=%v: model %.5g Hz, NEC-2 %.5g Hz (testdata/nec/srf.csv): %.2f %% > %.0f %%",
