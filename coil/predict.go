@@ -30,7 +30,7 @@ const (
 	FlagMedhurstExtrap                         // l/D outside Medhurst's table
 	FlagNagaokaRange                           // l/D outside 0.01 … 100
 	FlagTinned                                 // tinned wire at RF
-	FlagSteepPitch                             // pitch more than half the diameter
+	FlagSteepPitch                             // pitch more than an eighth of the diameter: rings no longer model the helix
 	FlagWheelerOutOfRange                      // Wheeler's formula outside its range (informational)
 	FlagSRFOutsideValidation                   // l/D or p/d outside the SRF model's validated range
 )
@@ -216,7 +216,7 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	if ld < 0.01 || ld > 100 {
 		flags |= FlagNagaokaRange
 	}
-	if pitch > dm/2 {
+	if pitch > dm/8 {
 		flags |= FlagSteepPitch
 	}
 	if !valid {
