@@ -188,11 +188,11 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	p.WheelerValid = valid
 
 	// Self-resonance of both mountings; the equivalent self-capacitance is
-	// the grounded one's.
+	// the mounting's: the C across the winding that resonates it at that
+	// mounting's SRF.
 	rho := CopperResistivity(g.Temperature)
 	cs, srfG, inTable := c.SelfResonance(r, rho)
 	srfF := c.FloatingResonance()
-	p.SelfCapacitance = unit.Capacitance(cs)
 	u, uf := SRFUncertainty, SRFFloatingUncertainty
 	if !inTable {
 		u, uf = SRFUncertaintyOutside, SRFUncertaintyOutside
@@ -204,7 +204,9 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	srf := srfG
 	if m == Floating {
 		srf = srfF
+		cs *= (srfG / srfF) * (srfG / srfF) // the same winding L resonates at srfF
 	}
+	p.SelfCapacitance = unit.Capacitance(cs)
 
 	w := NewWireAt(r, rho, lead, f)
 	p.RDC = unit.Resistance(w.RdcPerM * (helix + 2*lead))
