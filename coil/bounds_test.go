@@ -38,3 +38,30 @@ func TestProximityRow(t *testing.T) {
 }
 
 func first(v float64, _ bool) float64 { return v }
+
+// TestSelfCapacitanceMinOverHolds samples the model's equivalent
+// self-capacitance at random shapes (N, l/D, p/d off the bound's grid) and
+// checks that SelfCapacitanceMinOver never exceeds it, over single points
+// and spans.
+func TestSelfCapacitanceMinOverHolds(t *testing.T) {
+	rng := rand.New(rand.NewPCG(15, 3))
+	for range 20000 {
+		n := math.Round(math.Exp(rng.Float64()*math.Log(MaxTurns))*4) / 4
+		if n < 1 {
+			n = 1
+		}
+		ld := math.Exp((rng.Float64()*2 - 1) * math.Log(1e3) * 0.999)
+		pd := math.Exp(rng.Float64() * math.Log(12))
+		cs := selfCapacitancePerD(n, ld, pd)
+		lo := ld / math.Exp(rng.Float64())
+		hi := ld * math.Exp(rng.Float64())
+		for _, span := range [][2]float64{{ld, ld}, {lo, hi}, {lo, ld}} {
+			if b := SelfCapacitanceMinOver(span[0], span[1]); b > cs {
+				t.Fatalf("N %g, l/D %g, p/d %g: C_s/D %.4g below the bound %.4g over [%g, %g]", n, ld, pd, cs, b, span[0], span[1])
+			}
+		}
+	}
+	if SelfCapacitanceMinOver(1, 1) <= 0 {
+		t.Fatal("no bound at l/D = 1")
+	}
+}

@@ -98,18 +98,23 @@ func HelixLength(n, dm, pitch float64) float64 {
 // bound on Φ gives a lower bound on the result.
 func PartialProximity(phiMax, fs float64) float64 { return 1 + (phiMax-1)*(fs-1)/fs }
 
-// SelfResonance returns Medhurst's self-capacitance, whether l/D is inside
-// his table, and the self-resonance with one end grounded, for a wire of
-// bare radius r and resistivity rho. The coil's own inductance at the SRF
-// comes from one fixed-point step from the DC value (φ changes L by well
-// under 1 %).
+// SelfResonance returns the self-resonance with one end grounded from the
+// helical-line model (HelixSRF), whether the coil is inside the range the
+// model was validated over (SRFValid), and the equivalent lumped
+// self-capacitance 1/(ω²L) at that frequency. The coil's own inductance
+// at the SRF comes from the DC value less its internal part (the skin
+// effect is developed at any practical SRF). r and rho are kept for the
+// callers' signature.
 func (c *Core) SelfResonance(r, rho float64) (cs, srf float64, inTable bool) {
-	h, inTable := MedhurstH(c.LD)
-	cs = h * 1e-10 * c.Dm // H pF/cm × D cm
-	srf = 1 / (twoPi * math.Sqrt(c.LCoilDC*cs))
-	_, phiSRF := SkinFactors(r / SkinDepth(rho, srf))
-	lSRF := c.LCoilDC - c.PerK*(1-phiSRF)/4
-	return cs, 1 / (twoPi * math.Sqrt(lSRF*cs)), inTable
+	srf = HelixSRF(c.N, c.Pitch, c.D, c.Dm, c.Km, true)
+	lSRF := c.LCoilDC - c.PerK/4
+	w := twoPi * srf
+	return 1 / (w * w * lSRF), srf, SRFValid(c.LD, c.Pitch/c.D)
+}
+
+// FloatingResonance is the self-resonance with both ends floating.
+func (c *Core) FloatingResonance() float64 {
+	return HelixSRF(c.N, c.Pitch, c.D, c.Dm, c.Km, false)
 }
 
 // CoilAt is the helix's inductance at w's frequency: the internal

@@ -31,7 +31,7 @@ func ExamplePredict() {
 	fmt.Printf("Q: %.0f (%.0f … %.0f)\n", p.Q, p.QMin, p.QMax)
 	// Output:
 	// L at the terminals: 95.7 nH
-	// SRF (one end grounded): 949 MHz
+	// SRF (one end grounded): 953 MHz
 	// Q: 397 (278 … 437)
 }
 

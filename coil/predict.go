@@ -19,40 +19,20 @@ const (
 	// from memory.
 	QMinFactor = 0.70
 	QMaxFactor = 1.10
-
-	// FloatingSRFMin, FloatingSRFMax: the same coil floating at both ends
-	// resonates this much higher than with one end grounded (project's
-	// full-wave comparison).
-	FloatingSRFMin = 1.3
-	FloatingSRFMax = 1.6
 )
-
-// srfBand returns the range of the true SRF (one end grounded) relative to
-// Medhurst's estimate, from the project's full-wave comparison: −7 … +3 %
-// for 0.8 ≤ l/D ≤ 5, +5 … +14 % for shorter coils; longer coils were not
-// compared and get ±10 %.
-func srfBand(lOverD float64) (lo, hi float64) {
-	switch {
-	case lOverD < 0.8:
-		return 1.05, 1.14
-	case lOverD <= 5:
-		return 0.93, 1.03
-	default:
-		return 0.90, 1.10
-	}
-}
 
 // Flags mark conditions worth a warning; Prediction.Warnings words them.
 type Flags uint16
 
 const (
-	FlagNearSRF           Flags = 1 << iota // f > SRF/3
-	FlagLongWire                            // wire in the winding longer than λ/10
-	FlagMedhurstExtrap                      // l/D outside Medhurst's table
-	FlagNagaokaRange                        // l/D outside 0.01 … 100
-	FlagTinned                              // tinned wire at RF
-	FlagSteepPitch                          // pitch more than half the diameter
-	FlagWheelerOutOfRange                   // Wheeler's formula outside its range (informational)
+	FlagNearSRF              Flags = 1 << iota // f > SRF/3
+	FlagLongWire                               // wire in the winding longer than λ/10
+	FlagMedhurstExtrap                         // l/D outside Medhurst's table
+	FlagNagaokaRange                           // l/D outside 0.01 … 100
+	FlagTinned                                 // tinned wire at RF
+	FlagSteepPitch                             // pitch more than an eighth of the diameter: rings no longer model the helix
+	FlagWheelerOutOfRange                      // Wheeler's formula outside its range (informational)
+	FlagSRFOutsideValidation                   // l/D or p/d outside the SRF model's validated range
 )
 
 // Prediction is everything the model says about one coil. Inductances are
@@ -93,6 +73,18 @@ type Prediction struct {
 	SRFFloatingMin  unit.Frequency // both ends floating
 	SRFFloatingMax  unit.Frequency
 
+	// Self-resonance of both mountings from the helical-line model
+	// (srf.go): SRF above is one end grounded, SRFFloating both ends
+	// floating; SRFUncertainty is the relative uncertainty of either, from
+	// the validation against NEC-2 (SRFMin … SRFMax and SRFFloatingMin …
+	// SRFFloatingMax are value·(1 ∓ SRFUncertainty)). SRFMounting is the one
+	// that feeds InductanceEffective, RAC and Q.
+	SRFFloating    unit.Frequency
+	SRFUncertainty float64
+	SRFMounting    Mounting
+	// SRFFloatingUncertainty is SRFUncertainty for SRFFloating.
+	SRFFloatingUncertainty float64
+
 	// Loss at f.
 	RDC             unit.Resistance // winding + leads at the conductor temperature
 	SkinDepth       unit.Length
@@ -109,17 +101,43 @@ type Prediction struct {
 // none). It returns an *InputError for a geometry it cannot accept or when
 // f is within 10 % of, or above, the self-resonance.
 func Predict(g Geometry, f unit.Frequency) (Prediction, error) {
+	return PredictMounted(g, f, Grounded)
+}
+
+// SRFUsedUncertainty is the relative uncertainty of SRFUsed.
+func (p *Prediction) SRFUsedUncertainty() float64 {
+	if p.SRFMounting == Floating {
+		return p.SRFFloatingUncertainty
+	}
+	return p.SRFUncertainty
+}
+
+// SRFUsed is the self-resonance of the prediction's mounting.
+func (p *Prediction) SRFUsed() unit.Frequency {
+	if p.SRFMounting == Floating {
+		return p.SRFFloating
+	}
+	return p.SRF
+}
+
+// PredictMounted is Predict for a coil mounted as m: m's self-resonance
+// feeds the effective inductance, the loss and the refusal above 90 %% of
+// the self-resonance.
+func PredictMounted(g Geometry, f unit.Frequency, m Mounting) (Prediction, error) {
 	var p Prediction
+	if m != Grounded && m != Floating {
+		return p, inputErrorf("mounting", "unknown mounting %d", int(m))
+	}
 	if err := g.Validate(); err != nil {
 		return p, err
 	}
 	if !finite(float64(f)) || f < 0 || f > MaxFrequency {
 		return p, inputErrorf("frequency", "must be between 0 and 10 GHz, e.g. 145MHz")
 	}
-	evaluate(&p, &g, float64(f))
-	if f > 0 && float64(f) > 0.9*float64(p.SRF) {
-		return p, inputErrorf("frequency", "%s is above 90 %% of the self-resonance %s (one end grounded): the coil is not a usable inductor there; use fewer turns, a smaller diameter or a wider pitch",
-			quantity.FormatFrequency(float64(f)), quantity.FormatFrequency(float64(p.SRF)))
+	evaluate(&p, &g, float64(f), m)
+	if f > 0 && float64(f) > 0.9*float64(p.SRFUsed()) {
+		return p, inputErrorf("frequency", "%s is above 90 %% of the self-resonance %s (%s): the coil is not a usable inductor there; use fewer turns, a smaller diameter or a wider pitch",
+			quantity.FormatFrequency(float64(f)), quantity.FormatFrequency(float64(p.SRFUsed())), m.Description())
 	}
 	return p, nil
 }
@@ -128,10 +146,13 @@ func Predict(g Geometry, f unit.Frequency) (Prediction, error) {
 // f (zero for none), without Predict's checks of the frequency: callers
 // that need the model near or past the self-resonance (the design search's
 // tuning range) use it. It allocates nothing.
-func Evaluate(p *Prediction, g *Geometry, f float64) { evaluate(p, g, f) }
+func Evaluate(p *Prediction, g *Geometry, f float64) { evaluate(p, g, f, Grounded) }
+
+// EvaluateMounted is Evaluate for mounting m.
+func EvaluateMounted(p *Prediction, g *Geometry, f float64, m Mounting) { evaluate(p, g, f, m) }
 
 // evaluate fills p for a validated geometry. It allocates nothing.
-func evaluate(p *Prediction, g *Geometry, f float64) {
+func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	p.Geometry = *g
 	p.Frequency = unit.Frequency(f)
 	n := g.Turns
@@ -166,27 +187,38 @@ func evaluate(p *Prediction, g *Geometry, f float64) {
 	p.InductanceWheeler = unit.Inductance(lw)
 	p.WheelerValid = valid
 
-	// Self-capacitance and resonance (one end grounded).
+	// Self-resonance of both mountings; the equivalent self-capacitance is
+	// the mounting's: the C across the winding that resonates it at that
+	// mounting's SRF.
 	rho := CopperResistivity(g.Temperature)
-	cs, srf, inTable := c.SelfResonance(r, rho)
+	cs, srfG, inTable := c.SelfResonance(r, rho)
+	srfF := c.FloatingResonance()
+	u, uf := SRFUncertainty, SRFFloatingUncertainty
+	if !inTable {
+		u, uf = SRFUncertaintyOutside, SRFUncertaintyOutside
+	}
+	p.SRFFloatingUncertainty = uf
+	p.SRF, p.SRFFloating, p.SRFUncertainty, p.SRFMounting = unit.Frequency(srfG), unit.Frequency(srfF), u, m
+	p.SRFMin, p.SRFMax = unit.Frequency(srfG*(1-u)), unit.Frequency(srfG*(1+u))
+	p.SRFFloatingMin, p.SRFFloatingMax = unit.Frequency(srfF*(1-uf)), unit.Frequency(srfF*(1+uf))
+	srf := srfG
+	if m == Floating {
+		srf = srfF
+		cs *= (srfG / srfF) * (srfG / srfF) // the same winding L resonates at srfF
+	}
 	p.SelfCapacitance = unit.Capacitance(cs)
-	p.SRF = unit.Frequency(srf)
-	lo, hi := srfBand(ld)
-	p.SRFMin, p.SRFMax = unit.Frequency(srf*lo), unit.Frequency(srf*hi)
-	p.SRFFloatingMin = unit.Frequency(srf * FloatingSRFMin)
-	p.SRFFloatingMax = unit.Frequency(srf * FloatingSRFMax)
 
 	w := NewWireAt(r, rho, lead, f)
 	p.RDC = unit.Resistance(w.RdcPerM * (helix + 2*lead))
 
 	var flags Flags
 	if !inTable {
-		flags |= FlagMedhurstExtrap
+		flags |= FlagSRFOutsideValidation
 	}
 	if ld < 0.01 || ld > 100 {
 		flags |= FlagNagaokaRange
 	}
-	if pitch > dm/2 {
+	if pitch > dm/8 {
 		flags |= FlagSteepPitch
 	}
 	if !valid {

@@ -24,9 +24,9 @@ func LengthPerPercent(g Geometry, f unit.Frequency) (unit.Length, error) {
 	lo.Pitch = unit.Length(math.Max(p0-h, g.overall()))
 	hi.Pitch = unit.Length(p0 + h)
 	var a, b, c Prediction
-	evaluate(&a, &lo, float64(f))
-	evaluate(&b, &hi, float64(f))
-	evaluate(&c, &g, float64(f))
+	evaluate(&a, &lo, float64(f), Grounded)
+	evaluate(&b, &hi, float64(f), Grounded)
+	evaluate(&c, &g, float64(f), Grounded)
 	dLdp := float64(b.Inductance-a.Inductance) / float64(hi.Pitch-lo.Pitch)
 	if dLdp == 0 || !finite(dLdp) {
 		return 0, nil

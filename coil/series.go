@@ -14,13 +14,22 @@ type SeriesModel struct {
 	R               unit.Resistance  // winding at f: skin, proximity, radiation
 	LLeads          unit.Inductance  // both leads at f
 	RLeads          unit.Resistance  // both leads at f
-	SelfCapacitance unit.Capacitance // Medhurst, across the winding
+	SelfCapacitance unit.Capacitance // equivalent, across the winding: resonates L at the mounting's SRF
 }
 
 // ModelAt evaluates g at f for a network solver. Unlike Predict it does
 // not refuse frequencies near or above the self-resonance: there the
 // network, with the self-capacitance in place, shows the resonance itself.
 func ModelAt(g Geometry, f unit.Frequency) (SeriesModel, error) {
+	return ModelAtMounted(g, f, Grounded)
+}
+
+// ModelAtMounted is ModelAt for a coil mounted as m: the self-capacitance
+// is the one that puts the winding's resonance at m's SRF.
+func ModelAtMounted(g Geometry, f unit.Frequency, m Mounting) (SeriesModel, error) {
+	if m != Grounded && m != Floating {
+		return SeriesModel{}, inputErrorf("mounting", "unknown mounting %d", int(m))
+	}
 	if err := g.Validate(); err != nil {
 		return SeriesModel{}, err
 	}
@@ -28,7 +37,7 @@ func ModelAt(g Geometry, f unit.Frequency) (SeriesModel, error) {
 		return SeriesModel{}, inputErrorf("frequency", "must be between 0 and 10 GHz, e.g. 145MHz")
 	}
 	var p Prediction
-	evaluate(&p, &g, float64(f))
+	evaluate(&p, &g, float64(f), m)
 	return seriesModel(&p), nil
 }
 

@@ -78,7 +78,7 @@ func validateTap(turns, tap float64) error {
 // sections evaluates a validated geometry and tap.
 func sections(g *Geometry, n, f float64) Sections {
 	var whole Prediction
-	evaluate(&whole, g, f)
+	evaluate(&whole, g, f, Grounded)
 	lTotal := float64(whole.Inductance)
 	lead := float64(whole.InductanceLeads) / 2
 	s := Sections{
@@ -121,7 +121,7 @@ func helixInductance(g *Geometry, n, f float64) float64 {
 	h.LeadLength = 0
 	h.Turns = math.Max(n, 1)
 	var p Prediction
-	evaluate(&p, &h, f)
+	evaluate(&p, &h, f, Grounded)
 	one := float64(p.InductanceCoilAtF)
 	if n >= 1 {
 		return one

@@ -29,7 +29,7 @@ func Window(g Geometry, f unit.Frequency) (least, most unit.Inductance, err erro
 	tight, loose := g, g
 	tight.Pitch, loose.Pitch = WindowPitches(g)
 	var a, b Prediction
-	evaluate(&a, &tight, float64(f))
-	evaluate(&b, &loose, float64(f))
+	evaluate(&a, &tight, float64(f), Grounded)
+	evaluate(&b, &loose, float64(f), Grounded)
 	return b.Inductance, a.Inductance, nil
 }

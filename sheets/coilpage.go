@@ -329,7 +329,7 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 		)
 	}
 	r = append(r,
-		[2]string{"self-resonance", fmt.Sprintf("%s (%s … %s), one end grounded", quantity.FormatEng(float64(p.SRF), "Hz", 3), quantity.FormatEng(float64(p.SRFMin), "Hz", 3), quantity.FormatEng(float64(p.SRFMax), "Hz", 3))},
+		[2]string{"self-resonance", fmt.Sprintf("%s ± %.0f %%, %s (this page assumes it)", quantity.FormatEng(float64(p.SRFUsed()), "Hz", 3), p.SRFUsedUncertainty()*100, p.SRFMounting.Description())},
 		[2]string{"self-capacitance", quantity.FormatCapacitance(float64(p.SelfCapacitance))},
 	)
 	if f > 0 {

@@ -32,6 +32,7 @@ func (f *turnsFlag) Set(s string) error {
 // coilOptions are the flags that describe one wound coil; predict, sheet,
 // tap, span and trim share them.
 type coilOptions struct {
+	mounting   mountingFlag
 	mandrel    string
 	former     string
 	wire       string
@@ -46,6 +47,7 @@ type coilOptions struct {
 }
 
 func (o *coilOptions) addFlags(fs *pflag.FlagSet) {
+	fs.Var(&o.mounting, "mounting", "how the coil is mounted, which sets the self-resonance used for effective L and Q: grounded (one end on ground) or floating (both ends live)")
 	fs.StringVar(&o.mandrel, "mandrel", "", "wind on this mandrel and slide it out (self-supporting): a stock name or a diameter, e.g. 6mm or 1/4in")
 	fs.StringVar(&o.former, "former", "", "wind on this former and leave the coil on it: a stock name or an outside diameter, e.g. 20mm")
 	fs.StringVar(&o.wire, "wire", "", "a gauge (22awg, 18swg), a diameter (1mm: bare copper unless --insulation says otherwise) or a stock wire name")
@@ -90,5 +92,20 @@ func predictCoil(co *coilOptions, so *stockOptions, f frequencyFlag) (spec.Spec,
 	if err != nil {
 		return spec.Spec{}, coil.Prediction{}, err
 	}
-	return spec.Predict(cat, co.winding(), f.v)
+	return spec.PredictMounted(cat, co.winding(), f.v, co.mounting.v)
+}
+
+// mountingFlag takes grounded or floating (coil.ParseMounting); the zero
+// value is grounded.
+type mountingFlag struct{ v coil.Mounting }
+
+func (f *mountingFlag) String() string { return f.v.String() }
+func (f *mountingFlag) Type() string   { return "grounded|floating" }
+func (f *mountingFlag) Set(s string) error {
+	m, err := coil.ParseMounting(s)
+	if err != nil {
+		return fmt.Errorf("%v: use grounded (one end on ground or a bypassed rail) or floating (both ends live)", err)
+	}
+	f.v = m
+	return nil
 }

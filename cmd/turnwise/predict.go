@@ -34,9 +34,10 @@ DC and at the operating frequency, self-capacitance and self-resonance
 (SRF), effective inductance and Q at --freq, and the build numbers: bore,
 outside diameter, outside length, wire to cut.
 
-The SRF is for a coil with one end grounded (Medhurst's mounting); floating
-at both ends the same coil resonates 1.3–1.6× higher. Q is an estimate and
-is printed with its uncertainty band.
+The SRF is given for both mountings, one end grounded and both ends
+floating, each with its uncertainty against NEC-2; --mounting chooses the
+one that feeds effective L and Q. Q is an estimate and is printed with its
+uncertainty band.
 ` + exitStatusHelp),
 		Example: exampleText(`
   turnwise predict --mandrel 6mm --wire 1mm --turns 5 --length 8mm --leads 5mm --freq 145MHz

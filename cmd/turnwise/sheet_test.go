@@ -118,7 +118,7 @@ func TestSheetMatchesPredict(t *testing.T) {
 		{`coil \+ leads ` + num + ` \+ ` + num, []string{"inductance_coil_at_f", "inductance_leads"}},
 		{`L effective at f ` + num, []string{"inductance_effective"}},
 		{`on an L meter ` + num, []string{"lf:inductance"}},
-		{`self-resonance ` + num + ` \(` + num + ` … ` + num + `\)`, []string{"srf", "srf_min", "srf_max"}},
+		{`self-resonance ` + num + ` ± [\d.]+ %, one end grounded`, []string{"srf"}},
 		{`self-capacitance ` + num, []string{"self_capacitance"}},
 		{`Q at [\d.]+ [kMG]?Hz (\d+) \(likely (\d+) … (\d+)\)`, []string{"q", "q_min", "q_max"}},
 		{`wire to cut ` + num, []string{"wire_length"}},

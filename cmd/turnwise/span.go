@@ -126,6 +126,7 @@ func (o *spanOptions) settings() (spec.SpanSettings, error) {
 	s := spec.SpanSettings{
 		Tap: o.tap.v, Law: o.law, TrimA: o.trimA.v, TrimB: o.trimB.v, StrayA: o.strayA.v, StrayB: o.strayB.v,
 		Steps: o.steps, LoadedQ: o.loadedQ, ChooseTap: o.chooseTap, VaryPitch: o.varyPitch,
+		Mounting: o.coil.mounting.v,
 	}
 	if o.margin.set {
 		if o.margin.v <= 0 {

@@ -62,6 +62,10 @@ type Part struct {
 	// TapNode < 0 for a coil without a tap.
 	TapNode  int
 	TapTurns float64
+	// Mounting is the wound coil's mounting (zero: one end grounded): its
+	// self-capacitance puts the winding's resonance at that mounting's SRF
+	// (coil.ModelAtMounted).
+	Mounting coil.Mounting
 }
 
 // Coupling is a mutual coupling k between two inductive parts (inductors
@@ -262,7 +266,7 @@ type woundAt struct {
 }
 
 func (p *Part) woundAt(f float64) (woundAt, error) {
-	m, err := coil.ModelAt(*p.Coil, unit.Frequency(f))
+	m, err := coil.ModelAtMounted(*p.Coil, unit.Frequency(f), p.Mounting)
 	if err != nil {
 		return woundAt{}, &Error{Part: p.Name, Reason: err.Error()}
 	}

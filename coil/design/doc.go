@@ -11,7 +11,7 @@
 // physical value comes from package coil: the inner loop calls the same
 // allocation-free functions as coil.Predict (coil.NewCore,
 // coil.Core.SelfResonance, coil.Core.LossAt), its bounds read the model's
-// tables through coil.MedhurstHMinOver and coil.ProximityRow, and every
+// tables through coil.SelfCapacitanceMinOver and coil.ProximityRow, and every
 // candidate returned is re-evaluated with coil.Predict.
 //
 // References:

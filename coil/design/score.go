@@ -228,7 +228,9 @@ func (x *search) intervalBound(p *pair, a, b *knot, interiorPen float64) (ub, qu
 
 // srfUpper bounds the self-resonance of coils of pair p with at most nMax
 // turns and l/D in [ldA, ldB] that hit the target: SRF = 1/(2π√(L·C))
-// with C = H·D at least the least Medhurst H over the span, and L (the
+// with C at least coil.SelfCapacitanceMinOver over the span times D (a
+// tabulated lower bound on the helical-line model's equivalent
+// self-capacitance, one end grounded, checked by its test), and L (the
 // helix at the SRF) at least the helix at f less all its internal
 // inductance, μ0·a·N/4. The helix at f is the target less the leads
 // (terminal target), or at least (target − leads)·g for an effective one.
@@ -245,7 +247,10 @@ func (x *search) srfUpper(p *pair, nMax, ldA, ldB float64) float64 {
 	if !(l > 0) {
 		return math.Inf(1) // no useful bound
 	}
-	c := coil.MedhurstHMinOver(ldA, ldB) * 1e-10 * p.dm
+	c := coil.SelfCapacitanceMinOver(ldA, ldB) * p.dm
+	if !(c > 0) {
+		return math.Inf(1) // no useful bound
+	}
 	return 1 / (twoPi * math.Sqrt(l*c))
 }
 

@@ -79,7 +79,8 @@ type Calibration struct {
 	// the reading (model/reading − 1); with one reading and one unknown it
 	// is zero to the solver's precision.
 	Residual float64
-	// SelfCapacitance is Medhurst's self-capacitance of the calibrated coil,
+	// SelfCapacitance is the model's equivalent self-capacitance (from the
+	// helical-line SRF) of the calibrated coil,
 	// across the winding.
 	SelfCapacitance unit.Capacitance
 	// SelfCapacitanceAtTerminals is SelfCapacitance as the instrument sees

@@ -146,7 +146,7 @@ func (p *TapPlan) binding() string {
 // bestTap tries every quarter-turn tap of g and returns the lowest cost.
 func bestTap(spec Spec, g coil.Geometry, margin float64, plan *TapPlan) (tapScore, error) {
 	spec.Geometry = g
-	m, err := newCoilModel(g)
+	m, err := newCoilModel(g, spec.Mounting)
 	if err != nil {
 		return tapScore{}, err
 	}

@@ -22,7 +22,8 @@
 //
 // which for two nodes is a quadratic in ω², solved in closed form with the
 // cancellation-free form of the quadratic formula (TwoNodeResonances).
-// The coil's self-capacitance (Medhurst) is put across the whole coil.
+// The coil's equivalent self-capacitance (coil.Predict: the C that resonates
+// it at its helical-line SRF) is put across the whole coil.
 //
 // # Dial convention
 //

@@ -35,6 +35,9 @@ type Spec struct {
 	// range's ends and the two ranges must overlap; 0 means DefaultMargin.
 	// Only ChooseTap and the coverage verdicts use it.
 	Margin float64
+	// Mounting is the coil's mounting (zero: one end grounded); its SRF
+	// and equivalent self-capacitance are the ones used.
+	Mounting coil.Mounting
 }
 
 // DefaultMargin is the default coverage and overlap margin, 3 %: enough
@@ -115,7 +118,7 @@ func (co Coincidence) OnPeak() bool {
 // Span is the two-gang circuit across the dial.
 type Span struct {
 	Sections        coil.Sections
-	SelfCapacitance unit.Capacitance // Medhurst's, across the whole coil
+	SelfCapacitance unit.Capacitance // the model's equivalent, across the whole coil
 	Dial            []DialRow
 	Low, High       FreqRange
 	HasHigh         bool // false when the circuit has one resonance only
@@ -167,7 +170,7 @@ func (c *spanCircuit) at(x float64) (DialRow, error) {
 // The section inductances are taken at one frequency, the geometric mean
 // of the two ranges at mid-dial (found from a first pass at low
 // frequency): across an HF range the skin effect moves them by well under
-// 1 %. The coil's self-capacitance (Medhurst, one end grounded) is put
+// 1 %. The coil's equivalent self-capacitance (its mounting's SRF) is put
 // across the whole coil, in parallel with section A.
 //
 // Coincidences are searched where the low range is in a listed band (the
@@ -224,12 +227,12 @@ type coilModel struct {
 	q     qTable
 }
 
-func newCoilModel(g coil.Geometry) (*coilModel, error) {
-	whole, err := coil.Predict(g, 0)
+func newCoilModel(g coil.Geometry, mt coil.Mounting) (*coilModel, error) {
+	whole, err := coil.PredictMounted(g, 0, mt)
 	if err != nil {
 		return nil, err
 	}
-	q, err := newQTable(g, float64(whole.SRF))
+	q, err := newQTable(g, float64(whole.SRFUsed()), mt)
 	if err != nil {
 		return nil, err
 	}
@@ -249,7 +252,7 @@ func newSpanCircuitOf(spec Spec, m *coilModel) (*spanCircuit, error) {
 	}
 	g := spec.Geometry
 	if m == nil {
-		if m, err = newCoilModel(g); err != nil {
+		if m, err = newCoilModel(g, spec.Mounting); err != nil {
 			return nil, err
 		}
 	}
@@ -258,7 +261,7 @@ func newSpanCircuitOf(spec Spec, m *coilModel) (*spanCircuit, error) {
 		a:       spec.A,
 		b:       spec.B,
 		cself:   float64(m.whole.SelfCapacitance),
-		srf:     float64(m.whole.SRF),
+		srf:     float64(m.whole.SRFUsed()),
 		loadedQ: spec.LoadedQ,
 		q:       m.q,
 	}
@@ -329,7 +332,7 @@ func (c *spanCircuit) solve(spec Spec) (Span, error) {
 func widestOverlapTap(spec Spec) (float64, unit.Frequency) {
 	bestTap, bestHz := 0.0, math.Inf(-1)
 	bestRel := math.Inf(-1) // among taps that overlap
-	m, err := newCoilModel(spec.Geometry)
+	m, err := newCoilModel(spec.Geometry, spec.Mounting)
 	if err != nil {
 		return bestTap, unit.Frequency(bestHz)
 	}
@@ -683,14 +686,14 @@ const qTablePoints = 48
 
 // newQTable tabulates Q from 10⁻⁴ of 0.9·SRF up to 0.9·SRF (and at most
 // coil.MaxFrequency), the frequencies at which coil.Predict accepts the coil.
-func newQTable(g coil.Geometry, srf float64) (qTable, error) {
+func newQTable(g coil.Geometry, srf float64, mt coil.Mounting) (qTable, error) {
 	fMax := 0.9 * srf
 	fMin := fMax / 1e4
 	fTop := math.Min(fMax, coil.MaxFrequency)
 	t := qTable{lnF: make([]float64, qTablePoints), q: make([]float64, qTablePoints)}
 	for i := range qTablePoints {
 		lf := math.Log(fMin) + (math.Log(fMax)-math.Log(fMin))*float64(i)/(qTablePoints-1)
-		p, err := coil.Predict(g, unit.Frequency(math.Min(math.Exp(lf), fTop)))
+		p, err := coil.PredictMounted(g, unit.Frequency(math.Min(math.Exp(lf), fTop)), mt)
 		if err != nil {
 			return qTable{}, err
 		}

@@ -3,6 +3,7 @@ package report
 import (
 	"fmt"
 	"io"
+	"strings"
 	"text/tabwriter"
 	"turnwise/coil"
 	"turnwise/internal/quantity"
@@ -60,10 +61,16 @@ func WritePredictTable(w io.Writer, s spec.Spec, p coil.Prediction, rec CoilReco
 		row("trim", fmt.Sprintf("squeeze or spread %s of outside length per 1 %% of L", lf.Format(rec.TrimLengthPerPercent)))
 	}
 
-	fmt.Fprintln(tw, "\nSELF-RESONANCE (one end grounded)")
-	row("self-capacitance", quantity.FormatCapacitance(float64(p.SelfCapacitance))+" (Medhurst)")
-	row("SRF", fmt.Sprintf("%s  (Medhurst; a full-wave check puts it at %s … %s)", quantity.FormatEng(float64(p.SRF), "Hz", 3), quantity.FormatEng(float64(p.SRFMin), "Hz", 3), quantity.FormatEng(float64(p.SRFMax), "Hz", 3)))
-	row("floating at both ends", fmt.Sprintf("%s … %s", quantity.FormatEng(float64(p.SRFFloatingMin), "Hz", 3), quantity.FormatEng(float64(p.SRFFloatingMax), "Hz", 3)))
+	fmt.Fprintln(tw, "\nSELF-RESONANCE (helical-line model)")
+	used := func(m coil.Mounting) string {
+		if p.SRFMounting == m {
+			return "; used for effective L and Q"
+		}
+		return ""
+	}
+	row("SRF, one end grounded", fmt.Sprintf("%s ± %.0f %%  (± from its held-out differences to NEC-2%s)", quantity.FormatEng(float64(p.SRF), "Hz", 3), p.SRFUncertainty*100, used(coil.Grounded)))
+	row("SRF, both ends floating", fmt.Sprintf("%s ± %.0f %%%s", quantity.FormatEng(float64(p.SRFFloating), "Hz", 3), p.SRFFloatingUncertainty*100, floatNote(used(coil.Floating))))
+	row("self-capacitance", quantity.FormatCapacitance(float64(p.SelfCapacitance))+fmt.Sprintf("  (equivalent, %s: the C that resonates the winding at its SRF)", p.SRFMounting.Description()))
 
 	if f > 0 {
 		fmt.Fprintf(tw, "\nLOSS AT %s\n", quantity.FormatEng(f, "Hz", 4))
@@ -91,4 +98,12 @@ func WritePredictJSON(w io.Writer, rec CoilRecord) error {
 		Schema int `json:"schema"`
 		CoilRecord
 	}{SchemaVersion, rec})
+}
+
+// floatNote wraps the floating row's note in parentheses, or leaves it out.
+func floatNote(s string) string {
+	if s == "" {
+		return ""
+	}
+	return "  (" + strings.TrimPrefix(s, "; ") + ")"
 }

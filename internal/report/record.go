@@ -58,6 +58,9 @@ type CoilRecord struct {
 	SRFMin               float64  `json:"srf_min"`
 	SRFMax               float64  `json:"srf_max"`
 	SRFMounting          string   `json:"srf_mounting"`
+	SRFFloating          float64  `json:"srf_floating"`
+	SRFUncertainty       float64  `json:"srf_uncertainty"`
+	SRFFloatingUncert    float64  `json:"srf_floating_uncertainty"`
 	SRFFloatingMin       float64  `json:"srf_floating_min"`
 	SRFFloatingMax       float64  `json:"srf_floating_max"`
 	InductanceEffective  float64  `json:"inductance_effective"`
@@ -125,7 +128,10 @@ func NewCoilRecord(s spec.Spec, p coil.Prediction) CoilRecord {
 		SRF:                 float64(p.SRF),
 		SRFMin:              float64(p.SRFMin),
 		SRFMax:              float64(p.SRFMax),
-		SRFMounting:         "one end grounded",
+		SRFMounting:         p.SRFMounting.String(),
+		SRFFloating:         float64(p.SRFFloating),
+		SRFUncertainty:      p.SRFUncertainty,
+		SRFFloatingUncert:   p.SRFFloatingUncertainty,
 		SRFFloatingMin:      float64(p.SRFFloatingMin),
 		SRFFloatingMax:      float64(p.SRFFloatingMax),
 		InductanceEffective: float64(p.InductanceEffective),

@@ -64,7 +64,7 @@ func WriteSpanTable(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Sp
 	fmt.Fprintln(tw, "CIRCUIT")
 	row("section A", spec.DescribeGang(a)+", "+spec.DescribeLaw(a)+": top of the coil to ground")
 	row("section B", spec.DescribeGang(b)+", "+spec.DescribeLaw(b)+": tap to ground")
-	row("coil self-capacitance", quantity.FormatCapacitance(float64(sp.SelfCapacitance))+" across the whole coil (Medhurst)")
+	row("coil self-capacitance", quantity.FormatCapacitance(float64(sp.SelfCapacitance))+" across the whole coil (equivalent: resonates the coil at its SRF, helical-line model)")
 	fmt.Fprintln(tw, "\nTAP")
 	row("where", fmt.Sprintf("%s up from the cold (grounded) end, %s along the coil from where the winding starts",
 		quantity.FormatTurnsWord(sec.TapTurns), lf.Format(float64(sec.TapPosition))))

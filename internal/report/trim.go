@@ -260,10 +260,10 @@ func WriteTrimTable(w io.Writer, res *Trim) error {
 	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", quantity.FormatEng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
 	if r.Kind == trim.MeasureTwoCapacitor {
 		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", signedFarads(float64(r.TotalStray)), quantity.FormatCapacitance(float64(r.TotalStrayUncertainty))))
-		sc := fmt.Sprintf("Medhurst %s", quantity.FormatCapacitance(float64(cal.SelfCapacitance)))
+		sc := fmt.Sprintf("model %s (equivalent, from the helical-line SRF)", quantity.FormatCapacitance(float64(cal.SelfCapacitance)))
 		if ct := cal.SelfCapacitanceAtTerminals; res.SelfCapacitanceThroughLeads {
 			// Long leads: the line sees the self-capacitance through them.
-			sc = fmt.Sprintf("Medhurst %s across the winding, %s at the terminals through the leads", quantity.FormatCapacitance(float64(cal.SelfCapacitance)), quantity.FormatCapacitance(float64(ct)))
+			sc = fmt.Sprintf("model %s across the winding (equivalent, from the helical-line SRF), %s at the terminals through the leads", quantity.FormatCapacitance(float64(cal.SelfCapacitance)), quantity.FormatCapacitance(float64(ct)))
 		}
 		if m.Stray > 0 {
 			u := float64(res.MeasuredSelfCapacitanceUncertainty)

@@ -69,11 +69,17 @@ func FromCandidate(rows map[string]forms.Wire, c design.Candidate) Spec {
 // Predict resolves a winding and evaluates the model at f, naming the flag
 // of a model error.
 func Predict(cat *forms.Catalog, o forms.JobWinding, f unit.Frequency) (Spec, coil.Prediction, error) {
+	return PredictMounted(cat, o, f, coil.Grounded)
+}
+
+// PredictMounted is Predict for a coil mounted as m (whose self-resonance
+// feeds the effective inductance and Q).
+func PredictMounted(cat *forms.Catalog, o forms.JobWinding, f unit.Frequency, m coil.Mounting) (Spec, coil.Prediction, error) {
 	s, err := Resolve(cat, o)
 	if err != nil {
 		return s, coil.Prediction{}, err
 	}
-	p, err := coil.Predict(s.Geometry, f)
+	p, err := coil.PredictMounted(s.Geometry, f, m)
 	if err != nil {
 		return s, p, AttachFlag(err, s.SupportKind.String(), s.PitchSource)
 	}

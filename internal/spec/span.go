@@ -20,6 +20,7 @@ import (
 // SpanSettings are the values of span's options once parsed: what a job
 // file or the flags give. Zero values mean the command's defaults.
 type SpanSettings struct {
+	Mounting     coil.Mounting    // the coil's mounting: its SRF feeds the circuit
 	Tap          float64          // turns from the cold end (ignored with ChooseTap)
 	GangA, GangB [2]float64       // min, max in farads; GangB zero means as GangA
 	GangBSet     bool             // GangB was given
@@ -93,7 +94,7 @@ func BuildSpan(g coil.Geometry, s SpanSettings) (SpanOutcome, error) {
 	if err != nil {
 		return SpanOutcome{}, err
 	}
-	spec := tuning.Spec{Geometry: g, TapTurns: s.Tap, A: a, B: b, Steps: s.Steps, Bands: s.Bands, LoadedQ: s.LoadedQ, Margin: s.Margin}
+	spec := tuning.Spec{Geometry: g, TapTurns: s.Tap, A: a, B: b, Steps: s.Steps, Bands: s.Bands, LoadedQ: s.LoadedQ, Margin: s.Margin, Mounting: s.Mounting}
 	if s.ChooseTap {
 		plan, err := tuning.ChooseTap(spec, tuning.TapSearch{VaryPitch: s.VaryPitch})
 		if err != nil && !errors.Is(err, coil.ErrInfeasible) {

@@ -1,0 +1,85 @@
+//go:build necfull
+
+package coil
+
+import (
+	"context"
+	"fmt"
+	"os"
+	"path/filepath"
+	"strings"
+	"sync"
+	"testing"
+)
+
+// TestNECTable recomputes the NEC-2 reference table of self-resonances,
+// testdata/nec/srf.csv, from nec2c. It is behind the necfull build tag
+// because it runs for several minutes:
+//
+//	go test -tags necfull -run TestNECTable -v ./coil
+//
+// Each coil is solved grounded and floating at the base segmentation
+// (necSegmentsPerTurn) and, where the base has at most 320 segments, again
+// at twice the segmentation (segments halved in length) to show
+// convergence; larger coils leave the last two columns empty.
+func TestNECTable(t *testing.T) {
+	nec := necTool(t)
+	coils := necReference()
+	rows := make([]string, len(coils))
+	var wg sync.WaitGroup
+	sem := make(chan struct{}, 2)
+	var mu sync.Mutex
+	var firstErr error
+	for i, c := range coils {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			sem <- struct{}{}
+			defer func() { <-sem }()
+			ctx := context.Background()
+			dir := t.TempDir()
+			f0 := necStartFrequency(c)
+			fg, ns, _, err := necResonance(ctx, nec, dir, c, true, f0, 1)
+			var ff, fg2, ff2 float64
+			if err == nil {
+				ff, _, _, err = necResonance(ctx, nec, dir, c, false, f0, 1)
+			}
+			if err == nil && ns <= 320 {
+				fg2, _, _, err = necResonance(ctx, nec, dir, c, true, 0.9*fg, 2)
+				if err == nil {
+					ff2, _, _, err = necResonance(ctx, nec, dir, c, false, 0.9*ff, 2)
+				}
+			}
+			mu.Lock()
+			defer mu.Unlock()
+			if err != nil {
+				if firstErr == nil {
+					firstErr = err
+				}
+				return
+			}
+			opt := func(v float64) string {
+				if v == 0 {
+					return ""
+				}
+				return fmt.Sprintf("%.6g", v)
+			}
+			rows[i] = fmt.Sprintf("%s,%.6g,%.6g,%.6g,%g,%d,%.6g,%.6g,%s,%s", c.Name, c.D, c.P, c.Wd, c.N, ns,
+				fg, ff, opt(fg2), opt(ff2))
+			t.Logf("%s", rows[i])
+		}()
+	}
+	wg.Wait()
+	if firstErr != nil {
+		t.Fatal(firstErr)
+	}
+	head := "# NEC-2 (nec2c) first self-resonance of bare perfectly conducting helices; see coil/nec_driver_test.go.\n" +
+		"# Made by: go test -tags necfull -run TestNECTable -v ./coil\n" +
+		"# mean_diameter_m,pitch_m,wire_diameter_m: the helix; segments: base segmentation (grounded adds a one-segment stub);\n" +
+		"# srf_*_hz: base segmentation; *_2x_hz: twice the segments (empty where the base has more than 320).\n" +
+		"name,mean_diameter_m,pitch_m,wire_diameter_m,turns,segments,srf_grounded_hz,srf_floating_hz,srf_grounded_2x_hz,srf_floating_2x_hz\n"
+	out := head + strings.Join(rows, "\n") + "\n"
+	if err := os.WriteFile(filepath.Join("..", "testdata", "nec", "srf.csv"), []byte(out), 0o644); err != nil {
+		t.Fatal(err)
+	}
+}
