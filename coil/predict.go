@@ -177,6 +177,7 @@ func evaluate(p *Prediction, g *Geometry, f float64) {
 	p.SRFFloatingMax = unit.Frequency(srf * FloatingSRFMax)
 
 	w := NewWireAt(r, rho, lead, f)
+	w.Plate(PlatingRatio(g.Conductor, float64(g.Plating), rho, f))
 	p.RDC = unit.Resistance(w.RdcPerM * (helix + 2*lead))
 
 	var flags Flags

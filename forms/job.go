@@ -88,11 +88,12 @@ func (c *JobCoil) Label() string { return fmt.Sprintf("coil %q", c.Name) }
 // keys not given. For a design target the mandrel, former and wire, when
 // given, pin the search to them.
 type JobWinding struct {
-	Mandrel    string // slide off after winding (self-supporting)
-	Former     string // the coil stays on it
-	Wire       string // gauge, bare diameter or stock name
-	Insulation string // none, grade1..3 or an overall diameter
-	Conductor  string // copper, silver-plated, tinned
+	Mandrel    string       // slide off after winding (self-supporting)
+	Former     string       // the coil stays on it
+	Wire       string       // gauge, bare diameter or stock name
+	Insulation string       // none, grade1..3 or an overall diameter
+	Conductor  string       // copper, silver-plated, tinned
+	Plating    *unit.Length // plating thickness; nil: the conductor's typical
 	Springback *float64
 	Turns      *float64
 	Pitch      *unit.Length

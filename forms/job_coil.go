@@ -95,6 +95,7 @@ func (l *jobLoader) winding(e *jobEntry, c *JobCoil) {
 	if _, present := e.m["leads"]; !present {
 		e.missing(errors.New(`add leads = "5mm": the length of each lead to the solder joint ("0mm" if you measure at the winding); at VHF leads are often 10–20 % of the inductance`))
 	}
+	w.Plating, _ = quantityOf(e, "plating", `"1um"`, quantity.ParseLength, false)
 	w.Temp, _ = quantityOf(e, "temp", `"40C"`, quantity.ParseTemperature, false)
 	w.Freq, _ = quantityOf(e, "freq", `"137.5MHz"`, quantity.ParseFrequency, false)
 }

@@ -120,6 +120,9 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 		LeadLength:   *o.Leads,
 		Temperature:  temp,
 	}
+	if o.Plating != nil {
+		g.Plating = *o.Plating
+	}
 	supportFlag := "mandrel"
 	if o.Mandrel != "" {
 		s.SupportKind = coil.SupportMandrel
@@ -190,6 +193,7 @@ func AttachFlag(err error, supportFlag string, pitchSource coil.PitchSource) err
 		"frequency":             "freq",
 		"winding_length":        "length",
 		"conductor":             "conductor",
+		"plating":               "plating",
 	}[ie.Param]
 	if ie.Param == "pitch" {
 		flag = "pitch"
