@@ -418,8 +418,16 @@ func resolve(t Target, c Constraints) (settings, error) {
 	switch {
 	case bl(c.LeadLength) || float64(c.LeadLength) > coil.MaxLeadLength:
 		return s, inputErrorf("lead_length", "must be between 0 and 1 m, e.g. 5mm")
-	case bl(c.MaxLength), bl(c.MaxDiameter), bl(c.MaxWireLength), bl(c.MinWire), bl(c.MaxWire):
-		return s, inputErrorf("constraints", "length limits must be finite and not negative")
+	case bl(c.MaxLength):
+		return s, inputErrorf("max_length", "must be a positive length, e.g. 15mm (zero means no limit)")
+	case bl(c.MaxDiameter):
+		return s, inputErrorf("max_diameter", "must be a positive length, e.g. 20mm (zero means no limit)")
+	case bl(c.MaxWireLength):
+		return s, inputErrorf("max_wire_length", "must be a positive length, e.g. 1m (zero means no limit)")
+	case bl(c.MinWire):
+		return s, inputErrorf("min_wire", "must be a positive length, e.g. 0.5mm (zero means no limit)")
+	case bl(c.MaxWire):
+		return s, inputErrorf("max_wire", "must be a positive length, e.g. 2mm (zero means no limit)")
 	case c.MinWire > 0 && c.MaxWire > 0 && c.MinWire > c.MaxWire:
 		return s, inputErrorf("min_wire", "%s is more than the maximum wire %s", quantity.FormatMillimetres(float64(c.MinWire)), quantity.FormatMillimetres(float64(c.MaxWire)))
 	case !finite(c.MinSRFRatio) || c.MinSRFRatio < 0 || (c.MinSRFRatio > 0 && c.MinSRFRatio < 1.2) || c.MinSRFRatio > 100:

@@ -350,6 +350,7 @@ var searchFlags = map[string]string{
 	"max_length":      "max-length",
 	"max_diameter":    "max-diameter",
 	"max_wire_length": "max-wire-length",
+	"max_wire":        "max-wire",
 }
 
 // searchError names the flag behind a model error and adds the flag to try
