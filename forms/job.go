@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"slices"
+	"strconv"
 	"strings"
 	"time"
 
@@ -38,7 +39,11 @@ func (j *Job) Coil(name string) (*JobCoil, error) {
 	if i := findName(j.Coils, name, func(c JobCoil) string { return c.Name }); i >= 0 {
 		return &j.Coils[i], nil
 	}
-	return nil, &LookupError{Kind: "coil", Name: name,
+	among := make([]string, len(j.Coils))
+	for i, c := range j.Coils {
+		among[i] = strconv.Quote(c.Name)
+	}
+	return nil, &LookupError{Kind: "coil", Name: name, Among: among,
 		Suggestions: suggest(name, j.Coils, func(c JobCoil) string { return c.Name })}
 }
 

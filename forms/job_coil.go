@@ -306,7 +306,7 @@ func (l *jobLoader) span(e *jobEntry, c *JobCoil) {
 	if v, present := e.m["bands"]; present {
 		list, isList := v.([]any)
 		if !isList {
-			e.fail("bands", "bands", fmt.Errorf("is a %s; write a list, e.g. bands = [\"80m=3.5-3.8MHz\", \"7.0-7.2MHz\"]", tomlType(v)))
+			e.fail("bands", "bands", fmt.Errorf("is a %s; it must be a list of \"name=F1-F2\" strings in square brackets, e.g. bands = [\"80m=3.5-3.8MHz\", \"7.0-7.2MHz\"]", tomlType(v)))
 			ok = false
 		}
 		for i, b := range list {

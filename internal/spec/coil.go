@@ -272,7 +272,8 @@ func ResolveMandrel(cat *forms.Catalog, s string) (unit.Length, string, error) {
 	d, err := quantity.ParseLength(s)
 	if err != nil {
 		_, lookupErr := cat.Mandrel(s)
-		if looksLikeQuantity(s) {
+		var le *forms.LookupError
+		if looksLikeQuantity(s) && !(errors.As(lookupErr, &le) && len(le.Suggestions) > 0) {
 			return 0, "", &FlagError{Flag: "mandrel", Err: err}
 		}
 		return 0, "", &FlagError{Flag: "mandrel", Err: fmt.Errorf("%w; or give a diameter such as 6mm", lookupErr)}
@@ -288,7 +289,8 @@ func ResolveFormer(cat *forms.Catalog, s string) (unit.Length, string, error) {
 	d, err := quantity.ParseLength(s)
 	if err != nil {
 		_, lookupErr := cat.Former(s)
-		if looksLikeQuantity(s) {
+		var le *forms.LookupError
+		if looksLikeQuantity(s) && !(errors.As(lookupErr, &le) && len(le.Suggestions) > 0) {
 			return 0, "", &FlagError{Flag: "former", Err: err}
 		}
 		return 0, "", &FlagError{Flag: "former", Err: fmt.Errorf("%w; or give an outside diameter such as 20mm", lookupErr)}
