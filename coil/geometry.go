@@ -165,6 +165,18 @@ func (g *Geometry) Validate() error {
 	return nil
 }
 
+// ValidateTurns reports whether n is a number of turns the model accepts,
+// with Validate's message.
+func ValidateTurns(n float64) error {
+	switch {
+	case !finite(n) || n < 1:
+		return inputErrorf("turns", "must be at least 1 (got %g)", n)
+	case n > MaxTurns:
+		return inputErrorf("turns", "%g is more than %d turns; a single-layer air coil that long is outside this model", n, MaxTurns)
+	}
+	return nil
+}
+
 // MeanDiameter is the wire-centre diameter D = D_f·(1+s) + d_o.
 func (g *Geometry) MeanDiameter() unit.Length {
 	return unit.Length(float64(g.FormerDiameter)*(1+g.Springback) + g.overall())

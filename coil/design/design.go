@@ -411,6 +411,10 @@ func resolve(t Target, c Constraints) (settings, error) {
 		}
 		s.required = float64(coil.InductanceForResonance(t.Resonance, t.Capacitance+t.Stray))
 		if !(s.required >= 1e-12 && s.required <= 1) {
+			if alone := float64(coil.InductanceForResonance(t.Resonance, t.Capacitance)); t.Stray != 0 && alone >= 1e-12 && alone <= 1 {
+				return s, inputErrorf("stray", "%s of stray capacitance makes resonating at %s need %.3g H, outside 1 pH … 1 H; give the wiring's few pF, e.g. 2pF",
+					quantity.FormatCapacitance(float64(t.Stray)), quantity.FormatFrequency(s.matchF), s.required)
+			}
 			return s, inputErrorf("capacitance", "resonating at %s needs %.3g H, outside 1 pH … 1 H", quantity.FormatFrequency(s.matchF), s.required)
 		}
 	}

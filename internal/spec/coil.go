@@ -160,9 +160,18 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 	case o.Pitch != nil:
 		g.Pitch, s.PitchSource = *o.Pitch, coil.PitchGiven
 	case o.Length != nil:
-		p, err := coil.PitchForWindingLength(*o.Turns, overall, *o.Length)
+		n := *o.Turns
+		if !(n >= 1) {
+			// The turns are wrong whatever the length: blame them.
+			return s, AttachFlag(coil.ValidateTurns(n), supportFlag, coil.PitchGiven)
+		}
+		p, err := coil.PitchForWindingLength(n, overall, *o.Length)
 		if err != nil {
-			return s, &FlagError{Flag: "length", Err: err}
+			return s, AttachFlag(err, supportFlag, coil.PitchFromLength)
+		}
+		if float64(p) > coil.MaxPitch {
+			return s, &FlagError{Flag: "length", Err: fmt.Errorf("%s over %g turns gives a pitch of %s between turn centres, more than the %s the model accepts; use more turns or a shorter --length",
+				quantity.FormatMillimetres(float64(*o.Length)), n, quantity.FormatMillimetres(float64(p)), quantity.FormatMillimetres(coil.MaxPitch))}
 		}
 		g.Pitch, s.PitchSource = p, coil.PitchFromLength
 	default:

@@ -334,6 +334,7 @@ var searchFlags = map[string]string{
 	"resonance":       "freq",
 	"frequency":       "freq",
 	"capacitance":     "cap",
+	"stray":           "stray",
 	"tolerance":       "tolerance",
 	"lead_length":     "leads",
 	"temperature":     "temp",
