@@ -60,15 +60,16 @@ func printError(w io.Writer, err error) {
 }
 
 // maxEcho is how much of one word of the user's input an error repeats.
-const maxEcho = 60
+const maxEcho = 80
 
-// clip shortens an echoed input to maxEcho characters and "…".
+// clip shortens an echoed input longer than maxEcho characters to its
+// first 50 and last 29 around "…": a long path keeps its file name.
 func clip(s string) string {
 	r := []rune(s)
 	if len(r) <= maxEcho {
 		return s
 	}
-	return string(r[:maxEcho]) + "…"
+	return string(r[:50]) + "…" + string(r[len(r)-29:])
 }
 
 // clipMessage keeps an error to one readable line: every run of more than
