@@ -48,6 +48,11 @@
 //
 // # References
 //
+//   - S. Ramo, J. R. Whinnery and T. Van Duzer, Fields and Waves in
+//     Communication Electronics, 3rd ed., Wiley 1994: surface impedance of a
+//     layered (plated) conductor (plating.go).
+//   - CRC Handbook of Chemistry and Physics, "Electrical resistivity of pure
+//     metals": tin and silver at 20 °C (plating.go).
 //   - H. Nagaoka, "The inductance coefficients of solenoids", Journal of the
 //     College of Science, Imperial University of Tokyo, 27(6), 1909.
 //   - E. B. Rosa, "The self and mutual inductances of linear conductors" and

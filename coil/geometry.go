@@ -7,10 +7,9 @@ import (
 	"gonum.org/v1/gonum/unit"
 )
 
-// Conductor is the wire's surface metal. Silver-plated copper behaves as
-// copper at RF (the plating is thinner than a skin depth at HF and its
-// conductivity is within 6 % of copper's); tinned copper is modelled as
-// copper and flagged, because the tin skin raises RF resistance.
+// Conductor is the wire's surface metal. Silver-plated and tinned copper
+// are modelled as a plating on a copper core (plating.go): the plating
+// carries the RF current where it is comparable to a skin depth.
 type Conductor int
 
 const (
@@ -61,6 +60,10 @@ type Geometry struct {
 	WireOverall unit.Length
 	// Conductor is the surface metal; the zero value is copper.
 	Conductor Conductor
+	// Plating is the thickness of a silver-plated or tinned wire's plating;
+	// zero means the conductor's typical plating (TypicalPlating). It must
+	// be zero for bare copper.
+	Plating unit.Length
 	// Temperature of the conductor; zero means 20 °C.
 	Temperature unit.Temperature
 	// Turns is N, a multiple of 1/4, from 1 to MaxTurns.
@@ -150,6 +153,26 @@ func (g *Geometry) Validate() error {
 	}
 	if g.Conductor < Copper || g.Conductor > Tinned {
 		return inputErrorf("conductor", "unknown conductor %d", int(g.Conductor))
+	}
+	switch t := float64(g.Plating); {
+	case !finite(t) || t < 0:
+		return inputErrorf("plating", "must be a positive thickness, e.g. 1um")
+	case t > 0 && g.Conductor == Copper:
+		return inputErrorf("plating", "bare copper has no plating; give --conductor tinned or silver-plated, or leave the plating out")
+	case t > MaxPlating || t > d/4:
+		return inputErrorf("plating", "%s is thicker than the model accepts (at most %s and a quarter of the wire diameter)", quantity.FormatMillimetres(t), quantity.FormatMillimetres(math.Min(MaxPlating, d/4)))
+	}
+	return nil
+}
+
+// ValidateTurns reports whether n is a number of turns the model accepts,
+// with Validate's message.
+func ValidateTurns(n float64) error {
+	switch {
+	case !finite(n) || n < 1:
+		return inputErrorf("turns", "must be at least 1 (got %g)", n)
+	case n > MaxTurns:
+		return inputErrorf("turns", "%g is more than %d turns; a single-layer air coil that long is outside this model", n, MaxTurns)
 	}
 	return nil
 }

@@ -209,6 +209,7 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	p.SelfCapacitance = unit.Capacitance(cs)
 
 	w := NewWireAt(r, rho, lead, f)
+	w.Plate(PlatingRatio(g.Conductor, float64(g.Plating), rho, f))
 	p.RDC = unit.Resistance(w.RdcPerM * (helix + 2*lead))
 
 	var flags Flags

@@ -38,7 +38,8 @@ func (p *Prediction) Warnings() []string {
 			float64(p.Geometry.Pitch)*1e3))
 	}
 	if p.Flags&FlagTinned != 0 && f > 0 {
-		w = append(w, "tinned wire: the tin skin raises RF resistance, so Q is likely lower than shown (silver-plated or bare copper is better at VHF)")
+		w = append(w, fmt.Sprintf("tinned wire: the %.3g µm tin plating (override with --plating) raises RF resistance and Q includes it; silver-plated or bare copper is better at VHF",
+			tinMicrons(p.Geometry)))
 	}
 	return w
 }
@@ -71,4 +72,13 @@ func (p *Prediction) allFinite() bool {
 		}
 	}
 	return true
+}
+
+// tinMicrons is the tin plating the prediction assumed, in µm.
+func tinMicrons(g Geometry) float64 {
+	t := float64(g.Plating)
+	if t == 0 {
+		t = g.Conductor.TypicalPlating()
+	}
+	return t * 1e6
 }

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"slices"
+	"strconv"
 	"strings"
 	"time"
 
@@ -43,7 +44,11 @@ func (j *Job) Coil(name string) (*JobCoil, error) {
 	if i := findName(j.Coils, name, func(c JobCoil) string { return c.Name }); i >= 0 {
 		return &j.Coils[i], nil
 	}
-	return nil, &LookupError{Kind: "coil", Name: name,
+	among := make([]string, len(j.Coils))
+	for i, c := range j.Coils {
+		among[i] = strconv.Quote(c.Name)
+	}
+	return nil, &LookupError{Kind: "coil", Name: name, Among: among,
 		Suggestions: suggest(name, j.Coils, func(c JobCoil) string { return c.Name })}
 }
 
@@ -93,11 +98,12 @@ func (c *JobCoil) Label() string { return fmt.Sprintf("coil %q", c.Name) }
 // keys not given. For a design target the mandrel, former and wire, when
 // given, pin the search to them.
 type JobWinding struct {
-	Mandrel    string // slide off after winding (self-supporting)
-	Former     string // the coil stays on it
-	Wire       string // gauge, bare diameter or stock name
-	Insulation string // none, grade1..3 or an overall diameter
-	Conductor  string // copper, silver-plated, tinned
+	Mandrel    string       // slide off after winding (self-supporting)
+	Former     string       // the coil stays on it
+	Wire       string       // gauge, bare diameter or stock name
+	Insulation string       // none, grade1..3 or an overall diameter
+	Conductor  string       // copper, silver-plated, tinned
+	Plating    *unit.Length // plating thickness; nil: the conductor's typical
 	Springback *float64
 	Turns      *float64
 	Pitch      *unit.Length

@@ -95,6 +95,7 @@ func (l *jobLoader) winding(e *jobEntry, c *JobCoil) {
 	if _, present := e.m["leads"]; !present {
 		e.missing(errors.New(`add leads = "5mm": the length of each lead to the solder joint ("0mm" if you measure at the winding); at VHF leads are often 10–20 % of the inductance`))
 	}
+	w.Plating, _ = quantityOf(e, "plating", `"1um"`, quantity.ParseLength, false)
 	w.Temp, _ = quantityOf(e, "temp", `"40C"`, quantity.ParseTemperature, false)
 	w.Freq, _ = quantityOf(e, "freq", `"137.5MHz"`, quantity.ParseFrequency, false)
 }
@@ -305,7 +306,7 @@ func (l *jobLoader) span(e *jobEntry, c *JobCoil) {
 	if v, present := e.m["bands"]; present {
 		list, isList := v.([]any)
 		if !isList {
-			e.fail("bands", "bands", fmt.Errorf("is a %s; write a list, e.g. bands = [\"80m=3.5-3.8MHz\", \"7.0-7.2MHz\"]", tomlType(v)))
+			e.fail("bands", "bands", fmt.Errorf("is a %s; it must be a list of \"name=F1-F2\" strings in square brackets, e.g. bands = [\"80m=3.5-3.8MHz\", \"7.0-7.2MHz\"]", tomlType(v)))
 			ok = false
 		}
 		for i, b := range list {

@@ -136,7 +136,7 @@ func TestLoadJobErrors(t *testing.T) {
 		{"transmit a number", head + coil + "transmit = 1\n", 8, "is a number; write transmit = true or false"},
 		{"choose-tap as text", head + coil + "gang = \"12-365pF\"\nchoose-tap = \"yes\"\nbands = [\"3.5-3.8MHz\"]\n", 9, `choose-tap: "yes" is text`},
 		{"choose-tap with a bad band", head + coil + "gang = \"12-365pF\"\nchoose-tap = true\nbands = [\"80m=3.8-3.5MHz\"]\n", 10, "bands[1]"},
-		{"bands not a list", head + coil + "tap = 2\ngang = \"12-365pF\"\nbands = \"3.5-3.8MHz\"\n", 10, "write a list"},
+		{"bands not a list", head + coil + "tap = 2\ngang = \"12-365pF\"\nbands = \"3.5-3.8MHz\"\n", 10, "is a string; it must be a list of \"name=F1-F2\" strings"},
 		{"wrong dimension", head + coil + "freq = \"22pF\"\n", 8, "capacitance"},
 		{"bad date", head + "date = \"14/3/2026\"\n" + coil, 2, "2026-03-14"},
 		{"use mine without stock", head + "use = \"mine\"\n" + coil, 2, "needs a stock file"},

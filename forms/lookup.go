@@ -20,10 +20,25 @@ type LookupError struct {
 	Kind        string   // "wire", "mandrel", "former", "mandrel or former"
 	Name        string   // as asked for
 	Suggestions []string // close names, best first; may be empty
+	// Among, when set, is the whole list the name was looked for in (a
+	// job file's coils), shown instead of the catalog hint.
+	Among []string
 }
 
 func (e *LookupError) Error() string {
 	msg := fmt.Sprintf("%s %q not found", e.Kind, e.Name)
+	if e.Among != nil {
+		msg += " in the job file"
+		if len(e.Suggestions) > 0 {
+			return msg + "; did you mean " + strconv.Quote(e.Suggestions[0]) + "?"
+		}
+		names := e.Among
+		more := ""
+		if len(names) > 10 {
+			names, more = names[:10], fmt.Sprintf(" and %d more", len(e.Among)-10)
+		}
+		return msg + "; its coils are " + strings.Join(names, ", ") + more
+	}
 	switch n := len(e.Suggestions); n {
 	case 0:
 		return msg + "; list the catalog with turnwise stock, or add it to your stock file"

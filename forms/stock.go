@@ -305,6 +305,8 @@ func tomlType(v any) string {
 		return "number"
 	case bool:
 		return "true/false value"
+	case string:
+		return "string"
 	case []any, []map[string]any:
 		return "list"
 	case map[string]any:

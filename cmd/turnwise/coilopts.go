@@ -38,6 +38,7 @@ type coilOptions struct {
 	wire       string
 	insulation string
 	conductor  string
+	plating    lengthFlag
 	springback percentFlag
 	turns      turnsFlag
 	pitch      lengthFlag
@@ -53,6 +54,7 @@ func (o *coilOptions) addFlags(fs *pflag.FlagSet) {
 	fs.StringVar(&o.wire, "wire", "", "a gauge (22awg, 18swg), a diameter (1mm: bare copper unless --insulation says otherwise) or a stock wire name")
 	fs.StringVar(&o.insulation, "insulation", "", "none, grade1, grade2 (enamel) or the diameter over the insulation, e.g. 1.06mm (default: the stock row's, or none for a plain diameter)")
 	fs.StringVar(&o.conductor, "conductor", "", "copper, silver-plated or tinned (default: the stock row's, or copper)")
+	fs.Var(&o.plating, "plating", "thickness of a tinned or silver-plated wire's plating, e.g. 1um (default: tin 1um, silver 2um)")
 	fs.Var(&o.springback, "springback", "growth of the bore when released from the mandrel, percent (default: your saved calibration for this mandrel and wire, else 0)")
 	fs.Var(&o.turns, "turns", "number of turns, in quarter turns (5, 5.25, 5.5)")
 	fs.Var(&o.pitch, "pitch", "distance between turn centres, e.g. 1.5mm (default: close-wound)")
@@ -82,6 +84,9 @@ func (o *coilOptions) winding() forms.JobWinding {
 	}
 	if o.temp.set {
 		w.Temp = &o.temp.v
+	}
+	if o.plating.set {
+		w.Plating = &o.plating.v
 	}
 	return w
 }

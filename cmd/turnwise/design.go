@@ -182,6 +182,15 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 		Top:           o.top,
 		FreeDiameter:  o.freeDiameter,
 	}
+	for _, l := range []struct {
+		name string
+		f    lengthFlag
+		eg   string
+	}{{"max-length", o.maxLength, "15mm"}, {"max-diameter", o.maxDiameter, "20mm"}, {"max-wire-length", o.maxWireLength, "1m"}} {
+		if l.f.set && !(l.f.v > 0) {
+			return nil, nil, usageErrorf("--%s %s: a limit must be a positive length, e.g. --%s %s (leave the flag out for no limit)", l.name, l.f.raw, l.name, l.eg)
+		}
+	}
 	switch {
 	case o.top < 1 || o.top > design.MaxTop:
 		return nil, nil, usageErrorf("--top %d: give a number from 1 to %d", o.top, design.MaxTop)

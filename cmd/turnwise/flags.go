@@ -29,6 +29,10 @@ func (f *lengthFlag) Set(s string) error {
 	return nil
 }
 
+// MinFrequency is the lowest frequency a flag accepts, Hz: below it a coil
+// is a resistor and the printed numbers lose their meaning.
+const MinFrequency = 1.0
+
 type frequencyFlag struct {
 	raw string
 	v   unit.Frequency
@@ -41,6 +45,9 @@ func (f *frequencyFlag) Set(s string) error {
 	v, err := quantity.ParseFrequency(s)
 	if err != nil {
 		return err
+	}
+	if v < 0 || (v > 0 && v < MinFrequency) {
+		return fmt.Errorf("%q is below %g Hz, the lowest frequency turnwise works at; give e.g. 7.1MHz", clip(s), MinFrequency)
 	}
 	f.raw, f.v, f.set = s, v, true
 	return nil

@@ -61,7 +61,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	root := newRootCmd(g)
 	root.SetArgs(args)
 	c, err := root.ExecuteContextC(context.Background())
-	if err != nil && c == root {
+	if err != nil && (c == root || strings.HasPrefix(err.Error(), "unknown command")) {
 		// The root command runs nothing, so an error there is its command
 		// line: an unknown command (flag errors are usageErrors already).
 		var ue *usageError

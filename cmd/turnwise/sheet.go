@@ -102,7 +102,7 @@ file and renamed, so an existing FILE is replaced only by a complete one.
 			fs := cmd.Flags()
 			if len(args) == 1 {
 				opts.job = args[0]
-				for _, f := range []string{"mandrel", "former", "wire", "insulation", "conductor", "springback", "turns", "pitch", "length", "leads", "temp", "freq", "tap", "name", "quantity"} {
+				for _, f := range []string{"mandrel", "former", "wire", "insulation", "conductor", "plating", "springback", "turns", "pitch", "length", "leads", "temp", "freq", "tap", "name", "quantity"} {
 					if fs.Changed(f) {
 						return usageErrorf("--%s describes one coil without a job file; put it in %s instead, or drop the job file", f, args[0])
 					}

@@ -128,6 +128,11 @@ func (o *spanOptions) settings() (spec.SpanSettings, error) {
 		Steps: o.steps, LoadedQ: o.loadedQ, ChooseTap: o.chooseTap, VaryPitch: o.varyPitch,
 		Mounting: o.coil.mounting.v,
 	}
+	if o.steps < 2 || o.steps > 1001 {
+		// One rule for every value: 0 is not "the default", it is refused
+		// like 1 (the default, 11, applies when the flag is left out).
+		return s, usageErrorf("--steps %d: give 2 to 1001 dial rows (default 11)", o.steps)
+	}
 	if o.margin.set {
 		if o.margin.v <= 0 {
 			return s, usageErrorf("--margin must be above 0 %%, e.g. 3%%")

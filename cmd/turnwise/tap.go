@@ -62,6 +62,9 @@ func parseRatio(s string) (float64, error) {
 		}
 		v = x
 	}
+	if a, b, ok := strings.Cut(t, ":"); ok && v > 1 && !math.IsInf(v, 0) {
+		return 0, fmt.Errorf("%q: a tap ratio is the part over the whole, so it must be below 1; did you mean %s:%s?", s, strings.TrimSpace(b), strings.TrimSpace(a))
+	}
 	if math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 || v >= 1 {
 		return 0, fmt.Errorf("%q: a tap ratio must be between 0 and 1 (the tap sees part of the whole coil), e.g. 0.2 or 1:5", s)
 	}

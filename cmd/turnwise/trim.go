@@ -485,7 +485,7 @@ func (o *coilOptions) firstSet() string {
 		set  bool
 	}{
 		{"mandrel", o.mandrel != ""}, {"former", o.former != ""}, {"wire", o.wire != ""},
-		{"insulation", o.insulation != ""}, {"conductor", o.conductor != ""},
+		{"insulation", o.insulation != ""}, {"conductor", o.conductor != ""}, {"plating", o.plating.set},
 		{"springback", o.springback.set}, {"turns", o.turns.set}, {"pitch", o.pitch.set},
 		{"length", o.length.set}, {"leads", o.leads.set}, {"temp", o.temp.set},
 	} {

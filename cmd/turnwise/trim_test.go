@@ -165,7 +165,7 @@ func TestTrimBadInput(t *testing.T) {
 		{"job without coil", []string{"trim", "--job", job, "--measured-l", "90nH"}, "--coil"},
 		{"job and coil flags", []string{"trim", "--job", job, "--coil", "input", "--turns", "6", "--measured-l", "90nH"}, "--turns"},
 		{"coil without job", withArgs(coilFlags, "--coil", "input", "--measured-l", "90nH"), "--job"},
-		{"unknown job coil", []string{"trim", "--job", job, "--coil", "inptu", "--measured-l", "90nH"}, "did you mean input"},
+		{"unknown job coil", []string{"trim", "--job", job, "--coil", "inptu", "--measured-l", "90nH"}, "did you mean \"input\"?"},
 		{"job coil is a design target", []string{"trim", "--job", job, "--coil", "middle", "--measured-l", "90nH"}, "design target"},
 		{"missing job file", []string{"trim", "--job", "nope.toml", "--coil", "input", "--measured-l", "90nH"}, "nope.toml"},
 		{"pitch below wire", withArgs(coilFlags, "--measured-l", "90nH", "--pitch", "0.5mm"), "--pitch"},

@@ -411,6 +411,10 @@ func resolve(t Target, c Constraints) (settings, error) {
 		}
 		s.required = float64(coil.InductanceForResonance(t.Resonance, t.Capacitance+t.Stray))
 		if !(s.required >= 1e-12 && s.required <= 1) {
+			if alone := float64(coil.InductanceForResonance(t.Resonance, t.Capacitance)); t.Stray != 0 && alone >= 1e-12 && alone <= 1 {
+				return s, inputErrorf("stray", "%s of stray capacitance makes resonating at %s need %.3g H, outside 1 pH … 1 H; give the wiring's few pF, e.g. 2pF",
+					quantity.FormatCapacitance(float64(t.Stray)), quantity.FormatFrequency(s.matchF), s.required)
+			}
 			return s, inputErrorf("capacitance", "resonating at %s needs %.3g H, outside 1 pH … 1 H", quantity.FormatFrequency(s.matchF), s.required)
 		}
 	}
@@ -418,8 +422,16 @@ func resolve(t Target, c Constraints) (settings, error) {
 	switch {
 	case bl(c.LeadLength) || float64(c.LeadLength) > coil.MaxLeadLength:
 		return s, inputErrorf("lead_length", "must be between 0 and 1 m, e.g. 5mm")
-	case bl(c.MaxLength), bl(c.MaxDiameter), bl(c.MaxWireLength), bl(c.MinWire), bl(c.MaxWire):
-		return s, inputErrorf("constraints", "length limits must be finite and not negative")
+	case bl(c.MaxLength):
+		return s, inputErrorf("max_length", "must be a positive length, e.g. 15mm (zero means no limit)")
+	case bl(c.MaxDiameter):
+		return s, inputErrorf("max_diameter", "must be a positive length, e.g. 20mm (zero means no limit)")
+	case bl(c.MaxWireLength):
+		return s, inputErrorf("max_wire_length", "must be a positive length, e.g. 1m (zero means no limit)")
+	case bl(c.MinWire):
+		return s, inputErrorf("min_wire", "must be a positive length, e.g. 0.5mm (zero means no limit)")
+	case bl(c.MaxWire):
+		return s, inputErrorf("max_wire", "must be a positive length, e.g. 2mm (zero means no limit)")
 	case c.MinWire > 0 && c.MaxWire > 0 && c.MinWire > c.MaxWire:
 		return s, inputErrorf("min_wire", "%s is more than the maximum wire %s", quantity.FormatMillimetres(float64(c.MinWire)), quantity.FormatMillimetres(float64(c.MaxWire)))
 	case !finite(c.MinSRFRatio) || c.MinSRFRatio < 0 || (c.MinSRFRatio > 0 && c.MinSRFRatio < 1.2) || c.MinSRFRatio > 100:

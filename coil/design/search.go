@@ -208,6 +208,8 @@ func (x *search) prepareWires() {
 		dw := wireData{r: r, do: do, rho: rho, tinned: w.Conductor == coil.Tinned}
 		dw.atMatch = coil.NewWireAt(r, rho, lead, x.s.matchF)
 		dw.atOp = coil.NewWireAt(r, rho, lead, x.s.opF)
+		dw.atMatch.Plate(coil.PlatingRatio(w.Conductor, 0, rho, x.s.matchF))
+		dw.atOp.Plate(coil.PlatingRatio(w.Conductor, 0, rho, x.s.opF))
 		dw.rdcPerM = dw.atOp.RdcPerM
 		dw.fs = dw.atOp.Fs
 		dw.leadsMax = 2 * coil.LeadInductance(lead, r, 1)

@@ -190,6 +190,9 @@ func (d *dimension) parse(s string) (float64, error) {
 	}
 	b, scale, reason := d.unit(u)
 	if reason != "" {
+		if hint := d.prefixHint(t, u); hint != "" {
+			return fail(hint)
+		}
 		return fail(reason)
 	}
 	if d.convert != nil {
@@ -201,6 +204,31 @@ func (d *dimension) parse(s string) (float64, error) {
 		return fail("not a finite number")
 	}
 	return v, nil
+}
+
+// prefixNames spells out the SI prefixes a bare letter may mean.
+var prefixNames = map[string]string{"p": "pico", "n": "nano", "u": "micro", "µ": "micro", "m": "milli", "c": "centi",
+	"k": "kilo", "K": "kilo", "M": "mega", "G": "giga"}
+
+// prefixHint explains a unit that is an SI prefix alone ("145M" for a
+// frequency): it names the prefix and suggests the number with the prefix
+// and d's base unit, when that parses.
+func (d *dimension) prefixHint(t, u string) string {
+	name, ok := prefixNames[u]
+	if !ok || len(d.bases) == 0 {
+		return ""
+	}
+	for _, b := range d.bases {
+		if fb, _, _ := d.match(u + b.symbol); fb != nil {
+			num := strings.TrimSpace(strings.TrimSuffix(t, u))
+			sug := u
+			if u == "m" && d.mIsMega {
+				name, sug = "mega here", "M"
+			}
+			return fmt.Sprintf("%s alone is the prefix %s; did you mean %s%s%s?", u, name, num, sug, b.symbol)
+		}
+	}
+	return ""
 }
 
 // unit finds u among d's units. It returns the base, the prefix scale, or a

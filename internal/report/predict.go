@@ -24,7 +24,11 @@ func WritePredictTable(w io.Writer, s spec.Spec, p coil.Prediction, rec CoilReco
 	case "given":
 		row("springback", quantity.FormatPercent(g.Springback)+" (given)")
 	case "calibration":
-		row("springback", quantity.FormatPercent(g.Springback)+" (your saved calibration: "+s.SpringbackNote+")")
+		if note := strings.TrimSpace(s.SpringbackNote); note != "" {
+			row("springback", quantity.FormatPercent(g.Springback)+" (your saved calibration: "+note+")")
+		} else {
+			row("springback", quantity.FormatPercent(g.Springback)+" (your saved calibration)")
+		}
 	default:
 		if s.SupportKind == "mandrel" {
 			row("springback", "0 % assumed: measure the bore after release, or run `turnwise trim --save` once")

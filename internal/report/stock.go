@@ -3,9 +3,12 @@ package report
 import (
 	"fmt"
 	"io"
+	"strconv"
+	"strings"
 	"text/tabwriter"
 	"turnwise/forms"
 	"turnwise/internal/quantity"
+	"unicode"
 )
 
 type StockRecord struct {
@@ -85,29 +88,47 @@ func WriteStockTable(w io.Writer, cat *forms.Catalog, kind string, lf quantity.L
 	if want("wire") {
 		fmt.Fprintln(tw, "WIRE\tbare\toverall\tinsulation\tconductor\tsource")
 		for _, w := range cat.Wires {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", w.Name, lf.Format(float64(w.Bare)), lf.Format(float64(w.Overall)), w.Insulation, w.Conductor, originNote(w.Source, w.Origin))
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", printable(w.Name), lf.Format(float64(w.Bare)), lf.Format(float64(w.Overall)), printable(w.Insulation), printable(w.Conductor), printable(originNote(w.Source, w.Origin)))
 		}
 		fmt.Fprintln(tw)
 	}
 	if want("mandrel") {
 		fmt.Fprintln(tw, "MANDREL\tdiameter\tkind\tsource")
 		for _, m := range cat.Mandrels {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", m.Name, lf.Format(float64(m.Diameter)), m.Kind, originNote(m.Source, m.Origin))
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", printable(m.Name), lf.Format(float64(m.Diameter)), m.Kind, printable(originNote(m.Source, m.Origin)))
 		}
 		fmt.Fprintln(tw)
 	}
 	if want("former") {
 		fmt.Fprintln(tw, "FORMER\toutside dia.\tkind\tsource")
 		for _, f := range cat.Formers {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", f.Name, lf.Format(float64(f.Diameter)), f.Kind, originNote(f.Source, f.Origin))
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", printable(f.Name), lf.Format(float64(f.Diameter)), f.Kind, printable(originNote(f.Source, f.Origin)))
 		}
 		fmt.Fprintln(tw)
 	}
 	if want("calibration") && len(cat.Calibrations) > 0 {
 		fmt.Fprintln(tw, "CALIBRATION\twire\tspringback\tnote")
 		for _, c := range cat.Calibrations {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", c.Mandrel, c.Wire, quantity.FormatPercent(c.Springback), c.Note)
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", printable(c.Mandrel), printable(c.Wire), quantity.FormatPercent(c.Springback), printable(c.Note))
 		}
 	}
 	return tw.Flush()
+}
+
+// printable escapes control characters in a name from a stock file (an
+// escape sequence would repaint the terminal, a tab break the table): each
+// is shown as Go writes it, e.g. \x1b.
+func printable(s string) string {
+	if !strings.ContainsFunc(s, unicode.IsControl) {
+		return s
+	}
+	var b strings.Builder
+	for _, r := range s {
+		if unicode.IsControl(r) {
+			b.WriteString(strings.Trim(strconv.QuoteRune(r), "'"))
+			continue
+		}
+		b.WriteRune(r)
+	}
+	return b.String()
 }

@@ -62,9 +62,9 @@ func WriteTapTable(w io.Writer, s spec.Spec, p coil.Prediction, goal coil.TapGoa
 	case "bottom_inductance":
 		fmt.Fprintf(tw, "TAP FOR %s BELOW THE TAP (nearest quarter turns)\n", quantity.FormatEng(target, "H", 3))
 	case "impedance_ratio":
-		fmt.Fprintf(tw, "TAP FOR AN IMPEDANCE RATIO OF %.4g (1:%.4g; nearest quarter turns)\n", target, 1/target)
+		fmt.Fprintf(tw, "TAP FOR AN IMPEDANCE RATIO OF %.4g (%s; nearest quarter turns)\n", target, OneTo(target))
 	default:
-		fmt.Fprintf(tw, "TAP FOR A VOLTAGE RATIO OF %.4g (1:%.4g; nearest quarter turns)\n", target, 1/target)
+		fmt.Fprintf(tw, "TAP FOR A VOLTAGE RATIO OF %.4g (%s; nearest quarter turns)\n", target, OneTo(target))
 	}
 	header := "  TAP (FROM COLD END)\tALONG THE COIL\tL BELOW\tL ABOVE\tM\tk\tVOLTAGE RATIO\tIMPEDANCE RATIO"
 	if goalKey != "at" {
@@ -94,13 +94,24 @@ func WriteTapTable(w io.Writer, s spec.Spec, p coil.Prediction, goal coil.TapGoa
 	return tw.Flush()
 }
 
+// OneTo prints a ratio r in (0, 1) as 1:N with N to three significant
+// figures and never in exponent form: 1:5, 1:4.41, 1:1220.
+func OneTo(r float64) string {
+	n := 1 / r
+	if n >= 100 {
+		e := math.Pow(10, math.Floor(math.Log10(n))-2)
+		return fmt.Sprintf("1:%.0f", math.Round(n/e)*e)
+	}
+	return fmt.Sprintf("1:%.3g", n)
+}
+
 // ratioCell prints a ratio with its 1:N form; a tap at the cold terminal
 // has ratio 0 and no 1:N.
 func ratioCell(format string, r float64) string {
 	if r <= 0 {
 		return fmt.Sprintf(format, 0.0) + " (cold end)"
 	}
-	return fmt.Sprintf(format+" (1:%.3g)", r, 1/r)
+	return fmt.Sprintf(format+" (%s)", r, OneTo(r))
 }
 
 // missCell prints how far a tap misses its target; a miss of more than
@@ -118,7 +129,7 @@ func TapGoalValue(goal coil.TapGoal, v float64) string {
 	if goal == coil.GoalBottomInductance {
 		return quantity.FormatEng(v, "H", 3) + " below the tap"
 	}
-	return fmt.Sprintf("%s %.4g (1:%.3g)", goal, v, 1/v)
+	return fmt.Sprintf("%s %.4g (%s)", goal, v, OneTo(v))
 }
 
 // NewTapRecord is tap's JSON document for the choices found for goal

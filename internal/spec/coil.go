@@ -126,6 +126,9 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 		LeadLength:   *o.Leads,
 		Temperature:  temp,
 	}
+	if o.Plating != nil {
+		g.Plating = *o.Plating
+	}
 	supportFlag := "mandrel"
 	if o.Mandrel != "" {
 		s.SupportKind = coil.SupportMandrel
@@ -163,9 +166,18 @@ func Resolve(cat *forms.Catalog, o forms.JobWinding) (Spec, error) {
 	case o.Pitch != nil:
 		g.Pitch, s.PitchSource = *o.Pitch, coil.PitchGiven
 	case o.Length != nil:
-		p, err := coil.PitchForWindingLength(*o.Turns, overall, *o.Length)
+		n := *o.Turns
+		if !(n >= 1) {
+			// The turns are wrong whatever the length: blame them.
+			return s, AttachFlag(coil.ValidateTurns(n), supportFlag, coil.PitchGiven)
+		}
+		p, err := coil.PitchForWindingLength(n, overall, *o.Length)
 		if err != nil {
-			return s, &FlagError{Flag: "length", Err: err}
+			return s, AttachFlag(err, supportFlag, coil.PitchFromLength)
+		}
+		if float64(p) > coil.MaxPitch {
+			return s, &FlagError{Flag: "length", Err: fmt.Errorf("%s over %g turns gives a pitch of %s between turn centres, more than the %s the model accepts; use more turns or a shorter --length",
+				quantity.FormatMillimetres(float64(*o.Length)), n, quantity.FormatMillimetres(float64(p)), quantity.FormatMillimetres(coil.MaxPitch))}
 		}
 		g.Pitch, s.PitchSource = p, coil.PitchFromLength
 	default:
@@ -196,6 +208,7 @@ func AttachFlag(err error, supportFlag string, pitchSource coil.PitchSource) err
 		"frequency":             "freq",
 		"winding_length":        "length",
 		"conductor":             "conductor",
+		"plating":               "plating",
 	}[ie.Param]
 	if ie.Param == "pitch" {
 		flag = "pitch"
@@ -274,7 +287,8 @@ func ResolveMandrel(cat *forms.Catalog, s string) (unit.Length, string, error) {
 	d, err := quantity.ParseLength(s)
 	if err != nil {
 		_, lookupErr := cat.Mandrel(s)
-		if looksLikeQuantity(s) {
+		var le *forms.LookupError
+		if looksLikeQuantity(s) && !(errors.As(lookupErr, &le) && len(le.Suggestions) > 0) {
 			return 0, "", &FlagError{Flag: "mandrel", Err: err}
 		}
 		return 0, "", &FlagError{Flag: "mandrel", Err: fmt.Errorf("%w; or give a diameter such as 6mm", lookupErr)}
@@ -290,7 +304,8 @@ func ResolveFormer(cat *forms.Catalog, s string) (unit.Length, string, error) {
 	d, err := quantity.ParseLength(s)
 	if err != nil {
 		_, lookupErr := cat.Former(s)
-		if looksLikeQuantity(s) {
+		var le *forms.LookupError
+		if looksLikeQuantity(s) && !(errors.As(lookupErr, &le) && len(le.Suggestions) > 0) {
 			return 0, "", &FlagError{Flag: "former", Err: err}
 		}
 		return 0, "", &FlagError{Flag: "former", Err: fmt.Errorf("%w; or give an outside diameter such as 20mm", lookupErr)}

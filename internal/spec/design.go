@@ -334,6 +334,7 @@ var searchFlags = map[string]string{
 	"resonance":       "freq",
 	"frequency":       "freq",
 	"capacitance":     "cap",
+	"stray":           "stray",
 	"tolerance":       "tolerance",
 	"lead_length":     "leads",
 	"temperature":     "temp",
@@ -350,6 +351,7 @@ var searchFlags = map[string]string{
 	"max_length":      "max-length",
 	"max_diameter":    "max-diameter",
 	"max_wire_length": "max-wire-length",
+	"max_wire":        "max-wire",
 }
 
 // searchError names the flag behind a model error and adds the flag to try
