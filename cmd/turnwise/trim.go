@@ -169,7 +169,7 @@ type trimCoil struct {
 // trimResult is the library's result with what the writers need besides.
 type trimResult = report.Trim
 
-func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
+func runTrim(ctx context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
 	m, via, err := opts.measurement()
 	if err != nil {
 		return err
@@ -183,7 +183,7 @@ func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) err
 		return err
 	}
 	if opts.save {
-		s, err := saveTrimCalibration(tc, res)
+		s, err := saveTrimCalibration(ctx, tc, res)
 		if err != nil {
 			return err
 		}
