@@ -54,10 +54,15 @@ Every command prints a table, or JSON with --json (SI units: H, F, Hz, m, Ω).
 // run executes the command line args and returns the exit status. Errors
 // are printed here, once.
 func run(args []string, stdout, stderr io.Writer) int {
+	return runContext(context.Background(), args, stdout, stderr)
+}
+
+// runContext is run with a context that a signal cancels (main.go).
+func runContext(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	g := &globalOptions{stdout: stdout, stderr: stderr}
 	root := newRootCmd(g)
 	root.SetArgs(args)
-	c, err := root.ExecuteContextC(context.Background())
+	c, err := root.ExecuteContextC(ctx)
 	if err != nil && c == root {
 		// The root command runs nothing, so an error there is its command
 		// line: an unknown command (flag errors are usageErrors already).

@@ -8,8 +8,8 @@ import (
 	"io"
 	"io/fs"
 	"os"
-	"turnwise/internal/quantity"
 	"turnwise/internal/atomicfile"
+	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 
 	"turnwise/coil/trim"
