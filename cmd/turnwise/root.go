@@ -48,6 +48,7 @@ Every command prints a table, or JSON with --json (SI units: H, F, Hz, m, Ω).
 		newTrimCmd(g),
 		newDesignCmd(g),
 	)
+	setUpCompletion(root)
 	return root
 }
 

@@ -143,9 +143,7 @@ func runSheet(ctx context.Context, opts *sheetOptions, stdout, stderr io.Writer)
 	if err != nil {
 		return err
 	}
-	for _, w := range warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, warnings)
 	report := stdout
 	if opts.output == "-" {
 		report = stderr

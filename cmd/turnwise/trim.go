@@ -190,14 +190,13 @@ func runTrim(ctx context.Context, opts *trimOptions, stdout, stderr io.Writer) e
 		res.Saved = s
 	}
 	if opts.json {
-		return report.WriteTrimJSON(stdout, res)
-	}
-	if err := report.WriteTrimTable(stdout, res); err != nil {
+		if err := report.WriteTrimJSON(stdout, res); err != nil {
+			return err
+		}
+	} else if err := report.WriteTrimTable(stdout, res); err != nil {
 		return err
 	}
-	for _, w := range res.Warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, res.Warnings)
 	return nil
 }
 

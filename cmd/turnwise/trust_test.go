@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"encoding/json"
 	"fmt"
 	"io/fs"
 	"os"
@@ -333,6 +334,126 @@ func TestSheetSignalLeavesNothing(t *testing.T) {
 			}
 			if len(names) != 1 || names[0] != "big.toml" {
 				t.Errorf("files left after %v: %v", tc.sig, names)
+			}
+		})
+	}
+}
+
+// With --json the warnings are in the JSON warnings array and on stderr,
+// the same lines as in table mode, for every command that warns.
+func TestJSONWarningsOnStderr(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	for name, args := range map[string][]string{
+		"predict": {"predict", "--mandrel", "6mm", "--wire", "1mm", "--turns", "30", "--length", "40mm", "--leads", "50mm", "--freq", "145MHz"},
+		"design":  {"design", "--inductance", "100nH", "--freq", "145MHz"},
+		"trim":    {"trim", "--mandrel", "6.5mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm", "--measured-l", "90nH"},
+	} {
+		t.Run(name, func(t *testing.T) {
+			_, tableErr, code := runCLI(t, args...)
+			if code != exitOK || tableErr == "" {
+				t.Fatalf("table: exit %d, stderr %q; want warnings", code, tableErr)
+			}
+			out, jsonErr, code := runCLI(t, append(args, "--json")...)
+			if code != exitOK {
+				t.Fatalf("json: exit %d %s", code, jsonErr)
+			}
+			if jsonErr != tableErr {
+				t.Errorf("stderr with --json %q, without %q", jsonErr, tableErr)
+			}
+			var doc struct{ Warnings []string }
+			if err := json.Unmarshal([]byte(out), &doc); err != nil {
+				t.Fatal(err)
+			}
+			for _, w := range doc.Warnings {
+				if !strings.Contains(jsonErr, "warning: "+w+"\n") {
+					t.Errorf("JSON warning %q not on stderr", w)
+				}
+			}
+			if len(doc.Warnings) == 0 {
+				t.Error("no warnings in the JSON")
+			}
+		})
+	}
+}
+
+// Exit codes the README states: a blank --title is bad input on --title;
+// an unknown or missing completion shell is exit 2 naming the shells;
+// version has --json like every command.
+func TestExitCodesAndVersionJSON(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	tests := []struct {
+		name string
+		args []string
+		code int
+		want string
+	}{
+		{"blank title", []string{"sheet", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "8mm", "--leads", "5mm", "--title", " ", "-o", filepath.Join(dir, "x.pdf")}, exitBadInput, "turnwise: --title is blank"},
+		{"completion tcsh", []string{"completion", "tcsh"}, exitBadInput, "bash, zsh, fish, powershell"},
+		{"completion without shell", []string{"completion"}, exitBadInput, "completion needs a shell"},
+		{"completion bash", []string{"completion", "bash"}, exitOK, ""},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			_, stderr, code := runCLI(t, tc.args...)
+			if code != tc.code || !strings.Contains(stderr, tc.want) || (tc.want != "" && strings.Count(stderr, "\n") != 1) {
+				t.Errorf("exit %d, stderr %q; want %d and one line with %q", code, stderr, tc.code, tc.want)
+			}
+		})
+	}
+	if ents, _ := os.ReadDir(dir); len(ents) != 0 {
+		t.Errorf("files written: %v", ents)
+	}
+	out, stderr, code := runCLI(t, "version", "--json")
+	var doc struct {
+		Schema   int
+		Version  string
+		Warnings []string
+	}
+	if code != exitOK || json.Unmarshal([]byte(out), &doc) != nil || doc.Schema != 1 || doc.Version == "" || doc.Warnings == nil {
+		t.Errorf("version --json: exit %d, %q %q", code, out, stderr)
+	}
+}
+
+// Shell completion offers the words of the choice flags and stock names,
+// the user's stock file included.
+func TestFlagCompletion(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	stock := filepath.Join("..", "..", "testdata", "stock", "bench.toml")
+	tests := []struct {
+		args []string
+		want []string
+	}{
+		{[]string{"design", "--prefer", ""}, []string{"balanced", "q", "small", "easy"}},
+		{[]string{"predict", "--units", ""}, []string{"mm", "in"}},
+		{[]string{"span", "--law", ""}, []string{"slc", "slf", "slw"}},
+		{[]string{"design", "--support", ""}, []string{"any", "mandrel", "former"}},
+		{[]string{"predict", "--conductor", ""}, []string{"copper", "silver-plated", "tinned"}},
+		{[]string{"predict", "--insulation", "gr"}, []string{"grade1", "grade2"}},
+		{[]string{"predict", "--wire", "22"}, []string{"22awg"}},
+		{[]string{"predict", "--stock", stock, "--wire", "gr"}, []string{"green spool"}},
+		{[]string{"trim", "--stock", stock, "--mandrel", "brass"}, []string{"brass rod 6"}},
+		{[]string{"design", "--former", ""}, nil}, // built-in formers: checked non-empty below
+	}
+	for _, tc := range tests {
+		t.Run(strings.Join(tc.args, " "), func(t *testing.T) {
+			out, stderr, code := runCLI(t, append([]string{"__complete"}, tc.args...)...)
+			if code != exitOK {
+				t.Fatalf("exit %d: %s", code, stderr)
+			}
+			lines := strings.Split(strings.TrimSpace(out), "\n")
+			got := lines[:len(lines)-1] // the last line is the directive
+			if len(got) == 0 {
+				t.Fatalf("no completions: %q", out)
+			}
+			for _, w := range tc.want {
+				found := false
+				for _, g := range got {
+					found = found || g == w
+				}
+				if !found {
+					t.Errorf("%q not offered; got %v", w, got)
+				}
 			}
 		})
 	}
