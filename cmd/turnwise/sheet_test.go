@@ -341,7 +341,7 @@ func TestSheetBadJob(t *testing.T) {
 			if b, _ := os.ReadFile(out); string(b) != "previous" {
 				t.Error("the existing output was changed")
 			}
-			if left, _ := filepath.Glob(filepath.Join(dir, ".keep.pdf.tmp-*")); len(left) > 0 {
+			if left, _ := filepath.Glob(filepath.Join(dir, ".turnwise-tmp-*")); len(left) > 0 {
 				t.Errorf("temporary files left: %v", left)
 			}
 		})
