@@ -8,8 +8,6 @@ import (
 	"path/filepath"
 )
 
-var errUnsupported = errors.New("advisory locks are not supported here")
-
 // LockSuffix names the lock file Lock keeps beside the file it guards.
 const LockSuffix = ".lock"
 

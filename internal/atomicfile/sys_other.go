@@ -3,6 +3,7 @@
 package atomicfile
 
 import (
+	"errors"
 	"io/fs"
 	"os"
 )
@@ -20,3 +21,5 @@ func writable(_ string, st fs.FileInfo) error {
 // used instead.
 func lockFile(*os.File) error   { return errUnsupported }
 func unlockFile(*os.File) error { return nil }
+
+var errUnsupported = errors.New("advisory locks are not supported here")
