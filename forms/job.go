@@ -172,7 +172,6 @@ var (
 
 // Limits on job values: outside them a value is a typo.
 const (
-	maxJobBytes    = 4 << 20
 	maxJobCoils    = 500
 	maxJobQuantity = 10000
 	maxJobSteps    = 10000
@@ -223,14 +222,14 @@ const (
 //	steps = 11   loaded-q = 60   margin = "3%"   choose-tap = true
 //	bands = ["80m=3.5-3.8MHz", "7.0-7.2MHz"]
 func LoadJob(r io.Reader, name string) (*Job, error) {
-	data, err := io.ReadAll(io.LimitReader(r, maxJobBytes+1))
+	data, err := io.ReadAll(io.LimitReader(r, MaxFileBytes+1))
 	if err != nil {
 		return nil, &ParseError{Kind: "job", File: name, Err: err}
 	}
-	if len(data) > maxJobBytes {
-		return nil, &ParseError{Kind: "job", File: name, Err: fmt.Errorf("larger than %d MiB; is this the right file?", maxJobBytes>>20)}
-	}
 	text := string(data)
+	if err := checkShape(text, "job", name); err != nil {
+		return nil, err
+	}
 	var doc map[string]any
 	if _, err := toml.Decode(text, &doc); err != nil {
 		var pe toml.ParseError

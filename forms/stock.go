@@ -66,7 +66,6 @@ const (
 	maxHolder       = 1000e-3 // m
 	minSpringback   = -0.20
 	maxSpringback   = 0.50
-	maxStockBytes   = 4 << 20
 	stockSourceText = "user stock"
 )
 
@@ -88,14 +87,14 @@ var stockSections = []string{"wire", "mandrel", "former", "calibration"}
 // The result holds only the file's rows. Calibrations may name rows of this
 // file or built-in ones; combine with Merge(builtIn, stock) for lookups.
 func LoadStock(r io.Reader, name string) (*Catalog, error) {
-	data, err := io.ReadAll(io.LimitReader(r, maxStockBytes+1))
+	data, err := io.ReadAll(io.LimitReader(r, MaxFileBytes+1))
 	if err != nil {
 		return nil, &ParseError{File: name, Err: err}
 	}
-	if len(data) > maxStockBytes {
-		return nil, &ParseError{File: name, Err: fmt.Errorf("larger than %d MiB; is this the right file?", maxStockBytes>>20)}
-	}
 	text := string(data)
+	if err := checkShape(text, "", name); err != nil {
+		return nil, err
+	}
 	var doc map[string]any
 	if _, err := toml.Decode(text, &doc); err != nil {
 		var pe toml.ParseError

@@ -174,7 +174,7 @@ func (o *circuitOptions) settings() (spec.CircuitSettings, error) {
 	return set, nil
 }
 
-func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Writer) error {
+func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Writer) error {
 	set, err := opts.settings()
 	if err != nil {
 		return err
@@ -207,17 +207,17 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 	// Files first, so an unwritable path fails before anything is printed.
 	if opts.plot != "" {
 		format := strings.TrimPrefix(strings.ToLower(filepath.Ext(opts.plot)), ".")
-		if err := writeFileAtomic(opts.plot, 0o644, stdout, func(w io.Writer) error {
+		if err := writeOutput(ctx, "--plot", opts.plot, circuitInputs(opts), stdout, func(w io.Writer) error {
 			return sheets.PlotCircuit(w, r.SheetCircuit(), format, 160, 100)
 		}); err != nil {
-			return withFlag("plot", err)
+			return err
 		}
 	}
 	if opts.touchstone != "" {
-		if err := writeFileAtomic(opts.touchstone, 0o644, stdout, func(w io.Writer) error {
+		if err := writeOutput(ctx, "--touchstone", opts.touchstone, circuitInputs(opts), stdout, func(w io.Writer) error {
 			return writeCircuitTouchstone(w, m, r)
 		}); err != nil {
-			return withFlag("touchstone", err)
+			return err
 		}
 	}
 	if opts.spice != "" {
@@ -229,11 +229,11 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 		if err != nil {
 			return m.FileError(err)
 		}
-		if err := writeFileAtomic(opts.spice, 0o644, stdout, func(w io.Writer) error {
+		if err := writeOutput(ctx, "--spice", opts.spice, circuitInputs(opts), stdout, func(w io.Writer) error {
 			return s.WriteSpice(w, circuit.SpiceOptions{Title: "* " + r.TitleOrFile(), At: at,
 				From: r.Freqs[0], To: r.Freqs[len(r.Freqs)-1], Points: len(r.Freqs), Log: r.Log})
 		}); err != nil {
-			return withFlag("spice", err)
+			return err
 		}
 	}
 	if opts.json {
@@ -260,4 +260,10 @@ func writeCircuitTouchstone(w io.Writer, m *spec.CircuitModel, r *spec.CircuitRe
 		return usageErrorf("the two ports have different reference impedances; Touchstone 1.1 has one")
 	}
 	return touchstone.Write(w, d, []string{"turnwise circuit: " + r.TitleOrFile(), "computed response, not a measurement"})
+}
+
+// circuitInputs are the files a circuit run reads: an output must not be one
+// of them.
+func circuitInputs(opts *circuitOptions) []string {
+	return []string{opts.file, opts.stock.path}
 }

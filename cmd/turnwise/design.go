@@ -2,7 +2,6 @@ package main
 
 import (
 	"context"
-	"fmt"
 	"io"
 	"math"
 	"strings"
@@ -230,13 +229,12 @@ func runDesign(_ context.Context, opts *designOptions, srfGiven bool, stdout, st
 	}
 	warnings := append(notes, res.Warnings...)
 	if opts.json {
-		return report.WriteDesignJSON(stdout, cat, so, res, warnings)
-	}
-	if err := report.WriteDesignTable(stdout, cat, so, res, newLengthFormatter(opts.units.v)); err != nil {
+		if err := report.WriteDesignJSON(stdout, cat, so, res, warnings); err != nil {
+			return err
+		}
+	} else if err := report.WriteDesignTable(stdout, cat, so, res, newLengthFormatter(opts.units.v)); err != nil {
 		return err
 	}
-	for _, w := range warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, warnings)
 	return nil
 }

@@ -16,10 +16,11 @@ import (
 
 // Exit codes, the same for every command (design.md).
 const (
-	exitOK         = 0 // success
-	exitFailure    = 1 // runtime failure: I/O, an unexpected error
-	exitBadInput   = 2 // bad flag, value, file content or combination
-	exitInfeasible = 3 // a valid request that no coil meets
+	exitOK         = 0   // success
+	exitFailure    = 1   // runtime failure: I/O, an unexpected error
+	exitBadInput   = 2   // bad flag, value, file content or combination
+	exitInfeasible = 3   // a valid request that no coil meets
+	exitSignal     = 128 // + the signal number: interrupted (130 Ctrl-C, 143 SIGTERM)
 )
 
 // exitStatusHelp ends every command's Long help.
@@ -29,7 +30,8 @@ EXIT STATUS
   1  runtime failure (for example an unwritable file)
   2  bad input: the message names the flag or field and the fix
   3  valid request, but no coil meets it: the message says which
-     constraint binds and what is nearest`
+     constraint binds and what is nearest
+  130, 143  interrupted (Ctrl-C, SIGTERM): no output file is written`
 
 // exitCode maps an error to the process exit status.
 func exitCode(err error) int {

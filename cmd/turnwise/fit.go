@@ -128,7 +128,7 @@ in a powered circuit.
 	return cmd
 }
 
-func runFit(_ context.Context, opts *fitOptions, stdout, _ io.Writer) error {
+func runFit(ctx context.Context, opts *fitOptions, stdout, _ io.Writer) error {
 	ld, fx, fit, err := opts.sweep.load(opts.file, float64(opts.freq.v))
 	if err != nil {
 		return err
@@ -146,7 +146,7 @@ func runFit(_ context.Context, opts *fitOptions, stdout, _ io.Writer) error {
 	rec := report.NewFitRecord(opts.file, fx, ld.Corrected, opts.sweep.lead, fit, model)
 	if opts.plot != "" {
 		format, _ := sweepfile.PlotFormat(opts.plot)
-		if err := writeFileAtomic(opts.plot, 0o644, stdout, func(w io.Writer) error {
+		if err := writeOutput(ctx, "--plot", opts.plot, []string{opts.file, opts.sweep.open, opts.sweep.short}, stdout, func(w io.Writer) error {
 			return sweepfile.PlotFit(w, format, opts.file, ld, fit, asWound)
 		}); err != nil {
 			return err

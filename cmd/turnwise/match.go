@@ -325,7 +325,7 @@ func runMatch(ctx context.Context, opts *matchOptions, stdout, stderr io.Writer)
 		return matchError(err, opts.circuit)
 	}
 	if format != "" {
-		err := writeFileAtomic(opts.plot, 0o644, stdout, func(w io.Writer) error {
+		err := writeOutput(ctx, "--plot", opts.plot, []string{opts.circuit, opts.stock.path}, stdout, func(w io.Writer) error {
 			return report.WriteMatchPlot(w, format, req, res)
 		})
 		if err != nil {

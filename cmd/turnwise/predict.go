@@ -3,7 +3,6 @@ package main
 import (
 	"context"
 	"encoding/json"
-	"fmt"
 	"io"
 	"strings"
 
@@ -71,13 +70,12 @@ func runPredict(_ context.Context, opts *predictOptions, stdout, stderr io.Write
 		}{report.SchemaVersion, rec}
 		enc := json.NewEncoder(stdout)
 		enc.SetIndent("", "  ")
-		return enc.Encode(doc)
-	}
-	if err := report.WritePredictTable(stdout, spec, p, rec, newLengthFormatter(opts.units.v)); err != nil {
+		if err := enc.Encode(doc); err != nil {
+			return err
+		}
+	} else if err := report.WritePredictTable(stdout, spec, p, rec, newLengthFormatter(opts.units.v)); err != nil {
 		return err
 	}
-	for _, w := range rec.Warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, rec.Warnings)
 	return nil
 }

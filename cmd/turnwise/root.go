@@ -51,17 +51,45 @@ Every command prints a table, or JSON with --json (SI units: H, F, Hz, m, Ω).
 		newFitCmd(g),
 		newMatchCmd(g),
 	)
+	setUpCompletion(root)
+	argsAreUsage(root)
 	return root
+}
+
+// argsAreUsage makes every command's positional-argument check return a
+// usageError (exit 2): cobra's own checks return plain errors, and the exit
+// code is chosen by type, never by reading the message.
+func argsAreUsage(c *cobra.Command) {
+	if check := c.Args; check != nil {
+		c.Args = func(cmd *cobra.Command, args []string) error {
+			if err := check(cmd, args); err != nil {
+				var ue *usageError
+				if errors.As(err, &ue) {
+					return err
+				}
+				return &usageError{Msg: err.Error(), Err: err}
+			}
+			return nil
+		}
+	}
+	for _, sub := range c.Commands() {
+		argsAreUsage(sub)
+	}
 }
 
 // run executes the command line args and returns the exit status. Errors
 // are printed here, once.
 func run(args []string, stdout, stderr io.Writer) int {
+	return runContext(context.Background(), args, stdout, stderr)
+}
+
+// runContext is run with a context that a signal cancels (main.go).
+func runContext(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	g := &globalOptions{stdout: stdout, stderr: stderr}
 	root := newRootCmd(g)
 	root.SetArgs(args)
-	c, err := root.ExecuteContextC(context.Background())
-	if err != nil && (c == root || strings.HasPrefix(err.Error(), "unknown command")) {
+	c, err := root.ExecuteContextC(ctx)
+	if err != nil && c == root {
 		// The root command runs nothing, so an error there is its command
 		// line: an unknown command (flag errors are usageErrors already).
 		var ue *usageError

@@ -12,6 +12,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"turnwise/coil"
+	"turnwise/forms"
 	"turnwise/internal/spec"
 	"turnwise/sheets"
 )
@@ -22,6 +23,7 @@ type sheetOptions struct {
 	coil       coilOptions
 	stock      *stockOptions
 	stockGiven bool // --stock or --use on the command line: overrides the job's
+	titleGiven bool // --title on the command line
 	freq       frequencyFlag
 	tap        turnsFlag
 	units      *choiceFlag
@@ -109,6 +111,7 @@ file and renamed, so an existing FILE is replaced only by a complete one.
 				}
 			}
 			opts.stockGiven = fs.Changed("stock") || fs.Changed("use")
+			opts.titleGiven = fs.Changed("title")
 			return runSheet(cmd.Context(), opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
 		},
 	}
@@ -129,20 +132,18 @@ file and renamed, so an existing FILE is replaced only by a complete one.
 	return cmd
 }
 
-func runSheet(_ context.Context, opts *sheetOptions, stdout, stderr io.Writer) error {
-	doc, warnings, err := sheetDocument(opts)
+func runSheet(ctx context.Context, opts *sheetOptions, stdout, stderr io.Writer) error {
+	doc, warnings, inputs, err := sheetDocument(opts)
 	if err != nil {
 		return err
 	}
-	err = writeFileAtomic(opts.output, 0o644, stdout, func(w io.Writer) error {
+	err = writeOutput(ctx, "-o", opts.output, inputs, stdout, func(w io.Writer) error {
 		return sheets.Render(w, doc, sheets.Options{Uncompressed: opts.uncompressed})
 	})
 	if err != nil {
-		return fmt.Errorf("-o %w", err)
+		return err
 	}
-	for _, w := range warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, warnings)
 	report := stdout
 	if opts.output == "-" {
 		report = stderr
@@ -182,11 +183,21 @@ func sheetPlural(n int, one, many string) string {
 }
 
 // sheetDocument resolves every coil before anything is written, so a bad
-// job file leaves no output behind.
-func sheetDocument(opts *sheetOptions) (sheets.Document, []string, error) {
+// job file leaves no output behind. inputs lists the files it read (job,
+// stock, law tables), which -o must not name.
+func sheetDocument(opts *sheetOptions) (doc sheets.Document, warnings, inputs []string, err error) {
+	doc, warnings, err = sheetDocumentOf(opts, &inputs)
+	return doc, warnings, inputs, err
+}
+
+func sheetDocumentOf(opts *sheetOptions, inputs *[]string) (sheets.Document, []string, error) {
 	doc := sheets.Document{Title: opts.title, Paper: opts.paper.v, Units: opts.units.v}
 	var warnings []string
 	var date time.Time
+	if opts.titleGiven && strings.TrimSpace(opts.title) == "" {
+		return doc, nil, usageErrorf("--title is blank; give the words to print on every page, e.g. --title \"Club build night\", or leave --title out")
+	}
+	*inputs = append(*inputs, opts.stock.path)
 	if opts.date != "" {
 		d, err := time.Parse("2006-01-02", strings.TrimSpace(opts.date))
 		if err != nil {
@@ -205,10 +216,12 @@ func sheetDocument(opts *sheetOptions) (sheets.Document, []string, error) {
 			doc.Title = "Build sheet"
 		}
 	} else {
+		*inputs = append(*inputs, opts.job)
 		job, err := spec.LoadJob(opts.job)
 		if err != nil {
 			return doc, nil, err
 		}
+		*inputs = append(*inputs, jobInputs(job)...)
 		cat, err := spec.JobCatalog(job, opts.stock.path, opts.stock.use.v, opts.stockGiven)
 		if err != nil {
 			return doc, nil, err
@@ -286,4 +299,25 @@ func flagSheetCoil(opts *sheetOptions) (sheets.Coil, []string, error) {
 		c.Tap = spec.SheetTap(s)
 	}
 	return c, spec.SheetWarnings(c.Name, c.Warnings), nil
+}
+
+// jobInputs lists the other files a job reads: its stock file and law
+// tables, as given and relative to the job file.
+func jobInputs(job *forms.Job) []string {
+	var out []string
+	rel := func(p string) {
+		out = append(out, p)
+		if !filepath.IsAbs(p) {
+			out = append(out, filepath.Join(filepath.Dir(job.File), p))
+		}
+	}
+	if job.Stock != "" {
+		rel(job.Stock)
+	}
+	for i := range job.Coils {
+		if c := &job.Coils[i]; c.Has("law") {
+			rel(strings.Trim(c.Raw("law"), "\""))
+		}
+	}
+	return out
 }

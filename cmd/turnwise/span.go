@@ -211,9 +211,7 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 		if err := report.WriteSpanTable(stdout, cs, set, out, newLengthFormatter(opts.units.v), opts.chart); err != nil {
 			return err
 		}
-		for _, w := range out.Span.Warnings {
-			fmt.Fprintf(stderr, "warning: %s\n", w)
-		}
 	}
+	printWarnings(stderr, out.Span.Warnings)
 	return spanErr
 }

@@ -178,14 +178,10 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 		if err := report.WriteTapJSON(stdout, rec); err != nil {
 			return err
 		}
-		return findErr
-	}
-	if err := report.WriteTapTable(stdout, cs, p, goal, goalKey, target, choices, newLengthFormatter(opts.units.v)); err != nil {
+	} else if err := report.WriteTapTable(stdout, cs, p, goal, goalKey, target, choices, newLengthFormatter(opts.units.v)); err != nil {
 		return err
 	}
-	for _, w := range rec.Warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, rec.Warnings)
 	return findErr
 }
 

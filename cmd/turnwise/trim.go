@@ -175,7 +175,7 @@ type trimCoil struct {
 // trimResult is the library's result with what the writers need besides.
 type trimResult = report.Trim
 
-func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
+func runTrim(ctx context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
 	m, via, err := opts.measurement()
 	if err != nil {
 		return err
@@ -194,21 +194,20 @@ func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) err
 		return err
 	}
 	if opts.save {
-		s, err := saveTrimCalibration(tc, res)
+		s, err := saveTrimCalibration(ctx, tc, res)
 		if err != nil {
 			return err
 		}
 		res.Saved = s
 	}
 	if opts.json {
-		return report.WriteTrimJSON(stdout, res)
-	}
-	if err := report.WriteTrimTable(stdout, res); err != nil {
+		if err := report.WriteTrimJSON(stdout, res); err != nil {
+			return err
+		}
+	} else if err := report.WriteTrimTable(stdout, res); err != nil {
 		return err
 	}
-	for _, w := range res.Warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, res.Warnings)
 	return nil
 }
 

@@ -2,12 +2,13 @@ package main
 
 import (
 	"bytes"
+	"context"
 	"errors"
 	"fmt"
 	"io"
 	"io/fs"
 	"os"
-	"path/filepath"
+	"turnwise/internal/atomicfile"
 	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 
@@ -18,16 +19,28 @@ import (
 // saveTrimCalibration appends the calibration to the stock file: the old
 // file is copied to FILE.bak first, then the new text replaces it
 // atomically; comments and layout are kept because the edit is text-level
-// (forms.AppendStock).
-func saveTrimCalibration(tc trimCoil, res *trimResult) (*report.SavedCalibration, error) {
+// (forms.AppendStock). The whole read-change-replace runs under an advisory
+// lock (atomicfile.Lock) so concurrent saves into one file keep every
+// calibration; a symlinked stock file is updated where it lives.
+func saveTrimCalibration(ctx context.Context, tc trimCoil, res *trimResult) (*report.SavedCalibration, error) {
 	path := tc.stock.path
-	// A stock file kept behind a symbolic link is updated where it lives;
-	// renaming over the link would replace it with a copy.
-	if st, err := os.Lstat(path); err == nil && st.Mode()&fs.ModeSymlink != 0 {
-		if real, err := filepath.EvalSymlinks(path); err == nil {
-			path = real
-		}
+	// A read-only stock file stays so: renaming over it would succeed in a
+	// writable directory and silently drop the protection (exit 1, like any
+	// file turnwise cannot write).
+	if err := atomicfile.CheckWritable(path); err != nil {
+		return nil, fmt.Errorf("--save: %w; make it writable (chmod u+w) or give another --stock file", err)
 	}
+	// A stock file kept behind a symbolic link is updated where it lives.
+	if real, err := atomicfile.Resolve(path); err == nil {
+		path = real
+	}
+	// Another turnwise may be saving into the same file: read, change and
+	// replace it under an exclusive lock, so neither calibration is lost.
+	unlock, err := atomicfile.Lock(path)
+	if err != nil {
+		return nil, fmt.Errorf("--save: %w", err)
+	}
+	defer unlock()
 	orig, err := os.ReadFile(path)
 	existed := err == nil
 	var mode fs.FileMode = 0o644
@@ -85,12 +98,12 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*report.SavedCalibration
 	}
 	if existed {
 		s.Backup = path + ".bak"
-		if err := writeFileAtomic(s.Backup, mode, nil, func(w io.Writer) error { _, err := w.Write(orig); return err }); err != nil {
+		if err := atomicfile.Write(ctx, s.Backup, atomicfile.Options{Perm: mode}, func(w io.Writer) error { _, err := w.Write(orig); return err }); err != nil {
 			return nil, fmt.Errorf("--save: keep the old stock file: %w", err)
 		}
 	}
 	// The stock file keeps its own permissions.
-	if err := writeFileAtomic(path, mode, nil, func(w io.Writer) error { _, err := w.Write(text); return err }); err != nil {
+	if err := atomicfile.Write(ctx, path, atomicfile.Options{Perm: mode}, func(w io.Writer) error { _, err := w.Write(text); return err }); err != nil {
 		return nil, fmt.Errorf("--save: %w", err)
 	}
 	return s, nil

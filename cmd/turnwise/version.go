@@ -1,10 +1,14 @@
 package main
 
 import (
+	"encoding/json"
 	"fmt"
+	"runtime"
 	"runtime/debug"
 
 	"github.com/spf13/cobra"
+
+	"turnwise/internal/report"
 )
 
 // version is set at build time: -ldflags "-X main.version=v1.2.3".
@@ -21,14 +25,29 @@ func versionString() string {
 }
 
 func newVersionCmd(g *globalOptions) *cobra.Command {
-	return &cobra.Command{
+	var asJSON bool
+	cmd := &cobra.Command{
 		Use:   "version",
 		Short: "Print the turnwise version",
-		Long:  "Print the turnwise version: the release tag set at build time, the module version, or \"dev\".",
+		Long:  "Print the turnwise version: the release tag set at build time, the module version, or \"dev\"; with --json also the Go version and platform.",
 		Args:  cobra.NoArgs,
 		RunE: func(cmd *cobra.Command, _ []string) error {
-			_, err := fmt.Fprintf(cmd.OutOrStdout(), "turnwise %s\n", versionString())
+			out := cmd.OutOrStdout()
+			if asJSON {
+				enc := json.NewEncoder(out)
+				enc.SetIndent("", "  ")
+				return enc.Encode(struct {
+					Schema   int      `json:"schema"`
+					Version  string   `json:"version"`
+					Go       string   `json:"go"`
+					Platform string   `json:"platform"`
+					Warnings []string `json:"warnings"`
+				}{report.SchemaVersion, versionString(), runtime.Version(), runtime.GOOS + "/" + runtime.GOARCH, []string{}})
+			}
+			_, err := fmt.Fprintf(out, "turnwise %s\n", versionString())
 			return err
 		},
 	}
+	cmd.Flags().BoolVar(&asJSON, "json", false, "print JSON instead of a line")
+	return cmd
 }
