@@ -8,6 +8,7 @@ import (
 	"path/filepath"
 	"strings"
 	"time"
+	"unicode"
 
 	"github.com/spf13/cobra"
 
@@ -194,6 +195,9 @@ func sheetDocumentOf(opts *sheetOptions, inputs *[]string) (sheets.Document, []s
 	doc := sheets.Document{Title: opts.title, Paper: opts.paper.v, Units: opts.units.v}
 	var warnings []string
 	var date time.Time
+	if strings.ContainsFunc(opts.title, unicode.IsControl) {
+		return doc, nil, usageErrorf("--title holds a control character; give printable words, e.g. --title \"Club build night\"")
+	}
 	if opts.titleGiven && strings.TrimSpace(opts.title) == "" {
 		return doc, nil, usageErrorf("--title is blank; give the words to print on every page, e.g. --title \"Club build night\", or leave --title out")
 	}
@@ -284,6 +288,9 @@ func flagSheetCoil(opts *sheetOptions) (sheets.Coil, []string, error) {
 	}
 	if strings.TrimSpace(opts.name) == "" {
 		return sheets.Coil{}, nil, usageErrorf("--name is empty; name the coil as the builder will call it, e.g. --name L1")
+	}
+	if strings.ContainsFunc(opts.name, unicode.IsControl) {
+		return sheets.Coil{}, nil, usageErrorf("--name holds a control character; name the coil in printable text, e.g. --name L1")
 	}
 	lf := newLengthFormatter(cmp.Or(opts.units.v, "mm"))
 	c := spec.NewSheetCoil(cs, p, lf)

@@ -40,6 +40,9 @@ commented starting point with --template.
   turnwise stock --stock ~/coils/stock.toml --use mine --json`),
 		Args: noArgs,
 		RunE: func(cmd *cobra.Command, _ []string) error {
+			if opts.template && (opts.json || cmd.Flags().Changed("kind")) {
+				return usageErrorf("--template prints the stock file to start from; it takes no --json or --kind: drop one")
+			}
 			return runStock(cmd.Context(), opts, cmd.OutOrStdout())
 		},
 	}
