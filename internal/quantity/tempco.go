@@ -1,0 +1,52 @@
+package quantity
+
+import (
+	"fmt"
+	"math"
+	"strings"
+)
+
+// ParsePerKelvin reads a temperature coefficient: "-750ppm/K", "+70 ppm/K",
+// "70ppm/°C", "16.5e-6/K" or "0.00393/K". A kelvin and a degree Celsius are
+// the same step, so /C and /°C are accepted. The result is per kelvin
+// (70 ppm/K is 70e-6). A bare number is refused: ppm or not is never guessed.
+func ParsePerKelvin(s string) (float64, error) {
+	bad := func(reason string) error {
+		return &Error{Input: s, Want: "temperature coefficient", Reason: reason}
+	}
+	t := strings.TrimSpace(s)
+	if t == "" {
+		return 0, bad("is empty; give e.g. -750ppm/K or 16.5e-6/K")
+	}
+	v, rest, why := splitNumber(t)
+	if why != "" {
+		return 0, bad(why + "; give e.g. -750ppm/K or 16.5e-6/K")
+	}
+	u := strings.ToLower(strings.ReplaceAll(rest, " ", ""))
+	scale := 1.0
+	if strings.HasPrefix(u, "ppm") {
+		scale, u = 1e-6, u[3:]
+	}
+	switch u {
+	case "/k", "/c", "/°c", "/degc", "/℃":
+	case "":
+		return 0, bad("needs its unit: write ppm/K (e.g. -750ppm/K) or /K (e.g. 16.5e-6/K)")
+	default:
+		return 0, bad(fmt.Sprintf("unit %q is not ppm/K or /K", rest))
+	}
+	x := v * scale
+	if math.Abs(x) > 0.1 {
+		return 0, bad("is more than 10 % per kelvin; check the ppm")
+	}
+	return x, nil
+}
+
+// FormatPPMPerK prints a per-kelvin coefficient as ppm/K with sig
+// significant figures and an explicit sign: "+375 ppm/K", "-1.2 ppm/K".
+func FormatPPMPerK(x float64, sig int) string {
+	ppm := roundSig(x*1e6, sig)
+	if ppm == 0 {
+		return "0 ppm/K"
+	}
+	return fmt.Sprintf("%+.*g ppm/K", sig, ppm)
+}
