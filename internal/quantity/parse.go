@@ -99,7 +99,7 @@ var (
 			return v
 		},
 	}
-	dimensions = []*dimension{lengthDim, inductanceDim, capacitanceDim, frequencyDim, temperatureDim}
+	dimensions = []*dimension{lengthDim, inductanceDim, capacitanceDim, frequencyDim, temperatureDim, resistanceDim, voltageDim}
 )
 
 // ParseLength reads a length such as "4.5mm", "0.177in", `0.177"`, "1cm",

@@ -211,3 +211,35 @@ func FuzzParseLength(f *testing.F) {
 		}
 	})
 }
+
+func TestParseResistanceVoltage(t *testing.T) {
+	for _, tc := range []struct {
+		in   string
+		want float64
+		volt bool
+	}{
+		{"50ohm", 50, false},
+		{"0.05 ohm", 0.05, false},
+		{"4.7kohm", 4700, false},
+		{"50Ω", 50, false},
+		{"100mohm", 0.1, false},
+		{"1kV", 1000, true},
+		{"500V", 500, true},
+	} {
+		t.Run(tc.in, func(t *testing.T) {
+			parse := ParseResistance
+			if tc.volt {
+				parse = ParseVoltage
+			}
+			got, err := parse(tc.in)
+			if err != nil || math.Abs(got-tc.want) > 1e-12*tc.want {
+				t.Fatalf("%q = %g, %v; want %g", tc.in, got, err, tc.want)
+			}
+		})
+	}
+	for _, bad := range []string{"50", "50pF", "ohm", "1MV"} {
+		if _, err := ParseResistance(bad); err == nil {
+			t.Errorf("ParseResistance(%q) accepted", bad)
+		}
+	}
+}
