@@ -12,6 +12,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"turnwise/coil"
+	"turnwise/coil/thermal"
 )
 
 // predictOptions holds everything `turnwise predict` needs; no cobra types.
@@ -21,10 +22,11 @@ type predictOptions struct {
 	freq  frequencyFlag
 	units *choiceFlag
 	json  bool
+	pitch *choiceFlag // what the pitch follows with temperature on a former
 }
 
 func newPredictCmd(g *globalOptions) *cobra.Command {
-	opts := &predictOptions{stock: newStockOptions(), units: newChoice("mm", "mm", "in")}
+	opts := &predictOptions{stock: newStockOptions(), units: newChoice("mm", "mm", "in"), pitch: newChoice("former", "former", "wire")}
 	cmd := &cobra.Command{
 		Use:   "predict",
 		Short: "Predict L, self-resonance and Q of a coil you describe",
@@ -52,6 +54,7 @@ is printed with its uncertainty band.
 	cmd.Flags().Var(&opts.freq, "freq", "operating frequency for L at f, effective L and Q, e.g. 145MHz")
 	cmd.Flags().Var(opts.units, "units", "display lengths in mm or in")
 	cmd.Flags().BoolVar(&opts.json, "json", false, "print JSON (SI units) instead of a table")
+	cmd.Flags().Var(opts.pitch, "pitch-follows", "on a former, what sets the pitch as the temperature changes: former (turns ride its surface) or wire")
 	return cmd
 }
 
@@ -82,16 +85,28 @@ func runPredict(_ context.Context, opts *predictOptions, stdout, stderr io.Write
 	if dl, err := coil.LengthPerPercent(spec.Geometry, p.Frequency); err == nil {
 		rec.TrimLengthPerPercent = float64(dl)
 	}
+	tc := tempcoRecord{}
+	if cat, err := opts.stock.load(); err == nil {
+		pf, _ := thermal.ParsePitchFollows(opts.pitch.v)
+		var warn string
+		if tc, warn = newTempcoRecord(cat, spec, float64(p.Frequency), pf); warn != "" {
+			rec.Warnings = append(rec.Warnings, warn)
+		}
+	}
 	if opts.json {
 		doc := struct {
 			Schema int `json:"schema"`
 			coilRecord
-		}{schemaVersion, rec}
+			tempcoRecord
+		}{schemaVersion, rec, tc}
 		enc := json.NewEncoder(stdout)
 		enc.SetIndent("", "  ")
 		return enc.Encode(doc)
 	}
 	if err := writePredictTable(stdout, spec, p, rec, newLengthFormatter(opts.units.v)); err != nil {
+		return err
+	}
+	if err := writeTempcoTable(stdout, tc); err != nil {
 		return err
 	}
 	for _, w := range rec.Warnings {

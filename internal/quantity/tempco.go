@@ -48,5 +48,6 @@ func FormatPPMPerK(x float64, sig int) string {
 	if ppm == 0 {
 		return "0 ppm/K"
 	}
-	return fmt.Sprintf("%+.*g ppm/K", sig, ppm)
+	dec := max(0, sig-1-int(math.Floor(math.Log10(math.Abs(ppm)))))
+	return fmt.Sprintf("%+.*f ppm/K", dec, ppm)
 }

@@ -46,7 +46,7 @@ func TestFormatPPMPerK(t *testing.T) {
 	for _, tc := range []struct {
 		x    float64
 		want string
-	}{{375e-6, "+375 ppm/K"}, {-1.234e-6, "-1.23 ppm/K"}, {0, "0 ppm/K"}} {
+	}{{375e-6, "+375 ppm/K"}, {-1.234e-6, "-1.23 ppm/K"}, {0, "0 ppm/K"}, {-1893.7e-6, "-1890 ppm/K"}, {70.6e-6, "+70.6 ppm/K"}} {
 		if got := FormatPPMPerK(tc.x, 3); got != tc.want {
 			t.Errorf("%g: %q, want %q", tc.x, got, tc.want)
 		}
