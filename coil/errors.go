@@ -11,14 +11,19 @@ import (
 type InputError struct {
 	Param  string // field at fault
 	Reason string // what is wrong and how to fix it
+	Err    error  // the cause Reason was written from, if any (errors.Is/As see it)
 }
 
 func (e *InputError) Error() string { return e.Param + ": " + e.Reason }
+func (e *InputError) Unwrap() error { return e.Err }
 
 // ErrInfeasible is returned (wrapped) when a request is valid but no coil
 // can meet it.
 var ErrInfeasible = errors.New("coil: no coil meets the request")
 
+// inputErrorf formats the reason like fmt.Errorf: a %w verb keeps its
+// error as the cause.
 func inputErrorf(param, format string, args ...any) error {
-	return &InputError{Param: param, Reason: fmt.Sprintf(format, args...)}
+	e := fmt.Errorf(format, args...)
+	return &InputError{Param: param, Reason: e.Error(), Err: errors.Unwrap(e)}
 }

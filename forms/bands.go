@@ -2,6 +2,7 @@ package forms
 
 import (
 	"bufio"
+	"errors"
 	"fmt"
 	"io"
 	"regexp"
@@ -33,7 +34,7 @@ func ParseBand(s string) (Band, error) {
 	}
 	lo, hi, err := parseEdges(t, quantity.ParseFrequency)
 	if err != nil {
-		return b, &quantity.Error{Input: s, Want: "band", Reason: err.Error() + "; write LOW-HIGH, e.g. 3.5-3.8MHz or 80m=3.5-3.8MHz"}
+		return b, &quantity.Error{Input: s, Want: "band", Reason: err.Error() + "; write LOW-HIGH, e.g. 3.5-3.8MHz or 80m=3.5-3.8MHz", Err: err}
 	}
 	if lo <= 0 {
 		return b, &quantity.Error{Input: s, Want: "band", Reason: "frequencies must be positive, e.g. 3.5-3.8MHz"}
@@ -59,7 +60,7 @@ func ParseCapacitanceRange(s string) (lo, hi unit.Capacitance, err error) {
 	}
 	l, h, err := parseEdges(t, quantity.ParseCapacitance)
 	if err != nil {
-		return 0, 0, &quantity.Error{Input: s, Want: "capacitance range", Reason: err.Error() + "; write MIN-MAX, e.g. 12-365pF"}
+		return 0, 0, &quantity.Error{Input: s, Want: "capacitance range", Reason: err.Error() + "; write MIN-MAX, e.g. 12-365pF", Err: err}
 	}
 	return unit.Capacitance(l), unit.Capacitance(h), rangeCheck(s, l, h)
 }
@@ -92,20 +93,33 @@ func parseEdges[T ~float64](t string, parse func(string) (T, error)) (float64, f
 	loS, hiS := strings.TrimSpace(t[:i]), strings.TrimSpace(t[i+1:])
 	hi, err := parse(hiS)
 	if err != nil {
-		return 0, 0, fmt.Errorf("upper end %q: %s", hiS, reasonOf(err))
+		return 0, 0, &edgeError{"upper", hiS, err}
 	}
 	if m := unitTail.FindString(loS); len(m) == len(loS) {
 		loS += hiS[len(unitTail.FindString(hiS)):]
 	}
 	lo, err := parse(loS)
 	if err != nil {
-		return 0, 0, fmt.Errorf("lower end %q: %s", loS, reasonOf(err))
+		return 0, 0, &edgeError{"lower", loS, err}
 	}
 	return float64(lo), float64(hi), nil
 }
 
+// edgeError is one end of a range that does not parse. It prints the
+// reason alone (the range's own error already quotes the input) and
+// unwraps to the cause.
+type edgeError struct {
+	end, text string
+	err       error
+}
+
+func (e *edgeError) Error() string {
+	return fmt.Sprintf("%s end %q: %s", e.end, e.text, reasonOf(e.err))
+}
+func (e *edgeError) Unwrap() error { return e.err }
+
 func reasonOf(err error) string {
-	if qe, ok := err.(*quantity.Error); ok {
+	if qe, ok := errors.AsType[*quantity.Error](err); ok {
 		return qe.Reason
 	}
 	return err.Error()

@@ -15,6 +15,7 @@ const (
 	logRowH     = 7.0
 	minLogRows  = 2
 	maxLogRows  = 4
+	minDrawH    = 40.0 // the least height kept for the side view
 )
 
 // coilPage draws one coil's page. The side view gets the height the text
@@ -39,10 +40,34 @@ func (s *sheet) coilPage(c *Coil) {
 	cautions := s.cautionItems(c)
 	cautH := s.cautionHeight(w, cautions)
 	logH := func(rows int) float64 { return 8 + float64(rows+1)*logRowH }
+
+	// The coil's notes, as many lines as leave the drawing room; the rest
+	// continue on the next page.
+	var rest []string
+	if strings.TrimSpace(c.Notes) != "" {
+		s.font("I", bodySize)
+		lh := s.lineH()
+		lines := s.wrap(c.Notes, w)
+		room := s.bottom() - y - 4 - colsH - checkBlockH - logH(minLogRows) - cautH - 4*sectionGap - minDrawH
+		k := len(lines)
+		if float64(k)*lh > room {
+			k = max(0, int(room/lh)-1)
+			rest = lines[k:]
+			lines = append(lines[:k:k], "(the notes continue after this page)")
+		}
+		y += 0.5
+		for _, l := range lines {
+			s.text(x, y, l)
+			y += lh
+		}
+		s.font("", bodySize)
+	}
+	y += 4
 	avail := func(rows int) float64 {
 		return s.bottom() - y - 4 - colsH - checkBlockH - logH(rows) - cautH - 4*sectionGap
 	}
-	// The largest scale that fits, giving up log rows before scale.
+	// The largest true scale that fits, giving up log rows before scale;
+	// past 1:10, a schematic.
 	v := newView(c)
 	rows, fits := maxLogRows, false
 	for _, sc := range scales {
@@ -59,23 +84,69 @@ func (s *sheet) coilPage(c *Coil) {
 	}
 	if !fits {
 		rows = minLogRows
+		v.setScale(v.fitScale(w, math.Max(avail(rows), minDrawH)))
+		v.schematic = true
+	}
+	// A small coil at 1:1 gets an enlarged detail beside it.
+	var dv *view
+	if v.sc == 1 && !v.schematic && v.od < smallCoil {
+		for _, k := range detailScales {
+			d := newView(c)
+			d.detail = true
+			d.setScale(k)
+			if v.totalW+d.totalW+4 > w {
+				continue
+			}
+			for r := rows; r >= minLogRows; r-- {
+				if d.height <= avail(r) {
+					dv, rows = d, r
+					break
+				}
+			}
+			if dv != nil {
+				break
+			}
+		}
 	}
 	drawH := math.Max(v.height, avail(rows))
 
 	// Side view.
 	s.font("B", 9)
-	title := "SIDE VIEW, " + strings.ToUpper(scaleLabel(v.sc))
+	title := "SIDE VIEW, " + strings.ToUpper(v.scaleLabel())
 	s.text(x, y, title)
 	tw := s.width(title)
 	s.font("", smallSize)
-	if v.sc == 1 {
+	switch {
+	case v.schematic:
+		s.text(x+tw+3, y, s.fit("too large for this page even at 1:10: the drawing shows the parts, every number is true size", w-tw-3))
+	case dv != nil:
+		s.text(x+tw+3, y, "left: hold the finished coil against it; measure the 50 mm bar first")
+	case v.sc == 1:
 		s.text(x+tw+3, y, "hold the finished coil against it; measure the 50 mm bar first")
-	} else {
+	default:
 		s.text(x+tw+3, y, "the coil is too large to draw full size here; every number is true size")
 	}
 	s.pdf.SetLineWidth(0.35)
 	s.pdf.Line(x, y+1.2, x+w, y+1.2)
-	s.sideView(v, c, x, y+4+(drawH-v.height)/2, w)
+	if dv == nil {
+		s.sideView(v, c, x, y+4+(drawH-v.height)/2, w)
+	} else {
+		lw := v.totalW + 2
+		s.sideView(v, c, x, y+4+(drawH-v.height)/2, lw)
+		dx, dw := x+lw+2, w-lw-2
+		s.pdf.SetLineWidth(0.3)
+		s.dashed(2, 1)
+		s.pdf.Rect(dx, y+2.5, dw, drawH+1, "D")
+		s.dashed()
+		s.sideView(dv, c, dx, y+4+(drawH-dv.height)/2, dw)
+		s.font("B", smallSize)
+		label := fmt.Sprintf("DETAIL %.0f:1, NOT FULL SIZE", dv.sc)
+		s.pdf.SetFillColor(255, 255, 255)
+		lwd := s.width(label) + 2
+		s.pdf.Rect(dx+dw-lwd-1, y+2.6, lwd, 3.6, "F")
+		s.black()
+		s.text(dx+dw-lwd, y+5.4, label)
+	}
 	y += 4 + drawH
 
 	// Steps and predicted values side by side.
@@ -91,6 +162,14 @@ func (s *sheet) coilPage(c *Coil) {
 	y = s.checkBlock(x, y+sectionGap, w, c)
 	y = s.measurementLog(x, y+sectionGap, w, rows)
 	s.cautionBox(x, y+sectionGap, w, cautions, c.HighVoltage)
+
+	if len(rest) > 0 {
+		f := s.newFlow(0, c.Name+": notes")
+		f.newPage()
+		s.font("I", bodySize)
+		f.lines(x, rest)
+		s.font("", bodySize)
+	}
 }
 
 // valueLabelW is the label column of the predicted values.
@@ -108,7 +187,7 @@ func (s *sheet) coilHeader(c *Coil, y, x, w float64) float64 {
 	y += 6.5
 	g := c.Prediction.Geometry
 	how := "slide it off the mandrel: self-supporting"
-	if c.Support == "former" {
+	if c.Support == coil.SupportFormer {
 		how = "it stays on the former"
 	}
 	s.font("", 10)
@@ -129,12 +208,8 @@ func (s *sheet) coilHeader(c *Coil, y, x, w float64) float64 {
 		}
 		y = s.para(x, y+0.5, w, t)
 	}
-	if strings.TrimSpace(c.Notes) != "" {
-		s.font("I", bodySize)
-		y = s.para(x, y+0.5, w, c.Notes)
-	}
 	s.font("", bodySize)
-	return y + 4
+	return y
 }
 
 // windingSteps are the instructions, in order. Lengths to cut are to the
@@ -150,7 +225,7 @@ func (s *sheet) windingSteps(c *Coil) []string {
 	if enamel {
 		st = append(st, fmt.Sprintf("Strip %s of enamel at each end (scrape, or a solder pot for solderable enamel) and tin the ends.", u.lead(float64(coil.CutAllowance)/2)))
 	}
-	if c.Support == "former" {
+	if c.Support == coil.SupportFormer {
 		st = append(st, fmt.Sprintf("Fix the cold end on the %s (two small holes, or tape), leaving %s of lead plus the strip allowance.", c.SupportName, lead))
 	} else {
 		st = append(st, fmt.Sprintf("Clamp the %s in a vice by its tip, plain shank out. Leave %s of lead plus the strip allowance at the cold end.", c.SupportName, lead))
@@ -167,10 +242,10 @@ func (s *sheet) windingSteps(c *Coil) []string {
 	default:
 		st = append(st, fmt.Sprintf("Wind %s, pulled snug, the same way round as the drawing. Count them on the top, as its numbers do.", quantity.FormatTurnsWord(g.Turns)))
 	}
-	if c.Support != "former" {
+	if c.Support != coil.SupportFormer {
 		bore := u.of(float64(p.InsideDiameter))
 		switch {
-		case c.SpringbackSource == "calibration":
+		case c.SpringbackSource == coil.SpringbackCalibration:
 			st = append(st, fmt.Sprintf("Slide the coil off; your calibration says the bore opens %s. Expect a bore of %s.", quantity.FormatPercent(g.Springback), bore))
 		case g.Springback != 0:
 			st = append(st, fmt.Sprintf("Slide the coil off; the bore should open by %s. Expect a bore of %s.", quantity.FormatPercent(g.Springback), bore))
@@ -232,7 +307,7 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 		if t.Effective {
 			label = "target, effective L"
 		}
-		v := quantity.FormatEng(t.Inductance, "H", 3)
+		v := quantity.FormatEng(float64(t.Inductance), "H", 3)
 		if t.Tolerance > 0 {
 			v += fmt.Sprintf(" ± %.3g %%", t.Tolerance*100)
 		}
@@ -245,7 +320,7 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 			[2]string{"L effective at f", quantity.FormatEng(float64(p.InductanceEffective), "H", 3) + " (self-C included)"},
 		)
 		if c.LowFrequency > 0 {
-			r = append(r, [2]string{"on an L meter", quantity.FormatEng(c.LowFrequency, "H", 3) + " (low frequency)"})
+			r = append(r, [2]string{"on an L meter", quantity.FormatEng(float64(c.LowFrequency), "H", 3) + " (low frequency)"})
 		}
 	} else {
 		r = append(r,
@@ -268,8 +343,8 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 			r = append(r, [2]string{"  voltage at the tap", fmt.Sprintf("%.3g × the coil's (unloaded)", t.Ratio)})
 		}
 		if t.LBelow > 0 {
-			r = append(r, [2]string{"  sections", fmt.Sprintf("below %s, above %s", quantity.FormatEng(t.LBelow, "H", 3), quantity.FormatEng(t.LAbove, "H", 3))},
-				[2]string{"  coupling", fmt.Sprintf("M %s, k %.3f", quantity.FormatEng(t.Mutual, "H", 3), t.Coupling)})
+			r = append(r, [2]string{"  sections", fmt.Sprintf("below %s, above %s", quantity.FormatEng(float64(t.LBelow), "H", 3), quantity.FormatEng(float64(t.LAbove), "H", 3))},
+				[2]string{"  coupling", fmt.Sprintf("M %s, k %.3f", quantity.FormatEng(float64(t.Mutual), "H", 3), t.Coupling)})
 		}
 	}
 	return r
@@ -288,12 +363,12 @@ func (s *sheet) rowsHeight(w, labelW float64, rows [][2]string) float64 {
 func (s *sheet) trimText(c *Coil) string {
 	var b strings.Builder
 	if c.TrimPerPercent > 0 {
-		fmt.Fprintf(&b, "1 %% of L = %s of outside length. ", s.u.of(c.TrimPerPercent))
+		fmt.Fprintf(&b, "1 %% of L = %s of outside length. ", s.u.of(float64(c.TrimPerPercent)))
 	}
 	b.WriteString("Squeeze the turns (shorter) to raise L, spread them (longer) to lower it. ")
 	if c.TrimLeast > 0 && c.TrimMost > 0 {
 		fmt.Fprintf(&b, "Reach: %s spread to 3 wire diameters … %s close-wound; beyond that, change the turns by ¼. ",
-			quantity.FormatEng(c.TrimLeast, "H", 3), quantity.FormatEng(c.TrimMost, "H", 3))
+			quantity.FormatEng(float64(c.TrimLeast), "H", 3), quantity.FormatEng(float64(c.TrimMost), "H", 3))
 	}
 	b.WriteString("turnwise trim turns a measurement into the change.")
 	return b.String()

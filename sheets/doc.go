@@ -17,8 +17,21 @@
 // Printers often rescale ("fit to page"); every coil page therefore carries
 // the scale bar and tells the builder to measure it before trusting the
 // drawing. A coil too large for the drawing area is drawn at the largest of
-// 1:2, 1:5 or 1:10 that fits and labelled "NOT FULL SIZE"; the scale bar and
-// the pitch template stay 1:1.
+// 1:2, 1:5 or 1:10 that fits and labelled "NOT FULL SIZE"; one too large
+// even at 1:10 is drawn as a schematic labelled "NOT TO SCALE". A coil
+// under 10 mm across, unreadable at 1:1, gets an enlarged detail (5:1 …
+// 2:1, labelled "NOT FULL SIZE") beside its true-size view. The scale bar
+// and the pitch template stay 1:1.
+//
+// # Pages that grow
+//
+// The cover's first page always holds the title, "Before you start" and
+// the cautions; the job's notes, the coil list and the bill of materials
+// follow and continue on as many pages as they take, table heads repeated.
+// A coil's notes continue on a page after its own. Text is wrapped (a word
+// wider than the line is broken), never dropped and never drawn below the
+// footer line; only labels (a title, a coil's name) are shortened with an
+// ellipsis. Cautions are on the cover's first page and on every coil page.
 //
 // # Lettering
 //

@@ -4,6 +4,8 @@ import (
 	"time"
 
 	"turnwise/coil"
+
+	"gonum.org/v1/gonum/unit"
 )
 
 // Document is a batch of build sheets.
@@ -38,12 +40,12 @@ type Coil struct {
 	Wire    string
 	WireKey string
 
-	Support     string // "mandrel" (slid off, self-supporting) or "former" (stays on)
-	SupportName string // "6mm drill", "pvc 25mm"
+	Support     coil.SupportKind // slid off a mandrel (self-supporting) or stays on a former
+	SupportName string           // "6mm drill", "pvc 25mm"
 
-	// SpringbackSource is "given", "calibration" or "none"; the note is the
-	// calibration's own.
-	SpringbackSource string
+	// SpringbackSource says where the springback came from; the note is
+	// the calibration's own.
+	SpringbackSource coil.SpringbackSource
 	SpringbackNote   string
 	CloseWound       bool
 
@@ -52,15 +54,15 @@ type Coil struct {
 	Prediction coil.Prediction
 	// LowFrequency is the terminal inductance at low frequency, what an
 	// inductance meter reads (Predict with no frequency); zero hides it.
-	LowFrequency float64 // H
+	LowFrequency unit.Inductance
 
 	// TrimPerPercent is the change of outside length that changes the
 	// terminal inductance by 1 % (coil.LengthPerPercent); zero hides it.
-	TrimPerPercent float64 // m
+	TrimPerPercent unit.Length
 	// TrimLeast and TrimMost bound the inductance reachable by spreading
 	// (to the loosest sensible pitch) and squeezing (close-wound) with the
 	// turns held (coil.Window); zero hides them.
-	TrimLeast, TrimMost float64 // H
+	TrimLeast, TrimMost unit.Inductance
 
 	Target *Target // nil for a fixed winding
 	Tap    *Tap    // nil when untapped
@@ -75,21 +77,21 @@ type Coil struct {
 
 // Target is what the design search was asked for.
 type Target struct {
-	Description string  // e.g. "resonate with 22 pF at 137.5 MHz"
-	Inductance  float64 // H: the terminal L at f, or the effective L when Effective
-	Effective   bool    // Inductance is the effective inductance at f
-	Tolerance   float64 // fraction
-	Rank        int     // 1 for the best candidate
-	Why         string  // the search's one-line reason
+	Description string          // e.g. "resonate with 22 pF at 137.5 MHz"
+	Inductance  unit.Inductance // the terminal L at f, or the effective L when Effective
+	Effective   bool            // Inductance is the effective inductance at f
+	Tolerance   float64         // fraction
+	Rank        int             // 1 for the best candidate
+	Why         string          // the search's one-line reason
 }
 
 // Tap is a tap on the coil, counted from the cold (ground) end.
 type Tap struct {
-	Turns    float64 // from the cold end, in quarter turns
-	Ratio    float64 // unloaded voltage ratio at the tap, (L_b + M)/L
-	LBelow   float64 // H, section from the cold end to the tap
-	LAbove   float64 // H, section from the tap to the hot end
-	Mutual   float64 // H
+	Turns    float64         // from the cold end, in quarter turns
+	Ratio    float64         // unloaded voltage ratio at the tap, (L_b + M)/L
+	LBelow   unit.Inductance // section from the cold end to the tap
+	LAbove   unit.Inductance // section from the tap to the hot end
+	Mutual   unit.Inductance
 	Coupling float64 // k
 	Purpose  string  // a sentence on why the tap is where it is, ending the tap step; may be empty
 }
@@ -103,26 +105,37 @@ type Span struct {
 	Dial         []DialPoint
 	Bands        []Band
 	Coincidences []Coincidence
-	Overlap      float64 // Hz by which the ranges overlap; negative for a gap
+	Overlap      unit.Frequency // by which the ranges overlap; negative for a gap
 	Notes        []string
 }
 
 // DialPoint is both resonances at one dial setting.
 type DialPoint struct {
-	Setting     float64 // 0 plates fully open … 1 fully meshed
-	FLow, FHigh float64 // Hz; FHigh zero when there is no high range
+	Setting     float64        // 0 plates fully open … 1 fully meshed
+	FLow, FHigh unit.Frequency // FHigh zero when there is no high range
 }
 
 // Band is a band the builder wants to tune.
 type Band struct {
-	Low, High float64 // Hz
-	Label     string  // e.g. "80m"; may be empty
+	Low, High unit.Frequency
+	Label     string // e.g. "80m"; may be empty
 	// Range is the range that holds the whole band: "low", "high", "both",
 	// or "part" when only some of it is reached, "none" when none is.
 	Range string
 	// DialLow and DialHigh are the settings tuning the band's edges on
 	// that range (the low range's when both).
 	DialLow, DialHigh float64
+	// Ranges are every range that reaches the band, as the span command
+	// lists them; when given, the chart page prints each stretch of the
+	// dial, not only DialLow … DialHigh.
+	Ranges []BandRange
+}
+
+// BandRange is where a band sits on one range.
+type BandRange struct {
+	Range             string  // "low" or "high"
+	DialLow, DialHigh float64 // settings tuning the band's low and high edge
+	Whole             bool    // the whole band is on this range
 }
 
 // Coincidence is a dial setting where a harmonic of the low range falls in
@@ -131,7 +144,7 @@ type Coincidence struct {
 	Setting     float64 // 0 … 1
 	Order       int     // 2 or 3
 	Band        string  // the listed band the low range is in; may be empty
-	FLow, FHigh float64 // Hz
+	FLow, FHigh unit.Frequency
 	// Depth is how far the harmonic is from the high range's peak in
 	// half-passbands: 0 on the peak, 1 at the −3 dB edge.
 	Depth float64

@@ -3,6 +3,8 @@ package sheets
 import (
 	"fmt"
 	"math"
+	"strings"
+	"turnwise/coil"
 	"turnwise/internal/quantity"
 
 	"github.com/jung-kurt/gofpdf"
@@ -12,8 +14,17 @@ import (
 // the left, with its leads, the bore, the dimensions a builder checks with
 // calipers, turn counts from the cold end and the tap.
 
-// scales are the drawing scales tried in turn; 1 is full size.
-var scales = []float64{1, 0.5, 0.2, 0.1, 0.05, 0.02}
+// scales are the drawing scales tried in turn; 1 is full size. These are
+// the only true scales a page uses: a coil that does not fit at 1:10 is
+// drawn as a schematic marked NOT TO SCALE.
+var scales = []float64{1, 0.5, 0.2, 0.1}
+
+// detailScales are the enlargements tried for the detail of a small coil.
+var detailScales = []float64{5, 4, 3, 2}
+
+// smallCoil is the outside diameter under which a 1:1 view is too small to
+// read (arrows vanish, turns blur) and an enlarged detail is added, mm.
+const smallCoil = 10.0
 
 // Space around the coil body, mm on paper.
 const (
@@ -36,6 +47,8 @@ type view struct {
 	x0, ya           float64 // left edge of the first crossing; axis
 	thetaEnd         float64 // 2πN
 	tap              float64 // turns from the cold end; 0 for none
+	schematic        bool    // sc is not a true scale: NOT TO SCALE
+	detail           bool    // an enlarged detail beside the true-size view
 	leftW, totalW    float64
 	height, topSpace float64
 }
@@ -95,12 +108,35 @@ func (v *view) y(theta float64) float64 {
 	return v.ya - v.sc*(v.dm/2)*math.Cos(theta)
 }
 
-// scaleLabel says how the view is drawn.
-func scaleLabel(sc float64) string {
-	if sc == 1 {
-		return "full size, 1:1"
+// fitScale is the scale at which the view fills a box w wide and h high:
+// for a schematic, never one of the true scales.
+func (v *view) fitScale(w, h float64) float64 {
+	body := v.n*v.p + v.do
+	bottom := viewBottom + tapLabelH
+	sc := min((w-2*viewSide-2*maxLeadDraw)/body, (h-viewTop-bottom)/v.od)
+	return max(sc, 1e-4)
+}
+
+// tag names a marked-content sequence; the detail's are its own, so that
+// measuring the true-size view finds it alone.
+func (v *view) tag(name string) string {
+	if v.detail {
+		return "TWDetail" + strings.TrimPrefix(name, "TW")
 	}
-	return fmt.Sprintf("NOT FULL SIZE: drawn at 1:%.0f", 1/sc)
+	return name
+}
+
+// scaleLabel says how the view is drawn.
+func (v *view) scaleLabel() string {
+	switch {
+	case v.schematic:
+		return "NOT TO SCALE: schematic"
+	case v.sc == 1:
+		return "full size, 1:1"
+	case v.sc > 1:
+		return fmt.Sprintf("ENLARGED %.0f:1, NOT FULL SIZE", v.sc)
+	}
+	return fmt.Sprintf("NOT FULL SIZE: drawn at 1:%.0f", 1/v.sc)
 }
 
 // sideView draws the view with its top-left corner at (x, y) in a box of
@@ -119,7 +155,7 @@ func (s *sheet) sideView(v *view, c *Coil, x, y, w float64) {
 	s.dashed(3, 1, 0.6, 1)
 	pdf.Line(xStart-5, v.ya, xEnd+5, v.ya)
 	idT, idB := v.ya-v.id*v.sc/2, v.ya+v.id*v.sc/2
-	if c.Support == "former" {
+	if c.Support == coil.SupportFormer {
 		// The former: a tube running on past the winding, solid.
 		s.dashed()
 		ext := math.Min(10, v.leadDrawn+2)
@@ -173,7 +209,7 @@ func (s *sheet) sideView(v *view, c *Coil, x, y, w float64) {
 	if math.Abs(dots[len(dots)-1]-v.thetaEnd) > 1e-9 {
 		dots = append(dots, v.thetaEnd)
 	}
-	s.marked("TWWireDots", func() {
+	s.marked(v.tag("TWWireDots"), func() {
 		for _, th := range dots {
 			s.disc(v.x(th), v.y(th), wire/2)
 		}
@@ -201,7 +237,7 @@ func (s *sheet) sideView(v *view, c *Coil, x, y, w float64) {
 	pdf.SetLineWidth(0.15)
 	pdf.Line(xa, bot+0.8, xa, yd+1.2)
 	pdf.Line(xb, bot+0.8, xb, yd+1.2)
-	s.marked("TWLengthDim", func() { pdf.SetLineWidth(0.2); pdf.Line(xa, yd, xb, yd) })
+	s.marked(v.tag("TWLengthDim"), func() { pdf.SetLineWidth(0.2); pdf.Line(xa, yd, xb, yd) })
 	s.arrow(xa, yd, xb, yd, v.lout*v.sc > 4.5)
 	s.font("B", smallSize+0.5)
 	s.textCenter(xc, yd+4, "outside length "+s.u.of(v.lout/1e3))

@@ -51,9 +51,9 @@ func vhfCoil(t testing.TB) Coil {
 		Name: "L1 input", Quantity: 3, Notes: "Tap for 50 ohm.",
 		Wire: "1.00mm silver-plated bare wire", WireKey: "1.00mm silver-plated bare wire",
 		Support: "mandrel", SupportName: "6mm drill", SpringbackSource: "none",
-		Prediction: p, TrimPerPercent: float64(dl), TrimLeast: float64(least), TrimMost: float64(most),
+		Prediction: p, TrimPerPercent: dl, TrimLeast: least, TrimMost: most,
 		Tap: &Tap{Turns: s.TapTurns, Ratio: s.Ratio,
-			LBelow: float64(s.LB), LAbove: float64(s.LA), Mutual: float64(s.M), Coupling: s.K},
+			LBelow: s.LB, LAbove: s.LA, Mutual: s.M, Coupling: s.K},
 	}
 }
 
@@ -67,7 +67,7 @@ func hfCoil(t testing.TB) Coil {
 	for i := 0; i <= 100; i++ {
 		x := float64(i) / 100
 		fl := 8.1e6 / (1 + 3.4*x)
-		dial = append(dial, DialPoint{Setting: x, FLow: fl, FHigh: 4.1 * fl})
+		dial = append(dial, DialPoint{Setting: x, FLow: unit.Frequency(fl), FHigh: unit.Frequency(4.1 * fl)})
 	}
 	return Coil{
 		Name: "HF front end", Quantity: 2, Wire: "0.50 mm copper wire, grade 1 enamel (0.54 mm overall)",

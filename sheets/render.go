@@ -33,19 +33,34 @@ func Render(w io.Writer, doc Document, opt Options) error {
 	if err := check(&doc); err != nil {
 		return err
 	}
+	// The cover lists the page each coil starts on, and the cover itself
+	// may take several pages: a first pass finds the pages, the second
+	// draws with them. The layout never depends on the page numbers.
+	first := newSheet(&doc, opt)
+	first.draw()
 	s := newSheet(&doc, opt)
-	s.cover()
-	for i := range doc.Coils {
-		s.coilPage(&doc.Coils[i])
-		if doc.Coils[i].Span != nil {
-			s.spanPage(&doc.Coils[i])
-		}
-	}
+	s.pages = first.pages
+	s.draw()
 	s.pdf.Close()
 	if err := s.pdf.Error(); err != nil {
 		return fmt.Errorf("sheets: %w", err)
 	}
 	return s.pdf.Output(w)
+}
+
+// draw draws every page and records where each coil starts.
+func (s *sheet) draw() {
+	s.cover()
+	starts := make([]int, len(s.doc.Coils))
+	for i := range s.doc.Coils {
+		c := &s.doc.Coils[i]
+		starts[i] = s.pdf.PageNo() + 1
+		s.coilPage(c)
+		if c.Span != nil {
+			s.spanPage(c)
+		}
+	}
+	s.pages = starts
 }
 
 // check validates what Render needs and fills defaults.
@@ -95,7 +110,7 @@ func check(doc *Document) error {
 		}
 		if c.Span != nil {
 			for _, d := range c.Span.Dial {
-				if !finite(d.FLow) || !finite(d.FHigh) || !finite(d.Setting) || d.FLow < 0 || d.FHigh < 0 {
+				if !finite(float64(d.FLow)) || !finite(float64(d.FHigh)) || !finite(d.Setting) || d.FLow < 0 || d.FHigh < 0 {
 					return fmt.Errorf("sheets: coil %q: dial point %+v is not finite and positive", c.Name, d)
 				}
 			}
@@ -113,6 +128,11 @@ type sheet struct {
 	doc  *Document
 	w, h float64 // page size, mm
 	u    lengths
+
+	pages  []int            // the page each coil starts on, from the first pass
+	style  string           // the current font style
+	size   float64          // and size, points
+	glyphW map[glyphKey]int // glyph widths by style and rune
 }
 
 func newSheet(doc *Document, opt Options) *sheet {
@@ -129,7 +149,7 @@ func newSheet(doc *Document, opt Options) *sheet {
 	pdf.AliasNbPages("{nb}")
 	pdf.SetLineJoinStyle("round")
 	w, h := pdf.GetPageSize()
-	s := &sheet{pdf: pdf, tr: pdf.UnicodeTranslatorFromDescriptor(""), doc: doc, w: w, h: h, u: lengths{inches: doc.Units == "in"}}
+	s := &sheet{pdf: pdf, tr: pdf.UnicodeTranslatorFromDescriptor(""), doc: doc, w: w, h: h, u: lengths{inches: doc.Units == "in"}, glyphW: map[glyphKey]int{}}
 	pdf.SetFooterFunc(s.footer)
 	return s
 }
@@ -156,7 +176,10 @@ func (s *sheet) footer() {
 
 // --- text helpers -------------------------------------------------------
 
-func (s *sheet) font(style string, size float64) { s.pdf.SetFont("Helvetica", style, size) }
+func (s *sheet) font(style string, size float64) {
+	s.style, s.size = style, size
+	s.pdf.SetFont("Helvetica", style, size)
+}
 
 func (s *sheet) black() {
 	s.pdf.SetDrawColor(0, 0, 0)
@@ -176,16 +199,60 @@ func (s *sheet) textRight(x, y float64, str string) { s.text(x-s.width(str), y, 
 
 func (s *sheet) textCenter(x, y float64, str string) { s.text(x-s.width(str)/2, y, str) }
 
+// Text is measured in glyph units summed rune by rune (the core fonts have
+// no kerning, so this is exactly what gofpdf measures), which keeps fitting
+// and wrapping linear in the length of the text: a 200 KB title or a
+// 3,000-character word costs one pass, not one measurement per character.
+
+// glyphs returns the width of each rune of str in the current font, in
+// thousandths of the font size.
+func (s *sheet) glyphs(str string) []int {
+	out := make([]int, 0, len(str))
+	for _, r := range str {
+		k := glyphKey{s.style, r}
+		w, ok := s.glyphW[k]
+		if !ok {
+			w = s.pdf.GetStringSymbolWidth(s.enc(string(r)))
+			s.glyphW[k] = w
+		}
+		out = append(out, w)
+	}
+	return out
+}
+
+type glyphKey struct {
+	style string
+	r     rune
+}
+
+// units converts a width in mm to glyph units at the current font size.
+func (s *sheet) units(w float64) float64 {
+	_, size := s.pdf.GetFontSize() // in mm, the document's unit
+	if size <= 0 {
+		return 0
+	}
+	return w * 1000 / size
+}
+
 // fit shortens str with an ellipsis to fit w.
 func (s *sheet) fit(str string, w float64) string {
-	if s.width(str) <= w {
+	g := s.glyphs(str)
+	limit := s.units(w)
+	total := 0
+	for _, x := range g {
+		total += x
+	}
+	if float64(total) <= limit {
 		return str
 	}
+	limit -= float64(s.glyphs("…")[0])
 	r := []rune(str)
-	for len(r) > 1 && s.width(string(r)+"…") > w {
-		r = r[:len(r)-1]
+	n, sum := 0, 0
+	for n < len(r)-1 && float64(sum+g[n]) <= limit {
+		sum += g[n]
+		n++
 	}
-	return string(r) + "…"
+	return string(r[:max(n, 1)]) + "…"
 }
 
 // lineH is the baseline-to-baseline distance for the current font size.
@@ -194,25 +261,49 @@ func (s *sheet) lineH() float64 {
 	return pt/ptPerMM + lineGap
 }
 
-// wrap splits str into lines no wider than w in the current font.
+// wrap splits str into lines no wider than w in the current font. A word
+// wider than w is broken between characters, so nothing runs off the
+// right edge and nothing is dropped.
 func (s *sheet) wrap(str string, w float64) []string {
 	var out []string
+	limit := s.units(w)
+	space := float64(s.glyphs(" ")[0])
 	for _, para := range strings.Split(str, "\n") {
 		words := strings.Fields(para)
 		if len(words) == 0 {
 			out = append(out, "")
 			continue
 		}
-		line := words[0]
-		for _, wd := range words[1:] {
-			if s.width(line+" "+wd) <= w {
-				line += " " + wd
+		var line []rune
+		lineW := 0.0
+		for _, wd := range words {
+			r := []rune(wd)
+			g := s.glyphs(wd)
+			ww := 0.0
+			for _, x := range g {
+				ww += float64(x)
+			}
+			if len(line) > 0 && lineW+space+ww <= limit {
+				line = append(append(line, ' '), r...)
+				lineW += space + ww
 				continue
 			}
-			out = append(out, line)
-			line = wd
+			if len(line) > 0 {
+				out = append(out, string(line))
+				line, lineW = nil, 0
+			}
+			// Hard-break a word wider than the line.
+			start, acc := 0, 0.0
+			for i := range r {
+				if acc+float64(g[i]) > limit && i > start {
+					out = append(out, string(r[start:i]))
+					start, acc = i, 0
+				}
+				acc += float64(g[i])
+			}
+			line, lineW = append(line, r[start:]...), acc
 		}
-		out = append(out, line)
+		out = append(out, string(line))
 	}
 	return out
 }
@@ -309,6 +400,14 @@ func (s *sheet) dashed(pattern ...float64) {
 
 // --- cover page ------------------------------------------------------------
 
+// coverTitleLines is how many lines of the title the cover prints; a
+// longer title ends with an ellipsis (it is whole in the PDF's metadata).
+const coverTitleLines = 3
+
+// cover draws the cover: the title, "Before you start" and the cautions on
+// its first page whatever the size of the job, then the job's notes, the
+// coil list and the bill of materials, continued on as many pages as they
+// take.
 func (s *sheet) cover() {
 	d := s.doc
 	s.pdf.AddPage()
@@ -320,11 +419,15 @@ func (s *sheet) cover() {
 	s.textRight(x+w, y, d.Date.Format("2 January 2006"))
 	y += 9
 	s.font("B", 20)
-	for _, l := range s.wrap(d.Title, w) {
+	title := s.wrap(d.Title, w)
+	if len(title) > coverTitleLines {
+		title[coverTitleLines-1] = s.fit(title[coverTitleLines-1]+" "+title[coverTitleLines], w)
+		title = title[:coverTitleLines]
+	}
+	for _, l := range title {
 		s.text(x, y, l)
 		y += 8.5
 	}
-	s.font("", bodySize)
 	total := 0
 	for _, c := range d.Coils {
 		total += c.Quantity
@@ -334,27 +437,48 @@ func (s *sheet) cover() {
 		sub += " · from " + d.Source
 	}
 	s.font("", 10)
-	s.text(x, y, sub)
+	s.text(x, y, s.fit(sub, w))
 	y += 5
-	if strings.TrimSpace(d.Notes) != "" {
-		s.font("", bodySize)
-		y = s.para(x, y+2, w, d.Notes)
-	}
 
-	y = s.heading(x, y+sectionGap+2, w, "Coils in this job")
-	y = s.coilTable(x, y, w)
-
-	y = s.heading(x, y+sectionGap, w, "Bill of materials")
-	y = s.billOfMaterials(x, y, w)
-
-	y = s.heading(x, y+sectionGap, w, "Before you start")
-	s.font("", bodySize)
-	y = s.bullets(x, y, w, []string{
+	before := []string{
 		"Print at 100 % (\"actual size\"), never \"fit to page\". On every coil page, measure the 50 mm scale-check bar with a ruler before trusting the drawing or the pitch template.",
 		"Each coil page gives the wire to cut, what to wind it on, the winding steps, what it should measure, and a log for what it did measure. Squeeze the turns to raise the inductance, spread them to lower it.",
 		"Lengths are in " + map[bool]string{true: "inches", false: "millimetres"}[s.u.inches] + ". Resistance is written \"ohm\".",
-	})
-	s.cautionBox(x, y+sectionGap, w, nil, anyHighVoltage(d.Coils))
+	}
+	hv := anyHighVoltage(d.Coils)
+	s.font("", bodySize)
+	beforeH := sectionGap + 5
+	for _, it := range before {
+		beforeH += s.paraHeight(w-3.5, it) + 0.6
+	}
+	cautH := s.cautionHeight(w, s.cautionItems(&Coil{HighVoltage: hv}))
+	notes := strings.TrimSpace(d.Notes) != ""
+	// Short notes go under the title; long ones after the cautions, so
+	// that the cautions are always on the cover's first page.
+	if notes && y+2+s.paraHeight(w, d.Notes)+beforeH+sectionGap+cautH <= s.bottom() {
+		y = s.para(x, y+2, w, d.Notes)
+		notes = false
+	}
+	f := s.newFlow(y+sectionGap+2, d.Title+": cover")
+	f.heading(x, w, "Before you start")
+	s.font("", bodySize)
+	f.bullets(x, w, before)
+	f.needBox(sectionGap + cautH)
+	f.y = s.cautionBox(x, f.y+sectionGap, w, nil, hv)
+
+	if notes {
+		f.y += sectionGap + 4
+		f.heading(x, w, "Notes")
+		s.font("", bodySize)
+		f.para(x, w, d.Notes)
+	}
+	f.y += sectionGap + 2
+	f.heading(x, w, "Coils in this job")
+	s.coilTable(f, x, w)
+
+	f.y += sectionGap
+	f.heading(x, w, "Bill of materials")
+	s.billOfMaterials(f, x, w)
 }
 
 func anyHighVoltage(cs []Coil) bool {
@@ -375,33 +499,11 @@ func (s *sheet) bullets(x, y, w float64, items []string) float64 {
 	return y
 }
 
-// coilPageNumbers returns the page each coil starts on (the cover is 1).
-func (s *sheet) coilPageNumbers() []int {
-	out := make([]int, len(s.doc.Coils))
-	p := 2
-	for i, c := range s.doc.Coils {
-		out[i] = p
-		p++
-		if c.Span != nil {
-			p++
-		}
-	}
-	return out
-}
-
-func (s *sheet) coilTable(x, y, w float64) float64 {
-	cols := []struct {
-		title string
-		w     float64
-	}{{"page", 10}, {"coil", 30}, {"build", 11}, {"winding", w - 10 - 30 - 11 - 38}, {"inductance", 38}}
-	s.font("B", smallSize)
-	cx := x
-	for _, c := range cols {
-		s.text(cx, y, c.title)
-		cx += c.w
-	}
-	y += 4.2
-	pages := s.coilPageNumbers()
+func (s *sheet) coilTable(f *flow, x, w float64) {
+	t := &table{x: x, cols: []float64{10, 30, 11, w - 10 - 30 - 11 - 38, 38},
+		heads:  []string{"page", "coil", "build", "winding", "inductance"},
+		styles: []string{"", "B", "", "", ""}}
+	f.startTable(t)
 	for i, c := range s.doc.Coils {
 		p := c.Prediction
 		g := p.Geometry
@@ -416,18 +518,15 @@ func (s *sheet) coilTable(x, y, w float64) float64 {
 		if p.Frequency > 0 {
 			ind += " at " + hz(float64(p.Frequency))
 		}
-		cells := []string{fmt.Sprint(pages[i]), c.Name, fmt.Sprintf("× %d", c.Quantity), what, ind}
-		widths := make([]float64, len(cols))
-		for j, col := range cols {
-			widths[j] = col.w
+		page := "?"
+		if i < len(s.pages) {
+			page = fmt.Sprint(s.pages[i])
 		}
 		s.font("B", bodySize)
-		s.text(x+cols[0].w, y, s.fit(c.Name, cols[1].w-1.5))
-		s.font("", bodySize)
-		cells[1] = ""
-		y = s.wrappedRow(x, y, widths, cells, 2) + 0.3
+		name := s.fit(c.Name, t.cols[1]-1.5)
+		f.tableRow(t, []string{page, name, fmt.Sprintf("× %d", c.Quantity), what, ind})
 	}
-	return y
+	f.endTable()
 }
 
 // shortWire is the wire's name without the description's tail.

@@ -18,6 +18,8 @@ import (
 
 	"turnwise/coil"
 	"turnwise/internal/testtools"
+
+	"gonum.org/v1/gonum/unit"
 )
 
 // Tolerances.
@@ -423,7 +425,7 @@ func TestRenderErrors(t *testing.T) {
 		{"no coils", func(d *Document) { d.Coils = nil }, "no coils"},
 		{"bad geometry", func(d *Document) { d.Coils[0].Prediction.Geometry.Turns = 0 }, "turns"},
 		{"tap outside", func(d *Document) { d.Coils[0].Tap.Turns = 9 }, "tap"},
-		{"NaN dial", func(d *Document) { d.Coils[1].Span.Dial[3].FLow = math.NaN() }, "dial"},
+		{"NaN dial", func(d *Document) { d.Coils[1].Span.Dial[3].FLow = unit.Frequency(math.NaN()) }, "dial"},
 		{"allowance", func(d *Document) { d.Allowance = 2 }, "allowance"},
 	}
 	for _, tc := range cases {

@@ -46,9 +46,13 @@ func (s *sheet) spanPage(c *Coil) {
 	rx, rw := x+tw+6, w-tw-6
 	yr := s.heading(rx, top, rw, "What the chart says")
 	s.font("", bodySize)
-	yr = s.bullets(rx, yr, rw, s.spanFindings(sp))
-	_ = yr
+	f := s.newFlow(yr, c.Name+": tuning chart")
+	f.bullets(rx, rw, s.spanFindings(sp))
 }
+
+// minBandH is the least height a band is drawn with, mm: wider than a
+// grid line, so none hides under one.
+const minBandH = 1.2
 
 // freqAxis maps frequency to the chart's y on a log scale.
 type freqAxis struct {
@@ -68,35 +72,20 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 	ax := freqAxis{top: y + 2, bot: y + h}
 	lo, hi := math.Inf(1), 0.0
 	for _, d := range sp.Dial {
-		for _, f := range []float64{d.FLow, d.FHigh} {
+		for _, f := range []float64{float64(d.FLow), float64(d.FHigh)} {
 			if f > 0 {
 				lo, hi = math.Min(lo, f), math.Max(hi, f)
 			}
 		}
 	}
 	for _, b := range sp.Bands {
-		lo, hi = math.Min(lo, b.Low), math.Max(hi, b.High)
+		lo, hi = math.Min(lo, float64(b.Low)), math.Max(hi, float64(b.High))
 	}
 	if !(hi > lo) {
 		lo, hi = 1e6, 10e6
 	}
 	ax.lo, ax.hi = lo/1.08, hi*1.08
 	xOf := func(setting float64) float64 { return left + setting*(right-left) }
-
-	// Bands: hatched, clipped to the plot.
-	pdf.ClipRect(left, ax.top, right-left, ax.bot-ax.top, false)
-	for _, b := range sp.Bands {
-		y1, y2 := ax.y(b.High), ax.y(b.Low)
-		pdf.SetFillColor(215, 215, 215)
-		pdf.Rect(left, y1, right-left, y2-y1, "F")
-		pdf.SetDrawColor(90, 90, 90)
-		pdf.SetLineWidth(0.15)
-		for xx := left - (y2 - y1); xx < right; xx += 2.2 {
-			pdf.Line(xx, y2, xx+(y2-y1), y1)
-		}
-		s.black()
-	}
-	pdf.ClipEnd()
 
 	// Frame and grid.
 	s.black()
@@ -118,6 +107,28 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 	}
 	s.textCenter((left+right)/2, ax.bot+7.2, "dial setting, % of rotation: 0 = plates fully open (least capacitance), 100 = fully meshed")
 
+	// Bands: hatched, clipped to the plot, drawn over the grid and edged.
+	pdf.ClipRect(left, ax.top, right-left, ax.bot-ax.top, false)
+	for _, b := range sp.Bands {
+		y1, y2 := ax.y(float64(b.High)), ax.y(float64(b.Low))
+		if y2-y1 < minBandH { // a narrow band stays visible above a grid line
+			m := (y1 + y2) / 2
+			y1, y2 = m-minBandH/2, m+minBandH/2
+		}
+		pdf.SetFillColor(215, 215, 215)
+		pdf.Rect(left, y1, right-left, y2-y1, "F")
+		pdf.SetDrawColor(90, 90, 90)
+		pdf.SetLineWidth(0.15)
+		for xx := left - (y2 - y1); xx < right; xx += 2.2 {
+			pdf.Line(xx, y2, xx+(y2-y1), y1)
+		}
+		s.black()
+		pdf.SetLineWidth(0.2)
+		pdf.Line(left, y1, right, y1)
+		pdf.Line(left, y2, right, y2)
+	}
+	pdf.ClipEnd()
+
 	// The two ranges.
 	curve := func(get func(DialPoint) float64) {
 		first := true
@@ -138,16 +149,16 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 		}
 	}
 	pdf.SetLineWidth(0.7)
-	curve(func(d DialPoint) float64 { return d.FLow })
+	curve(func(d DialPoint) float64 { return float64(d.FLow) })
 	s.dashed(2.2, 1.2)
-	curve(func(d DialPoint) float64 { return d.FHigh })
+	curve(func(d DialPoint) float64 { return float64(d.FHigh) })
 	s.dashed()
 
 	// Band labels at the right edge.
 	s.font("", 6.5)
 	for _, b := range sp.Bands {
-		l := cmp.Or(b.Label, quantity.FormatEng(b.Low, "Hz", 3)+"–"+quantity.FormatEng(b.High, "Hz", 3))
-		s.text(right+1.5, (ax.y(b.Low)+ax.y(b.High))/2+0.9, s.fit(l, x+w-right-2))
+		l := cmp.Or(b.Label, quantity.FormatEng(float64(b.Low), "Hz", 3)+"–"+quantity.FormatEng(float64(b.High), "Hz", 3))
+		s.text(right+1.5, (ax.y(float64(b.Low))+ax.y(float64(b.High)))/2+0.9, s.fit(l, x+w-right-2))
 	}
 	// Coincidences: the harmonic on the high range, joined to its
 	// fundamental on the low range.
@@ -155,11 +166,11 @@ func (s *sheet) spanChart(x, y, w, h float64, sp *Span) float64 {
 		xx := xOf(c.Setting)
 		pdf.SetLineWidth(0.25)
 		s.dashed(0.5, 0.5)
-		pdf.Line(xx, ax.y(c.FLow), xx, ax.y(float64(c.Order)*c.FLow))
+		pdf.Line(xx, ax.y(float64(c.FLow)), xx, ax.y(float64(c.Order)*float64(c.FLow)))
 		s.dashed()
 		pdf.SetLineWidth(0.35)
-		pdf.Circle(xx, ax.y(c.FLow), 1.2, "D")
-		sq := ax.y(float64(c.Order) * c.FLow)
+		pdf.Circle(xx, ax.y(float64(c.FLow)), 1.2, "D")
+		sq := ax.y(float64(c.Order) * float64(c.FLow))
 		pdf.Polygon([]gofpdf.PointType{{X: xx, Y: sq - 1.7}, {X: xx + 1.5, Y: sq + 1}, {X: xx - 1.5, Y: sq + 1}}, "F")
 		s.font("B", 6.5)
 		s.text(xx+2, sq-1.5, fmt.Sprintf("%d×", c.Order))
@@ -232,7 +243,7 @@ func (s *sheet) dialTable(x, y, w float64, sp *Span) float64 {
 			break
 		}
 		d := sp.Dial[j]
-		s.row(x, y, cols, []string{fmt.Sprintf("%.0f %%", d.Setting*100), hz(d.FLow), hz(d.FHigh)})
+		s.row(x, y, cols, []string{fmt.Sprintf("%.0f %%", d.Setting*100), hz(float64(d.FLow)), hz(float64(d.FHigh))})
 		y += s.lineH()
 	}
 	return y
@@ -242,23 +253,33 @@ func (s *sheet) dialTable(x, y, w float64, sp *Span) float64 {
 func (s *sheet) spanFindings(sp *Span) []string {
 	var out []string
 	if sp.Overlap >= 0 {
-		out = append(out, fmt.Sprintf("The two ranges overlap by %s: no gap in coverage.", hz(sp.Overlap)))
+		out = append(out, fmt.Sprintf("The two ranges overlap by %s: no gap in coverage.", hz(float64(sp.Overlap))))
 	} else {
-		out = append(out, fmt.Sprintf("Gap of %s between the top of the low range and the bottom of the high range: frequencies there cannot be tuned.", hz(-sp.Overlap)))
+		out = append(out, fmt.Sprintf("Gap of %s between the top of the low range and the bottom of the high range: frequencies there cannot be tuned.", hz(float64(-sp.Overlap))))
 	}
 	for _, b := range sp.Bands {
-		name := cmp.Or(b.Label, quantity.FormatEng(b.Low, "Hz", 3)+" – "+quantity.FormatEng(b.High, "Hz", 3))
+		name := cmp.Or(b.Label, quantity.FormatEng(float64(b.Low), "Hz", 3)+" – "+quantity.FormatEng(float64(b.High), "Hz", 3))
+		if len(b.Ranges) > 0 {
+			var parts []string
+			for _, r := range b.Ranges {
+				p := fmt.Sprintf("%s range, dial %s", r.Range, dialStretch(r.DialLow, r.DialHigh))
+				if !r.Whole {
+					p = fmt.Sprintf("%s range reaches only part of it, dial %s", r.Range, dialStretch(r.DialLow, r.DialHigh))
+				}
+				parts = append(parts, p)
+			}
+			out = append(out, name+": "+strings.Join(parts, "; ")+".")
+			continue
+		}
 		switch b.Range {
 		case "low", "high", "both":
 			r := b.Range + " range"
 			if b.Range == "both" {
 				r = "both ranges (dial for the low one)"
 			}
-			lo, hi := min(b.DialLow, b.DialHigh), max(b.DialLow, b.DialHigh)
-			out = append(out, fmt.Sprintf("%s: %s, dial %.0f %% to %.0f %%.", name, r, lo*100, hi*100))
+			out = append(out, fmt.Sprintf("%s: %s, dial %s.", name, r, dialStretch(b.DialLow, b.DialHigh)))
 		case "part":
-			lo, hi := min(b.DialLow, b.DialHigh), max(b.DialLow, b.DialHigh)
-			out = append(out, fmt.Sprintf("%s: only partly reached (dial %.0f %% to %.0f %%); trim the capacitor or move the tap.", name, lo*100, hi*100))
+			out = append(out, fmt.Sprintf("%s: only partly reached (dial %s); trim the capacitor or move the tap.", name, dialStretch(b.DialLow, b.DialHigh)))
 		default:
 			out = append(out, name+": NOT reached by either range.")
 		}
@@ -272,12 +293,25 @@ func (s *sheet) spanFindings(sp *Span) []string {
 			in = " (in " + c.Band + ")"
 		}
 		out = append(out, fmt.Sprintf("At dial %.0f %%: the low range is at %s%s and its %s harmonic, %s, falls in the high range's passband (tuned to %s; %.2f of the way from the peak to the -3 dB edge). A receiver with a harmonic-rich oscillator hears both.",
-			c.Setting*100, hz(c.FLow), in, ordinal(c.Order), hz(float64(c.Order)*c.FLow), hz(c.FHigh), c.Depth))
+			c.Setting*100, hz(float64(c.FLow)), in, ordinal(c.Order), hz(float64(c.Order)*float64(c.FLow)), hz(float64(c.FHigh)), c.Depth))
 	}
 	for _, n := range sp.Notes {
 		out = append(out, sentence(n))
 	}
 	return out
+}
+
+// dialStretch prints a stretch of the dial, lower setting first, with as
+// many decimals (one to three) as make its two ends differ.
+func dialStretch(a, b float64) string {
+	lo, hi := min(a, b), max(a, b)
+	for d := 1; d <= 3; d++ {
+		l, h := fmt.Sprintf("%.*f %%", d, lo*100), fmt.Sprintf("%.*f %%", d, hi*100)
+		if l != h {
+			return l + " to " + h
+		}
+	}
+	return fmt.Sprintf("%.3f %%", lo*100)
 }
 
 // sentence capitalises the first letter and ends with a full stop.

@@ -8,6 +8,7 @@ import (
 
 	"turnwise/coil/circuit"
 	"turnwise/forms"
+	"turnwise/internal/spec"
 )
 
 // Circuit files: read one and build the circuit.Network it describes, each
@@ -34,7 +35,7 @@ type circuitModel struct {
 	File *forms.Circuit
 	Net  *circuit.Network
 	// Coils holds each wound coil's resolved winding, by part index.
-	Coils map[int]coilSpec
+	Coils map[int]spec.Spec
 	// Mounting is each wound coil's mounting ("grounded" or "floating"),
 	// by part index.
 	Mounting map[int]string
@@ -60,7 +61,7 @@ func (m *circuitModel) PartIndex(name string) int {
 // key at fault.
 func buildCircuit(c *forms.Circuit, cat *forms.Catalog, so *stockOptions, flagsGiven bool) (*circuitModel, error) {
 	m := &circuitModel{File: c, Net: &circuit.Network{Nodes: []string{forms.GroundNode}},
-		Coils: map[int]coilSpec{}, Mounting: map[int]string{}}
+		Coils: map[int]spec.Spec{}, Mounting: map[int]string{}}
 	nodes := map[string]int{forms.GroundNode: circuit.Ground}
 	node := func(name string) int {
 		if i, ok := nodes[name]; ok {
@@ -76,20 +77,20 @@ func buildCircuit(c *forms.Circuit, cat *forms.Catalog, so *stockOptions, flagsG
 	jobs := map[string]*forms.Job{}
 	for i := range c.Coils {
 		k := &c.Coils[i]
-		var spec coilSpec
+		var cs spec.Spec
 		var err error
 		if k.Winding != nil {
-			spec, err = resolveJobCoil(&forms.Job{File: c.File}, k.Winding, cat)
+			cs, err = spec.ResolveJobCoil(&forms.Job{File: c.File}, k.Winding, cat)
 			if err != nil {
 				return nil, asCircuitError(err, c.File)
 			}
 		} else {
-			spec, err = circuitJobCoil(c, k, jobs, so, flagsGiven)
+			cs, err = circuitJobCoil(c, k, jobs, so, flagsGiven)
 			if err != nil {
 				return nil, err
 			}
 		}
-		g := spec.Geometry
+		g := cs.Geometry
 		p := circuit.Part{Name: k.Name, Kind: circuit.Wound, A: node(k.From), B: node(k.To), Coil: &g, TapNode: -1}
 		if k.Tap != nil {
 			if *k.Tap >= g.Turns {
@@ -97,7 +98,7 @@ func buildCircuit(c *forms.Circuit, cat *forms.Catalog, so *stockOptions, flagsG
 			}
 			p.TapNode, p.TapTurns = node(k.TapNode), *k.Tap
 		}
-		m.Coils[len(m.Net.Parts)] = spec
+		m.Coils[len(m.Net.Parts)] = cs
 		m.Mounting[len(m.Net.Parts)] = k.Mounting
 		m.Net.Parts = append(m.Net.Parts, p)
 		m.Entries = append(m.Entries, &k.CircuitEntry)
@@ -140,7 +141,7 @@ func buildCircuit(c *forms.Circuit, cat *forms.Catalog, so *stockOptions, flagsG
 
 // circuitJobCoil resolves a coil taken from a job file, the job read
 // relative to the circuit file and with its own stock.
-func circuitJobCoil(c *forms.Circuit, k *forms.CircuitCoil, jobs map[string]*forms.Job, so *stockOptions, flagsGiven bool) (coilSpec, error) {
+func circuitJobCoil(c *forms.Circuit, k *forms.CircuitCoil, jobs map[string]*forms.Job, so *stockOptions, flagsGiven bool) (spec.Spec, error) {
 	path := k.Job
 	if !filepath.IsAbs(path) {
 		path = filepath.Join(filepath.Dir(c.File), path)
@@ -151,28 +152,28 @@ func circuitJobCoil(c *forms.Circuit, k *forms.CircuitCoil, jobs map[string]*for
 	job, ok := jobs[path]
 	if !ok {
 		var err error
-		job, err = loadJobFile(path)
+		job, err = spec.LoadJob(path)
 		if err != nil {
 			var ue *usageError
 			if errors.As(err, &ue) {
-				return coilSpec{}, fail("job", fmt.Errorf("%q (read as %s) does not exist; the path is relative to the circuit file", k.Job, path))
+				return spec.Spec{}, fail("job", fmt.Errorf("%q (read as %s) does not exist; the path is relative to the circuit file", k.Job, path))
 			}
-			return coilSpec{}, err // the job file's own error, at its line
+			return spec.Spec{}, err // the job file's own error, at its line
 		}
 		jobs[path] = job
 	}
 	jc, err := job.Coil(k.JobCoil)
 	if err != nil {
-		return coilSpec{}, fail("coil", err)
+		return spec.Spec{}, fail("coil", err)
 	}
 	if jc.Target != nil {
-		return coilSpec{}, fail("coil", fmt.Errorf("%s of %s is a design target, not a fixed winding; design it and put its turns in the job file first", jc.Label(), k.Job))
+		return spec.Spec{}, fail("coil", fmt.Errorf("%s of %s is a design target, not a fixed winding; design it and put its turns in the job file first", jc.Label(), k.Job))
 	}
-	cat, err := jobCatalog(job, so, flagsGiven)
+	cat, err := spec.JobCatalog(job, so.path, so.use.v, flagsGiven)
 	if err != nil {
-		return coilSpec{}, err
+		return spec.Spec{}, err
 	}
-	return resolveJobCoil(job, jc, cat)
+	return spec.ResolveJobCoil(job, jc, cat)
 }
 
 // asCircuitError relabels an error the job-coil resolver made for an inline

@@ -2,19 +2,18 @@ package main
 
 import (
 	"context"
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
 	"strings"
-	"turnwise/internal/quantity"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil/design"
-	"turnwise/forms"
+	"turnwise/internal/report"
+	"turnwise/internal/spec"
 )
 
 // defaultDesignLeads is assumed when --leads is not given: 10 mm each, a
@@ -30,7 +29,7 @@ type wireSizeFlag struct {
 func (f *wireSizeFlag) String() string { return f.raw }
 func (f *wireSizeFlag) Type() string   { return "diameter|gauge" }
 func (f *wireSizeFlag) Set(s string) error {
-	v, err := parseWireSize(s)
+	v, err := spec.ParseWireSize(s)
 	if err != nil {
 		return err
 	}
@@ -157,9 +156,9 @@ from 0.2 mm to 4.2 mm (common practice).
 }
 
 // searchOptions turns the flags into the glue's options.
-func (o *designOptions) searchOptions(srfGiven bool) (*designSearchOptions, []string, error) {
+func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []string, error) {
 	var notes []string
-	so := &designSearchOptions{
+	so := &spec.SearchOptions{
 		Inductance:    o.inductance.v,
 		Capacitance:   o.capacitance.v,
 		Stray:         o.stray.v,
@@ -216,271 +215,19 @@ func runDesign(_ context.Context, opts *designOptions, srfGiven bool, stdout, st
 	if err != nil {
 		return err
 	}
-	res, err := runDesignSearch(cat, so)
+	res, err := spec.Search(cat, so)
 	if err != nil {
 		return err
 	}
 	warnings := append(notes, res.Warnings...)
 	if opts.json {
-		return writeDesignJSON(stdout, cat, so, res, warnings)
+		return report.WriteDesignJSON(stdout, cat, so, res, warnings)
 	}
-	if err := writeDesignTable(stdout, cat, so, res, newLengthFormatter(opts.units.v)); err != nil {
+	if err := report.WriteDesignTable(stdout, cat, so, res, newLengthFormatter(opts.units.v)); err != nil {
 		return err
 	}
 	for _, w := range warnings {
 		fmt.Fprintf(stderr, "warning: %s\n", w)
 	}
 	return nil
-}
-
-// designSpec is the coilSpec of a candidate, its wire described by the
-// row the search took it from.
-func designSpec(rows map[string]forms.Wire, c design.Candidate) coilSpec {
-	kind := "mandrel"
-	if c.Support.OnFormer {
-		kind = "former"
-	}
-	w, ok := rows[c.Wire.Name]
-	if !ok {
-		overall := c.Wire.Overall
-		if overall == 0 {
-			overall = c.Wire.Diameter
-		}
-		w = forms.Wire{Name: c.Wire.Name, System: "user", Bare: c.Wire.Diameter, Overall: overall,
-			Insulation: "custom", Conductor: c.Wire.Conductor.String(), Origin: "design"}
-	}
-	src := map[string]string{"support": "given", "calibration": "calibration", "none": "none", "former": "none"}[c.SpringbackSource]
-	return coilSpec{
-		Geometry: c.Prediction.Geometry, Wire: w, SupportKind: kind, SupportName: c.Support.Name,
-		SpringbackSource: src, SpringbackNote: c.Support.SpringbackNote, PitchSource: "pitch",
-	}
-}
-
-// wireRows indexes the search's wire rows by name.
-func wireRows(cat *forms.Catalog, so *designSearchOptions) map[string]forms.Wire {
-	rows, _ := designWireRows(cat, so) // the search already accepted them
-	m := make(map[string]forms.Wire, len(rows))
-	for _, w := range rows {
-		if _, dup := m[w.Name]; !dup {
-			m[w.Name] = w
-		}
-	}
-	return m
-}
-
-// designCandidateRecord is one candidate in JSON: the predict keys plus the
-// search's own.
-type designCandidateRecord struct {
-	Rank int `json:"rank"`
-	coilRecord
-	Matched          float64 `json:"matched_inductance"` // what was compared with the target
-	Score            float64 `json:"score"`
-	Why              string  `json:"why"`
-	TrimMin          float64 `json:"trim_min"` // terminal L at the loosest sensible pitch
-	TrimMax          float64 `json:"trim_max"` // terminal L close-wound
-	TuneLow          float64 `json:"tune_low,omitempty"`
-	TuneHigh         float64 `json:"tune_high,omitempty"`
-	SpringbackOrigin string  `json:"springback_note,omitempty"`
-	FreeDiameter     bool    `json:"free_diameter,omitempty"`
-}
-
-func newDesignCandidateRecord(rows map[string]forms.Wire, rank int, c design.Candidate) designCandidateRecord {
-	spec := designSpec(rows, c)
-	rec := newCoilRecord(spec, c.Prediction)
-	rec.TrimLengthPerPercent = float64(c.TrimLengthPerPercent)
-	return designCandidateRecord{
-		Rank: rank, coilRecord: rec, Matched: float64(c.Matched), Score: c.Score, Why: c.Why,
-		TrimMin: float64(c.TrimMin), TrimMax: float64(c.TrimMax),
-		TuneLow: float64(c.TuneLow), TuneHigh: float64(c.TuneHigh),
-		SpringbackOrigin: c.Support.SpringbackNote, FreeDiameter: c.Free,
-	}
-}
-
-type designTargetRecord struct {
-	Inductance    float64 `json:"inductance,omitempty"`
-	Capacitance   float64 `json:"capacitance,omitempty"`
-	Stray         float64 `json:"stray,omitempty"`
-	Resonance     float64 `json:"resonance,omitempty"`
-	Frequency     float64 `json:"frequency"` // operating; 0 when none
-	Tolerance     float64 `json:"tolerance"`
-	Required      float64 `json:"required_inductance"`
-	Effective     bool    `json:"required_is_effective"`
-	LeadLength    float64 `json:"lead_length"`
-	MaxLength     float64 `json:"max_length,omitempty"`
-	MaxDiameter   float64 `json:"max_diameter,omitempty"`
-	MaxWireLength float64 `json:"max_wire_length,omitempty"`
-	MinSRFRatio   float64 `json:"min_srf_ratio"`
-	TrimMargin    float64 `json:"trim_margin"`
-	Prefer        string  `json:"prefer"`
-}
-
-type designSearchRecord struct {
-	Pairs       int `json:"pairs"`
-	Searched    int `json:"pairs_opened"`
-	Coils       int `json:"coils_solved"`
-	Evaluations int `json:"evaluations"`
-}
-
-func writeDesignJSON(w io.Writer, cat *forms.Catalog, so *designSearchOptions, res design.Result, warnings []string) error {
-	t := designTargetRecord{
-		Frequency: float64(res.Frequency), Tolerance: res.Tolerance, Required: float64(res.Required),
-		Effective: res.Effective, LeadLength: float64(so.Leads), MaxLength: float64(so.MaxLength),
-		MaxDiameter: float64(so.MaxDiameter), MaxWireLength: float64(so.MaxWireLength),
-		MinSRFRatio: orDefault(so.MinSRFRatio, design.DefaultSRFRatio), TrimMargin: orDefault(so.TrimMargin, design.DefaultTrimMargin),
-		Prefer: orDefaultString(so.Prefer, "balanced"),
-	}
-	if res.Effective {
-		t.Capacitance, t.Stray, t.Resonance = float64(so.Capacitance), float64(so.Stray), float64(so.Freq)
-	} else {
-		t.Inductance = float64(so.Inductance)
-	}
-	doc := struct {
-		Schema     int                     `json:"schema"`
-		Target     designTargetRecord      `json:"target"`
-		Candidates []designCandidateRecord `json:"candidates"`
-		Pareto     []designCandidateRecord `json:"pareto"`
-		Search     designSearchRecord      `json:"search"`
-		Warnings   []string                `json:"warnings"`
-	}{Schema: schemaVersion, Target: t, Candidates: []designCandidateRecord{}, Pareto: []designCandidateRecord{}, Warnings: warnings}
-	if doc.Warnings == nil {
-		doc.Warnings = []string{}
-	}
-	rows := wireRows(cat, so)
-	for i, c := range res.Candidates {
-		doc.Candidates = append(doc.Candidates, newDesignCandidateRecord(rows, i+1, c))
-	}
-	for i, c := range res.Pareto {
-		doc.Pareto = append(doc.Pareto, newDesignCandidateRecord(rows, i+1, c))
-	}
-	doc.Search = designSearchRecord{res.Stats.Pairs, res.Stats.Searched, res.Stats.Coils, res.Stats.Evaluations}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(doc)
-}
-
-func orDefault(v, def float64) float64 {
-	if v == 0 {
-		return def
-	}
-	return v
-}
-
-func orDefaultString(v, def string) string {
-	if v == "" {
-		return def
-	}
-	return v
-}
-
-// writeDesignTable prints the target, the candidates (five lines each: what
-// to wind, the build numbers, what it will measure, how to trim it, why)
-// and the Pareto list.
-func writeDesignTable(w io.Writer, cat *forms.Catalog, so *designSearchOptions, res design.Result, lf lengthFormatter) error {
-	f := float64(res.Frequency)
-	tol := fmt.Sprintf("± %.3g %%", res.Tolerance*100)
-	leads := "2 × " + lf.fmt(float64(so.Leads)) + " leads"
-	if res.Effective {
-		c := quantity.FormatCapacitance(float64(so.Capacitance))
-		if so.Stray > 0 {
-			c += " + " + quantity.FormatCapacitance(float64(so.Stray)) + " stray"
-		}
-		fmt.Fprintf(w, "TARGET  resonate with %s at %s: %s effective at the terminals %s, %s included\n",
-			c, quantity.FormatEng(float64(so.Freq), "Hz", 4), quantity.FormatEng(float64(res.Required), "H", 3), tol, leads)
-	} else {
-		at := "at low frequency"
-		if f > 0 {
-			at = "at " + quantity.FormatEng(f, "Hz", 4)
-		}
-		fmt.Fprintf(w, "TARGET  %s at the terminals %s %s, %s included\n", quantity.FormatEng(float64(res.Required), "H", 3), at, tol, leads)
-	}
-	var limits []string
-	if so.MaxLength > 0 {
-		limits = append(limits, "outside length ≤ "+lf.fmt(float64(so.MaxLength)))
-	}
-	if so.MaxDiameter > 0 {
-		limits = append(limits, "outside diameter ≤ "+lf.fmt(float64(so.MaxDiameter)))
-	}
-	if so.MaxWireLength > 0 {
-		limits = append(limits, "wire ≤ "+lf.fmt(float64(so.MaxWireLength)))
-	}
-	if f > 0 {
-		limits = append(limits, fmt.Sprintf("SRF ≥ %g × f", orDefault(so.MinSRFRatio, design.DefaultSRFRatio)))
-	}
-	limits = append(limits, fmt.Sprintf("target inside the trim window by %.3g %%", orDefault(so.TrimMargin, design.DefaultTrimMargin)*100))
-	fmt.Fprintf(w, "LIMITS  %s\n", strings.Join(limits, "; "))
-	fmt.Fprintf(w, "SEARCH  %d support × wire pairs, %d opened, %d coils solved\n", res.Stats.Pairs, res.Stats.Searched, res.Stats.Coils)
-
-	rows := wireRows(cat, so)
-	for i, c := range res.Candidates {
-		fmt.Fprintln(w)
-		writeDesignCandidate(w, rows, i+1, c, res, lf)
-	}
-	if len(res.Pareto) > 0 {
-		fmt.Fprintln(w)
-		fmt.Fprintln(w, "Q VERSUS SIZE (Pareto: no coil found is both smaller and of higher Q)")
-		for _, c := range thinForTable(res.Pareto, 8) {
-			p := c.Prediction
-			g := p.Geometry
-			fmt.Fprintf(w, "  Q %4.0f  %s long × %s across  %s turns of %s on %s\n", p.Q,
-				lf.fmt(float64(p.WindingLength)), lf.fmt(float64(p.OutsideDiameter)), quantity.FormatTurns(g.Turns), c.Wire.Name, c.Support.Name)
-		}
-	}
-	fmt.Fprintln(w)
-	fmt.Fprintln(w, "Strip enamel only at the joints (flame, solder pot and strippers burn and give off fumes). Tank and coupler")
-	fmt.Fprintln(w, "coils in a transmitter carry high RF voltage and current: follow local regulations and licensed practice.")
-	return nil
-}
-
-func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c design.Candidate, res design.Result, lf lengthFormatter) {
-	spec := designSpec(rows, c)
-	p := c.Prediction
-	g := p.Geometry
-	how := "slide off: self-supporting"
-	if c.Support.OnFormer {
-		how = "stays on the former"
-	}
-	fmt.Fprintf(w, "#%d  %s turns of %s on %s (%s)\n", rank, quantity.FormatTurns(g.Turns), describeWire(spec, lf), c.Support.Name, how)
-	overall := float64(g.OverallDiameter())
-	build := fmt.Sprintf("pitch %s (%.2f × wire), outside length %s, bore %s, outside %s, wire to cut %s",
-		lf.fmt(float64(g.Pitch)), float64(g.Pitch)/overall, lf.fmt(float64(p.WindingLength)),
-		lf.fmt(float64(p.InsideDiameter)), lf.fmt(float64(p.OutsideDiameter)), lf.FormatCut(float64(p.WireLength)))
-	switch c.SpringbackSource {
-	case "calibration":
-		build += fmt.Sprintf("; springback %s from your calibration (%s)", quantity.FormatPercent(g.Springback), c.Support.SpringbackNote)
-	case "support":
-		build += fmt.Sprintf("; springback %s (given)", quantity.FormatPercent(g.Springback))
-	case "none":
-		build += "; springback 0 % assumed"
-	}
-	fmt.Fprintf(w, "    %s\n", build)
-	f := float64(res.Frequency)
-	if f > 0 {
-		fmt.Fprintf(w, "    L %s at the terminals, %s effective at %s; Q %.0f (likely %.0f … %.0f); SRF %s (%.1f × f)\n",
-			quantity.FormatEng(float64(p.Inductance), "H", 3), quantity.FormatEng(float64(p.InductanceEffective), "H", 3), quantity.FormatEng(f, "Hz", 4),
-			p.Q, p.QMin, p.QMax, quantity.FormatEng(float64(p.SRF), "Hz", 3), float64(p.SRF)/f)
-	} else {
-		fmt.Fprintf(w, "    L %s at the terminals (low frequency); SRF %s\n", quantity.FormatEng(float64(p.Inductance), "H", 3), quantity.FormatEng(float64(p.SRF), "Hz", 3))
-	}
-	trim := fmt.Sprintf("trim: %s close-wound … %s spread to 3 × wire", quantity.FormatEng(float64(c.TrimMax), "H", 3), quantity.FormatEng(float64(c.TrimMin), "H", 3))
-	if res.Effective && c.TuneLow > 0 && c.TuneHigh > 0 {
-		trim += fmt.Sprintf(" (resonance %s … %s)", quantity.FormatEng(float64(c.TuneLow), "Hz", 4), quantity.FormatEng(float64(c.TuneHigh), "Hz", 4))
-	}
-	if c.TrimLengthPerPercent > 0 {
-		trim += fmt.Sprintf("; %s of length per 1 %% of L", lf.fmt(float64(c.TrimLengthPerPercent)))
-	}
-	fmt.Fprintf(w, "    %s\n", trim)
-	fmt.Fprintf(w, "    why: %s\n", c.Why)
-}
-
-// thinForTable keeps at most n points of the Pareto list, evenly spread,
-// always the first and last.
-func thinForTable(ps []design.Candidate, n int) []design.Candidate {
-	if len(ps) <= n {
-		return ps
-	}
-	out := make([]design.Candidate, 0, n)
-	for i := range n {
-		out = append(out, ps[i*(len(ps)-1)/(n-1)])
-	}
-	return out
 }

@@ -3,13 +3,14 @@ package main
 import (
 	"encoding/json"
 	"math"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 
 	"turnwise/coil"
 	"turnwise/forms"
+	"turnwise/internal/report"
+	"turnwise/internal/spec"
 )
 
 // The issue's acceptance lines, as goldens.
@@ -74,7 +75,7 @@ func TestDesignJSONKeys(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatal(err)
 	}
-	if doc["schema"] != float64(schemaVersion) {
+	if doc["schema"] != float64(report.SchemaVersion) {
 		t.Error("schema missing")
 	}
 	for _, k := range []string{"target", "candidates", "pareto", "warnings"} {
@@ -175,77 +176,6 @@ func TestDesignBadInput(t *testing.T) {
 	}
 }
 
-// The glue: catalog rows become supports and wires, pinned rows take the
-// flags' insulation, and saved calibrations reach the pairs they name
-// (the latest one for a pair).
-func TestDesignGlue(t *testing.T) {
-	f, err := os.Open(filepath.Join("..", "..", "testdata", "stock", "bench.toml"))
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	mine, err := forms.LoadStock(f, "bench.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
-	builtin, err := forms.BuiltIn()
-	if err != nil {
-		t.Fatal(err)
-	}
-	cat := forms.Merge(builtin, mine)
-
-	c, err := designConstraints(cat, &designSearchOptions{Support: "mandrel"})
-	if err != nil {
-		t.Fatal(err)
-	}
-	if len(c.Supports) != len(cat.Mandrels) || len(c.Wires) != len(cat.Wires) {
-		t.Errorf("%d supports, %d wires; catalog has %d mandrels, %d wires", len(c.Supports), len(c.Wires), len(cat.Mandrels), len(cat.Wires))
-	}
-	for _, s := range c.Supports {
-		if s.OnFormer {
-			t.Errorf("former %s among mandrels", s.Name)
-		}
-	}
-	want := map[[2]string]float64{
-		{"brass rod 6", "green spool"}: 0.028, // bench.toml, the later of its two (invented demo data)
-		{"6mm drill", "18swg"}:         0.04,  // bench.toml (invented demo data)
-	}
-	got := map[[2]string]float64{}
-	for _, cal := range c.Calibrations {
-		got[[2]string{cal.Support, cal.Wire}] = cal.Springback
-	}
-	for k, v := range want {
-		if math.Abs(got[k]-v) > 1e-12 {
-			t.Errorf("calibration %v = %v, want %v (all: %v)", k, got[k], v, got)
-		}
-	}
-
-	c, err = designConstraints(cat, &designSearchOptions{Former: "pvc 20mm", Wires: []string{"22awg", "1mm"}, Insulation: "grade2"})
-	if err != nil {
-		t.Fatal(err)
-	}
-	if len(c.Supports) != 1 || !c.Supports[0].OnFormer || c.Supports[0].Diameter != 20e-3 {
-		t.Errorf("supports %+v", c.Supports)
-	}
-	if len(c.Wires) != 2 || !(c.Wires[0].Overall > c.Wires[0].Diameter) || !(c.Wires[1].Overall > c.Wires[1].Diameter) {
-		t.Errorf("pinned wires %+v lack grade 2 enamel", c.Wires)
-	}
-
-	v := 0.03
-	c, err = designConstraints(cat, &designSearchOptions{Mandrel: "6mm", Springback: &v})
-	if err != nil {
-		t.Fatal(err)
-	}
-	if c.Supports[0].Springback != 0.03 || c.Calibrations != nil {
-		t.Errorf("--springback did not override: %+v, %v", c.Supports[0], c.Calibrations)
-	}
-
-	tg, err := designTarget(&designSearchOptions{Capacitance: 22e-12, Stray: 3e-12, Freq: 145e6})
-	if err != nil || tg.Resonance != 145e6 || tg.Capacitance != 22e-12 || tg.Stray != 3e-12 || tg.Inductance != 0 {
-		t.Errorf("target %+v, %v", tg, err)
-	}
-}
-
 // With a saved calibration the design on that mandrel and wire uses it and
 // says so (what `trim --save` promises).
 func TestDesignUsesCalibration(t *testing.T) {
@@ -285,15 +215,15 @@ func TestDesignSearchErrors(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	_, err = runDesignSearch(cat, &designSearchOptions{Inductance: 1e-9, Freq: 145e6, Leads: 5e-3})
+	_, err = spec.Search(cat, &spec.SearchOptions{Inductance: 1e-9, Freq: 145e6, Leads: 5e-3})
 	if exitCode(err) != exitInfeasible {
 		t.Errorf("infeasible: exit %d (%v)", exitCode(err), err)
 	}
-	_, err = runDesignSearch(cat, &designSearchOptions{Inductance: 48e-9, Freq: 145e6, Leads: 5e-3, MinSRFRatio: 1.1})
+	_, err = spec.Search(cat, &spec.SearchOptions{Inductance: 48e-9, Freq: 145e6, Leads: 5e-3, MinSRFRatio: 1.1})
 	if exitCode(err) != exitBadInput || !strings.Contains(err.Error(), "--min-srf-ratio") {
 		t.Errorf("bad ratio: exit %d (%v)", exitCode(err), err)
 	}
-	res, err := runDesignSearch(cat, &designSearchOptions{Inductance: 48e-9, Freq: 145e6, Leads: 5e-3, Top: 1})
+	res, err := spec.Search(cat, &spec.SearchOptions{Inductance: 48e-9, Freq: 145e6, Leads: 5e-3, Top: 1})
 	if err != nil || len(res.Candidates) != 1 {
 		t.Fatalf("top 1: %v, %d candidates", err, len(res.Candidates))
 	}

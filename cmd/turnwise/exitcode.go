@@ -27,31 +27,6 @@ EXIT STATUS
   3  valid request, but no coil meets it: the message says which
      constraint binds and what is nearest`
 
-// usageError is bad input found by the command layer: a missing or
-// conflicting flag, a value that does not parse.
-type usageError struct{ msg string }
-
-func (e *usageError) Error() string { return e.msg }
-
-func usageErrorf(format string, args ...any) error {
-	return &usageError{msg: fmt.Sprintf(format, args...)}
-}
-
-// flagError attaches the flag a model error belongs to.
-type flagError struct {
-	flag string
-	err  error
-}
-
-func (e *flagError) Error() string {
-	var ie *coil.InputError
-	if errors.As(e.err, &ie) {
-		return "--" + e.flag + ": " + ie.Reason
-	}
-	return "--" + e.flag + ": " + e.err.Error()
-}
-func (e *flagError) Unwrap() error { return e.err }
-
 // exitCode maps an error to the process exit status.
 func exitCode(err error) int {
 	if err == nil {

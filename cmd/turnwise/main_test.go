@@ -12,6 +12,7 @@ import (
 	"strings"
 	"testing"
 
+	"turnwise/internal/report"
 	"turnwise/internal/testtools"
 )
 
@@ -175,7 +176,7 @@ func TestPredictJSONKeys(t *testing.T) {
 	if _, ok := doc["warnings"].([]any); !ok {
 		t.Error("warnings is not an array")
 	}
-	if doc["schema"] != float64(schemaVersion) {
+	if doc["schema"] != float64(report.SchemaVersion) {
 		t.Error("schema missing")
 	}
 }
@@ -279,7 +280,7 @@ func TestImportDirection(t *testing.T) {
 		t.Skip("runs go list")
 	}
 	cmd := exec.Command("go", "list", "-f", "{{.ImportPath}}|{{join .Imports \" \"}}|{{join .Deps \" \"}}",
-		"turnwise/coil/...", "turnwise/forms/...", "turnwise/sheets/...")
+		"turnwise/coil/...", "turnwise/forms/...", "turnwise/sheets/...", "turnwise/internal/...")
 	cmd.Dir = filepath.Join("..", "..")
 	out, err := cmd.CombinedOutput()
 	if err != nil {
@@ -297,7 +298,7 @@ func TestImportDirection(t *testing.T) {
 			t.Error(v)
 		}
 	}
-	for _, pkg := range []string{"turnwise/coil", "turnwise/forms", "turnwise/sheets"} {
+	for _, pkg := range []string{"turnwise/coil", "turnwise/forms", "turnwise/sheets", "turnwise/internal/spec", "turnwise/internal/report"} {
 		if !seen[pkg] {
 			t.Errorf("go list did not list %s", pkg)
 		}
@@ -312,6 +313,8 @@ func TestImportDirection(t *testing.T) {
 //   - coil and every package under it never reach forms, sheets, cmd,
 //     cobra (or pflag), gofpdf or the TOML reader;
 //   - forms never reaches coil (or a package under it), sheets or cmd;
+//   - internal/spec and internal/report import, of this module, only coil,
+//     coil/*, forms, internal/quantity and sheets (report also spec);
 //   - no library package reaches cmd, cobra or pflag; only sheets uses gofpdf.
 func importViolations(pkg string, imports, deps []string) []string {
 	under := func(p, root string) bool { return p == root || strings.HasPrefix(p, root+"/") }
@@ -329,6 +332,16 @@ func importViolations(pkg string, imports, deps []string) []string {
 			std := !strings.Contains(strings.SplitN(imp, "/", 2)[0], ".") && !under(imp, "turnwise")
 			if !std && imp != "gonum.org/v1/gonum/unit" {
 				bad = append(bad, fmt.Sprintf("%s imports %s: internal/quantity is a leaf (standard library and gonum/unit only)", pkg, imp))
+			}
+		}
+	}
+	if pkg == "turnwise/internal/spec" || pkg == "turnwise/internal/report" {
+		for _, imp := range imports {
+			ok := !under(imp, "turnwise") || under(imp, "turnwise/coil") || imp == "turnwise/forms" ||
+				imp == "turnwise/internal/quantity" || imp == "turnwise/sheets" ||
+				pkg == "turnwise/internal/report" && imp == "turnwise/internal/spec"
+			if !ok {
+				bad = append(bad, fmt.Sprintf("%s imports %s: it may import coil, coil/*, forms, internal/quantity, sheets (report also internal/spec)", pkg, imp))
 			}
 		}
 	}
@@ -369,6 +382,10 @@ func TestImportViolations(t *testing.T) {
 		{"forms reads TOML", "turnwise/forms", nil, []string{"github.com/BurntSushi/toml"}, 0},
 		{"sheets uses gofpdf and coil", "turnwise/sheets", nil, []string{"github.com/jung-kurt/gofpdf", "turnwise/coil", "turnwise/forms"}, 0},
 		{"sheets reaches cmd", "turnwise/sheets", nil, []string{"turnwise/cmd/turnwise"}, 1},
+		{"report imports spec and sheets", "turnwise/internal/report", []string{"turnwise/internal/spec", "turnwise/coil/tuning", "io"}, []string{"turnwise/internal/spec", "turnwise/sheets"}, 0},
+		{"spec imports report", "turnwise/internal/spec", []string{"turnwise/internal/report"}, []string{"turnwise/internal/report"}, 1},
+		{"spec reaches cobra", "turnwise/internal/spec", nil, []string{"github.com/spf13/cobra"}, 1},
+		{"report imports cmd", "turnwise/internal/report", []string{"turnwise/cmd/turnwise"}, []string{"turnwise/cmd/turnwise"}, 2},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {

@@ -2,6 +2,7 @@ package main
 
 import (
 	"context"
+	"errors"
 	"io"
 	"strings"
 
@@ -36,7 +37,7 @@ Every command prints a table, or JSON with --json (SI units: H, F, Hz, m, Ω).
 	root.SetOut(g.stdout)
 	root.SetErr(g.stderr)
 	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error {
-		return &usageError{msg: err.Error()}
+		return &usageError{Msg: err.Error(), Err: err}
 	})
 	root.AddCommand(
 		newPredictCmd(g),
@@ -56,12 +57,17 @@ func run(args []string, stdout, stderr io.Writer) int {
 	g := &globalOptions{stdout: stdout, stderr: stderr}
 	root := newRootCmd(g)
 	root.SetArgs(args)
-	err := root.ExecuteContext(context.Background())
+	c, err := root.ExecuteContextC(context.Background())
+	if err != nil && c == root {
+		// The root command runs nothing, so an error there is its command
+		// line: an unknown command (flag errors are usageErrors already).
+		var ue *usageError
+		if !errors.As(err, &ue) {
+			err = &usageError{Msg: err.Error(), Err: err}
+		}
+	}
 	if err != nil {
 		printError(stderr, err)
-		if strings.HasPrefix(err.Error(), "unknown command") || strings.HasPrefix(err.Error(), "unknown flag") {
-			return exitBadInput
-		}
 	}
 	return exitCode(err)
 }

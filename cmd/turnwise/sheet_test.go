@@ -13,6 +13,7 @@ import (
 	"strings"
 	"testing"
 	"turnwise/internal/quantity"
+	"turnwise/internal/spec"
 
 	"github.com/spf13/pflag"
 
@@ -25,11 +26,11 @@ var demoJob = filepath.Join("..", "..", "testdata", "club-night.toml")
 
 func loadDemo(t *testing.T) (*forms.Job, *forms.Catalog) {
 	t.Helper()
-	job, err := loadJobFile(demoJob)
+	job, err := spec.LoadJob(demoJob)
 	if err != nil {
 		t.Fatal(err)
 	}
-	cat, err := jobCatalog(job, newStockOptions(), false)
+	cat, err := spec.JobCatalog(job, "", "", false)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -183,7 +184,7 @@ func predictArgs(t *testing.T, job *forms.Job, jc *forms.JobCoil, cat *forms.Cat
 		}
 		return args
 	}
-	cand, _, err := designJobCoil(job, jc, cat)
+	_, cand, _, err := spec.DesignJobCoil(job, jc, cat)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -224,12 +225,12 @@ func TestResolveJobCoil(t *testing.T) {
 	for i := range job.Coils {
 		jc := &job.Coils[i]
 		if jc.Target != nil {
-			if _, err := resolveJobCoil(job, jc, cat); err == nil || !strings.Contains(err.Error(), "design target") {
+			if _, err := spec.ResolveJobCoil(job, jc, cat); err == nil || !strings.Contains(err.Error(), "design target") {
 				t.Errorf("%s: a design target resolved as a winding: %v", jc.Name, err)
 			}
 			continue
 		}
-		spec, err := resolveJobCoil(job, jc, cat)
+		got, err := spec.ResolveJobCoil(job, jc, cat)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -239,12 +240,12 @@ func TestResolveJobCoil(t *testing.T) {
 		if err := fs.Parse(predictArgs(t, job, jc, cat)[1:]); err != nil {
 			t.Fatal(err)
 		}
-		want, err := o.resolve(cat)
+		want, err := spec.Resolve(cat, o.winding())
 		if err != nil {
 			t.Fatal(err)
 		}
-		if spec.Geometry != want.Geometry || spec.SupportName != want.SupportName || spec.PitchSource != want.PitchSource {
-			t.Errorf("%s: job gives %+v, flags give %+v", jc.Name, spec, want)
+		if got.Geometry != want.Geometry || got.SupportName != want.SupportName || got.PitchSource != want.PitchSource {
+			t.Errorf("%s: job gives %+v, flags give %+v", jc.Name, got, want)
 		}
 	}
 }
@@ -275,7 +276,7 @@ func TestJobCoilErrors(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			_, _, err = predictJobCoil(job, &job.Coils[0], cat)
+			_, _, err = spec.PredictJobCoil(job, &job.Coils[0], cat)
 			var pe *forms.ParseError
 			if !errors.As(err, &pe) {
 				t.Fatalf("%v (%T) is not a *forms.ParseError", err, err)
@@ -420,21 +421,21 @@ func TestJobStock(t *testing.T) {
 	if err := os.WriteFile(jobFile, []byte(job), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	j, err := loadJobFile(jobFile)
+	j, err := spec.LoadJob(jobFile)
 	if err != nil {
 		t.Fatal(err)
 	}
-	cat, err := jobCatalog(j, newStockOptions(), false)
+	cat, err := spec.JobCatalog(j, "", "", false)
 	if err != nil {
 		t.Fatal(err)
 	}
-	spec, err := resolveJobCoil(j, &j.Coils[0], cat)
+	cs, err := spec.ResolveJobCoil(j, &j.Coils[0], cat)
 	if err != nil {
 		t.Fatal(err)
 	}
 	// The bench stock's latest calibration for this pair is 2.8 % (demo value in testdata/stock/bench.toml).
-	if spec.SpringbackSource != "calibration" || math.Abs(spec.Geometry.Springback-0.028) > 1e-12 {
-		t.Errorf("springback %v from %s, want the stock's 2.8 %% calibration", spec.Geometry.Springback, spec.SpringbackSource)
+	if cs.SpringbackSource != "calibration" || math.Abs(cs.Geometry.Springback-0.028) > 1e-12 {
+		t.Errorf("springback %v from %s, want the stock's 2.8 %% calibration", cs.Geometry.Springback, cs.SpringbackSource)
 	}
 
 	missing := filepath.Join(dir, "missing.toml")

@@ -9,6 +9,8 @@ import (
 
 	"turnwise/coil"
 	"turnwise/coil/tuning"
+	"turnwise/internal/report"
+	"turnwise/internal/spec"
 )
 
 // spanArgs is the invented HF example: 40 turns of 0.5 mm grade 1 wire on
@@ -64,7 +66,7 @@ func TestSpanJSONKeys(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatal(err)
 	}
-	if doc.Schema != schemaVersion || doc.Overlap == nil || doc.Warnings == nil {
+	if doc.Schema != report.SchemaVersion || doc.Overlap == nil || doc.Warnings == nil {
 		t.Fatalf("schema %d overlap %v warnings %v", doc.Schema, doc.Overlap, doc.Warnings)
 	}
 	for _, k := range []string{"l_a", "l_b", "m", "k", "ratio"} {
@@ -100,10 +102,10 @@ func TestSpanJSONKeys(t *testing.T) {
 // The glue the build sheet uses gives what the command prints.
 func TestBuildSpanGlue(t *testing.T) {
 	g := coil.Geometry{FormerDiameter: 20e-3, WireDiameter: 0.5e-3, WireOverall: 0.5e-3 * 1.08, Turns: 40, Pitch: 1e-3, LeadLength: 20e-3}
-	set := spanSettings{GangA: [2]float64{15e-12, 365e-12}, StrayA: 5e-12, StrayB: 5e-12,
+	set := spec.SpanSettings{GangA: [2]float64{15e-12, 365e-12}, StrayA: 5e-12, StrayB: 5e-12,
 		Bands:     []tuning.Band{{Name: "80m", Low: 3.5e6, High: 3.8e6}, {Name: "40m", Low: 7e6, High: 7.2e6}, {Name: "31m", Low: 9.4e6, High: 9.9e6}},
 		ChooseTap: true}
-	out, err := buildSpan(g, set)
+	out, err := spec.BuildSpan(g, set)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -111,13 +113,13 @@ func TestBuildSpanGlue(t *testing.T) {
 		t.Fatalf("plan %+v", out.Plan)
 	}
 	set.ChooseTap, set.Tap = false, 17
-	out, err = buildSpan(g, set)
+	out, err = spec.BuildSpan(g, set)
 	if err != nil || out.Plan != nil || out.Span.Sections.TapTurns != 17 || len(out.Span.Coincidences) == 0 {
 		t.Fatalf("tap 17: %v %+v", err, out.Span.Coincidences)
 	}
 	set.Law = "slw"
 	set.GangA = [2]float64{}
-	if _, err := buildSpan(g, set); exitCode(err) != exitBadInput {
+	if _, err := spec.BuildSpan(g, set); exitCode(err) != exitBadInput {
 		t.Errorf("no gang: %v", err)
 	}
 }

@@ -2,12 +2,9 @@ package main
 
 import (
 	"context"
-	"encoding/json"
-	"fmt"
 	"io"
 	"strings"
-	"text/tabwriter"
-	"turnwise/internal/quantity"
+	"turnwise/internal/report"
 
 	"github.com/spf13/cobra"
 
@@ -54,41 +51,6 @@ commented starting point with --template.
 	return cmd
 }
 
-type stockJSON struct {
-	Schema       int           `json:"schema"`
-	Wires        []wireJSON    `json:"wires,omitempty"`
-	Mandrels     []supportJSON `json:"mandrels,omitempty"`
-	Formers      []supportJSON `json:"formers,omitempty"`
-	Calibrations []calJSON     `json:"calibrations,omitempty"`
-}
-
-type wireJSON struct {
-	Name       string  `json:"name"`
-	System     string  `json:"system"`
-	Bare       float64 `json:"wire_diameter"`
-	Overall    float64 `json:"wire_overall_diameter"`
-	Insulation string  `json:"insulation"`
-	Conductor  string  `json:"conductor"`
-	Source     string  `json:"source"`
-	Origin     string  `json:"origin"`
-}
-
-type supportJSON struct {
-	Name     string  `json:"name"`
-	Kind     string  `json:"kind"`
-	Diameter float64 `json:"diameter"`
-	Source   string  `json:"source"`
-	Origin   string  `json:"origin"`
-}
-
-type calJSON struct {
-	Mandrel    string  `json:"mandrel"`
-	Wire       string  `json:"wire"`
-	Springback float64 `json:"springback"`
-	Note       string  `json:"note"`
-	Origin     string  `json:"origin"`
-}
-
 func runStock(_ context.Context, opts *stockCmdOptions, stdout io.Writer) error {
 	if opts.template {
 		_, err := io.WriteString(stdout, forms.StockTemplate())
@@ -98,69 +60,8 @@ func runStock(_ context.Context, opts *stockCmdOptions, stdout io.Writer) error 
 	if err != nil {
 		return err
 	}
-	k := opts.kind.v
-	want := func(s string) bool { return k == "all" || k == s }
 	if opts.json {
-		doc := stockJSON{Schema: schemaVersion}
-		if want("wire") {
-			for _, w := range cat.Wires {
-				doc.Wires = append(doc.Wires, wireJSON{w.Name, w.System, float64(w.Bare), float64(w.Overall), w.Insulation, w.Conductor, w.Source, w.Origin})
-			}
-		}
-		if want("mandrel") {
-			for _, m := range cat.Mandrels {
-				doc.Mandrels = append(doc.Mandrels, supportJSON{m.Name, m.Kind, float64(m.Diameter), m.Source, m.Origin})
-			}
-		}
-		if want("former") {
-			for _, f := range cat.Formers {
-				doc.Formers = append(doc.Formers, supportJSON{f.Name, f.Kind, float64(f.Diameter), f.Source, f.Origin})
-			}
-		}
-		if want("calibration") {
-			for _, c := range cat.Calibrations {
-				doc.Calibrations = append(doc.Calibrations, calJSON{c.Mandrel, c.Wire, c.Springback, c.Note, c.Origin})
-			}
-		}
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		return enc.Encode(doc)
+		return report.WriteStockJSON(stdout, cat, opts.kind.v)
 	}
-	lf := newLengthFormatter(opts.units.v)
-	tw := tabwriter.NewWriter(stdout, 0, 0, 2, ' ', 0)
-	if want("wire") {
-		fmt.Fprintln(tw, "WIRE\tbare\toverall\tinsulation\tconductor\tsource")
-		for _, w := range cat.Wires {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", w.Name, lf.fmt(float64(w.Bare)), lf.fmt(float64(w.Overall)), w.Insulation, w.Conductor, originNote(w.Source, w.Origin))
-		}
-		fmt.Fprintln(tw)
-	}
-	if want("mandrel") {
-		fmt.Fprintln(tw, "MANDREL\tdiameter\tkind\tsource")
-		for _, m := range cat.Mandrels {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", m.Name, lf.fmt(float64(m.Diameter)), m.Kind, originNote(m.Source, m.Origin))
-		}
-		fmt.Fprintln(tw)
-	}
-	if want("former") {
-		fmt.Fprintln(tw, "FORMER\toutside dia.\tkind\tsource")
-		for _, f := range cat.Formers {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", f.Name, lf.fmt(float64(f.Diameter)), f.Kind, originNote(f.Source, f.Origin))
-		}
-		fmt.Fprintln(tw)
-	}
-	if want("calibration") && len(cat.Calibrations) > 0 {
-		fmt.Fprintln(tw, "CALIBRATION\twire\tspringback\tnote")
-		for _, c := range cat.Calibrations {
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", c.Mandrel, c.Wire, quantity.FormatPercent(c.Springback), c.Note)
-		}
-	}
-	return tw.Flush()
-}
-
-func originNote(source, origin string) string {
-	if origin == "" || origin == forms.OriginBuiltIn {
-		return source
-	}
-	return source + " [" + origin + "]"
+	return report.WriteStockTable(stdout, cat, opts.kind.v, newLengthFormatter(opts.units.v))
 }

@@ -8,18 +8,19 @@ import (
 	"regexp"
 	"strings"
 	"testing"
+	"turnwise/internal/report"
 )
 
 // benchStock is the demo stock file of the examples.
 var benchStock = filepath.Join("..", "..", "testdata", "stock", "bench.toml")
 
-func stockDoc(t *testing.T, args ...string) stockJSON {
+func stockDoc(t *testing.T, args ...string) report.StockRecord {
 	t.Helper()
 	out, errOut, code := runCLI(t, append([]string{"stock", "--json"}, args...)...)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
-	var doc stockJSON
+	var doc report.StockRecord
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatal(err)
 	}
@@ -31,7 +32,7 @@ func stockDoc(t *testing.T, args ...string) stockJSON {
 func TestStockJSON(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
 	doc := stockDoc(t)
-	if doc.Schema != schemaVersion {
+	if doc.Schema != report.SchemaVersion {
 		t.Errorf("schema %d", doc.Schema)
 	}
 	if len(doc.Wires) == 0 || len(doc.Mandrels) == 0 || len(doc.Formers) == 0 {
@@ -41,15 +42,15 @@ func TestStockJSON(t *testing.T) {
 		t.Errorf("built-in stock has %d calibrations, want none", len(doc.Calibrations))
 	}
 	ok := func(v float64) bool { return v > 0 && !math.IsInf(v, 0) && !math.IsNaN(v) }
-	wires := map[string]wireJSON{}
+	wires := map[string]report.WireRecord{}
 	for _, w := range doc.Wires {
 		wires[w.Name] = w
 		if !ok(w.Bare) || !ok(w.Overall) || w.Overall < w.Bare || w.Source == "" || w.Origin != "built-in" {
 			t.Errorf("wire row %+v", w)
 		}
 	}
-	supports := map[string]supportJSON{}
-	for _, s := range append(append([]supportJSON{}, doc.Mandrels...), doc.Formers...) {
+	supports := map[string]report.SupportRecord{}
+	for _, s := range append(append([]report.SupportRecord{}, doc.Mandrels...), doc.Formers...) {
 		supports[s.Name] = s
 		if !ok(s.Diameter) || s.Source == "" || s.Origin != "built-in" {
 			t.Errorf("support row %+v", s)

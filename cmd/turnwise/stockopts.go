@@ -2,10 +2,12 @@ package main
 
 import (
 	"os"
+	"path/filepath"
 
 	"github.com/spf13/pflag"
 
 	"turnwise/forms"
+	"turnwise/internal/spec"
 )
 
 // stockOptions selects the catalogs a command draws on.
@@ -25,39 +27,20 @@ func (o *stockOptions) addFlags(fs *pflag.FlagSet) {
 
 // load reads the selected catalogs. A named stock file that is missing or
 // malformed is bad input (exit 2).
-func (o *stockOptions) load() (*forms.Catalog, error) {
-	use := o.use.v
-	if use == "" {
-		use = "builtin"
-		if o.path != "" {
-			use = "both"
-		}
+func (o *stockOptions) load() (*forms.Catalog, error) { return spec.LoadCatalog(o.path, o.use.v) }
+
+// jobStockOptions returns the stock selection for a job: the command line's
+// when --stock or --use was given there (flagsGiven), else the job file's
+// own stock = and use = keys, the stock path taken relative to the job file.
+func jobStockOptions(job *forms.Job, so *stockOptions, flagsGiven bool) *stockOptions {
+	if flagsGiven || (job.Stock == "" && job.Use == "") {
+		return so
 	}
-	var cats []*forms.Catalog
-	if use == "builtin" || use == "both" {
-		b, err := forms.BuiltIn()
-		if err != nil {
-			return nil, err
-		}
-		cats = append(cats, b)
+	out := newStockOptions()
+	out.path = job.Stock
+	if out.path != "" && !filepath.IsAbs(out.path) {
+		out.path = filepath.Join(filepath.Dir(job.File), out.path)
 	}
-	if use == "mine" || use == "both" {
-		if o.path == "" {
-			return nil, usageErrorf("--use %s: no stock file; give --stock FILE or set TURNWISE_STOCK", use)
-		}
-		f, err := os.Open(o.path)
-		if err != nil {
-			if os.IsNotExist(err) {
-				return nil, usageErrorf("--stock: %q does not exist; check the path, or start one with `turnwise stock --template > %s`", o.path, o.path)
-			}
-			return nil, err
-		}
-		defer f.Close()
-		mine, err := forms.LoadStock(f, o.path)
-		if err != nil {
-			return nil, err
-		}
-		cats = append(cats, mine)
-	}
-	return forms.Merge(cats...), nil
+	out.use.v = job.Use
+	return out
 }

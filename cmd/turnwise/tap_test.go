@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 	"testing"
+	"turnwise/internal/report"
 )
 
 var tapHFArgs = []string{"tap", "--former", "pvc 20mm", "--wire", "0.5mm", "--insulation", "grade1", "--turns", "40", "--pitch", "1mm", "--leads", "20mm", "--freq", "7.1MHz"}
@@ -45,7 +46,7 @@ func TestTapJSONKeys(t *testing.T) {
 	if r := doc["ratio"].(float64); math.Abs(r-0.2) > 0.02 {
 		t.Errorf("ratio %v for a 0.2 target", r)
 	}
-	if doc["schema"] != float64(schemaVersion) || doc["goal"] != "voltage_ratio" {
+	if doc["schema"] != float64(report.SchemaVersion) || doc["goal"] != "voltage_ratio" {
 		t.Errorf("schema %v goal %v", doc["schema"], doc["goal"])
 	}
 	if ch, ok := doc["choices"].([]any); !ok || len(ch) != 2 {

@@ -9,6 +9,8 @@ import (
 	"path/filepath"
 	"strings"
 	"turnwise/internal/quantity"
+	"turnwise/internal/report"
+	"turnwise/internal/spec"
 
 	"github.com/spf13/cobra"
 	"gonum.org/v1/gonum/unit"
@@ -152,7 +154,7 @@ local regulations and licensed practice for anything that transmits.
 
 // trimCoil is the coil under test, resolved from flags or a job entry.
 type trimCoil struct {
-	spec     coilSpec
+	spec     spec.Spec
 	freq     unit.Frequency
 	tapTurns *float64 // nil for an untapped coil
 	tapRatio *float64 // the ratio to keep, when given
@@ -164,17 +166,8 @@ type trimCoil struct {
 	jobEntry *forms.JobCoil
 }
 
-// trimResult is the library's result with what the writers need besides:
-// the coil's description, the measurement as given and the display units.
-type trimResult struct {
-	*trim.Result
-	tc          trimCoil
-	meas        trim.Measurement
-	instruction string
-	warnings    []string
-	saved       *savedCalibration
-	lf          lengthFormatter
-}
+// trimResult is the library's result with what the writers need besides.
+type trimResult = report.Trim
 
 func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
 	m, via, err := opts.measurement()
@@ -194,15 +187,15 @@ func runTrim(_ context.Context, opts *trimOptions, stdout, stderr io.Writer) err
 		if err != nil {
 			return err
 		}
-		res.saved = s
+		res.Saved = s
 	}
 	if opts.json {
-		return writeTrimJSON(stdout, res)
+		return report.WriteTrimJSON(stdout, res)
 	}
-	if err := writeTrimTable(stdout, res); err != nil {
+	if err := report.WriteTrimTable(stdout, res); err != nil {
 		return err
 	}
-	for _, w := range res.warnings {
+	for _, w := range res.Warnings {
 		fmt.Fprintf(stderr, "warning: %s\n", w)
 	}
 	return nil
@@ -218,7 +211,7 @@ func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string)
 		Measurement: m,
 		Tolerance:   opts.tolerance.v,
 		LengthSteps: trim.LengthSteps(lf.Inches),
-		OnFormer:    tc.spec.SupportKind == "former",
+		OnFormer:    tc.spec.SupportKind == coil.SupportFormer,
 	}
 	switch {
 	case opts.target.isFreq:
@@ -247,9 +240,9 @@ func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string)
 	if err != nil {
 		return nil, opts.trimError(via, tc, err)
 	}
-	res := &trimResult{Result: plan, tc: tc, meas: m, lf: lf}
-	res.instruction = trimInstruction(res)
-	res.warnings = trimWarnings(res)
+	res := &trimResult{Result: plan, Coil: tc.spec, Meas: m, LF: lf}
+	res.Instruction = report.TrimInstruction(res)
+	res.Warnings = report.TrimWarnings(res)
 	return res, nil
 }
 
@@ -371,11 +364,11 @@ func (o *trimOptions) resolveCoil() (trimCoil, error) {
 		if err != nil {
 			return tc, err
 		}
-		spec, err := o.coil.resolve(cat)
+		cs, err := spec.Resolve(cat, o.coil.winding())
 		if err != nil {
 			return tc, err
 		}
-		tc.spec, tc.cat, tc.stock = spec, cat, so
+		tc.spec, tc.cat, tc.stock = cs, cat, so
 		return tc, nil
 	}
 
@@ -385,13 +378,13 @@ func (o *trimOptions) resolveCoil() (trimCoil, error) {
 	if f := o.coil.firstSet(); f != "" {
 		return tc, usageErrorf("--job takes the coil from the job file; drop --%s (or drop --job and describe the coil with flags)", f)
 	}
-	job, err := loadJobFile(o.job)
+	job, err := spec.LoadJob(o.job)
 	if err != nil {
 		return tc, err
 	}
 	entry, err := job.Coil(o.coilName)
 	if err != nil {
-		return tc, &flagError{"coil", err}
+		return tc, &flagError{Flag: "coil", Err: err}
 	}
 	// --stock or --use on the command line win over the job's own stock.
 	flagsGiven := o.stock.path != os.Getenv("TURNWISE_STOCK") || o.stock.use.v != ""
@@ -404,18 +397,18 @@ func (o *trimOptions) resolveCoil() (trimCoil, error) {
 	if saveSo != so {
 		cat, err = saveSo.load() // the stock file is new: built-in rows only
 	} else {
-		cat, err = jobCatalog(job, o.stock, flagsGiven)
+		cat, err = spec.JobCatalog(job, o.stock.path, o.stock.use.v, flagsGiven)
 	}
 	if err != nil {
 		return tc, err
 	}
-	spec, err := resolveJobCoil(job, entry, cat)
+	cs, err := spec.ResolveJobCoil(job, entry, cat)
 	if err != nil {
 		return tc, err
 	}
-	tc.spec, tc.cat, tc.stock, tc.job, tc.jobEntry = spec, cat, saveSo, job, entry
-	if !o.freq.set {
-		tc.freq = jobFreq(entry).v
+	tc.spec, tc.cat, tc.stock, tc.job, tc.jobEntry = cs, cat, saveSo, job, entry
+	if !o.freq.set && entry.Winding.Freq != nil {
+		tc.freq = *entry.Winding.Freq
 	}
 	if entry.Tap != nil && !o.tap.set {
 		switch {
@@ -424,9 +417,9 @@ func (o *trimOptions) resolveCoil() (trimCoil, error) {
 			tc.tapTurns = &v
 		case entry.Tap.Ratio != nil:
 			// The sheet put the tap at the quarter turn nearest the ratio.
-			choice, err := trim.MoveTap(spec.Geometry, tc.freq, *entry.Tap.Ratio)
+			choice, err := trim.MoveTap(cs.Geometry, tc.freq, *entry.Tap.Ratio)
 			if err != nil && choice.TapTurns == 0 {
-				return tc, jobFieldError(job, entry, "tap-ratio", err)
+				return tc, spec.JobFieldError(job, entry, "tap-ratio", err)
 			}
 			v := choice.TapTurns
 			tc.tapTurns = &v
@@ -493,12 +486,12 @@ func (o *coilOptions) firstSet() string {
 func (tc trimCoil) coilError(o *trimOptions, err error) error {
 	var ie *coil.InputError
 	if errors.As(err, &ie) && ie.Param == "frequency" {
-		return &flagError{"freq", err}
+		return &flagError{Flag: "freq", Err: err}
 	}
 	if tc.job != nil {
-		return jobCoilError(tc.job, tc.jobEntry, o.coil.attachFlag(err, tc.spec.SupportKind, tc.spec.PitchSource))
+		return spec.JobCoilError(tc.job, tc.jobEntry, spec.AttachFlag(err, tc.spec.SupportKind.String(), tc.spec.PitchSource))
 	}
-	return o.coil.attachFlag(err, tc.spec.SupportKind, tc.spec.PitchSource)
+	return spec.AttachFlag(err, tc.spec.SupportKind.String(), tc.spec.PitchSource)
 }
 
 // trimError names the flag (or job key) an error of trim.Plan belongs to.
@@ -528,7 +521,7 @@ func (o *trimOptions) trimError(via string, tc trimCoil, err error) error {
 	if flag == "" {
 		return tc.coilError(o, err)
 	}
-	return &flagError{flag, err}
+	return &flagError{Flag: flag, Err: err}
 }
 
 // targetFlag takes an inductance (48nH) or a resonance frequency (145MHz).

@@ -9,27 +9,17 @@ import (
 	"os"
 	"path/filepath"
 	"turnwise/internal/quantity"
+	"turnwise/internal/report"
 
 	"turnwise/coil/trim"
 	"turnwise/forms"
 )
 
-// savedCalibration is what `trim --save` wrote.
-type savedCalibration struct {
-	Path, Backup string // the stock file; its previous version ("" when it is new)
-	Mandrel      string // the mandrel or former, as named in the file
-	Wire         string
-	Springback   float64
-	Note         string
-	Added        []string           // rows added so that the calibration's names resolve
-	Superseded   *forms.Calibration // the calibration in effect before, if any
-}
-
 // saveTrimCalibration appends the calibration to the stock file: the old
 // file is copied to FILE.bak first, then the new text replaces it
 // atomically; comments and layout are kept because the edit is text-level
 // (forms.AppendStock).
-func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error) {
+func saveTrimCalibration(tc trimCoil, res *trimResult) (*report.SavedCalibration, error) {
 	path := tc.stock.path
 	// A stock file kept behind a symbolic link is updated where it lives;
 	// renaming over the link would replace it with a copy.
@@ -63,31 +53,31 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error
 		return nil, err
 	}
 	lookup := forms.Merge(builtIn, mine)
-	spec := res.tc.spec
-	g := spec.Geometry
+	cs := res.Coil
+	g := cs.Geometry
 	add := &forms.Catalog{}
-	s := &savedCalibration{Path: tc.stock.path, Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.Calibration.Springback}
+	s := &report.SavedCalibration{Path: tc.stock.path, Mandrel: cs.SupportName, Wire: cs.Wire.Name, Springback: res.Calibration.Springback}
 	const source = "given on the command line; added by turnwise trim --save"
-	if spec.SupportKind == "mandrel" {
-		if _, err := lookup.Mandrel(spec.SupportName); err != nil {
-			add.Mandrels = append(add.Mandrels, forms.Mandrel{Name: spec.SupportName, Diameter: g.FormerDiameter, Kind: "rod", Source: source})
-			s.Added = append(s.Added, fmt.Sprintf("mandrel %q (%s)", spec.SupportName, res.lf.fmt(float64(g.FormerDiameter))))
+	if cs.SupportKind == "mandrel" {
+		if _, err := lookup.Mandrel(cs.SupportName); err != nil {
+			add.Mandrels = append(add.Mandrels, forms.Mandrel{Name: cs.SupportName, Diameter: g.FormerDiameter, Kind: "rod", Source: source})
+			s.Added = append(s.Added, fmt.Sprintf("mandrel %q (%s)", cs.SupportName, res.LF.Format(float64(g.FormerDiameter))))
 		}
-	} else if _, err := lookup.Former(spec.SupportName); err != nil {
-		add.Formers = append(add.Formers, forms.Former{Name: spec.SupportName, Diameter: g.FormerDiameter, Kind: "former", Source: source})
-		s.Added = append(s.Added, fmt.Sprintf("former %q (%s)", spec.SupportName, res.lf.fmt(float64(g.FormerDiameter))))
+	} else if _, err := lookup.Former(cs.SupportName); err != nil {
+		add.Formers = append(add.Formers, forms.Former{Name: cs.SupportName, Diameter: g.FormerDiameter, Kind: "former", Source: source})
+		s.Added = append(s.Added, fmt.Sprintf("former %q (%s)", cs.SupportName, res.LF.Format(float64(g.FormerDiameter))))
 	}
-	if _, err := lookup.Wire(spec.Wire.Name); err != nil {
-		w := spec.Wire
+	if _, err := lookup.Wire(cs.Wire.Name); err != nil {
+		w := cs.Wire
 		w.Source = source
 		add.Wires = append(add.Wires, w)
 		s.Added = append(s.Added, fmt.Sprintf("wire %q", w.Name))
 	}
-	if prev, ok := lookup.Springback(spec.SupportName, spec.Wire.Name); ok {
+	if prev, ok := lookup.Springback(cs.SupportName, cs.Wire.Name); ok {
 		s.Superseded = &prev
 	}
 	s.Note = calibrationNote(res)
-	add.Calibrations = []forms.Calibration{{Mandrel: spec.SupportName, Wire: spec.Wire.Name, Springback: res.Calibration.Springback, Note: s.Note}}
+	add.Calibrations = []forms.Calibration{{Mandrel: cs.SupportName, Wire: cs.Wire.Name, Springback: res.Calibration.Springback, Note: s.Note}}
 
 	text, err := forms.AppendStock(orig, path, add)
 	if err != nil {
@@ -109,17 +99,17 @@ func saveTrimCalibration(tc trimCoil, res *trimResult) (*savedCalibration, error
 // calibrationNote records where a saved springback came from.
 func calibrationNote(res *trimResult) string {
 	r := res.Calibration.Reading
-	g := res.tc.spec.Geometry
+	g := res.Coil.Geometry
 	var how string
 	switch r.Kind {
 	case trim.MeasureDirect:
 		how = "meter " + quantity.FormatEng(float64(r.Inductance), "H", 3)
 	case trim.MeasureResonance, trim.MeasureInCircuit:
-		rs := res.meas.Resonances[0]
+		rs := res.Meas.Resonances[0]
 		how = fmt.Sprintf("resonance %s with %s", quantity.FormatEng(float64(rs.Frequency), "Hz", 4), quantity.FormatCapacitance(float64(rs.Capacitance)))
 	default:
 		how = fmt.Sprintf("two-capacitor method, L %s", quantity.FormatEng(float64(r.Inductance), "H", 3))
 	}
 	return fmt.Sprintf("trim: %s ±%.1f %% on %s turns, %s long (springback %s … %s)", how, r.Uncertainty*100,
-		quantity.FormatTurns(g.Turns), res.lf.fmt(float64(g.WindingLength())), quantity.FormatPercent(res.Calibration.SpringbackLow), quantity.FormatPercent(res.Calibration.SpringbackHigh))
+		quantity.FormatTurns(g.Turns), res.LF.Format(float64(g.WindingLength())), quantity.FormatPercent(res.Calibration.SpringbackLow), quantity.FormatPercent(res.Calibration.SpringbackHigh))
 }

@@ -9,8 +9,8 @@ import (
 	"strconv"
 	"strings"
 	"testing"
-
-	"gonum.org/v1/gonum/unit"
+	"turnwise/internal/report"
+	"turnwise/internal/spec"
 )
 
 // trimData is this command's own test data.
@@ -49,7 +49,7 @@ func TestTrimGolden(t *testing.T) {
 	}
 }
 
-// trimJSON runs trim with --json and decodes the document.
+// report.TrimRecord runs trim with --json and decodes the document.
 func trimDoc(t *testing.T, args ...string) map[string]any {
 	t.Helper()
 	out, errOut, code := runCLI(t, withArgs(args, "--json")...)
@@ -101,7 +101,7 @@ func TestTrimDoneWhen(t *testing.T) {
 	if _, ok := doc["warnings"].([]any); !ok {
 		t.Error("warnings is not an array")
 	}
-	if doc["schema"] != float64(schemaVersion) {
+	if doc["schema"] != float64(report.SchemaVersion) {
 		t.Error("schema missing")
 	}
 	// stray_capacitance appears with two resonances only.
@@ -435,7 +435,7 @@ func TestTrimSaveFeedsDesignSearch(t *testing.T) {
 	if !ok {
 		t.Fatal("no saved calibration")
 	}
-	res, err := runDesignSearch(cat, &designSearchOptions{Inductance: 48e-9, Leads: 5e-3, Mandrel: "4.6mm", Wires: []string{"1mm"}})
+	res, err := spec.Search(cat, &spec.SearchOptions{Inductance: 48e-9, Leads: 5e-3, Mandrel: "4.6mm", Wires: []string{"1mm"}})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -445,33 +445,6 @@ func TestTrimSaveFeedsDesignSearch(t *testing.T) {
 	c := res.Candidates[0]
 	if c.SpringbackSource != "calibration" || c.Support.Springback != saved.Springback {
 		t.Errorf("design uses springback %g from %q, want the saved %g", c.Support.Springback, c.SpringbackSource, saved.Springback)
-	}
-}
-
-// Lengths print to the resolution they were rounded to (review of #5:
-// 0.05 mm printed three decimals).
-func TestFmtLenStep(t *testing.T) {
-	t.Parallel()
-	mm := newLengthFormatter("mm")
-	tests := []struct {
-		name   string
-		length float64
-		step   float64
-		want   string
-	}{
-		{"tenth", 9.7e-3, 0.1e-3, "9.7 mm"},
-		{"twentieth", 5.45e-3, 0.05e-3, "5.45 mm"},
-		{"fiftieth", 5.46e-3, 0.02e-3, "5.46 mm"},
-		{"hundredth", 5.47e-3, 0.01e-3, "5.47 mm"},
-		{"whole", 12e-3, 1e-3, "12 mm"},
-	}
-	for _, tc := range tests {
-		t.Run(tc.name, func(t *testing.T) {
-			t.Parallel()
-			if got := fmtLenStep(mm, tc.length, unit.Length(tc.step)); got != tc.want {
-				t.Errorf("got %q, want %q", got, tc.want)
-			}
-		})
 	}
 }
 

@@ -9,29 +9,19 @@ import (
 	"turnwise/coil"
 	"turnwise/coil/design"
 	"turnwise/forms"
+	"turnwise/internal/spec"
 )
 
-// builtInStock converts the built-in catalog into the search's lists, as
-// cmd/turnwise's glue does (kept here so the benchmark needs no cmd).
+// builtInStock converts the built-in catalog into the search's lists
+// through the same glue the commands use.
 func builtInStock(tb testing.TB) ([]design.Support, []design.WireOption) {
 	cat, err := forms.BuiltIn()
 	if err != nil {
 		tb.Fatal(err)
 	}
-	var sups []design.Support
-	for _, m := range cat.Mandrels {
-		sups = append(sups, design.Support{Name: m.Name, Diameter: m.Diameter})
-	}
-	for _, f := range cat.Formers {
-		sups = append(sups, design.Support{Name: f.Name, Diameter: f.Diameter, OnFormer: true})
-	}
-	var wires []design.WireOption
-	for _, w := range cat.Wires {
-		cond, err := coil.ParseConductor(w.Conductor)
-		if err != nil {
-			tb.Fatal(err)
-		}
-		wires = append(wires, design.WireOption{Name: w.Name, Diameter: w.Bare, Overall: w.Overall, Conductor: cond})
+	sups, wires, err := spec.SearchLists(cat, &spec.SearchOptions{})
+	if err != nil {
+		tb.Fatal(err)
 	}
 	return sups, wires
 }

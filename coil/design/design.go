@@ -169,10 +169,11 @@ const (
 // Candidate is one coil the search proposes.
 type Candidate struct {
 	Support Support // as used: Springback is the one applied to this wire
-	// SpringbackSource is "calibration" (Constraints.Calibrations),
-	// "support" (Support.Springback), "none" (a mandrel with no springback
-	// known: 0 assumed) or "former".
-	SpringbackSource string
+	// SpringbackSource is coil.SpringbackCalibration
+	// (Constraints.Calibrations), coil.SpringbackGiven (Support.Springback),
+	// coil.SpringbackNone (a mandrel with no springback known: 0 assumed) or
+	// coil.SpringbackOnFormer.
+	SpringbackSource coil.SpringbackSource
 	Wire             WireOption
 	// Prediction is the full model record at the operating frequency;
 	// Prediction.Geometry is the coil to wind.

@@ -731,12 +731,12 @@ func TestDesignSpringback(t *testing.T) {
 		g := cand.Prediction.Geometry
 		switch cand.Wire.Name {
 		case "18swg":
-			if g.Springback != 0.04 || cand.SpringbackSource != "calibration" || cand.Support.SpringbackNote != "demo: later trim" {
+			if g.Springback != 0.04 || cand.SpringbackSource != coil.SpringbackCalibration || cand.Support.SpringbackNote != "demo: later trim" {
 				t.Errorf("18swg: springback %g from %q (%q)", g.Springback, cand.SpringbackSource, cand.Support.SpringbackNote)
 			}
 			seen++
 		case "1mm":
-			if g.Springback != 0 || cand.SpringbackSource != "none" {
+			if g.Springback != 0 || cand.SpringbackSource != coil.SpringbackNone {
 				t.Errorf("1mm: springback %g from %q", g.Springback, cand.SpringbackSource)
 			}
 		}

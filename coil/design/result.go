@@ -298,7 +298,7 @@ func (x *search) warnings(cs []Candidate) []string {
 		w = append(w, "no operating frequency: Q and the self-resonance were not ranked; give one to rank by them")
 	}
 	for _, c := range cs {
-		if c.SpringbackSource == "none" {
+		if c.SpringbackSource == coil.SpringbackNone {
 			w = append(w, "springback 0 % assumed for mandrel coils without a saved calibration: measure the bore after release, or run `turnwise trim --save` once, and the next design on that mandrel accounts for it")
 			break
 		}
@@ -308,6 +308,9 @@ func (x *search) warnings(cs []Candidate) []string {
 			w = append(w, "some candidates have more wire than a tenth of a wavelength in the winding: the lumped model is only a guide for them")
 			break
 		}
+	}
+	if x.thinnedSupports+x.thinnedWires > 0 {
+		w = append(w, fmt.Sprintf("dense stock: %d support and %d wire rows within %.0f %% of a row listed before them were searched as that row", x.thinnedSupports, x.thinnedWires, thinStep*100))
 	}
 	if len(cs) < s.top {
 		w = append(w, fmt.Sprintf("only %d distinct coil(s) meet the target and the limits", len(cs)))

@@ -11,7 +11,11 @@ import (
 
 // The search:
 //
-//  1. Pairs. Rows that repeat an earlier one physically are dropped; every
+//  1. Pairs. Rows that repeat an earlier one physically are dropped, and a
+//     dense stock is thinned (thinRows: more than denseRows rows of a class
+//     within the near-duplicate limit; rows within thinStep of an earlier
+//     kept row are searched as that row), so that the pairs grow no faster
+//     than the stock; every
 //     remaining support × wire that passes the wire rules (WireSuits) and
 //     the diameter limit becomes a pair. Supports are sorted by diameter so
 //     that each wire meets only the supports its rules allow.
@@ -114,6 +118,9 @@ type search struct {
 	cals  map[calKey]int // latest calibration of each named pair
 
 	kmN, km float64 // coil.RosaMutual(kmN), cached across a pitch solve
+
+	// Rows of a dense stock not searched (see thinRows).
+	thinnedSupports, thinnedWires int
 }
 
 func newSearch(s *settings, relax string, topN int) *search {
@@ -216,7 +223,7 @@ func (x *search) prepareWires() {
 
 // support returns the pair's support with its springback applied, and
 // where that came from.
-func (x *search) support(p *pair) (Support, string) {
+func (x *search) support(p *pair) (Support, coil.SpringbackSource) {
 	var sup Support
 	if p.free != nil {
 		sup = *p.free
@@ -227,13 +234,13 @@ func (x *search) support(p *pair) (Support, string) {
 	case p.cal >= 0:
 		cal := x.s.c.Calibrations[p.cal]
 		sup.Springback, sup.SpringbackNote = cal.Springback, cal.Note
-		return sup, "calibration"
+		return sup, coil.SpringbackCalibration
 	case sup.Springback != 0:
-		return sup, "support"
+		return sup, coil.SpringbackGiven
 	case sup.OnFormer:
-		return sup, "former"
+		return sup, coil.SpringbackOnFormer
 	}
-	return sup, "none"
+	return sup, coil.SpringbackNone
 }
 
 func (x *search) wire(p *pair) WireOption { return x.s.c.Wires[p.wi] }
@@ -382,7 +389,107 @@ func (x *search) uniqueRows() (sups, wires []int) {
 		}
 		wires = append(wires, i)
 	}
+	sups, x.thinnedSupports = thinRows(sups, func(i int) (float64, float64, rowClass) {
+		sp := &c.Supports[i]
+		return float64(sp.Diameter), float64(sp.Diameter), rowClass{onFormer: sp.OnFormer, springback: sp.Springback}
+	}, func(i int) bool { return calS[c.Supports[i].Name] })
+	wires, x.thinnedWires = thinRows(wires, func(i int) (float64, float64, rowClass) {
+		w := &c.Wires[i]
+		do := w.Overall
+		if do == 0 {
+			do = w.Diameter
+		}
+		return float64(w.Diameter), float64(do), rowClass{conductor: w.Conductor}
+	}, func(i int) bool { return calW[c.Wires[i].Name] })
 	return sups, wires
+}
+
+// Dense stock. A stock with more than denseRows rows of one class (supports
+// of one kind and springback; wires of one conductor) within the
+// near-duplicate limit of one diameter is thinned: a row within thinStep of
+// a row kept before it in stock order (both its diameters, bare and
+// overall, for a wire) is not searched. Such rows are near-duplicates of
+// the kept row, of which the candidate list would show one at most, and a
+// diameter 1 % off is within what drills and wire are made to (common
+// practice). Without the cap every support meets every wire, and the
+// search's work grows with the square of the stock. The built-in stock
+// holds at most 11 rows of a class within the limit, so it is never
+// thinned.
+const (
+	denseRows = 16
+	thinStep  = 0.01
+)
+
+// rowClass is what rows must share to be thinned together: a support's
+// kind and springback, a wire's conductor.
+type rowClass struct {
+	onFormer   bool
+	springback float64
+	conductor  coil.Conductor
+}
+
+// thinRows thins the rows idx (already in stock order) when they are
+// dense (see denseRows). key returns a row's two diameters and its class;
+// keep reports rows that are never dropped (named in a calibration). It
+// returns the rows to search and how many it dropped.
+func thinRows(idx []int, key func(int) (d, do float64, class rowClass), keep func(int) bool) ([]int, int) {
+	type row struct {
+		i     int
+		d, do float64
+	}
+	byClass := map[rowClass][]row{}
+	for _, i := range idx {
+		d, do, cl := key(i)
+		byClass[cl] = append(byClass[cl], row{i, d, do})
+	}
+	dense := false
+	for _, rows := range byClass {
+		ds := make([]float64, len(rows))
+		for k, r := range rows {
+			ds[k] = r.d
+		}
+		slices.Sort(ds)
+		// The most rows within the near-duplicate limit of one row.
+		lo, hi := 0, 0
+		for k, d := range ds {
+			for ds[lo] < d*(1-nearDuplicate) {
+				lo++
+			}
+			if hi < k {
+				hi = k
+			}
+			for hi+1 < len(ds) && ds[hi+1] < d*(1+nearDuplicate) {
+				hi++
+			}
+			if hi-lo+1 > denseRows {
+				dense = true
+			}
+		}
+	}
+	if !dense {
+		return idx, 0
+	}
+	within := func(a, b float64) bool { return math.Abs(a/b-1) < thinStep }
+	kept := map[rowClass][]row{}
+	out := idx[:0:0]
+	for _, i := range idx {
+		d, do, cl := key(i)
+		drop := false
+		if !keep(i) {
+			for _, k := range kept[cl] {
+				if within(d, k.d) && within(do, k.do) {
+					drop = true
+					break
+				}
+			}
+		}
+		if drop {
+			continue
+		}
+		kept[cl] = append(kept[cl], row{i, d, do})
+		out = append(out, i)
+	}
+	return out, len(idx) - len(out)
 }
 
 func cmpFloat(a, b float64) int {

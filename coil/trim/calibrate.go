@@ -112,7 +112,7 @@ func Calibrate(g coil.Geometry, m Measurement) (Calibration, error) {
 	gm := g
 	gm.LeadLength += m.FixtureLeadLength
 	if err := gm.Validate(); err != nil {
-		return c, inputErrorf("fixture_lead_length", "the leads with the fixture's wire are too long: %v", err)
+		return c, inputErrorf("fixture_lead_length", "the leads with the fixture's wire are too long: %w", err)
 	}
 	sn := r.sense()
 	before, err := sn.of(gm)

@@ -1,6 +1,7 @@
 package trim
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -13,7 +14,8 @@ const twoPi = 2 * math.Pi
 // inputErrorf is bad input for the field param, as *coil.InputError so
 // that callers map every package's input errors the same way.
 func inputErrorf(param, format string, args ...any) error {
-	return &coil.InputError{Param: param, Reason: fmt.Sprintf(format, args...)}
+	e := fmt.Errorf(format, args...) // a %w verb keeps its error as the cause
+	return &coil.InputError{Param: param, Reason: e.Error(), Err: errors.Unwrap(e)}
 }
 
 // infeasibleError is a valid request no coil meets; errors.Is finds

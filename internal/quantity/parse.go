@@ -15,11 +15,14 @@ type Error struct {
 	Input  string // the text as given
 	Want   string // "length", "inductance", "capacitance", "frequency", "percentage", "temperature"
 	Reason string // what is wrong and how to fix it
+	Err    error  // the cause Reason was written from, if any (errors.Is/As see it)
 }
 
 func (e *Error) Error() string {
 	return fmt.Sprintf("%s %q: %s", e.Want, e.Input, e.Reason)
 }
+
+func (e *Error) Unwrap() error { return e.Err }
 
 // A base is one unit symbol and the SI prefixes that make sense with it.
 type base struct {

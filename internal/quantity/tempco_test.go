@@ -52,3 +52,39 @@ func TestFormatPPMPerK(t *testing.T) {
 		}
 	}
 }
+
+func TestParseTemperatureRange(t *testing.T) {
+	t.Parallel()
+	tests := []struct {
+		in      string
+		lo, hi  float64 // kelvin (0 °C = 273.15 K, SI definition)
+		errPart string
+	}{
+		{"10C-40C", 283.15, 313.15, ""},
+		{"-10C-40C", 263.15, 313.15, ""},
+		{"-20C--5C", 253.15, 268.15, ""},
+		{"40C-10C", 283.15, 313.15, ""},
+		{"50F-104F", 283.15, 313.15, ""}, // 50 °F = 10 °C, 104 °F = 40 °C
+		{"283K-313K", 283, 313, ""},
+		{"10C..40C", 283.15, 313.15, ""},
+		{"10C to 40C", 283.15, 313.15, ""},
+		{"10-40", 0, 0, "two temperatures"},
+		{"10C-10C", 0, 0, "equal ends"},
+		{"10C-40", 0, 0, "high end"},
+		{"", 0, 0, "two temperatures"},
+	}
+	for _, tc := range tests {
+		t.Run(tc.in, func(t *testing.T) {
+			lo, hi, err := ParseTemperatureRange(tc.in)
+			if tc.errPart != "" {
+				if err == nil || !strings.Contains(err.Error(), tc.errPart) {
+					t.Fatalf("err %v, want %q", err, tc.errPart)
+				}
+				return
+			}
+			if err != nil || math.Abs(float64(lo)-tc.lo) > 1e-9 || math.Abs(float64(hi)-tc.hi) > 1e-9 {
+				t.Fatalf("%v … %v, %v; want %g … %g", lo, hi, err, tc.lo, tc.hi)
+			}
+		})
+	}
+}

@@ -1,18 +1,18 @@
-package main
+package spec
 
 // The design search from catalog rows and option values: the glue between
 // forms (what the bench holds) and coil.Design (the physics), with no
 // cobra in sight so that `turnwise design` and the build-sheet command
 // (a job coil with a target instead of a winding) share it:
 //
-//	res, err := runDesignSearch(cat, &designSearchOptions{
+//	res, err := Search(cat, &SearchOptions{
 //		Capacitance: 22e-12, Freq: 145e6, Leads: 5e-3, MaxLength: 15e-3,
 //	})
 //
 // res.Candidates[0].Prediction.Geometry is the coil to wind;
 // res.Candidates[0].Support.Name and .Wire.Name are catalog names. Errors
 // name the design command's flags (the job file's keys have the same
-// names): a *flagError or *usageError for bad values (exit 2), an error
+// names): a *FlagError or *UsageError for bad values (exit 2), an error
 // wrapping coil.ErrInfeasible when nothing fits (exit 3).
 
 import (
@@ -29,9 +29,9 @@ import (
 	"turnwise/forms"
 )
 
-// designSearchOptions are the values of the design command's flags, parsed.
+// SearchOptions are the values of the design command's flags, parsed.
 // Zero values mean the flag was not given.
-type designSearchOptions struct {
+type SearchOptions struct {
 	// Target: Inductance, or Capacitance with Freq as the resonance.
 	Inductance  unit.Inductance
 	Capacitance unit.Capacitance
@@ -62,25 +62,25 @@ type designSearchOptions struct {
 	FreeDiameter  bool    // also search a support of any diameter
 }
 
-// runDesignSearch runs the design search over cat with the options o.
-func runDesignSearch(cat *forms.Catalog, o *designSearchOptions) (design.Result, error) {
-	t, err := designTarget(o)
+// Search runs the design search over cat with the options o.
+func Search(cat *forms.Catalog, o *SearchOptions) (design.Result, error) {
+	t, err := searchTarget(o)
 	if err != nil {
 		return design.Result{}, err
 	}
-	c, err := designConstraints(cat, o)
+	c, err := searchConstraints(cat, o)
 	if err != nil {
 		return design.Result{}, err
 	}
 	res, err := design.Search(t, c)
 	if err != nil {
-		return res, designError(err)
+		return res, searchError(err)
 	}
 	return res, nil
 }
 
-// designTarget turns the target flags into a design.Target.
-func designTarget(o *designSearchOptions) (design.Target, error) {
+// searchTarget turns the target flags into a design.Target.
+func searchTarget(o *SearchOptions) (design.Target, error) {
 	for _, q := range []struct {
 		flag, example string
 		v             float64
@@ -89,18 +89,18 @@ func designTarget(o *designSearchOptions) (design.Target, error) {
 		{"stray", "3pF", float64(o.Stray)}, {"freq", "145MHz", float64(o.Freq)},
 	} {
 		if q.v < 0 {
-			return design.Target{}, usageErrorf("--%s: give a positive value, e.g. %s", q.flag, q.example)
+			return design.Target{}, Usagef("--%s: give a positive value, e.g. %s", q.flag, q.example)
 		}
 	}
 	switch {
 	case o.Inductance > 0 && o.Capacitance > 0:
-		return design.Target{}, usageErrorf("--inductance and --cap cannot be used together: give an inductance, or a capacitance with the --freq it must resonate at")
+		return design.Target{}, Usagef("--inductance and --cap cannot be used together: give an inductance, or a capacitance with the --freq it must resonate at")
 	case o.Inductance == 0 && o.Capacitance == 0:
-		return design.Target{}, usageErrorf("give a target: --inductance 48nH, or --cap 22pF with --freq 145MHz (the resonance)")
+		return design.Target{}, Usagef("give a target: --inductance 48nH, or --cap 22pF with --freq 145MHz (the resonance)")
 	case o.Capacitance > 0 && o.Freq == 0:
-		return design.Target{}, usageErrorf("--cap needs --freq, the frequency it must resonate at, e.g. --freq 145MHz")
+		return design.Target{}, Usagef("--cap needs --freq, the frequency it must resonate at, e.g. --freq 145MHz")
 	case o.Stray > 0 && o.Capacitance == 0:
-		return design.Target{}, usageErrorf("--stray adds to --cap; give --cap and --freq, or add the stray to nothing and drop it")
+		return design.Target{}, Usagef("--stray adds to --cap; give --cap and --freq, or add the stray to nothing and drop it")
 	}
 	t := design.Target{Tolerance: o.Tolerance}
 	if o.Inductance > 0 {
@@ -111,8 +111,8 @@ func designTarget(o *designSearchOptions) (design.Target, error) {
 	return t, nil
 }
 
-// designConstraints builds the search's stock and limits from cat and o.
-func designConstraints(cat *forms.Catalog, o *designSearchOptions) (design.Constraints, error) {
+// searchConstraints builds the search's stock and limits from cat and o.
+func searchConstraints(cat *forms.Catalog, o *SearchOptions) (design.Constraints, error) {
 	c := design.Constraints{
 		LeadLength:    o.Leads,
 		Temperature:   o.Temp,
@@ -134,38 +134,53 @@ func designConstraints(cat *forms.Catalog, o *designSearchOptions) (design.Const
 	case "easy":
 		c.Prefer = design.PreferEasy
 	default:
-		return c, &flagError{"prefer", fmt.Errorf("%q is not one of balanced, q, small, easy", o.Prefer)}
+		return c, &FlagError{Flag: "prefer", Err: fmt.Errorf("%q is not one of balanced, q, small, easy", o.Prefer)}
 	}
-	sups, err := designSupports(cat, o)
+	sups, err := searchSupports(cat, o)
 	if err != nil {
 		return c, err
 	}
 	c.Supports = sups
-	if c.Wires, err = designWires(cat, o); err != nil {
+	if c.Wires, err = searchWires(cat, o); err != nil {
 		return c, err
 	}
 	if o.Springback == nil {
-		c.Calibrations = designCalibrations(cat, c.Supports, c.Wires)
+		c.Calibrations = searchCalibrations(cat, c.Supports, c.Wires)
 	}
 	if o.FreeDiameter {
 		c.FreeDiameter = &design.FreeDiameter{OnFormer: o.Support == "former" || o.Former != ""}
 		if o.Mandrel != "" || o.Former != "" {
-			return c, usageErrorf("--free-diameter chooses the diameter itself; drop --mandrel/--former, or drop --free-diameter")
+			return c, Usagef("--free-diameter chooses the diameter itself; drop --mandrel/--former, or drop --free-diameter")
 		}
 	}
 	return c, nil
 }
 
-// designSupports lists the mandrels and formers the search may use.
-func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]design.Support, error) {
+// SearchLists is the catalog as the design search's lists of supports and
+// wires under o: the one conversion, used by Search and by the search's
+// benchmarks.
+func SearchLists(cat *forms.Catalog, o *SearchOptions) ([]design.Support, []design.WireOption, error) {
+	sups, err := searchSupports(cat, o)
+	if err != nil {
+		return nil, nil, err
+	}
+	wires, err := searchWires(cat, o)
+	if err != nil {
+		return nil, nil, err
+	}
+	return sups, wires, nil
+}
+
+// searchSupports lists the mandrels and formers the search may use.
+func searchSupports(cat *forms.Catalog, o *SearchOptions) ([]design.Support, error) {
 	if sb := o.Springback; sb != nil && !(*sb >= coil.MinSpringback && *sb <= coil.MaxSpringback) {
-		return nil, &flagError{"springback", fmt.Errorf("%s is outside %s … %s", quantity.FormatPercent(*sb), quantity.FormatPercent(coil.MinSpringback), quantity.FormatPercent(coil.MaxSpringback))}
+		return nil, &FlagError{Flag: "springback", Err: fmt.Errorf("%s is outside %s … %s", quantity.FormatPercent(*sb), quantity.FormatPercent(coil.MinSpringback), quantity.FormatPercent(coil.MaxSpringback))}
 	}
 	kind := o.Support
 	switch kind {
 	case "", "any", "mandrel", "former":
 	default:
-		return nil, &flagError{"support", fmt.Errorf("%q is not one of any, mandrel, former", kind)}
+		return nil, &FlagError{Flag: "support", Err: fmt.Errorf("%q is not one of any, mandrel, former", kind)}
 	}
 	withSpring := func(s design.Support) design.Support {
 		if !s.OnFormer && o.Springback != nil {
@@ -175,29 +190,29 @@ func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]design.Suppor
 	}
 	switch {
 	case o.Mandrel != "" && o.Former != "":
-		return nil, usageErrorf("--mandrel and --former cannot be used together; a coil is either slid off a mandrel or left on a former")
+		return nil, Usagef("--mandrel and --former cannot be used together; a coil is either slid off a mandrel or left on a former")
 	case o.Mandrel != "":
 		if kind == "former" {
-			return nil, usageErrorf("--mandrel contradicts --support former; drop one")
+			return nil, Usagef("--mandrel contradicts --support former; drop one")
 		}
-		d, name, err := resolveMandrel(cat, o.Mandrel)
+		d, name, err := ResolveMandrel(cat, o.Mandrel)
 		if err != nil {
 			return nil, err
 		}
 		if !(d > 0) {
-			return nil, &flagError{"mandrel", fmt.Errorf("%q is not a diameter; give a positive one, e.g. 6mm", o.Mandrel)}
+			return nil, &FlagError{Flag: "mandrel", Err: fmt.Errorf("%q is not a diameter; give a positive one, e.g. 6mm", o.Mandrel)}
 		}
 		return []design.Support{withSpring(design.Support{Name: name, Diameter: d})}, nil
 	case o.Former != "":
 		if kind == "mandrel" {
-			return nil, usageErrorf("--former contradicts --support mandrel; drop one")
+			return nil, Usagef("--former contradicts --support mandrel; drop one")
 		}
-		d, name, err := resolveFormer(cat, o.Former)
+		d, name, err := ResolveFormer(cat, o.Former)
 		if err != nil {
 			return nil, err
 		}
 		if !(d > 0) {
-			return nil, &flagError{"former", fmt.Errorf("%q is not a diameter; give a positive one, e.g. 20mm", o.Former)}
+			return nil, &FlagError{Flag: "former", Err: fmt.Errorf("%q is not a diameter; give a positive one, e.g. 20mm", o.Former)}
 		}
 		return []design.Support{{Name: name, Diameter: d, OnFormer: true}}, nil
 	}
@@ -217,15 +232,15 @@ func designSupports(cat *forms.Catalog, o *designSearchOptions) ([]design.Suppor
 		if what == "" {
 			what = "mandrel or former"
 		}
-		return nil, usageErrorf("the stock has no %s; add one to your stock file, use --use both, or give --free-diameter", what)
+		return nil, Usagef("the stock has no %s; add one to your stock file, use --use both, or give --free-diameter", what)
 	}
 	return out, nil
 }
 
-// designWires lists the wires the search may use: the pinned ones, or the
+// searchWires lists the wires the search may use: the pinned ones, or the
 // whole catalog.
-func designWires(cat *forms.Catalog, o *designSearchOptions) ([]design.WireOption, error) {
-	rows, err := designWireRows(cat, o)
+func searchWires(cat *forms.Catalog, o *SearchOptions) ([]design.WireOption, error) {
+	rows, err := wireRowsFor(cat, o)
 	if err != nil {
 		return nil, err
 	}
@@ -233,40 +248,40 @@ func designWires(cat *forms.Catalog, o *designSearchOptions) ([]design.WireOptio
 	for _, w := range rows {
 		cond, err := coil.ParseConductor(w.Conductor)
 		if err != nil {
-			return nil, &flagError{"conductor", err}
+			return nil, &FlagError{Flag: "conductor", Err: err}
 		}
 		out = append(out, design.WireOption{Name: w.Name, Diameter: w.Bare, Overall: w.Overall, Conductor: cond})
 	}
 	if len(out) == 0 {
-		return nil, usageErrorf("the stock has no wire; add some to your stock file or use --use both")
+		return nil, Usagef("the stock has no wire; add some to your stock file or use --use both")
 	}
 	return out, nil
 }
 
-// designWireRows is the catalog rows behind designWires, with the pinned
+// wireRowsFor is the catalog rows behind searchWires, with the pinned
 // wires' --insulation and --conductor applied; commands describe the
 // candidates' wire from them.
-func designWireRows(cat *forms.Catalog, o *designSearchOptions) ([]forms.Wire, error) {
+func wireRowsFor(cat *forms.Catalog, o *SearchOptions) ([]forms.Wire, error) {
 	rows := cat.Wires
 	if len(o.Wires) > 0 {
 		rows = nil
 		for _, name := range o.Wires {
-			w, _, err := resolveWireAs(cat, name, o.Insulation, o.Conductor)
+			w, _, err := ResolveWireAs(cat, name, o.Insulation, o.Conductor)
 			if err != nil {
 				return nil, err
 			}
 			rows = append(rows, w)
 		}
 	} else if o.Insulation != "" || o.Conductor != "" {
-		return nil, usageErrorf("--insulation and --conductor apply to a wire you name; add --wire")
+		return nil, Usagef("--insulation and --conductor apply to a wire you name; add --wire")
 	}
 	return rows, nil
 }
 
-// designCalibrations resolves the catalog's springback calibrations to the
+// searchCalibrations resolves the catalog's springback calibrations to the
 // support and wire names the search uses; cat.Springback picks the latest
 // for each pair, with the same name matching as predict.
-func designCalibrations(cat *forms.Catalog, sups []design.Support, wires []design.WireOption) []design.SpringbackCalibration {
+func searchCalibrations(cat *forms.Catalog, sups []design.Support, wires []design.WireOption) []design.SpringbackCalibration {
 	if len(cat.Calibrations) == 0 {
 		return nil
 	}
@@ -313,8 +328,8 @@ func designCalibrations(cat *forms.Catalog, sups []design.Support, wires []desig
 	return out
 }
 
-// designFlags maps coil.InputError parameters to the design flags.
-var designFlags = map[string]string{
+// searchFlags maps coil.InputError parameters to the design flags.
+var searchFlags = map[string]string{
 	"inductance":      "inductance",
 	"resonance":       "freq",
 	"frequency":       "freq",
@@ -337,20 +352,20 @@ var designFlags = map[string]string{
 	"max_wire_length": "max-wire-length",
 }
 
-// designError names the flag behind a model error and adds the flag to try
+// searchError names the flag behind a model error and adds the flag to try
 // to an infeasibility.
-func designError(err error) error {
+func searchError(err error) error {
 	var ie *coil.InputError
 	if errors.As(err, &ie) {
-		if f, ok := designFlags[ie.Param]; ok {
-			return &flagError{f, err}
+		if f, ok := searchFlags[ie.Param]; ok {
+			return &FlagError{Flag: f, Err: err}
 		}
 		return err
 	}
 	var inf *design.InfeasibleError
 	if errors.As(err, &inf) {
 		hint := ""
-		if f, ok := designFlags[inf.Constraint]; ok {
+		if f, ok := searchFlags[inf.Constraint]; ok {
 			hint = " (--" + f + ")"
 		}
 		return fmt.Errorf("%w%s", err, hint)
@@ -358,8 +373,8 @@ func designError(err error) error {
 	return err
 }
 
-// parseWireSize reads a bare diameter or a gauge for --min-wire/--max-wire.
-func parseWireSize(s string) (unit.Length, error) {
+// ParseWireSize reads a bare diameter or a gauge for --min-wire/--max-wire.
+func ParseWireSize(s string) (unit.Length, error) {
 	if d, err := quantity.ParseLength(s); err == nil {
 		return d, nil
 	}
@@ -371,4 +386,16 @@ func parseWireSize(s string) (unit.Length, error) {
 		return 0, fmt.Errorf("%q is neither a diameter (0.5mm) nor a gauge (24awg, 22swg)", s)
 	}
 	return w.Bare, nil
+}
+
+// WireRows indexes the search's wire rows by name.
+func WireRows(cat *forms.Catalog, so *SearchOptions) map[string]forms.Wire {
+	rows, _ := wireRowsFor(cat, so) // the search already accepted them
+	m := make(map[string]forms.Wire, len(rows))
+	for _, w := range rows {
+		if _, dup := m[w.Name]; !dup {
+			m[w.Name] = w
+		}
+	}
+	return m
 }

@@ -1,16 +1,19 @@
-package main
+package report
 
 import (
+	"encoding/json"
+	"io"
 	"turnwise/coil"
+	"turnwise/internal/spec"
 )
 
-// schemaVersion is the "schema" field of every JSON document; it changes
+// SchemaVersion is the "schema" field of every JSON document; it changes
 // only when a key changes meaning or disappears.
-const schemaVersion = 1
+const SchemaVersion = 1
 
-// coilRecord is the JSON form of one predicted coil: every number in SI
+// CoilRecord is the JSON form of one predicted coil: every number in SI
 // base units (m, H, F, Hz, Ω, kg, K). Keys are documented in README.md.
-type coilRecord struct {
+type CoilRecord struct {
 	// Build.
 	Support             string  `json:"support"`      // "mandrel" or "former"
 	SupportName         string  `json:"support_name"` // stock name or "6mm rod"
@@ -69,7 +72,7 @@ type coilRecord struct {
 	Warnings             []string `json:"warnings"`
 }
 
-func newCoilRecord(s coilSpec, p coil.Prediction) coilRecord {
+func NewCoilRecord(s spec.Spec, p coil.Prediction) CoilRecord {
 	g := p.Geometry
 	overall := g.OverallDiameter()
 	temp := float64(g.Temperature)
@@ -80,12 +83,12 @@ func newCoilRecord(s coilSpec, p coil.Prediction) coilRecord {
 	if w == nil {
 		w = []string{}
 	}
-	return coilRecord{
-		Support:             s.SupportKind,
+	return CoilRecord{
+		Support:             s.SupportKind.String(),
 		SupportName:         s.SupportName,
 		FormerDiameter:      float64(g.FormerDiameter),
 		Springback:          g.Springback,
-		SpringbackSource:    s.SpringbackSource,
+		SpringbackSource:    s.SpringbackSource.String(),
 		Wire:                s.Wire.Name,
 		WireSource:          s.Wire.Source,
 		Insulation:          s.Wire.Insulation,
@@ -135,4 +138,11 @@ func newCoilRecord(s coilSpec, p coil.Prediction) coilRecord {
 		QMax:                p.QMax,
 		Warnings:            w,
 	}
+}
+
+// writeJSON encodes v indented, as every command prints JSON.
+func writeJSON(w io.Writer, v any) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(v)
 }

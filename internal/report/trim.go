@@ -1,4 +1,4 @@
-package main
+package report
 
 import (
 	"encoding/json"
@@ -7,22 +7,31 @@ import (
 	"math"
 	"strings"
 	"text/tabwriter"
-	"turnwise/internal/quantity"
-
-	"gonum.org/v1/gonum/unit"
-
+	"turnwise/coil"
 	"turnwise/coil/trim"
 	"turnwise/forms"
+	"turnwise/internal/quantity"
+	"turnwise/internal/spec"
+
+	"gonum.org/v1/gonum/unit"
 )
 
-// The output of `turnwise trim`: the one-line instruction, the warnings,
-// the table and the JSON document.
+// SavedCalibration is what `trim --save` wrote.
+type SavedCalibration struct {
+	Path, Backup string // the stock file; its previous version ("" when it is new)
+	Mandrel      string // the mandrel or former, as named in the file
+	Wire         string
+	Springback   float64
+	Note         string
+	Added        []string           // rows added so that the calibration's names resolve
+	Superseded   *forms.Calibration // the calibration in effect before, if any
+}
 
 // fmtLenStep prints a length to the resolution it was rounded to (0.1 mm
 // as "9.1 mm"), or to lf's usual precision when exact.
-func fmtLenStep(lf lengthFormatter, m float64, step unit.Length) string {
+func fmtLenStep(lf quantity.LengthFormat, m float64, step unit.Length) string {
 	if step <= 0 {
-		return lf.fmt(m)
+		return lf.Format(m)
 	}
 	if lf.Inches {
 		return fmt.Sprintf("%.3f in", m/0.0254)
@@ -53,7 +62,7 @@ func signedFarads(c float64) string {
 func quarterTurns(d float64) string { return quantity.FormatTurnsWord(math.Abs(d)) }
 
 // expectText is the predicted value after the change, in the target's terms.
-func expectText(res *trimResult) string {
+func expectText(res *Trim) string {
 	c := res.Correction
 	if res.Aim.Source == trim.TargetResonance && res.AfterResonance > 0 {
 		return fmt.Sprintf("resonance at %s", quantity.FormatEng(float64(res.AfterResonance), "Hz", 4))
@@ -70,10 +79,10 @@ func expectText(res *trimResult) string {
 	return after
 }
 
-// trimInstruction is the one clear sentence a builder acts on.
-func trimInstruction(res *trimResult) string {
+// TrimInstruction is the one clear sentence a builder acts on.
+func TrimInstruction(res *Trim) string {
 	c := res.Correction
-	lf := res.lf
+	lf := res.LF
 	step := c.LengthStep
 	var s string
 	switch c.Action {
@@ -104,8 +113,8 @@ func trimInstruction(res *trimResult) string {
 }
 
 // nextText says what the same measurement should read after the change.
-func nextText(res *trimResult) string {
-	m, e := res.meas, res.Next
+func nextText(res *Trim) string {
+	m, e := res.Meas, res.Next
 	switch m.Kind {
 	case trim.MeasureDirect:
 		s := "the meter should read " + quantity.FormatEng(float64(e.Inductance), "H", 3)
@@ -128,9 +137,9 @@ func nextText(res *trimResult) string {
 	return "expect " + strings.Join(parts, ", ")
 }
 
-// trimWarnings words the library's findings, then the model's warnings
+// TrimWarnings words the library's findings, then the model's warnings
 // for the corrected coil.
-func trimWarnings(res *trimResult) []string {
+func TrimWarnings(res *Trim) []string {
 	w := []string{}
 	for _, f := range res.Findings {
 		w = append(w, findingText(res, f))
@@ -139,7 +148,7 @@ func trimWarnings(res *trimResult) []string {
 }
 
 // findingText is one finding in the builder's words.
-func findingText(res *trimResult, f trim.Finding) string {
+func findingText(res *Trim, f trim.Finding) string {
 	switch f.Kind {
 	case trim.SpringbackUnusual:
 		return fmt.Sprintf("the fitted springback %s is unusual for wire released from a mandrel (a few percent is typical; common practice): check --turns, --length, --leads and the fixture before trusting or saving it", quantity.FormatPercent(f.Value))
@@ -164,7 +173,7 @@ func findingText(res *trimResult, f trim.Finding) string {
 		t := res.Tap
 		return fmt.Sprintf("no quarter-turn tap gives the voltage ratio %.3f: the nearest, %s from the cold end, gives %.3f", t.WantRatio, quantity.FormatTurnsWord(t.NewTurns), t.RatioAfter)
 	case trim.NewWinding:
-		return fmt.Sprintf("adding turns means winding a new coil: cut %s of wire", res.lf.fmt(f.Value))
+		return fmt.Sprintf("adding turns means winding a new coil: cut %s of wire", res.LF.Format(f.Value))
 	}
 	return fmt.Sprintf("finding %d", f.Kind)
 }
@@ -201,16 +210,16 @@ func targetSenseText(t trim.Target) string {
 	return "at the terminals, low frequency"
 }
 
-func writeTrimTable(w io.Writer, res *trimResult) error {
-	lf := res.lf
-	cal, r, c, m := res.Calibration, res.Calibration.Reading, res.Correction, res.meas
-	g := res.tc.spec.Geometry
+func WriteTrimTable(w io.Writer, res *Trim) error {
+	lf := res.LF
+	cal, r, c, m := res.Calibration, res.Calibration.Reading, res.Correction, res.Meas
+	g := res.Coil.Geometry
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	row := func(label, value string) { fmt.Fprintf(tw, "  %s\t%s\n", label, value) }
 
-	fmt.Fprintf(tw, "Trim: %s turns of %s on %s (%s)\n\n", quantity.FormatTurns(g.Turns), describeWire(res.tc.spec, lf), res.tc.spec.SupportName,
-		map[string]string{"mandrel": "slid off: self-supporting", "former": "stays on the former"}[res.tc.spec.SupportKind])
-	fmt.Fprintf(tw, "→ %s\n", res.instruction)
+	fmt.Fprintf(tw, "Trim: %s turns of %s on %s (%s)\n\n", quantity.FormatTurns(g.Turns), spec.DescribeWire(res.Coil, lf), res.Coil.SupportName,
+		map[coil.SupportKind]string{coil.SupportMandrel: "slid off: self-supporting", coil.SupportFormer: "stays on the former"}[res.Coil.SupportKind])
+	fmt.Fprintf(tw, "→ %s\n", res.Instruction)
 
 	fmt.Fprintf(tw, "\nMEASUREMENT (%s)\n", kindText(r.Kind))
 	switch m.Kind {
@@ -238,7 +247,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		row("readings", strings.Join(parts, ", "))
 	}
 	if m.FixtureLeadLength > 0 {
-		row("fixture leads", "2 × "+lf.fmt(float64(m.FixtureLeadLength))+" of extra wire (in the model for the reading)")
+		row("fixture leads", "2 × "+lf.Format(float64(m.FixtureLeadLength))+" of extra wire (in the model for the reading)")
 	}
 	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", quantity.FormatEng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
 	if r.Kind == trim.MeasureTwoCapacitor {
@@ -258,17 +267,17 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		}
 	}
 	sbNote := "no springback assumed"
-	switch res.tc.spec.SpringbackSource {
+	switch res.Coil.SpringbackSource {
 	case "given":
 		sbNote = "springback " + sbPct(g.Springback) + " as given"
-	case "calibration":
+	case coil.SpringbackCalibration:
 		sbNote = "your saved springback " + sbPct(g.Springback)
 	}
 	row("the model expected", fmt.Sprintf("%s  (%s): the coil reads %+.1f %%", quantity.FormatEng(float64(cal.ModelBefore), "H", 4), sbNote, res.Deviation*100))
 
 	fmt.Fprintln(tw, "\nTHE COIL AS BUILT")
 	row("springback", fmt.Sprintf("%s  (%s … %s within the reading's uncertainty)", sbPct(cal.Springback), sbPct(cal.SpringbackLow), sbPct(cal.SpringbackHigh)))
-	row("effective diameter", fmt.Sprintf("%s wire-centre, bore %s", lf.fmt(float64(cal.EffectiveDiameter)), lf.fmt(float64(cal.Geometry.InsideDiameter()))))
+	row("effective diameter", fmt.Sprintf("%s wire-centre, bore %s", lf.Format(float64(cal.EffectiveDiameter)), lf.Format(float64(cal.Geometry.InsideDiameter()))))
 	row("inductance", fmt.Sprintf("%s  (%s)", quantity.FormatEng(float64(c.Before), "H", 4), targetSenseText(res.Target)))
 
 	fmt.Fprintln(tw, "\nCORRECTION")
@@ -280,7 +289,7 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		tgt = fmt.Sprintf("resonance at %s with %s: %s", quantity.FormatEng(float64(res.Aim.Resonance), "Hz", 4), quantity.FormatCapacitance(float64(res.Aim.Capacitance)), tgt)
 	}
 	row("target", tgt)
-	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", quantity.FormatEng(float64(c.WindowLeast), "H", 3), lf.fmt(float64(res.LoosePitch)),
+	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", quantity.FormatEng(float64(c.WindowLeast), "H", 3), lf.Format(float64(res.LoosePitch)),
 		quantity.FormatEng(float64(c.WindowMost), "H", 3), quantity.FormatTurns(g.Turns)))
 	ng := c.Geometry
 	switch c.Action {
@@ -291,11 +300,11 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		if ng.Turns != g.Turns {
 			row("turns", fmt.Sprintf("%s, was %s", quantity.FormatTurns(ng.Turns), quantity.FormatTurns(g.Turns)))
 		}
-		row("outside length", fmt.Sprintf("%s (pitch %s), was %s", fmtLenStep(lf, float64(c.LengthAfter), c.LengthStep), lf.fmt(float64(ng.Pitch)), fmtLenStep(lf, float64(c.LengthBefore), c.LengthStep)))
+		row("outside length", fmt.Sprintf("%s (pitch %s), was %s", fmtLenStep(lf, float64(c.LengthAfter), c.LengthStep), lf.Format(float64(ng.Pitch)), fmtLenStep(lf, float64(c.LengthBefore), c.LengthStep)))
 		row("predicted", fmt.Sprintf("%s  (%+.2f %% from the target)", quantity.FormatEng(float64(c.After), "H", 4), res.MissAfter*100))
 	}
 	if c.LengthPerPercent > 0 {
-		row("fine trim", fmt.Sprintf("%s of outside length per 1 %% of L", lf.fmt(float64(c.LengthPerPercent))))
+		row("fine trim", fmt.Sprintf("%s of outside length per 1 %% of L", lf.Format(float64(c.LengthPerPercent))))
 	}
 	if t := res.Tap; t != nil {
 		tapLine := fmt.Sprintf("%s from the cold end, voltage ratio %.3f (as built) → %.3f; wanted %.3f", quantity.FormatTurnsWord(t.NewTurns), t.RatioBefore, t.RatioAfter, t.WantRatio)
@@ -322,11 +331,11 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 		}
 	}
 	row("then measure again", nextText(res))
-	if res.meas.Kind == trim.MeasureInCircuit {
+	if res.Meas.Kind == trim.MeasureInCircuit {
 		row("caution", "switch the circuit off and discharge it before squeezing the coil")
 	}
 
-	if s := res.saved; s != nil {
+	if s := res.Saved; s != nil {
 		fmt.Fprintln(tw, "\nSAVED")
 		row("calibration", fmt.Sprintf("springback %s for %s and %s in %s", forms.SpringbackText(s.Springback), s.Mandrel, s.Wire, s.Path))
 		if s.Backup != "" {
@@ -342,8 +351,6 @@ func writeTrimTable(w io.Writer, res *trimResult) error {
 	}
 	return tw.Flush()
 }
-
-// JSON.
 
 type resonanceJSON struct {
 	Frequency   float64 `json:"frequency"`
@@ -395,7 +402,7 @@ type savedJSON struct {
 	Added      []string `json:"added,omitempty"`
 }
 
-type trimJSON struct {
+type TrimRecord struct {
 	Schema      int                 `json:"schema"`
 	Instruction string              `json:"instruction"`
 	Measurement trimMeasurementJSON `json:"measurement"`
@@ -452,16 +459,16 @@ type trimJSON struct {
 
 	Tap      *trimTapJSON `json:"tap,omitempty"`
 	Saved    *savedJSON   `json:"saved,omitempty"`
-	Coil     coilRecord   `json:"coil"`
+	Coil     CoilRecord   `json:"coil"`
 	Warnings []string     `json:"warnings"`
 }
 
 func ptr(v float64) *float64 { return &v }
 
-func writeTrimJSON(w io.Writer, res *trimResult) error {
-	cal, r, c, m := res.Calibration, res.Calibration.Reading, res.Correction, res.meas
-	g := res.tc.spec.Geometry
-	d := trimJSON{Schema: schemaVersion, Instruction: res.instruction}
+func WriteTrimJSON(w io.Writer, res *Trim) error {
+	cal, r, c, m := res.Calibration, res.Calibration.Reading, res.Correction, res.Meas
+	g := res.Coil.Geometry
+	d := TrimRecord{Schema: SchemaVersion, Instruction: res.Instruction}
 	d.Measurement = trimMeasurementJSON{
 		Kind: m.Kind.String(), TestFrequency: float64(m.TestFrequency), FixtureInductance: float64(m.FixtureInductance),
 		FixtureLeadLength: float64(m.FixtureLeadLength), Stray: float64(m.Stray),
@@ -492,7 +499,7 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 	d.SelfCapacitanceModel = float64(cal.SelfCapacitance)
 	d.ModelInductance = float64(cal.ModelBefore)
 	d.InductanceTerminal = float64(cal.Measured)
-	d.SpringbackBefore, d.SpringbackSource = g.Springback, res.tc.spec.SpringbackSource
+	d.SpringbackBefore, d.SpringbackSource = g.Springback, res.Coil.SpringbackSource.String()
 	d.Springback, d.SpringbackLow, d.SpringbackHigh = cal.Springback, cal.SpringbackLow, cal.SpringbackHigh
 	d.EffectiveDiameter = float64(cal.EffectiveDiameter)
 	d.EffectiveInsideDiameter = float64(cal.Geometry.InsideDiameter())
@@ -539,12 +546,24 @@ func writeTrimJSON(w io.Writer, res *trimResult) error {
 		}
 		d.Tap = tj
 	}
-	if s := res.saved; s != nil {
+	if s := res.Saved; s != nil {
 		d.Saved = &savedJSON{StockFile: s.Path, Backup: s.Backup, Mandrel: s.Mandrel, Wire: s.Wire, Springback: s.Springback, Note: s.Note, Added: s.Added}
 	}
-	d.Coil = newCoilRecord(res.tc.spec, res.Spec)
-	d.Warnings = res.warnings
+	d.Coil = NewCoilRecord(res.Coil, res.Spec)
+	d.Warnings = res.Warnings
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	return enc.Encode(d)
+}
+
+// Trim is trim.Plan's result with what the writers need besides: the
+// coil's description, the measurement as given and the display units.
+type Trim struct {
+	*trim.Result
+	Coil        spec.Spec // the coil as resolved (its Spec field is trim.Result's prediction)
+	Meas        trim.Measurement
+	Instruction string
+	Warnings    []string
+	Saved       *SavedCalibration
+	LF          quantity.LengthFormat
 }
