@@ -12,6 +12,7 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil/design"
+	"turnwise/coil/thermal"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 )
@@ -66,6 +67,7 @@ type designOptions struct {
 	stock         *stockOptions
 	units         *choiceFlag
 	json          bool
+	pitch         *choiceFlag // what the pitch follows with temperature on a former
 }
 
 func newDesignOptions() *designOptions {
@@ -75,6 +77,7 @@ func newDesignOptions() *designOptions {
 		units:   newChoice("mm", "mm", "in"),
 		stock:   newStockOptions(),
 		top:     design.DefaultTop,
+		pitch:   newPitchFollows(),
 	}
 }
 
@@ -106,6 +109,7 @@ func (o *designOptions) addFlags(fs *pflag.FlagSet) {
 	o.stock.addFlags(fs)
 	fs.Var(o.units, "units", "display lengths in mm or in")
 	fs.BoolVar(&o.json, "json", false, "print JSON (SI units) instead of a table")
+	fs.Var(o.pitch, "pitch-follows", pitchFollowsUsage)
 }
 
 func newDesignCmd(g *globalOptions) *cobra.Command {
@@ -182,6 +186,7 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 		Top:           o.top,
 		FreeDiameter:  o.freeDiameter,
 	}
+	so.PitchFollows, _ = thermal.ParsePitchFollows(o.pitch.v)
 	switch {
 	case o.top < 1 || o.top > design.MaxTop:
 		return nil, nil, usageErrorf("--top %d: give a number from 1 to %d", o.top, design.MaxTop)

@@ -2,6 +2,7 @@ package main
 
 import (
 	"encoding/json"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -44,4 +45,47 @@ func TestPredictTempco(t *testing.T) {
 		t.Errorf("warnings %s: want one about the material", w)
 	}
 	checkRefusal(t, []string{"predict", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--leads", "5mm", "--pitch-follows", "glue"}, 2, "pitch-follows")
+}
+
+// design gives every candidate its temperature coefficients, computed
+// through the same Spec predict builds: a self-supporting candidate has
+// copper's expansion at low frequency (dimensional analysis; materials.csv
+// copper row, CRC Handbook from memory), a PVC-former one more; the table
+// prints them in ppm/K.
+func TestDesignTempco(t *testing.T) {
+	t.Parallel()
+	out, errOut, code := runCLI(t, "design", "--cap", "22pF", "--freq", "145MHz", "--leads", "5mm", "--support", "mandrel", "--top", "2", "--json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc struct {
+		Candidates []map[string]any `json:"candidates"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil || len(doc.Candidates) == 0 {
+		t.Fatalf("%v: %d candidates", err, len(doc.Candidates))
+	}
+	for i, c := range doc.Candidates {
+		lf, ok := c["tempco_low_frequency"].(float64)
+		if !ok || math.Abs(lf/16.5e-6-1) > 1e-9 {
+			t.Errorf("candidate %d: tempco_low_frequency %v, want 16.5e-6", i+1, c["tempco_low_frequency"])
+		}
+		if q, ok := c["tempco_q"].(float64); !ok || !(q < -1e-3) {
+			t.Errorf("candidate %d: tempco_q %v, want about -0.002 (Q falls with copper's resistivity)", i+1, c["tempco_q"])
+		}
+		if tc, ok := c["tempco"].(float64); !ok || !(tc > lf) {
+			t.Errorf("candidate %d: tempco at f %v, want above the low-frequency one (the skin term adds)", i+1, c["tempco"])
+		}
+	}
+	out, errOut, code = runCLI(t, "design", "--inductance", "4.7uH", "--freq", "7MHz", "--leads", "10mm", "--former", "pvc 20mm", "--top", "1")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	i := strings.Index(out, "tempco: L +")
+	if i < 0 {
+		t.Fatalf("no tempco line in the table:\n%s", out)
+	}
+	var ppm float64
+	if _, err := fmt.Sscanf(out[i+len("tempco: L "):], "%g", &ppm); err != nil || !(ppm > 40 && ppm < 90) {
+		t.Errorf("PVC-former tempco %g ppm/K (%v), want between copper's 16.5 and PVC's 70 ppm/K class, nearer PVC", ppm, err)
+	}
 }

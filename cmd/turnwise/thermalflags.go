@@ -14,8 +14,10 @@ import (
 // the temperature changes.
 func newPitchFollows() *choiceFlag { return newChoice("former", "former", "wire") }
 
+const pitchFollowsUsage = "on a former, what sets the pitch as the temperature changes: former (turns ride its surface) or wire"
+
 func addPitchFollowsFlag(cmd *cobra.Command, f *choiceFlag) {
-	cmd.Flags().Var(f, "pitch-follows", "on a former, what sets the pitch as the temperature changes: former (turns ride its surface) or wire")
+	cmd.Flags().Var(f, "pitch-follows", pitchFollowsUsage)
 }
 
 // tempRangeFlag is --temp-range, e.g. 10C-40C; low and high in kelvin.

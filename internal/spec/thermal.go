@@ -6,6 +6,7 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
+	"turnwise/coil/design"
 	"turnwise/coil/thermal"
 	"turnwise/forms"
 )
@@ -52,4 +53,10 @@ func Tempco(cat *forms.Catalog, s Spec, f unit.Frequency, pitch thermal.PitchFol
 		return c, false, "no temperature coefficient: " + err.Error()
 	}
 	return c, true, ""
+}
+
+// CandidateTempco is Tempco for a design candidate, through the same Spec
+// FromCandidate gives it (rows from WireRows).
+func CandidateTempco(cat *forms.Catalog, rows map[string]forms.Wire, c design.Candidate, f unit.Frequency, pitch thermal.PitchFollows) (thermal.Coefficients, bool, string) {
+	return Tempco(cat, FromCandidate(rows, c), f, pitch)
 }
