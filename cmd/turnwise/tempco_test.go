@@ -89,3 +89,59 @@ func TestDesignTempco(t *testing.T) {
 		t.Errorf("PVC-former tempco %g ppm/K (%v), want between copper's 16.5 and PVC's 70 ppm/K class, nearer PVC", ppm, err)
 	}
 }
+
+// span prints both ranges' drift at the chosen dial settings: with a
+// self-supporting coil and a gang of copper's coefficient every L and C
+// scales with copper, so both ranges fall by α_Cu per kelvin (dimensional
+// analysis; the skin term adds a few ppm/K at HF, coil/thermal
+// TestSpanDriftScales); over 10 °C … 40 °C the shift is about 30 K times
+// the drift; bad flags are refused with exit 2.
+func TestSpanDrift(t *testing.T) {
+	t.Parallel()
+	base := []string{"span", "--mandrel", "20mm", "--wire", "1mm", "--turns", "10", "--pitch", "2mm", "--leads", "10mm",
+		"--tap", "4", "--gang", "15-365pF", "--json"}
+	out, errOut, code := runCLI(t, append(base, "--gang-tempco", "+16.5ppm/K", "--drift-at", "0,25,100", "--temp-range", "10C-40C")...)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc struct {
+		Drift struct {
+			GangTempcoPerK float64 `json:"gang_tempco_per_k"`
+			Points         []struct {
+				Setting float64 `json:"setting"`
+				Low     struct {
+					HzPerK  float64 `json:"hz_per_k"`
+					PPMPerK float64 `json:"ppm_per_k"`
+					Shift   *struct {
+						Hz float64 `json:"hz"`
+					} `json:"shift"`
+				} `json:"low"`
+				High *struct {
+					PPMPerK float64 `json:"ppm_per_k"`
+				} `json:"high"`
+			} `json:"points"`
+		} `json:"drift"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatal(err)
+	}
+	if len(doc.Drift.Points) != 3 || math.Abs(doc.Drift.Points[1].Setting-0.25) > 1e-12 {
+		t.Fatalf("drift points %+v, want 3 at 0, 25 %%, 100 %%", doc.Drift.Points)
+	}
+	for _, p := range doc.Drift.Points {
+		if math.Abs(p.Low.PPMPerK+16.5) > 5 || p.High == nil || math.Abs(p.High.PPMPerK+16.5) > 5 {
+			t.Errorf("dial %g: low %.3g, high %+v ppm/K; want about -16.5 (copper scaling)", p.Setting, p.Low.PPMPerK, p.High)
+		}
+		if p.Low.Shift == nil || math.Abs(p.Low.Shift.Hz-30*p.Low.HzPerK) > 0.01*math.Abs(30*p.Low.HzPerK) {
+			t.Errorf("dial %g: shift %+v, want about 30 K × %.4g Hz/K", p.Setting, p.Low.Shift, p.Low.HzPerK)
+		}
+	}
+	// The default gang is air-variable, and the table says so.
+	tbl, errOut, code := runCLI(t, base[:len(base)-1]...)
+	if code != 0 || !strings.Contains(tbl, "TEMPERATURE DRIFT (gang air +50.0 ppm/K") {
+		t.Errorf("exit %d %s: no air-gang drift block in\n%s", code, errOut, tbl)
+	}
+	checkRefusal(t, append(base, "--drift-at", "150"), 2, "drift-at")
+	checkRefusal(t, append(base, "--gang-tempco", "wood"), 2, "gang-tempco")
+	checkRefusal(t, append(base, "--temp-range", "10-40"), 2, "temp-range")
+}

@@ -14,6 +14,9 @@ import (
 type DialDrift struct {
 	Setting   float64
 	Low, High Drift // High.Frequency is zero when the circuit has one resonance
+	// SectionsAt is the frequency the coil's sections were evaluated at
+	// (the geometric mean of the two resonances at the reference).
+	SectionsAt float64
 }
 
 // SpanDrift computes the drift of spec's two ranges at each dial setting
@@ -87,7 +90,7 @@ func SpanDrift(spec tuning.Spec, s Support, gang Class, settings []float64) ([]D
 			}
 			uL, uH = append(uL, l2-dl), append(uH, h2-dh)
 		}
-		dd := DialDrift{Setting: x, Low: makeDrift(float64(ref.Low), dl, uL)}
+		dd := DialDrift{Setting: x, Low: makeDrift(float64(ref.Low), dl, uL), SectionsAt: fRef}
 		if ref.High > 0 {
 			dd.High = makeDrift(float64(ref.High), dh, uH)
 		}
@@ -124,4 +127,37 @@ func dialAt(spec tuning.Spec, s Support, tau, x, dT, fRef float64) (tuning.Reson
 	ct := (spec.A.Capacitance(x)+spec.A.Trimmer)*k + spec.A.Stray + p.SelfCapacitance
 	cb := (spec.B.Capacitance(x)+spec.B.Trimmer)*k + spec.B.Stray
 	return tuning.TwoNodeResonances(sec, ct, cb)
+}
+
+// SpanShift is the move of both ranges at dial setting d.Setting (a
+// result of SpanDrift for the same spec, support and gang) over a
+// temperature range low … high in kelvin: the circuit solved again at
+// each end, the reference being the coil's own temperature (zero: 20 °C).
+// The uncertainty is |high − low|·f·d.Uncertainty. hi is zero when the
+// circuit has one resonance.
+func SpanShift(spec tuning.Spec, s Support, gang Class, d DialDrift, low, high float64) (lo, hi Shift, err error) {
+	if !(high > low) || low <= 0 {
+		return lo, hi, inputErrorf("temp_range", "%g K … %g K: give a low end below the high end, both above absolute zero", low, high)
+	}
+	ref := kelvin(spec.Geometry.Temperature)
+	fRef := d.SectionsAt
+	a, err := dialAt(spec, s, gang.Nominal, d.Setting, low-ref, fRef)
+	if err != nil {
+		return lo, hi, err
+	}
+	b, err := dialAt(spec, s, gang.Nominal, d.Setting, high-ref, fRef)
+	if err != nil {
+		return lo, hi, err
+	}
+	mk := func(dr Drift, fa, fb float64) Shift {
+		sh := Shift{Low: low, High: high, FLow: fa, FHigh: fb, Hz: fb - fa}
+		sh.Relative = sh.Hz / dr.Frequency
+		sh.Uncertainty = (high - low) * dr.Frequency * dr.Uncertainty
+		return sh
+	}
+	lo = mk(d.Low, float64(a.Low), float64(b.Low))
+	if d.High.Frequency > 0 && a.High > 0 && b.High > 0 {
+		hi = mk(d.High, float64(a.High), float64(b.High))
+	}
+	return lo, hi, nil
 }

@@ -77,3 +77,41 @@ func TestSpanDriftAirGang(t *testing.T) {
 		t.Error("setting 150 %: no error")
 	}
 }
+
+// SpanShift over a range centred on the coil's temperature (20 °C) agrees
+// with the drift per kelvin times the range: the first-order terms match
+// and the second-order ones cancel between the ends, leaving third order
+// (below 1e-7 of f for tens of ppm/K over 30 K). It refuses a reversed
+// range.
+func TestSpanShiftLinear(t *testing.T) {
+	t.Parallel()
+	spec := tuning.Spec{Geometry: demoCoil(), TapTurns: 4,
+		A: tuning.GangSection{Min: 15e-12, Max: 365e-12, Law: tuning.LawSLC, Stray: 5e-12},
+		B: tuning.GangSection{Min: 15e-12, Max: 365e-12, Law: tuning.LawSLC}}
+	sup := Support{SelfSupporting: true}
+	ds, err := SpanDrift(spec, sup, AirVariable, []float64{0, 0.5, 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, d := range ds {
+		lo, hi, err := SpanShift(spec, sup, AirVariable, d, 278.15, 308.15) // 5 °C … 35 °C
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, c := range []struct {
+			dr Drift
+			sh Shift
+		}{{d.Low, lo}, {d.High, hi}} {
+			want := c.dr.HzPerK * 30
+			if math.Abs(c.sh.Hz-want) > 1e-7*c.dr.Frequency {
+				t.Errorf("setting %g, %.4g MHz: shift %.1f Hz, drift × 30 K = %.1f Hz", d.Setting, c.dr.Frequency/1e6, c.sh.Hz, want)
+			}
+			if !(c.sh.Uncertainty > 0) {
+				t.Errorf("setting %g: no uncertainty", d.Setting)
+			}
+		}
+	}
+	if _, _, err := SpanShift(spec, sup, AirVariable, ds[0], 313, 283); err == nil {
+		t.Error("reversed range: no error")
+	}
+}
