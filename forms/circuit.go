@@ -30,6 +30,8 @@ type Circuit struct {
 	Couplings  []CircuitCoupling
 	Ports      []CircuitPort
 	Load       *CircuitLoad // nil when the file has no [load]
+	// Bands the network serves: used when the command line gives none.
+	Bands []Band
 
 	lines map[string]int // top-level key -> line
 }
@@ -136,7 +138,7 @@ type CircuitLoad struct {
 
 // Keys a circuit file takes.
 var (
-	circuitTopKeys = []string{"title", "notes", "coil", "capacitor", "inductor", "resistor", "coupling", "port", "load"}
+	circuitTopKeys = []string{"title", "notes", "bands", "coil", "capacitor", "inductor", "resistor", "coupling", "port", "load"}
 	circuitEnds    = []string{"name", "from", "to"}
 	// A coil takes a job file's fixed-winding keys, under the same names.
 	circuitWindingKeys = []string{"mandrel", "former", "wire", "insulation", "conductor", "springback",
@@ -166,6 +168,7 @@ const (
 //
 //	title = "HF+VHF front end"
 //	notes = "..."
+//	bands = ["80m=3.5-3.8MHz", "2m=144-146MHz"]   # served bands (default for --band)
 //
 //	[[coil]]                       # a wound coil; from = hot end, to = cold end
 //	name = "L1"   from = "ant"   to = "gnd"
@@ -253,6 +256,25 @@ func loadCircuit(l *jobLoader, doc map[string]any) *Circuit {
 		c.Notes = s
 	}
 
+	if v, present := doc["bands"]; present {
+		list, isList := v.([]any)
+		if !isList {
+			top.fail("bands", "bands", fmt.Errorf("is a %s; write a list, e.g. bands = [\"80m=3.5-3.8MHz\"]", tomlType(v)))
+		}
+		for i, x := range list {
+			bs, isStr := x.(string)
+			if !isStr {
+				top.fail("bands", fmt.Sprintf("bands[%d]", i+1), errors.New(`write each band in quotes, e.g. "80m=3.5-3.8MHz"`))
+				continue
+			}
+			b, err := ParseBand(bs)
+			if err != nil {
+				top.fail("bands", fmt.Sprintf("bands[%d]", i+1), err)
+				continue
+			}
+			c.Bands = append(c.Bands, b)
+		}
+	}
 	tables := func(key string) []map[string]any {
 		v, present := doc[key]
 		if !present {

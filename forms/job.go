@@ -26,6 +26,9 @@ type Job struct {
 	Date  time.Time // date to print; zero means the day the sheets are made
 	Notes string
 	Coils []JobCoil
+	// Circuits are circuit files as written (relative to the job file):
+	// each gets a page on the build sheet.
+	Circuits []string
 
 	lines map[string]int // top-level key -> line
 }
@@ -145,7 +148,7 @@ type CapRange struct{ Min, Max unit.Capacitance }
 
 // Keys a job file takes, in the order a reader meets them.
 var (
-	jobTopKeys  = []string{"title", "paper", "units", "stock", "use", "date", "notes", "coil"}
+	jobTopKeys  = []string{"title", "paper", "units", "stock", "use", "date", "notes", "circuit", "coil"}
 	jobCoilKeys = []string{
 		"name", "quantity", "notes",
 		"mandrel", "former", "wire", "insulation", "conductor", "springback",
@@ -181,6 +184,7 @@ const (
 //	use   = "both"                      # builtin, mine or both
 //	date  = 2026-03-14                  # printed on the cover; default today
 //	notes = "..."
+//	circuit = "circuits/filter.toml"    # or a list: a circuit page each
 //
 //	[[coil]]                            # a fixed winding: predict's flags
 //	name = "L1"                         # required, unique
@@ -292,6 +296,22 @@ func (l *jobLoader) load(doc map[string]any) *Job {
 		job.Notes = s
 	}
 
+	switch v := doc["circuit"].(type) {
+	case nil:
+	case string:
+		job.Circuits = []string{strings.TrimSpace(v)}
+	case []any:
+		for _, x := range v {
+			s, ok := x.(string)
+			if !ok {
+				top.fail("circuit", "circuit", errors.New(`write the circuit files in quotes, e.g. circuit = ["filter.toml"]`))
+				break
+			}
+			job.Circuits = append(job.Circuits, strings.TrimSpace(s))
+		}
+	default:
+		top.fail("circuit", "circuit", errors.New(`write circuit = "filter.toml" (a circuit file, relative to the job file) or a list of them`))
+	}
 	v, present := doc["coil"]
 	if !present {
 		top.fail("", "", errors.New("no coils: add a [[coil]] section with at least a name"))

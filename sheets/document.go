@@ -22,6 +22,10 @@ type Document struct {
 	Allowance float64
 
 	Coils []Coil
+
+	// Circuits are the networks the coils go into: a page each, after
+	// the coils (sheets/circuitpage.go).
+	Circuits []Circuit
 }
 
 // DefaultAllowance is added to the batch's wire total: one coil in ten

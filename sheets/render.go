@@ -60,6 +60,9 @@ func (s *sheet) draw() {
 			s.spanPage(c)
 		}
 	}
+	for i := range s.doc.Circuits {
+		s.circuitPage(&s.doc.Circuits[i], i)
+	}
 	s.pages = starts
 }
 

@@ -47,6 +47,7 @@ Every command prints a table, or JSON with --json (SI units: H, F, Hz, m, Ω).
 		newSheetCmd(g),
 		newTrimCmd(g),
 		newDesignCmd(g),
+		newCircuitCmd(g),
 	)
 	return root
 }

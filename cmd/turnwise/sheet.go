@@ -157,6 +157,10 @@ func runSheet(_ context.Context, opts *sheetOptions, stdout, stderr io.Writer) e
 	if charts > 0 {
 		what += fmt.Sprintf(", %d tuning %s", charts, sheetPlural(charts, "chart", "charts"))
 	}
+	if n := len(doc.Circuits); n > 0 {
+		pages += n
+		what += fmt.Sprintf(", %d circuit %s", n, sheetPlural(n, "page", "pages"))
+	}
 	name := opts.output
 	if name == "-" {
 		name = "standard output"
@@ -226,6 +230,13 @@ func sheetDocument(opts *sheetOptions) (sheets.Document, []string, error) {
 			}
 			doc.Coils = append(doc.Coils, c)
 			warnings = append(warnings, w...)
+		}
+		for _, path := range job.Circuits {
+			c, err := jobCircuitPage(job, path, opts.stock, opts.stockGiven)
+			if err != nil {
+				return doc, nil, err
+			}
+			doc.Circuits = append(doc.Circuits, *c)
 		}
 	}
 	doc.Paper, doc.Units = cmp.Or(doc.Paper, "A4"), cmp.Or(doc.Units, "mm")

@@ -245,7 +245,19 @@ func (s *Solver) eigen(f float64, short int, w02 float64) ([]Mode, error) {
 	}
 	var chB mat.Cholesky
 	if !chB.Factorize(bm) {
-		return nil, ErrSingular
+		// A part of the network that floats once the resistors and port
+		// terminations are gone (a trap between two ports): a tiny
+		// capacitance to ground from every node gives its common mode a
+		// zero frequency, which is dropped below, and moves the others by
+		// about 1e-12 relative.
+		eps := 1e-12 * trC / float64(m)
+		for r := 0; r < m; r++ {
+			bm.SetSym(r, r, bm.At(r, r)+eps)
+			cm.SetSym(r, r, cm.At(r, r)+eps)
+		}
+		if !chB.Factorize(bm) {
+			return nil, ErrSingular
+		}
 	}
 	var lt mat.TriDense
 	chB.LTo(&lt)

@@ -1,0 +1,272 @@
+package main
+
+import (
+	"context"
+	"fmt"
+	"io"
+	"math"
+	"math/cmplx"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"turnwise/coil/circuit"
+	"turnwise/forms"
+	"turnwise/forms/touchstone"
+	"turnwise/sheets"
+)
+
+// circuitOptions holds everything `turnwise circuit` needs; no cobra types.
+type circuitOptions struct {
+	file       string
+	stock      *stockOptions
+	stockGiven bool
+	from, to   frequencyFlag
+	points     int
+	log        bool
+	logSet     bool
+	bands      []string
+	bandsFile  string
+	at         []string
+	lo, ifreq  frequencyFlag
+	signal     frequencyFlag
+	spiceAt    frequencyFlag
+	json       bool
+	plot       string
+	touchstone string
+	spice      string
+}
+
+func newCircuitCmd(g *globalOptions) *cobra.Command {
+	opts := &circuitOptions{stock: newStockOptions()}
+	cmd := &cobra.Command{
+		Use:   "circuit FILE",
+		Short: "Compute what a network of coils, capacitors and resistors does",
+		Long: strings.TrimSpace(`
+Put the coils in the circuit they serve and compute what it does. FILE is a
+circuit file (TOML; see the README): coils with predict's winding keys or a
+job file's coil, capacitors, inductors and resistors by value, couplings and
+one or two ports.
+
+Each wound coil enters with its own model at every frequency (L and loss
+with the skin and proximity effects, self-capacitance). Resonances are found
+exactly: the natural frequencies of the lossless network, then refined with
+the losses to the |Z| maximum (parallel) or minimum (series) at port 1, each
+with its Q and impedance. The sweep runs from half the lowest to twice the
+highest resonance unless --from and --to say otherwise.
+
+--band names the bands the network serves: for each, the resonance that
+serves it, and a warning for every other resonance inside or within 10 % of
+it (a coil's own self-resonance, for example), naming the part. --at gives
+the rejection below the passband peak; --lo and --if list the image and the
+other mixer products up to third order with their rejection below the wanted
+signal. One port: the response is |Z| at port 1. Two ports: |S21| and |S11|
+and the -3 dB passband.
+
+Caution: tank and trap coils in a transmitter carry high RF voltage; keep
+to your licence and local regulations.
+` + exitStatusHelp),
+		Example: exampleText(`
+  turnwise circuit testdata/circuits/frontend.toml --band 80m=3.5-3.8MHz --band 2m=144-146MHz --plot frontend.svg
+  turnwise circuit testdata/circuits/converter.toml --lo 116MHz --if 29MHz --json
+  turnwise circuit testdata/circuits/trap.toml --at 7.1MHz --touchstone trap.s2p --spice trap.cir`),
+		Args: func(_ *cobra.Command, args []string) error {
+			if len(args) != 1 {
+				return usageErrorf("give one circuit file, e.g. turnwise circuit testdata/circuits/frontend.toml")
+			}
+			return nil
+		},
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.file = args[0]
+			opts.logSet = cmd.Flags().Changed("log")
+			opts.stockGiven = cmd.Flags().Changed("stock") || cmd.Flags().Changed("use")
+			return runCircuit(cmd.Context(), opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
+		},
+	}
+	fs := cmd.Flags()
+	opts.stock.addFlags(fs)
+	fs.Var(&opts.from, "from", "sweep start (default half the lowest resonance)")
+	fs.Var(&opts.to, "to", "sweep end (default twice the highest resonance)")
+	fs.IntVar(&opts.points, "points", 401, "sweep points")
+	fs.BoolVar(&opts.log, "log", false, "space the sweep points logarithmically (default when the range spans more than a decade)")
+	fs.StringArrayVar(&opts.bands, "band", nil, "a band the network serves, NAME=LOW-HIGH, e.g. 2m=144-146MHz (repeat for more)")
+	fs.StringVar(&opts.bandsFile, "bands", "", "a file of bands, one per line: NAME LOW-HIGH")
+	fs.StringArrayVar(&opts.at, "at", nil, "a frequency to report impedance, |S21| and rejection at (repeat for more)")
+	fs.Var(&opts.lo, "lo", "mixer oscillator frequency, with --if: list the image and other mixer products")
+	fs.Var(&opts.ifreq, "if", "mixer output (intermediate) frequency, with --lo")
+	fs.Var(&opts.signal, "signal", "the wanted input with --lo/--if: LO+IF or |LO-IF| (default: whichever the network passes better)")
+	fs.Var(&opts.spiceAt, "spice-at", "frequency the coils' equivalents are taken at in --spice (default the centre of the sweep, geometric)")
+	fs.BoolVar(&opts.json, "json", false, "print JSON (SI units) instead of a table")
+	fs.StringVar(&opts.plot, "plot", "", "draw the response to FILE.svg or FILE.png")
+	fs.StringVar(&opts.touchstone, "touchstone", "", "write the response as Touchstone 1.1: FILE.s1p (one port) or FILE.s2p (two)")
+	fs.StringVar(&opts.spice, "spice", "", "write a SPICE netlist of the circuit (ngspice) to FILE.cir")
+	return cmd
+}
+
+// settings parses the flags into circuitSettings.
+func (o *circuitOptions) settings() (circuitSettings, error) {
+	set := circuitSettings{From: float64(o.from.v), To: float64(o.to.v), Points: o.points,
+		LO: float64(o.lo.v), IF: float64(o.ifreq.v), Signal: float64(o.signal.v)}
+	if o.points < 2 || o.points > 1_000_000 {
+		return set, usageErrorf("--points %d: give 2 to 1000000 points", o.points)
+	}
+	if o.from.set && o.to.set && !(o.to.v > o.from.v) {
+		return set, usageErrorf("--from %s is not below --to %s; give the sweep low to high", o.from.raw, o.to.raw)
+	}
+	if o.logSet {
+		v := o.log
+		set.Log = &v
+	}
+	for _, b := range o.bands {
+		fb, err := forms.ParseBand(b)
+		if err != nil {
+			return set, &flagError{Flag: "band", Err: err}
+		}
+		set.Bands = append(set.Bands, circuit.Band{Name: fb.Name, Low: float64(fb.Low), High: float64(fb.High)})
+	}
+	if o.bandsFile != "" {
+		f, err := os.Open(o.bandsFile)
+		if err != nil {
+			return set, usageErrorf("--bands: %q cannot be read; check the path", o.bandsFile)
+		}
+		defer f.Close()
+		list, err := forms.LoadBands(f, o.bandsFile)
+		if err != nil {
+			return set, err
+		}
+		for _, b := range list {
+			set.Bands = append(set.Bands, circuit.Band{Name: b.Name, Low: float64(b.Low), High: float64(b.High)})
+		}
+	}
+	for _, a := range o.at {
+		var f frequencyFlag
+		if err := f.Set(a); err != nil {
+			return set, &flagError{Flag: "at", Err: err}
+		}
+		if !(f.v > 0) {
+			return set, usageErrorf("--at %s: give a positive frequency", a)
+		}
+		set.At = append(set.At, float64(f.v))
+	}
+	if o.lo.set != o.ifreq.set {
+		return set, usageErrorf("--lo and --if go together: give both, e.g. --lo 116MHz --if 29MHz")
+	}
+	if o.signal.set && !o.lo.set {
+		return set, usageErrorf("--signal needs --lo and --if")
+	}
+	for flag, path := range map[string]string{"plot": o.plot, "touchstone": o.touchstone, "spice": o.spice} {
+		if path == "" {
+			continue
+		}
+		ext := strings.ToLower(filepath.Ext(path))
+		ok := map[string][]string{"plot": {".svg", ".png"}, "touchstone": {".s1p", ".s2p"}, "spice": {".cir", ".sp", ".net"}}[flag]
+		good := false
+		for _, e := range ok {
+			good = good || ext == e
+		}
+		if !good {
+			return set, usageErrorf("--%s %s: the file name must end in %s", flag, path, strings.Join(ok, " or "))
+		}
+	}
+	return set, nil
+}
+
+func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Writer) error {
+	set, err := opts.settings()
+	if err != nil {
+		return err
+	}
+	c, err := loadCircuitFile(opts.file)
+	if err != nil {
+		return err
+	}
+	cat, err := opts.stock.load()
+	if err != nil {
+		return err
+	}
+	m, err := buildCircuit(c, cat, opts.stock, opts.stockGiven)
+	if err != nil {
+		return err
+	}
+	if opts.touchstone != "" {
+		want := fmt.Sprintf(".s%dp", len(m.Net.Ports))
+		if strings.ToLower(filepath.Ext(opts.touchstone)) != want {
+			return usageErrorf("--touchstone %s: this circuit has %d port(s); name the file %s", opts.touchstone, len(m.Net.Ports), want)
+		}
+	}
+	if len(set.Bands) == 0 {
+		set.Bands = fileBands(c)
+	}
+	r, err := analyzeCircuit(m, set)
+	if err != nil {
+		return err
+	}
+	// Files first, so an unwritable path fails before anything is printed.
+	if opts.plot != "" {
+		format := strings.TrimPrefix(strings.ToLower(filepath.Ext(opts.plot)), ".")
+		if err := writeFileAtomic(opts.plot, 0o644, stdout, func(w io.Writer) error {
+			return sheets.PlotCircuit(w, r.sheetCircuit(), format, 160, 100)
+		}); err != nil {
+			return withFlag("plot", err)
+		}
+	}
+	if opts.touchstone != "" {
+		if err := writeFileAtomic(opts.touchstone, 0o644, stdout, func(w io.Writer) error {
+			return writeCircuitTouchstone(w, m, r)
+		}); err != nil {
+			return withFlag("touchstone", err)
+		}
+	}
+	if opts.spice != "" {
+		at := math.Sqrt(r.Freqs[0] * r.Freqs[len(r.Freqs)-1])
+		if opts.spiceAt.set {
+			at = float64(opts.spiceAt.v)
+		}
+		s, err := circuit.NewSolver(m.Net)
+		if err != nil {
+			return m.fileError(err)
+		}
+		if err := writeFileAtomic(opts.spice, 0o644, stdout, func(w io.Writer) error {
+			return s.WriteSpice(w, circuit.SpiceOptions{Title: "* " + titleOr(r), At: at,
+				From: r.Freqs[0], To: r.Freqs[len(r.Freqs)-1], Points: len(r.Freqs), Log: r.Log})
+		}); err != nil {
+			return withFlag("spice", err)
+		}
+	}
+	if opts.json {
+		return writeCircuitJSON(stdout, r)
+	}
+	return writeCircuitTable(stdout, r)
+}
+
+func titleOr(r *circuitResult) string {
+	if r.Title != "" {
+		return r.Title
+	}
+	return filepath.Base(r.File)
+}
+
+// withFlag names the flag an output error came from.
+func withFlag(flag string, err error) error {
+	if ue, ok := err.(*usageError); ok {
+		return usageErrorf("--%s: %s", flag, ue.Msg)
+	}
+	return fmt.Errorf("--%s: %w", flag, err)
+}
+
+// writeCircuitTouchstone writes the sweep's S parameters.
+func writeCircuitTouchstone(w io.Writer, m *circuitModel, r *circuitResult) error {
+	d := touchstone.Data{Ports: r.Ports, Param: touchstone.S, Z0: m.Net.Ports[0].Z0}
+	for _, resp := range r.Sweep {
+		d.Points = append(d.Points, touchstone.Point{Frequency: resp.Frequency, M: resp.S})
+	}
+	if r.Ports == 2 && m.Net.Ports[1].Z0 != m.Net.Ports[0].Z0 {
+		return usageErrorf("the two ports have different reference impedances; Touchstone 1.1 has one")
+	}
+	return touchstone.Write(w, d, []string{"turnwise circuit: " + titleOr(r), "computed response, not a measurement"})
+}
+
+// cabs is |z| with no NaN.
+func cabs(z complex128) float64 { return cmplx.Abs(z) }
