@@ -195,12 +195,16 @@ var tempcoClassRE = regexp.MustCompile(`^(?i)([NP])(\d{1,4})$`)
 
 // ParseTempco reads a capacitor's temperature coefficient: an EIA class-1
 // code ("NP0", "C0G", "N750", "P100") or a value ("-750ppm/K",
-// "+30ppm/C"). It returns the fractional change per kelvin.
+// "+30ppm/C"), or "air" for an air-dielectric variable (+50 ppm/K, a
+// typical value from memory; coil/thermal.AirVariable holds it with its
+// tolerance). It returns the fractional change per kelvin.
 func ParseTempco(s string) (float64, error) {
 	t := strings.TrimSpace(s)
 	switch strings.ToUpper(t) {
 	case "NP0", "NPO", "C0G", "COG":
 		return 0, nil
+	case "AIR":
+		return 50e-6, nil // typical air variable, from memory
 	}
 	if m := tempcoClassRE.FindStringSubmatch(t); m != nil {
 		v, _ := strconv.ParseFloat(m[2], 64)

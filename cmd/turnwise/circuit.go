@@ -37,6 +37,7 @@ type circuitOptions struct {
 	plot       string
 	touchstone string
 	spice      string
+	thermal    circuitThermalOptions
 }
 
 func newCircuitCmd(g *globalOptions) *cobra.Command {
@@ -102,6 +103,7 @@ to your licence and local regulations.
 	fs.StringVar(&opts.plot, "plot", "", "draw the response to FILE.svg or FILE.png")
 	fs.StringVar(&opts.touchstone, "touchstone", "", "write the response as Touchstone 1.1: FILE.s1p (one port) or FILE.s2p (two)")
 	fs.StringVar(&opts.spice, "spice", "", "write a SPICE netlist of the circuit (ngspice) to FILE.cir")
+	opts.thermal.addFlags(cmd)
 	return cmd
 }
 
@@ -201,6 +203,9 @@ func runCircuit(_ context.Context, opts *circuitOptions, stdout, stderr io.Write
 	}
 	r, err := analyzeCircuit(m, set)
 	if err != nil {
+		return err
+	}
+	if err := addCircuitThermal(&opts.thermal, cat, m, r); err != nil {
 		return err
 	}
 	// Files first, so an unwritable path fails before anything is printed.

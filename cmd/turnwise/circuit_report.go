@@ -8,6 +8,7 @@ import (
 	"text/tabwriter"
 
 	"turnwise/internal/quantity"
+	"turnwise/internal/report"
 )
 
 // The table and JSON writers for `turnwise circuit`.
@@ -38,6 +39,10 @@ type circuitResonanceJSON struct {
 	Natural   float64 `json:"natural"`
 	Part      string  `json:"part"`
 	Distinct  bool    `json:"distinct"`
+	// Temperature (internal/report): drift per kelvin, and the split
+	// --compensate proposes.
+	Drift        *report.DriftRecord        `json:"drift,omitempty"`
+	Compensation *report.CompensationRecord `json:"compensation,omitempty"`
 }
 
 type circuitSweepJSON struct {
@@ -103,10 +108,11 @@ func writeCircuitJSON(w io.Writer, r *circuitResult) error {
 	out := circuitJSON{Title: r.Title, File: r.File, Ports: r.Ports, Reference: r.PeakFreq, Wanted: r.Wanted,
 		Resonances: []circuitResonanceJSON{}, Sweep: []circuitSweepJSON{}, Bands: []circuitBandJSON{}, SelfRes: []circuitSelfResJSON{},
 		Rejection: []circuitRejectionJSON{}, Products: []circuitProductJSON{}, Warnings: []string{}}
-	for _, res := range r.Resonances {
+	for j, res := range r.Resonances {
+		dr, comp := report.CircuitResonanceThermal(r.Thermal, j)
 		out.Resonances = append(out.Resonances, circuitResonanceJSON{Frequency: res.Frequency, Kind: res.Kind.String(), Q: res.Q,
 			Impedance: cmplx.Abs(res.Impedance), ZRe: real(res.Impedance), ZIm: imag(res.Impedance),
-			Natural: res.Natural, Part: res.Part, Distinct: res.Distinct})
+			Natural: res.Natural, Part: res.Part, Distinct: res.Distinct, Drift: dr, Compensation: comp})
 	}
 	for _, resp := range r.Sweep {
 		p := circuitSweepJSON{Frequency: resp.Frequency, ZRe: real(resp.Zin), ZIm: imag(resp.Zin)}
@@ -165,6 +171,13 @@ func writeCircuitTable(w io.Writer, r *circuitResult) error {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", hzs(res.Frequency), res.Kind, q, fz(cmplx.Abs(res.Impedance)), res.Part)
 	}
 	tw.Flush()
+	freqs := make([]float64, len(r.Resonances))
+	for j, res := range r.Resonances {
+		freqs[j] = res.Frequency
+	}
+	if err := report.WriteCircuitDrift(w, r.Thermal, freqs); err != nil {
+		return err
+	}
 	if len(r.Self) > 0 {
 		fmt.Fprintln(w)
 		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)

@@ -45,6 +45,7 @@ type circuitResult struct {
 	Wanted     float64
 	Products   []productRow
 	Passband   *circuit.Passband
+	Thermal    *spec.CircuitDrift // the resonances' temperature drift; nil when not computed
 	Warnings   []string
 }
 

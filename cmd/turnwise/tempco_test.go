@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"math"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -144,4 +145,61 @@ func TestSpanDrift(t *testing.T) {
 	checkRefusal(t, append(base, "--drift-at", "150"), 2, "drift-at")
 	checkRefusal(t, append(base, "--gang-tempco", "wood"), 2, "gang-tempco")
 	checkRefusal(t, append(base, "--temp-range", "10-40"), 2, "temp-range")
+}
+
+// circuit gives each resonance its drift and, with --compensate, a split
+// of the fixed capacitor into standard classes and E12 values (IEC 60063)
+// whose residual drift is within its uncertainty; the demo tank's coil is
+// on PVC (materials.csv), its capacitor C0G (IEC 60384-8, from memory).
+func TestCircuitDrift(t *testing.T) {
+	t.Parallel()
+	file := filepath.Join("..", "..", "testdata", "circuits", "vfo-tank.toml")
+	out, errOut, code := runCLI(t, "circuit", file, "--temp-range", "15C-35C", "--compensate", "--json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var doc struct {
+		Resonances []struct {
+			Frequency float64 `json:"frequency"`
+			Drift     *struct {
+				Frequency float64 `json:"frequency"` // the lossless natural frequency
+				HzPerK    float64 `json:"hz_per_k"`
+				PPMPerK   float64 `json:"ppm_per_k"`
+				Shift     *struct {
+					Hz float64 `json:"hz"`
+				} `json:"shift"`
+			} `json:"drift"`
+			Compensation *struct {
+				Replaces string `json:"replaces"`
+				Parts    []struct {
+					Value  float64
+					Tempco string
+				} `json:"parts"`
+				ResidualPPMPerK    float64 `json:"residual_ppm_per_k"`
+				UncertaintyPPMPerK float64 `json:"uncertainty_ppm_per_k"`
+			} `json:"compensation"`
+		} `json:"resonances"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil || len(doc.Resonances) == 0 {
+		t.Fatalf("%v: %s", err, out)
+	}
+	r := doc.Resonances[0]
+	if r.Drift == nil || !(r.Drift.PPMPerK < -20) || math.Abs(r.Drift.HzPerK-r.Drift.PPMPerK*1e-6*r.Drift.Frequency) > 1e-9*math.Abs(r.Drift.HzPerK) || math.Abs(r.Drift.Frequency/r.Frequency-1) > 0.01 {
+		t.Fatalf("drift %+v: want below -20 ppm/K with hz_per_k = ppm_per_k·f", r.Drift)
+	}
+	if r.Drift.Shift == nil || math.Abs(r.Drift.Shift.Hz-20*r.Drift.HzPerK) > 0.02*math.Abs(20*r.Drift.HzPerK) {
+		t.Errorf("shift %+v, want about 20 K × %.4g Hz/K", r.Drift.Shift, r.Drift.HzPerK)
+	}
+	c := r.Compensation
+	if c == nil || c.Replaces != "Cfix" || len(c.Parts) == 0 {
+		t.Fatalf("compensation %+v: want a split of Cfix", c)
+	}
+	if math.Abs(c.ResidualPPMPerK) > 5 || math.Abs(c.ResidualPPMPerK) > c.UncertaintyPPMPerK {
+		t.Errorf("residual %.3g ± %.3g ppm/K: want under 5 and within the uncertainty", c.ResidualPPMPerK, c.UncertaintyPPMPerK)
+	}
+	tbl, errOut, code := runCLI(t, "circuit", file, "--compensate")
+	if code != 0 || !strings.Contains(tbl, "TEMPERATURE DRIFT") || !strings.Contains(tbl, "COMPENSATION of Cfix") {
+		t.Errorf("exit %d %s: table without drift or compensation:\n%s", code, errOut, tbl)
+	}
+	checkRefusal(t, []string{"circuit", file, "--temp-range", "hot"}, 2, "temp-range")
 }

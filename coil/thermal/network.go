@@ -100,6 +100,12 @@ func NetworkDrift(net *circuit.Network, coefs []PartCoefficient, fMax float64) (
 	if err != nil {
 		return nil, err
 	}
+	return ResonancesDrift(net, coefs, rs)
+}
+
+// ResonancesDrift is NetworkDrift for resonances already found (by
+// Solver.Resonances on the same network), in their order.
+func ResonancesDrift(net *circuit.Network, coefs []PartCoefficient, rs []circuit.Resonance) ([]ResonanceDrift, error) {
 	perK := func(r circuit.Resonance, part int, extra float64) (float64, error) {
 		lo, err := naturalAt(at(net, coefs, -Step, part, extra), r)
 		if err != nil {

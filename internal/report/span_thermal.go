@@ -12,11 +12,12 @@ import (
 	"turnwise/internal/spec"
 )
 
-// driftRecord is one resonance's drift in JSON: hz_per_k and ppm_per_k
+// DriftRecord is one resonance's drift in JSON (span's points, circuit's
+// resonances): hz_per_k and ppm_per_k
 // (the JSON's one ppm field, named so), its uncertainty (root sum square
 // of the parts' class tolerances) in ppm/K, and with a temperature range
 // the shift from its low end to its high end.
-type driftRecord struct {
+type DriftRecord struct {
 	Frequency          float64      `json:"frequency"`
 	HzPerK             float64      `json:"hz_per_k"`
 	PPMPerK            float64      `json:"ppm_per_k"`
@@ -36,8 +37,10 @@ type shiftRecord struct {
 	UncertaintyHz   float64 `json:"uncertainty_hz"`
 }
 
-func newDriftRecord(d thermal.Drift, sh *thermal.Shift) driftRecord {
-	r := driftRecord{Frequency: d.Frequency, HzPerK: d.HzPerK, PPMPerK: d.PerK * 1e6,
+// NewDriftRecord is the record of d, with its shift over a range when sh
+// is not nil.
+func NewDriftRecord(d thermal.Drift, sh *thermal.Shift) DriftRecord {
+	r := DriftRecord{Frequency: d.Frequency, HzPerK: d.HzPerK, PPMPerK: d.PerK * 1e6,
 		UncertaintyPPMPerK: d.Uncertainty * 1e6, WorstCasePPMPerK: d.WorstCase * 1e6}
 	if sh != nil {
 		r.Shift = &shiftRecord{sh.Low, sh.High, sh.FLow, sh.FHigh, sh.Hz, sh.Relative, sh.Uncertainty}
@@ -56,8 +59,8 @@ type spanDriftRecord struct {
 
 type spanDriftPoint struct {
 	Setting float64      `json:"setting"`
-	Low     driftRecord  `json:"low"`
-	High    *driftRecord `json:"high,omitempty"`
+	Low     DriftRecord  `json:"low"`
+	High    *DriftRecord `json:"high,omitempty"`
 }
 
 func newSpanDriftRecord(d *spec.SpanDrift) *spanDriftRecord {
@@ -68,9 +71,9 @@ func newSpanDriftRecord(d *spec.SpanDrift) *spanDriftRecord {
 	r := &spanDriftRecord{GangTempco: g.Code, GangTempcoPerK: g.Nominal, GangTolerancePerK: g.Tolerance,
 		PitchFollows: d.PitchRule, Points: []spanDriftPoint{}}
 	for _, p := range d.Points {
-		pt := spanDriftPoint{Setting: p.Setting, Low: newDriftRecord(p.Low, p.LowShift)}
+		pt := spanDriftPoint{Setting: p.Setting, Low: NewDriftRecord(p.Low, p.LowShift)}
 		if p.High.Frequency > 0 {
-			h := newDriftRecord(p.High, p.HighShift)
+			h := NewDriftRecord(p.High, p.HighShift)
 			pt.High = &h
 		}
 		r.Points = append(r.Points, pt)
