@@ -423,3 +423,13 @@ func (l *jobLoader) circuitStructure(c *Circuit) {
 		}
 	}
 }
+
+// eiaCode is the shape of an EIA-198 class 1 code (U2J, S2H …), which
+// coil/thermal reads with its tolerance.
+var eiaCode = regexp.MustCompile(`^(?i)[A-Z][0-9][A-Z]$`)
+
+// The workshop's temperature range when a job file gives none.
+const (
+	DefaultTempLow  = 288.15 // 15 °C
+	DefaultTempHigh = 308.15 // 35 °C
+)
