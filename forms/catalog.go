@@ -29,12 +29,14 @@ type Wire struct {
 }
 
 // Mandrel is a rod the coil is wound on and then slid off, so it springs open.
+// The coil it leaves is self-supporting: its Material is MaterialNone.
 type Mandrel struct {
 	Name     string
 	Diameter unit.Length
 	Kind     string // "metric drill", "inch drill", "user", ...
 	Source   string
 	Origin   string
+	Material string // MaterialNone: the coil comes off it
 }
 
 // Former is a tube the coil is wound on and left on.
@@ -44,6 +46,31 @@ type Former struct {
 	Kind     string      // "PVC sch 40", "PVC EN 1452", "user"
 	Source   string
 	Origin   string
+
+	// Material is a row of the materials table ("rigid pvc"), or "user"
+	// when a stock file gives the coefficient alone. Expansion is its
+	// linear expansion coefficient per kelvin, ExpansionLow and
+	// ExpansionHigh the class's spread, and ExpansionSource where they
+	// come from. A coil wound tight on the former follows it.
+	Material        string
+	Expansion       float64
+	ExpansionLow    float64
+	ExpansionHigh   float64
+	ExpansionSource string
+}
+
+// MaterialNone is the material of a self-supporting coil (wound on a
+// mandrel and slid off): it follows the wire's own expansion.
+const MaterialNone = "none"
+
+// Material is one row of the materials table: a linear expansion
+// coefficient per kelvin near room temperature, with its class spread.
+type Material struct {
+	Name      string
+	Expansion float64 // per kelvin: 70e-6 for 70 ppm/K
+	Low, High float64 // the class's spread, per kelvin
+	Source    string
+	Origin    string
 }
 
 // Calibration is a measured springback for one mandrel (or former) and wire.
@@ -62,6 +89,7 @@ type Catalog struct {
 	Mandrels     []Mandrel
 	Formers      []Former
 	Calibrations []Calibration
+	Materials    []Material
 }
 
 // conductors are the Conductor values, with the spellings accepted for each.
@@ -92,6 +120,7 @@ func (c *Catalog) clone() *Catalog {
 		Mandrels:     slices.Clone(c.Mandrels),
 		Formers:      slices.Clone(c.Formers),
 		Calibrations: slices.Clone(c.Calibrations),
+		Materials:    slices.Clone(c.Materials),
 	}
 }
 
@@ -105,6 +134,7 @@ func Merge(cs ...*Catalog) *Catalog {
 	wires := map[string]int{}
 	mandrels := map[string]int{}
 	formers := map[string]int{}
+	materials := map[string]int{}
 	for _, c := range cs {
 		if c == nil {
 			continue
@@ -117,6 +147,9 @@ func Merge(cs ...*Catalog) *Catalog {
 		}
 		for _, f := range c.Formers {
 			out.Formers = mergeRow(out.Formers, formers, f.Name, f)
+		}
+		for _, m := range c.Materials {
+			out.Materials = mergeRow(out.Materials, materials, m.Name, m)
 		}
 		out.Calibrations = append(out.Calibrations, c.Calibrations...)
 	}

@@ -40,7 +40,7 @@ func TestBuiltInRows(t *testing.T) {
 		{name: "inch drills 1/16-3/4 by 1/64", got: count("inch drill"), want: 45},
 		{name: "AWG 0000-40", got: systems["awg"], want: 44},
 		{name: "SWG 7/0-50", got: systems["swg"], want: 57},
-		{name: "formers", got: len(c.Formers), want: 15 + 15},
+		{name: "formers", got: len(c.Formers), want: 15 + 15 + 8}, // sch 40, EN 1452, rod and tube of other materials
 	}
 	for _, tc := range counts {
 		if tc.got != tc.want {

@@ -195,12 +195,16 @@ var tempcoClassRE = regexp.MustCompile(`^(?i)([NP])(\d{1,4})$`)
 
 // ParseTempco reads a capacitor's temperature coefficient: an EIA class-1
 // code ("NP0", "C0G", "N750", "P100") or a value ("-750ppm/K",
-// "+30ppm/C"). It returns the fractional change per kelvin.
+// "+30ppm/C"), or "air" for an air-dielectric variable (+50 ppm/K, a
+// typical value from memory; coil/thermal.AirVariable holds it with its
+// tolerance). It returns the fractional change per kelvin.
 func ParseTempco(s string) (float64, error) {
 	t := strings.TrimSpace(s)
 	switch strings.ToUpper(t) {
 	case "NP0", "NPO", "C0G", "COG":
 		return 0, nil
+	case "AIR":
+		return 50e-6, nil // typical air variable, from memory
 	}
 	if m := tempcoClassRE.FindStringSubmatch(t); m != nil {
 		v, _ := strconv.ParseFloat(m[2], 64)
@@ -419,3 +423,13 @@ func (l *jobLoader) circuitStructure(c *Circuit) {
 		}
 	}
 }
+
+// eiaCode is the shape of an EIA-198 class 1 code (U2J, S2H …), which
+// coil/thermal reads with its tolerance.
+var eiaCode = regexp.MustCompile(`^(?i)[A-Z][0-9][A-Z]$`)
+
+// The workshop's temperature range when a job file gives none.
+const (
+	DefaultTempLow  = 288.15 // 15 °C
+	DefaultTempHigh = 308.15 // 35 °C
+)

@@ -84,7 +84,10 @@ func (d *builtinData) load() error {
 	if d.cat.Mandrels, err = loadMandrels(); err != nil {
 		return err
 	}
-	if d.cat.Formers, err = loadFormers(); err != nil {
+	if d.cat.Materials, err = loadMaterials(); err != nil {
+		return err
+	}
+	if d.cat.Formers, err = loadFormers(d.cat.Materials); err != nil {
 		return err
 	}
 	return nil
@@ -269,14 +272,14 @@ func loadMandrels() ([]Mandrel, error) {
 		if err != nil {
 			return nil, err
 		}
-		out = append(out, Mandrel{Name: r.fields["name"], Diameter: dia, Kind: r.fields["kind"], Source: r.fields["source"], Origin: OriginBuiltIn})
+		out = append(out, Mandrel{Name: r.fields["name"], Diameter: dia, Kind: r.fields["kind"], Source: r.fields["source"], Origin: OriginBuiltIn, Material: MaterialNone})
 	}
 	return out, nil
 }
 
-func loadFormers() ([]Former, error) {
+func loadFormers(materials []Material) ([]Former, error) {
 	const file = "formers.csv"
-	rows, err := readData(file, "name", "diameter", "kind", "source")
+	rows, err := readData(file, "name", "diameter", "kind", "material", "source")
 	if err != nil {
 		return nil, err
 	}
@@ -286,7 +289,76 @@ func loadFormers() ([]Former, error) {
 		if err != nil {
 			return nil, err
 		}
-		out = append(out, Former{Name: r.fields["name"], Diameter: dia, Kind: r.fields["kind"], Source: r.fields["source"], Origin: OriginBuiltIn})
+		f := Former{Name: r.fields["name"], Diameter: dia, Kind: r.fields["kind"], Source: r.fields["source"], Origin: OriginBuiltIn}
+		m, ok := findMaterial(materials, r.fields["material"])
+		if !ok {
+			return nil, r.errorf(file, "material %q is not a row of materials.csv", r.fields["material"])
+		}
+		f.setMaterial(m)
+		out = append(out, f)
 	}
 	return out, nil
+}
+
+// Expansion limits: outside them a coefficient is a typo (per kelvin).
+const (
+	minExpansion = -20e-6
+	maxExpansion = 500e-6
+)
+
+func loadMaterials() ([]Material, error) {
+	const file = "materials.csv"
+	rows, err := readData(file, "name", "expansion", "low", "high", "source")
+	if err != nil {
+		return nil, err
+	}
+	var out []Material
+	for _, r := range rows {
+		m := Material{Name: r.fields["name"], Source: r.fields["source"], Origin: OriginBuiltIn}
+		if nameKey(m.Name) == MaterialNone {
+			return nil, r.errorf(file, "%q is reserved for a self-supporting coil", MaterialNone)
+		}
+		for _, c := range []struct {
+			key string
+			to  *float64
+		}{{"expansion", &m.Expansion}, {"low", &m.Low}, {"high", &m.High}} {
+			v, err := quantity.ParsePerKelvin(r.fields[c.key])
+			if err != nil {
+				return nil, r.errorf(file, "%s: %v", c.key, err)
+			}
+			if v < minExpansion || v > maxExpansion {
+				return nil, r.errorf(file, "%s: %s is outside %s to %s", c.key, quantity.FormatPPMPerK(v, 3),
+					quantity.FormatPPMPerK(minExpansion, 3), quantity.FormatPPMPerK(maxExpansion, 3))
+			}
+			*c.to = v
+		}
+		if !(m.Low <= m.Expansion && m.Expansion <= m.High) {
+			return nil, r.errorf(file, "want low <= expansion <= high")
+		}
+		if _, dup := findMaterial(out, m.Name); dup {
+			return nil, r.errorf(file, "material %q listed twice", m.Name)
+		}
+		out = append(out, m)
+	}
+	if _, ok := findMaterial(out, "copper"); !ok {
+		return nil, fmt.Errorf("forms: built-in data %s: no copper row", file)
+	}
+	return out, nil
+}
+
+// findMaterial finds a material by name, case and spacing ignored.
+func findMaterial(ms []Material, name string) (Material, bool) {
+	k := nameKey(name)
+	for _, m := range ms {
+		if nameKey(m.Name) == k {
+			return m, true
+		}
+	}
+	return Material{}, false
+}
+
+// setMaterial gives f material m's coefficient and source.
+func (f *Former) setMaterial(m Material) {
+	f.Material, f.Expansion, f.ExpansionLow, f.ExpansionHigh = m.Name, m.Expansion, m.Low, m.High
+	f.ExpansionSource = m.Source
 }

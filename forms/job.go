@@ -12,6 +12,8 @@ import (
 
 	"github.com/BurntSushi/toml"
 	"gonum.org/v1/gonum/unit"
+
+	"turnwise/internal/quantity"
 )
 
 // Job is a batch of coils to build, read from a job file (TOML) by LoadJob.
@@ -26,7 +28,11 @@ type Job struct {
 	Use   string    // "builtin", "mine", "both" or "" (both when Stock is set, else builtin)
 	Date  time.Time // date to print; zero means the day the sheets are made
 	Notes string
-	Coils []JobCoil
+	// TempLow and TempHigh are the workshop's temperature range (kelvin)
+	// for the drift of tanks on the sheet: the temp-range key, default
+	// 15 °C … 35 °C (DefaultTempLow, DefaultTempHigh).
+	TempLow, TempHigh unit.Temperature
+	Coils             []JobCoil
 	// Circuits are circuit files as written (relative to the job file):
 	// each gets a page on the build sheet.
 	Circuits []string
@@ -65,7 +71,11 @@ type JobCoil struct {
 	Winding JobWinding
 	Target  *JobTarget // nil for a fixed winding
 	Tap     *JobTap    // nil when untapped
-	Span    *JobSpan   // nil unless a two-gang capacitor tunes it
+	// CapTempco is the cap-tempco key as written: the tank capacitor's
+	// class (C0G, N750, air …) or coefficient, for its drift on the
+	// sheet; "" means C0G.
+	CapTempco string
+	Span      *JobSpan // nil unless a two-gang capacitor tunes it
 
 	keys map[string]jobKey
 }
@@ -156,14 +166,14 @@ type CapRange struct{ Min, Max unit.Capacitance }
 
 // Keys a job file takes, in the order a reader meets them.
 var (
-	jobTopKeys  = []string{"title", "paper", "units", "stock", "use", "date", "notes", "circuit", "coupler", "coil"}
+	jobTopKeys  = []string{"title", "paper", "units", "stock", "use", "date", "notes", "temp-range", "circuit", "coupler", "coil"}
 	jobCoilKeys = []string{
 		"name", "quantity", "notes",
 		"mandrel", "former", "wire", "insulation", "conductor", "springback",
 		"turns", "pitch", "length", "leads", "temp", "freq",
 		"inductance", "cap", "stray", "tolerance", "support",
 		"max-length", "max-diameter", "max-wire-length", "min-srf-ratio", "prefer",
-		"tap", "tap-ratio", "transmit",
+		"tap", "tap-ratio", "transmit", "cap-tempco",
 		"gang", "gang-b", "law", "trim-a", "trim-b", "stray-a", "stray-b", "bands", "steps",
 		"loaded-q", "margin", "choose-tap",
 	}
@@ -302,6 +312,15 @@ func (l *jobLoader) load(doc map[string]any) *Job {
 	job.Date = top.date("date")
 	if s, ok := top.str("notes", false, `"bring flux"`); ok {
 		job.Notes = s
+	}
+	job.TempLow, job.TempHigh = DefaultTempLow, DefaultTempHigh
+	if s, ok := top.str("temp-range", false, `"15C-35C"`); ok {
+		lo, hi, err := quantity.ParseTemperatureRange(s)
+		if err != nil {
+			top.fail("temp-range", "temp-range", err)
+		} else {
+			job.TempLow, job.TempHigh = lo, hi
+		}
 	}
 
 	switch v := doc["circuit"].(type) {

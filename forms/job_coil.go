@@ -57,6 +57,13 @@ func (l *jobLoader) coil(i int, m map[string]any) JobCoil {
 		c.Notes = s
 	}
 	c.Transmit, _ = e.boolean("transmit")
+	if s, ok := e.str("cap-tempco", false, `"N750"`); ok {
+		if _, err := ParseTempco(s); err != nil && !eiaCode.MatchString(strings.TrimSpace(s)) {
+			e.fail("cap-tempco", "cap-tempco", err)
+		} else {
+			c.CapTempco = strings.TrimSpace(s)
+		}
+	}
 	l.winding(e, &c)
 	l.target(e, &c)
 	l.tap(e, &c)

@@ -104,6 +104,16 @@ func (c *Catalog) Mandrel(name string) (Mandrel, error) {
 	return c.Mandrels[i], nil
 }
 
+// Material finds a material of the expansion table by name (case and
+// spacing ignored).
+func (c *Catalog) Material(name string) (Material, error) {
+	if m, ok := findMaterial(c.Materials, name); ok {
+		return m, nil
+	}
+	return Material{}, &LookupError{Kind: "material", Name: name,
+		Suggestions: suggest(name, c.Materials, func(x Material) string { return x.Name })}
+}
+
 // Former finds a former by exact name, by a name whose leading size is
 // written another way, or by outside diameter ("20mm", "0.840in"), as Mandrel.
 func (c *Catalog) Former(name string) (Former, error) {

@@ -73,7 +73,7 @@ const (
 var stockKeys = map[string][]string{
 	"wire":        {"name", "gauge", "bare", "insulation", "conductor", "source"},
 	"mandrel":     {"name", "diameter", "kind", "source"},
-	"former":      {"name", "diameter", "kind", "source"},
+	"former":      {"name", "diameter", "kind", "material", "expansion", "source"},
 	"calibration": {"mandrel", "wire", "springback", "note"},
 }
 
@@ -445,10 +445,60 @@ func (l *stockLoader) holder(e *stockEntry) {
 		return
 	}
 	if e.section == "mandrel" {
-		l.out.Mandrels = append(l.out.Mandrels, Mandrel{Name: name, Diameter: dia, Kind: kind, Source: source, Origin: l.file})
-	} else {
-		l.out.Formers = append(l.out.Formers, Former{Name: name, Diameter: dia, Kind: kind, Source: source, Origin: l.file})
+		l.out.Mandrels = append(l.out.Mandrels, Mandrel{Name: name, Diameter: dia, Kind: kind, Source: source, Origin: l.file, Material: MaterialNone})
+		return
 	}
+	f := Former{Name: name, Diameter: dia, Kind: kind, Source: source, Origin: l.file}
+	if !l.formerMaterial(e, &f) {
+		l.broken["holder:"+nameKey(name)] = true
+		return
+	}
+	l.out.Formers = append(l.out.Formers, f)
+}
+
+// formerMaterial reads a former's optional material (a row of the
+// built-in materials table) and expansion (its own coefficient, which
+// wins over the material's). It reports false after a problem.
+func (l *stockLoader) formerMaterial(e *stockEntry, f *Former) bool {
+	if m, ok := e.str("material", false, `"rigid pvc"`); ok {
+		builtIn, err := BuiltIn()
+		if err != nil {
+			e.fail("", "", err)
+			return false
+		}
+		mat, found := findMaterial(builtIn.Materials, m)
+		if !found {
+			names := make([]string, len(builtIn.Materials))
+			for i, x := range builtIn.Materials {
+				names[i] = x.Name
+			}
+			e.fail("material", "material", fmt.Errorf("%q is not a known material (%s); or give its coefficient, e.g. expansion = \"70ppm/K\"", m, strings.Join(names, ", ")))
+			return false
+		}
+		f.setMaterial(mat)
+	} else if _, present := e.m["material"]; present {
+		return false
+	}
+	if x, ok := e.str("expansion", false, `"70ppm/K"`); ok {
+		v, err := quantity.ParsePerKelvin(x)
+		if err != nil {
+			e.fail("expansion", "expansion", err)
+			return false
+		}
+		if v < minExpansion || v > maxExpansion {
+			e.fail("expansion", "expansion", fmt.Errorf("%s is outside %s to %s; check the sign and the ppm", quantity.FormatPPMPerK(v, 3),
+				quantity.FormatPPMPerK(minExpansion, 3), quantity.FormatPPMPerK(maxExpansion, 3)))
+			return false
+		}
+		if f.Material == "" {
+			f.Material = "user"
+		}
+		f.Expansion, f.ExpansionLow, f.ExpansionHigh = v, v, v
+		f.ExpansionSource = stockSourceText
+	} else if _, present := e.m["expansion"]; present {
+		return false
+	}
+	return e.ok
 }
 
 func (l *stockLoader) calibration(e *stockEntry, all *Catalog) {

@@ -336,6 +336,7 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 		r = append(r, [2]string{"Q at " + hz(f), fmt.Sprintf("%.0f (likely %.0f … %.0f)", p.Q, p.QMin, p.QMax)})
 	}
 	r = append(r, [2]string{"wire to cut", s.u.cut(float64(p.WireLength))})
+	r = append(r, thermalRows(c.Thermal)...)
 	if t := c.Tap; t != nil {
 		v := quantity.FormatTurnsWord(t.Turns) + " from the cold end"
 		r = append(r, [2]string{"tap", v})
@@ -536,4 +537,25 @@ func (s *sheet) cautionBox(x, y, w float64, items []string, hv bool) float64 {
 		yy = s.para(x+6, yy, w-10, it) + 0.4
 	}
 	return y + h
+}
+
+// thermalRows state the coil's temperature coefficient and its tank's
+// drift over the workshop's range, in ppm/K.
+func thermalRows(t *Thermal) [][2]string {
+	if t == nil {
+		return nil
+	}
+	v := quantity.FormatPPMPerK(t.Tempco, 3)
+	if t.Spread > 0 {
+		v += fmt.Sprintf(" ± %.2g", t.Spread*1e6)
+	}
+	r := [][2]string{{"tempco of L", v + " (pitch follows " + t.PitchRule + ")"}}
+	if k := t.Tank; k != nil {
+		r = append(r, [2]string{"tank drift", fmt.Sprintf("with %s %s at %s: %s ± %.2g, %s ± %s from %.3g °C to %.3g °C",
+			quantity.FormatCapacitance(float64(k.Capacitance)), k.Class, hz(float64(k.Frequency)),
+			quantity.FormatPPMPerK(k.PerK, 3), k.Uncertainty*1e6,
+			quantity.FormatEng(k.ShiftHz, "Hz", 3), quantity.FormatEng(k.ShiftUncertainty, "Hz", 2),
+			float64(k.LowTemp)-273.15, float64(k.HighTemp)-273.15)})
+	}
+	return r
 }

@@ -75,6 +75,11 @@ type Coil struct {
 	Tap    *Tap    // nil when untapped
 	Span   *Span   // nil unless a two-gang capacitor tunes it
 
+	// Thermal is the coil's temperature coefficient and, when the job
+	// gives its tank capacitor, the tank's drift; nil hides them (a former
+	// of unknown material).
+	Thermal *Thermal
+
 	// Warnings from the model and the glue, printed in the cautions box.
 	Warnings []string
 	// HighVoltage marks a tank or coupler coil: the cautions box leads
@@ -162,4 +167,27 @@ type Options struct {
 	// Uncompressed writes page content as plain text: larger files, for
 	// tests and for reading the PDF by eye.
 	Uncompressed bool
+}
+
+// Thermal is what the coil page states about temperature.
+type Thermal struct {
+	// Tempco is d ln L/dT of the inductance at the terminals at the
+	// operating frequency (low frequency when none), per kelvin; Spread is
+	// its uncertainty from the former's class spread.
+	Tempco, Spread float64
+	PitchRule      string // what sets the pitch: "former", "wire (self-supporting)" …
+	Tank           *TankDrift
+}
+
+// TankDrift is the drift of the coil's tank with the job's capacitor.
+type TankDrift struct {
+	Capacitance unit.Capacitance
+	Class       string // "C0G", "N750", "air" …
+	Frequency   unit.Frequency
+	PerK        float64 // d ln f/dT per kelvin
+	Uncertainty float64 // per kelvin, root sum square of the classes' tolerances
+	// Over the workshop's range LowTemp … HighTemp (kelvin): the shift
+	// from its low end to its high end, Hz, and that shift's uncertainty.
+	LowTemp, HighTemp         unit.Temperature
+	ShiftHz, ShiftUncertainty float64
 }

@@ -38,6 +38,7 @@ type circuitOptions struct {
 	plot       string
 	touchstone string
 	spice      string
+	thermal    circuitThermalOptions
 }
 
 func newCircuitCmd(g *globalOptions) *cobra.Command {
@@ -103,6 +104,7 @@ to your licence and local regulations.
 	fs.StringVar(&opts.plot, "plot", "", "draw the response to FILE.svg or FILE.png")
 	fs.StringVar(&opts.touchstone, "touchstone", "", "write the response as Touchstone 1.1: FILE.s1p (one port) or FILE.s2p (two)")
 	fs.StringVar(&opts.spice, "spice", "", "write a SPICE netlist of the circuit (ngspice) to FILE.cir")
+	opts.thermal.addFlags(cmd)
 	return cmd
 }
 
@@ -202,6 +204,9 @@ func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Wri
 	}
 	r, err := spec.AnalyzeCircuit(m, set)
 	if err != nil {
+		return err
+	}
+	if err := addCircuitThermal(&opts.thermal, cat, m, r); err != nil {
 		return err
 	}
 	// Files first, so an unwritable path fails before anything is printed.

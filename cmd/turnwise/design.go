@@ -11,6 +11,7 @@ import (
 	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil/design"
+	"turnwise/coil/thermal"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 )
@@ -65,6 +66,7 @@ type designOptions struct {
 	stock         *stockOptions
 	units         *choiceFlag
 	json          bool
+	pitch         *choiceFlag // what the pitch follows with temperature on a former
 }
 
 func newDesignOptions() *designOptions {
@@ -74,6 +76,7 @@ func newDesignOptions() *designOptions {
 		units:   newChoice("mm", "mm", "in"),
 		stock:   newStockOptions(),
 		top:     design.DefaultTop,
+		pitch:   newPitchFollows(),
 	}
 }
 
@@ -105,6 +108,7 @@ func (o *designOptions) addFlags(fs *pflag.FlagSet) {
 	o.stock.addFlags(fs)
 	fs.Var(o.units, "units", "display lengths in mm or in")
 	fs.BoolVar(&o.json, "json", false, "print JSON (SI units) instead of a table")
+	fs.Var(o.pitch, "pitch-follows", pitchFollowsUsage)
 }
 
 func newDesignCmd(g *globalOptions) *cobra.Command {
@@ -190,6 +194,7 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 			return nil, nil, usageErrorf("--%s %s: a limit must be a positive length, e.g. --%s %s (leave the flag out for no limit)", l.name, l.f.raw, l.name, l.eg)
 		}
 	}
+	so.PitchFollows, _ = thermal.ParsePitchFollows(o.pitch.v)
 	switch {
 	case o.top < 1 || o.top > design.MaxTop:
 		return nil, nil, usageErrorf("--top %d: give a number from 1 to %d", o.top, design.MaxTop)

@@ -2,14 +2,14 @@ package main
 
 import (
 	"context"
-	"encoding/json"
 	"io"
 	"strings"
 
 	"github.com/spf13/cobra"
 
-	"turnwise/coil"
+	"turnwise/coil/thermal"
 	"turnwise/internal/report"
+	"turnwise/internal/spec"
 )
 
 // predictOptions holds everything `turnwise predict` needs; no cobra types.
@@ -19,10 +19,11 @@ type predictOptions struct {
 	freq  frequencyFlag
 	units *choiceFlag
 	json  bool
+	pitch *choiceFlag // what the pitch follows with temperature on a former
 }
 
 func newPredictCmd(g *globalOptions) *cobra.Command {
-	opts := &predictOptions{stock: newStockOptions(), units: newChoice("mm", "mm", "in")}
+	opts := &predictOptions{stock: newStockOptions(), units: newChoice("mm", "mm", "in"), pitch: newPitchFollows()}
 	cmd := &cobra.Command{
 		Use:   "predict",
 		Short: "Predict L, self-resonance and Q of a coil you describe",
@@ -51,30 +52,38 @@ uncertainty band.
 	cmd.Flags().Var(&opts.freq, "freq", "operating frequency for L at f, effective L and Q, e.g. 145MHz")
 	cmd.Flags().Var(opts.units, "units", "display lengths in mm or in")
 	cmd.Flags().BoolVar(&opts.json, "json", false, "print JSON (SI units) instead of a table")
+	addPitchFollowsFlag(cmd, opts.pitch)
 	return cmd
 }
 
 func runPredict(_ context.Context, opts *predictOptions, stdout, stderr io.Writer) error {
-	spec, p, err := predictCoil(&opts.coil, opts.stock, opts.freq)
+	cat, err := opts.stock.load()
 	if err != nil {
 		return err
 	}
-	rec := report.NewCoilRecord(spec, p)
-	if dl, err := coil.LengthPerPercent(spec.Geometry, p.Frequency); err == nil {
-		rec.TrimLengthPerPercent = float64(dl)
+	s, p, err := spec.Predict(cat, opts.coil.winding(), opts.freq.v)
+	if err != nil {
+		return err
+	}
+	rec := report.NewPredictRecord(s, p)
+	var tc report.TempcoRecord
+	pf, _ := thermal.ParsePitchFollows(opts.pitch.v)
+	if c, ok, warn := spec.Tempco(cat, s, p.Frequency, pf); ok {
+		tc = report.NewTempcoRecord(c, float64(p.Frequency))
+	} else {
+		rec.Warnings = append(rec.Warnings, warn)
 	}
 	if opts.json {
-		doc := struct {
-			Schema int `json:"schema"`
-			report.CoilRecord
-		}{report.SchemaVersion, rec}
-		enc := json.NewEncoder(stdout)
-		enc.SetIndent("", "  ")
-		if err := enc.Encode(doc); err != nil {
+		if err := report.WritePredictJSON(stdout, rec, tc); err != nil {
 			return err
 		}
-	} else if err := report.WritePredictTable(stdout, spec, p, rec, newLengthFormatter(opts.units.v)); err != nil {
-		return err
+	} else {
+		if err := report.WritePredictTable(stdout, s, p, rec, newLengthFormatter(opts.units.v)); err != nil {
+			return err
+		}
+		if err := report.WriteTempcoTable(stdout, tc); err != nil {
+			return err
+		}
 	}
 	printWarnings(stderr, rec.Warnings)
 	return nil

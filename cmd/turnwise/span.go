@@ -19,8 +19,10 @@ import (
 	"github.com/spf13/cobra"
 
 	"turnwise/coil"
+	"turnwise/coil/thermal"
 	"turnwise/coil/tuning"
 	"turnwise/forms"
+	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 )
@@ -47,10 +49,14 @@ type spanOptions struct {
 	chart     bool
 	units     *choiceFlag
 	json      bool
+	driftAt   string
+	tempRange tempRangeFlag
+	gangTC    string
+	pitch     *choiceFlag
 }
 
 func newSpanCmd(g *globalOptions) *cobra.Command {
-	opts := &spanOptions{stock: newStockOptions(), units: newChoice("mm", "mm", "in")}
+	opts := &spanOptions{stock: newStockOptions(), units: newChoice("mm", "mm", "in"), pitch: newPitchFollows()}
 	cmd := &cobra.Command{
 		Use:   "span",
 		Short: "Both tuning ranges of a tapped coil on a two-gang capacitor",
@@ -118,6 +124,10 @@ local regulations and licensed practice.
 	fs.BoolVar(&opts.chart, "chart", false, "add a text chart of both ranges across the dial")
 	fs.Var(opts.units, "units", "display lengths in mm or in")
 	fs.BoolVar(&opts.json, "json", false, "print JSON (SI units) instead of a table")
+	fs.StringVar(&opts.driftAt, "drift-at", "0,50,100", "dial settings (percent, comma-separated) at which to print both ranges' temperature drift, or none")
+	addTempRangeFlag(cmd, &opts.tempRange)
+	fs.StringVar(&opts.gangTC, "gang-tempco", "air", "the gang's temperature coefficient: air (air-variable, typical), a ceramic class (C0G, N750 …) or a number such as +100ppm/K")
+	addPitchFollowsFlag(cmd, opts.pitch)
 	return cmd
 }
 
@@ -203,6 +213,18 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 	if out.Plan == nil && spanErr != nil {
 		return spanErr
 	}
+	if ds, use, err := opts.driftSettings(); err != nil {
+		return err
+	} else if use {
+		d, warn, err := spec.BuildSpanDrift(cat, cs, set, out, ds)
+		if err != nil {
+			return err
+		}
+		out.Drift = d
+		if warn != "" {
+			out.Span.Warnings = append(out.Span.Warnings, warn)
+		}
+	}
 	if opts.json {
 		if err := report.WriteSpanJSON(stdout, cs, set, out); err != nil {
 			return err
@@ -214,4 +236,27 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 	}
 	printWarnings(stderr, out.Span.Warnings)
 	return spanErr
+}
+
+// driftSettings parses --drift-at, --gang-tempco, --pitch-follows and
+// --temp-range; use is false for --drift-at none.
+func (o *spanOptions) driftSettings() (ds spec.SpanDriftSettings, use bool, err error) {
+	if strings.EqualFold(strings.TrimSpace(o.driftAt), "none") {
+		return ds, false, nil
+	}
+	for _, f := range strings.Split(o.driftAt, ",") {
+		v, err := quantity.ParsePercent(strings.TrimSpace(f))
+		if err != nil || v < 0 || v > 1 {
+			return ds, false, usageErrorf("--drift-at %s: give dial settings from 0 to 100 (percent), comma-separated, e.g. 0,50,100, or none", o.driftAt)
+		}
+		ds.Settings = append(ds.Settings, v)
+	}
+	if ds.Gang, err = thermal.ParseClass(o.gangTC); err != nil {
+		return ds, false, &flagError{Flag: "gang-tempco", Err: err}
+	}
+	ds.Pitch, _ = thermal.ParsePitchFollows(o.pitch.v)
+	if o.tempRange.set {
+		ds.Low, ds.High = o.tempRange.low, o.tempRange.high
+	}
+	return ds, true, nil
 }

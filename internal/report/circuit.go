@@ -39,6 +39,10 @@ type circuitResonanceJSON struct {
 	Natural   float64 `json:"natural"`
 	Part      string  `json:"part"`
 	Distinct  bool    `json:"distinct"`
+	// Temperature (internal/report): drift per kelvin, and the split
+	// --compensate proposes.
+	Drift        *DriftRecord        `json:"drift,omitempty"`
+	Compensation *CompensationRecord `json:"compensation,omitempty"`
 }
 
 type circuitSweepJSON struct {
@@ -106,10 +110,11 @@ func WriteCircuitJSON(w io.Writer, r *spec.CircuitResult) error {
 	out := circuitJSON{Title: r.Title, File: r.File, Ports: r.Ports, Reference: r.PeakFreq, Wanted: r.Wanted,
 		Resonances: []circuitResonanceJSON{}, Sweep: []circuitSweepJSON{}, Bands: []circuitBandJSON{}, SelfRes: []circuitSelfResJSON{},
 		Rejection: []circuitRejectionJSON{}, Products: []circuitProductJSON{}, Warnings: []string{}}
-	for _, res := range r.Resonances {
+	for j, res := range r.Resonances {
+		dr, comp := CircuitResonanceThermal(r.Thermal, j)
 		out.Resonances = append(out.Resonances, circuitResonanceJSON{Frequency: res.Frequency, Kind: res.Kind.String(), Q: res.Q,
 			Impedance: cmplx.Abs(res.Impedance), ZRe: real(res.Impedance), ZIm: imag(res.Impedance),
-			Natural: res.Natural, Part: res.Part, Distinct: res.Distinct})
+			Natural: res.Natural, Part: res.Part, Distinct: res.Distinct, Drift: dr, Compensation: comp})
 	}
 	for _, resp := range r.Sweep {
 		p := circuitSweepJSON{Frequency: resp.Frequency, ZRe: real(resp.Zin), ZIm: imag(resp.Zin)}
@@ -169,6 +174,13 @@ func WriteCircuitTable(w io.Writer, r *spec.CircuitResult) error {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", hzs(res.Frequency), res.Kind, q, fz(cmplx.Abs(res.Impedance)), res.Part)
 	}
 	tw.Flush()
+	freqs := make([]float64, len(r.Resonances))
+	for j, res := range r.Resonances {
+		freqs[j] = res.Frequency
+	}
+	if err := WriteCircuitDrift(w, r.Thermal, freqs); err != nil {
+		return err
+	}
 	if len(r.Self) > 0 {
 		fmt.Fprintln(w)
 		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)

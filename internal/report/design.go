@@ -16,6 +16,7 @@ import (
 type designCandidateRecord struct {
 	Rank int `json:"rank"`
 	CoilRecord
+	TempcoRecord
 	Matched          float64 `json:"matched_inductance"` // what was compared with the target
 	Score            float64 `json:"score"`
 	Why              string  `json:"why"`
@@ -27,12 +28,16 @@ type designCandidateRecord struct {
 	FreeDiameter     bool    `json:"free_diameter,omitempty"`
 }
 
-func newDesignCandidateRecord(rows map[string]forms.Wire, rank int, c design.Candidate) designCandidateRecord {
+func newDesignCandidateRecord(cat *forms.Catalog, so *spec.SearchOptions, rows map[string]forms.Wire, rank int, c design.Candidate) designCandidateRecord {
 	cs := spec.FromCandidate(rows, c)
 	rec := NewCoilRecord(cs, c.Prediction)
 	rec.TrimLengthPerPercent = float64(c.TrimLengthPerPercent)
+	var tc TempcoRecord
+	if k, ok, _ := spec.Tempco(cat, cs, c.Prediction.Frequency, so.PitchFollows); ok {
+		tc = NewTempcoRecord(k, float64(c.Prediction.Frequency))
+	}
 	return designCandidateRecord{
-		Rank: rank, CoilRecord: rec, Matched: float64(c.Matched), Score: c.Score, Why: c.Why,
+		Rank: rank, CoilRecord: rec, TempcoRecord: tc, Matched: float64(c.Matched), Score: c.Score, Why: c.Why,
 		TrimMin: float64(c.TrimMin), TrimMax: float64(c.TrimMax),
 		TuneLow: float64(c.TuneLow), TuneHigh: float64(c.TuneHigh),
 		SpringbackOrigin: c.Support.SpringbackNote, FreeDiameter: c.Free,
@@ -90,10 +95,10 @@ func WriteDesignJSON(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, re
 	}
 	rows := spec.WireRows(cat, so)
 	for i, c := range res.Candidates {
-		doc.Candidates = append(doc.Candidates, newDesignCandidateRecord(rows, i+1, c))
+		doc.Candidates = append(doc.Candidates, newDesignCandidateRecord(cat, so, rows, i+1, c))
 	}
 	for i, c := range res.Pareto {
-		doc.Pareto = append(doc.Pareto, newDesignCandidateRecord(rows, i+1, c))
+		doc.Pareto = append(doc.Pareto, newDesignCandidateRecord(cat, so, rows, i+1, c))
 	}
 	doc.Search = designSearchRecord{res.Stats.Pairs, res.Stats.Searched, res.Stats.Coils, res.Stats.Evaluations}
 	enc := json.NewEncoder(w)
@@ -156,7 +161,7 @@ func WriteDesignTable(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, r
 	rows := spec.WireRows(cat, so)
 	for i, c := range res.Candidates {
 		fmt.Fprintln(w)
-		writeDesignCandidate(w, rows, i+1, c, res, lf)
+		writeDesignCandidate(w, cat, so, rows, i+1, c, res, lf)
 	}
 	if len(res.Pareto) > 0 {
 		fmt.Fprintln(w)
@@ -174,7 +179,7 @@ func WriteDesignTable(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, r
 	return nil
 }
 
-func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c design.Candidate, res design.Result, lf quantity.LengthFormat) {
+func writeDesignCandidate(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, rows map[string]forms.Wire, rank int, c design.Candidate, res design.Result, lf quantity.LengthFormat) {
 	cs := spec.FromCandidate(rows, c)
 	p := c.Prediction
 	g := p.Geometry
@@ -212,6 +217,9 @@ func writeDesignCandidate(w io.Writer, rows map[string]forms.Wire, rank int, c d
 		trim += fmt.Sprintf("; %s of length per 1 %% of L", lf.Format(float64(c.TrimLengthPerPercent)))
 	}
 	fmt.Fprintf(w, "    %s\n", trim)
+	if line := designTempcoLine(cat, so, cs, c); line != "" {
+		fmt.Fprintf(w, "    %s\n", line)
+	}
 	fmt.Fprintf(w, "    why: %s\n", c.Why)
 }
 
@@ -226,4 +234,21 @@ func thinForTable(ps []design.Candidate, n int) []design.Candidate {
 		out = append(out, ps[i*(len(ps)-1)/(n-1)])
 	}
 	return out
+}
+
+// designTempcoLine is a candidate's temperature line in ppm/K, or "" when
+// its former's material is unknown.
+func designTempcoLine(cat *forms.Catalog, so *spec.SearchOptions, cs spec.Spec, c design.Candidate) string {
+	k, ok, _ := spec.Tempco(cat, cs, c.Prediction.Frequency, so.PitchFollows)
+	if !ok {
+		return ""
+	}
+	line := "tempco: L " + quantity.FormatPPMPerK(k.LowFrequency, 3) + " at low frequency"
+	if k.Spread > 0 {
+		line += fmt.Sprintf(" (± %.2g)", k.Spread*1e6)
+	}
+	if c.Prediction.Frequency > 0 {
+		line += ", " + quantity.FormatPPMPerK(k.Inductance, 3) + " at f; Q " + quantity.FormatPPMPerK(k.Q, 3)
+	}
+	return line + "; pitch follows " + k.PitchRule
 }

@@ -97,11 +97,14 @@ func NewPredictRecord(s spec.Spec, p coil.Prediction) CoilRecord {
 }
 
 // WritePredictJSON writes predict's JSON document.
-func WritePredictJSON(w io.Writer, rec CoilRecord) error {
+// tc (empty when the former's material is unknown) adds the temperature
+// coefficients.
+func WritePredictJSON(w io.Writer, rec CoilRecord, tc TempcoRecord) error {
 	return writeJSON(w, struct {
 		Schema int `json:"schema"`
 		CoilRecord
-	}{SchemaVersion, rec})
+		TempcoRecord
+	}{SchemaVersion, rec, tc})
 }
 
 // floatNote wraps the floating row's note in parentheses, or leaves it out.

@@ -156,6 +156,11 @@ func WriteSpanTable(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Sp
 	if err := tw.Flush(); err != nil {
 		return err
 	}
+	if out.Drift != nil {
+		if err := writeSpanDrift(w, out.Drift); err != nil {
+			return err
+		}
+	}
 	if chart {
 		fmt.Fprintln(w)
 		return writeSpanChart(w, sp)
@@ -203,6 +208,7 @@ type spanRecord struct {
 	Coincidences    []coincidenceRec `json:"coincidences"`
 	PassbandRule    string           `json:"passband_rule"`
 	ChooseTap       *chooseTapRecord `json:"choose_tap,omitempty"`
+	Drift           *spanDriftRecord `json:"drift,omitempty"`
 	Warnings        []string         `json:"warnings"`
 	DialConvention  string           `json:"dial_convention"`
 }
@@ -327,6 +333,7 @@ func newSpanRecord(s spec.Spec, set spec.SpanSettings, out spec.SpanOutcome) (sp
 		PassbandRule:    tuning.PassbandRule(set.LoadedQ),
 		Warnings:        append([]string{}, sp.Warnings...),
 		DialConvention:  tuning.DialConvention,
+		Drift:           newSpanDriftRecord(out.Drift),
 	}
 	if sp.HasHigh {
 		rec.HighRange = &rangeRecord{float64(sp.High.Min), float64(sp.High.Max)}

@@ -44,6 +44,7 @@ type CircuitResult struct {
 	Wanted     float64
 	Products   []ProductRow
 	Passband   *circuit.Passband
+	Thermal    *CircuitDrift // the resonances' temperature drift; nil when not computed
 	Warnings   []string
 }
 

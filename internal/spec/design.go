@@ -26,6 +26,7 @@ import (
 
 	"turnwise/coil"
 	"turnwise/coil/design"
+	"turnwise/coil/thermal"
 	"turnwise/forms"
 )
 
@@ -60,6 +61,10 @@ type SearchOptions struct {
 	Prefer        string  // "", "balanced", "q", "small", "easy"
 	Top           int     // 0: 5
 	FreeDiameter  bool    // also search a support of any diameter
+
+	// PitchFollows is what sets the pitch on a former as the temperature
+	// changes, for each candidate's temperature coefficients (CandidateTempco).
+	PitchFollows thermal.PitchFollows
 }
 
 // Search runs the design search over cat with the options o.

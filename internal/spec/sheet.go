@@ -51,11 +51,13 @@ func DescribeWire(s Spec, lf quantity.LengthFormat) string {
 // tap and the two-gang span when asked for. Errors point into the job file.
 func JobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf quantity.LengthFormat) (sheets.Coil, []string, error) {
 	var c sheets.Coil
+	var built Spec
 	if jc.Target != nil {
 		spec, cand, res, err := DesignJobCoil(job, jc, cat)
 		if err != nil {
 			return c, nil, err
 		}
+		built = spec
 		c = NewSheetCoil(spec, cand.Prediction, lf)
 		c.Target = &sheets.Target{
 			Description: targetDescription(jc, res),
@@ -70,8 +72,14 @@ func JobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf quan
 		if err != nil {
 			return c, nil, err
 		}
+		built = spec
 		c = NewSheetCoil(spec, p, lf)
 	}
+	th, err := SheetThermal(job, jc, cat, built, c.Prediction)
+	if err != nil {
+		return c, nil, err
+	}
+	c.Thermal = th
 	c.Name, c.Quantity, c.Notes, c.HighVoltage = jc.Name, jc.Quantity, jc.Notes, jc.Transmit
 	g, f := c.Prediction.Geometry, c.Prediction.Frequency
 

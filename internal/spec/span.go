@@ -42,6 +42,9 @@ type SpanOutcome struct {
 	Span     tuning.Span
 	Geometry coil.Geometry // as used; ChooseTap with VaryPitch may change the pitch
 	Plan     *tuning.TapPlan
+	// Drift is the ranges' temperature drift at chosen dial settings, when
+	// computed (BuildSpanDrift); nil otherwise.
+	Drift *SpanDrift
 }
 
 // GangFromSettings turns the capacitor values into the two sections. A
