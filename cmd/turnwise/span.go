@@ -44,6 +44,8 @@ type spanOptions struct {
 	margin    percentFlag
 	chooseTap bool
 	varyPitch bool
+	maxHarm   int
+	spread    percentFlag
 	chart     bool
 	units     *choiceFlag
 	json      bool
@@ -60,9 +62,13 @@ capacitor, section A from the top of the coil to ground and section B
 from a tap to ground, on one shaft. At every dial setting the circuit has
 two resonances, a low range and a high range; span prints both across the
 dial, whether they overlap, where your bands fall on the dial, and the
-dial settings where a harmonic (2nd or 3rd) of the low range lands inside
-the high range's passband: a receiver with a harmonic-rich oscillator
-tuned there hears strong stations from the other band.
+dial settings where a harmonic (2nd to --max-harmonic, default 5th) of
+the low range lands inside the high range's passband: a receiver with a
+harmonic-rich oscillator tuned there hears strong stations from the other
+band. It also names every stretch of the dial where the high range stays
+within 2 % of an integer multiple of the low range (the harmonic follows
+it along the stretch), and warns when a band takes less than --bandspread
+(default 3 %) of the dial.
 
 The dial runs from 0 % (plates fully open: the top of both ranges) to
 100 % (fully meshed). Both resonances come from the two-node circuit with
@@ -115,6 +121,8 @@ local regulations and licensed practice.
 	fs.Var(&opts.margin, "margin", "how far inside a range each band must sit, and how much the ranges must overlap, percent (default 3)")
 	fs.BoolVar(&opts.chooseTap, "choose-tap", false, "choose the tap for the bands instead of giving --tap")
 	fs.BoolVar(&opts.varyPitch, "vary-pitch", false, "with --choose-tap, also choose the pitch (turns held)")
+	fs.IntVar(&opts.maxHarm, "max-harmonic", tuning.DefaultMaxHarmonic, "highest harmonic of the low range checked against the high range, 2 to 20")
+	fs.Var(&opts.spread, "bandspread", "warn when a band takes less than this share of the dial, percent (default 3)")
 	fs.BoolVar(&opts.chart, "chart", false, "add a text chart of both ranges across the dial")
 	fs.Var(opts.units, "units", "display lengths in mm or in")
 	fs.BoolVar(&opts.json, "json", false, "print JSON (SI units) instead of a table")
@@ -126,6 +134,16 @@ func (o *spanOptions) settings() (spec.SpanSettings, error) {
 	s := spec.SpanSettings{
 		Tap: o.tap.v, Law: o.law, TrimA: o.trimA.v, TrimB: o.trimB.v, StrayA: o.strayA.v, StrayB: o.strayB.v,
 		Steps: o.steps, LoadedQ: o.loadedQ, ChooseTap: o.chooseTap, VaryPitch: o.varyPitch,
+		MaxHarmonic: o.maxHarm,
+	}
+	if o.maxHarm < 2 || o.maxHarm > tuning.MaxHarmonicLimit {
+		return s, usageErrorf("--max-harmonic %d: give 2 to %d (5 checks the 2nd to the 5th)", o.maxHarm, tuning.MaxHarmonicLimit)
+	}
+	if o.spread.set {
+		if !(o.spread.v > 0) || o.spread.v > 0.5 {
+			return s, usageErrorf("--bandspread %s: give a share of the dial above 0 and at most 50 %%, e.g. 3%%", o.spread.raw)
+		}
+		s.Bandspread = o.spread.v
 	}
 	if o.margin.set {
 		if o.margin.v <= 0 {

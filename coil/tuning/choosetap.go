@@ -76,7 +76,7 @@ func (s tapScore) cost(margin float64) float64 {
 // ChooseTap chooses the tap of spec's coil (spec.TapTurns is ignored) so
 // that every listed band lies wholly inside one range with spec.Margin to
 // spare at both ends, the two ranges overlap by at least the margin, and
-// no harmonic of order 2 or 3 of the low range falls inside the high
+// no harmonic of order 2 … spec.MaxHarmonic of the low range falls inside the high
 // range's passband where the low range is in a listed band. Every
 // quarter-turn tap on the winding is tried; among taps meeting all three
 // the one keeping harmonics farthest from the high range's peak is chosen.
@@ -140,7 +140,7 @@ func (p *TapPlan) binding() string {
 	case p.CoveringOverlapping == 0:
 		return "covering every band and overlapping the ranges conflict: the taps that cover every band leave too little overlap, and those that overlap miss a band"
 	}
-	return "every tap that covers the bands and overlaps puts a 2nd or 3rd harmonic inside the high range's passband"
+	return "every tap that covers the bands and overlaps puts a harmonic of the low range inside the high range's passband"
 }
 
 // bestTap tries every quarter-turn tap of g and returns the lowest cost.
@@ -224,7 +224,7 @@ func scoreTap(spec Spec, m *coilModel, margin float64) (tapScore, error) {
 		if err != nil {
 			return tapScore{}, err
 		}
-		for _, m := range []int{2, 3} {
+		for _, m := range orders(c.maxHarm) {
 			runs := c.runs(w.band, m, rows)
 			for _, co := range runs {
 				s.clearance = math.Min(s.clearance, co.Depth)

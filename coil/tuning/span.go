@@ -35,6 +35,12 @@ type Spec struct {
 	// range's ends and the two ranges must overlap; 0 means DefaultMargin.
 	// Only ChooseTap and the coverage verdicts use it.
 	Margin float64
+	// MaxHarmonic is the highest harmonic order checked for coincidences
+	// and tracking, 2 … MaxHarmonicLimit; 0 means DefaultMaxHarmonic.
+	MaxHarmonic int
+	// Bandspread is the least share of the dial a covered band should
+	// take before a warning; 0 means DefaultBandspread.
+	Bandspread float64
 }
 
 // DefaultMargin is the default coverage and overlap margin, 3 %: enough
@@ -87,7 +93,7 @@ type BandCoverage struct {
 // closest to the high range's peak.
 type Coincidence struct {
 	Band        string // the listed band the low range is in ("" when none are listed)
-	Order       int    // 2 or 3
+	Order       int    // 2 … Spec.MaxHarmonic
 	Setting     float64
 	SettingFrom float64
 	SettingTo   float64
@@ -131,8 +137,13 @@ type Span struct {
 	WidestOverlap    unit.Frequency
 	Bands            []BandCoverage
 	Coincidences     []Coincidence
-	Margin           float64
-	Warnings         []string
+	// Tracking lists the dial stretches where the high range stays near
+	// an integer multiple of the low range (see Tracking).
+	Tracking []Tracking
+	// MaxHarmonic is the highest harmonic order checked.
+	MaxHarmonic int
+	Margin      float64
+	Warnings    []string
 }
 
 // spanScan is the internal dial resolution for coincidences: 0.25 % of
@@ -148,6 +159,7 @@ type spanCircuit struct {
 	srf     float64 // the whole coil's self-resonance, Hz
 	loadedQ float64
 	q       qTable
+	maxHarm int
 }
 
 func (c *spanCircuit) at(x float64) (DialRow, error) {
@@ -202,6 +214,12 @@ func validateSpan(spec *Spec) (coil.Sections, error) {
 	}
 	if !finite(spec.LoadedQ) || spec.LoadedQ < 0 || spec.LoadedQ > 1e5 {
 		return coil.Sections{}, inputErrorf("loaded_q", "must be between 0 (from the coil model) and 100000")
+	}
+	if spec.MaxHarmonic != 0 && (spec.MaxHarmonic < 2 || spec.MaxHarmonic > MaxHarmonicLimit) {
+		return coil.Sections{}, inputErrorf("max_harmonic", "%d: give 2 to %d", spec.MaxHarmonic, MaxHarmonicLimit)
+	}
+	if !finite(spec.Bandspread) || spec.Bandspread < 0 || spec.Bandspread > 0.5 {
+		return coil.Sections{}, inputErrorf("bandspread", "must be between 0 and 50 %% of the dial")
 	}
 	if !finite(spec.Margin) || spec.Margin < 0 || spec.Margin > 0.5 {
 		return coil.Sections{}, inputErrorf("margin", "must be between 0 and 50 %%")
@@ -261,6 +279,7 @@ func newSpanCircuitOf(spec Spec, m *coilModel) (*spanCircuit, error) {
 		srf:     float64(m.whole.SRF),
 		loadedQ: spec.LoadedQ,
 		q:       m.q,
+		maxHarm: spec.MaxHarmonic,
 	}
 	// First pass at low frequency, then the sections at the mid-dial
 	// frequency.
@@ -283,7 +302,10 @@ func newSpanCircuitOf(spec Spec, m *coilModel) (*spanCircuit, error) {
 }
 
 func (c *spanCircuit) solve(spec Spec) (Span, error) {
-	sp := Span{Sections: c.sec, SelfCapacitance: unit.Capacitance(c.cself), Margin: spec.Margin}
+	sp := Span{Sections: c.sec, SelfCapacitance: unit.Capacitance(c.cself), Margin: spec.Margin, MaxHarmonic: spec.MaxHarmonic}
+	if sp.MaxHarmonic == 0 {
+		sp.MaxHarmonic = DefaultMaxHarmonic
+	}
 	if sp.Margin == 0 {
 		sp.Margin = DefaultMargin
 	}
@@ -314,11 +336,22 @@ func (c *spanCircuit) solve(spec Spec) (Span, error) {
 			return Span{}, err
 		}
 		sp.Coincidences = co
+		if sp.Tracking, err = c.tracking(spec.MaxHarmonic); err != nil {
+			return Span{}, err
+		}
 	}
 	if sp.HasHigh && sp.Overlap < 0 {
 		sp.WidestOverlapTap, sp.WidestOverlap = widestOverlapTap(spec)
 	}
 	sp.Warnings = c.warnings(&sp)
+	share := spec.Bandspread
+	if share == 0 {
+		share = DefaultBandspread
+	}
+	sp.Warnings = append(sp.Warnings, bandspreadWarnings(&sp, share)...)
+	for _, t := range sp.Tracking {
+		sp.Warnings = append(sp.Warnings, trackingWarning(t))
+	}
 	return sp, nil
 }
 
@@ -467,7 +500,7 @@ func (c *spanCircuit) windowRows(w window) ([]DialRow, error) {
 }
 
 // coincidences scans the stretches of the dial where the low range is in a
-// listed band for harmonics of order 2 and 3 inside the high range's
+// listed band for harmonics of order 2 … c.maxHarm inside the high range's
 // passband.
 func (c *spanCircuit) coincidences(bands []Band) ([]Coincidence, error) {
 	low, err := c.lowRange()
@@ -480,7 +513,7 @@ func (c *spanCircuit) coincidences(bands []Band) ([]Coincidence, error) {
 		if err != nil {
 			return nil, err
 		}
-		for _, m := range []int{2, 3} {
+		for _, m := range orders(c.maxHarm) {
 			out = append(out, c.runs(w.band, m, rows)...)
 		}
 	}

@@ -33,6 +33,8 @@ type SpanSettings struct {
 	Margin       float64 // fraction, 0 for tuning.DefaultMargin
 	ChooseTap    bool
 	VaryPitch    bool
+	MaxHarmonic  int     // highest harmonic order checked; 0 for tuning.DefaultMaxHarmonic
+	Bandspread   float64 // least share of the dial per band before a warning; 0 for 3 %
 }
 
 // SpanOutcome is what BuildSpan returns: the span, and with ChooseTap the
@@ -93,7 +95,8 @@ func BuildSpan(g coil.Geometry, s SpanSettings) (SpanOutcome, error) {
 	if err != nil {
 		return SpanOutcome{}, err
 	}
-	spec := tuning.Spec{Geometry: g, TapTurns: s.Tap, A: a, B: b, Steps: s.Steps, Bands: s.Bands, LoadedQ: s.LoadedQ, Margin: s.Margin}
+	spec := tuning.Spec{Geometry: g, TapTurns: s.Tap, A: a, B: b, Steps: s.Steps, Bands: s.Bands, LoadedQ: s.LoadedQ, Margin: s.Margin,
+		MaxHarmonic: s.MaxHarmonic, Bandspread: s.Bandspread}
 	if s.ChooseTap {
 		plan, err := tuning.ChooseTap(spec, tuning.TapSearch{VaryPitch: s.VaryPitch})
 		if err != nil && !errors.Is(err, coil.ErrInfeasible) {
@@ -122,7 +125,7 @@ func spanFlagError(err error, gangBSet bool) error {
 		"tap_turns": "tap", "gang_a": "gang", "gang_b": gangB, "gang_a_law": "law", "gang_b_law": "law",
 		"gang_a_table": "law", "gang_b_table": "law", "gang_a_trimmer": "trim-a", "gang_b_trimmer": "trim-b",
 		"gang_a_stray": "stray-a", "gang_b_stray": "stray-b", "steps": "steps", "loaded_q": "loaded-q",
-		"margin": "margin", "band": "band",
+		"margin": "margin", "band": "band", "max_harmonic": "max-harmonic", "bandspread": "bandspread",
 	}[ie.Param]
 	if flag == "" {
 		return err
