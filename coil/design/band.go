@@ -96,7 +96,7 @@ func SearchBand(b BandTarget, c Constraints) (Result, error) {
 	case !(b.TrimMax > b.TrimMin):
 		return res, inputErrorf("trimmer", "give the trimmer's range as MIN-MAX with MIN below MAX, e.g. 2-10pF")
 	case !finite(b.TrimMargin) || b.TrimMargin < 0 || b.TrimMargin >= 0.5:
-		return res, inputErrorf("trim_margin", "%.3g %% of the trimmer's swing is outside 0 … 50 %%", b.TrimMargin*100)
+		return res, inputErrorf("trimmer_margin", "%.3g %% of the trimmer's swing is outside 0 … 50 %%", b.TrimMargin*100)
 	case !finite(b.MinQ) || b.MinQ < 0 || b.MinQ > 1e5:
 		return res, inputErrorf("min_q", "%g is outside 0 … 100000", b.MinQ)
 	}
