@@ -53,12 +53,24 @@ type Link struct {
 	// winding's low-frequency inductance.
 	M, L unit.Inductance
 	K    float64
+	// Offset is the axial distance of the link's first turn beyond the
+	// coil's cold-end turn (zero: directly over it).
+	Offset unit.Length
 }
 
 // LinkOver returns a link of turns whole turns of wire of overall
 // diameter wire, close-wound directly over the cold end of g's winding
 // (the first link turn over the first coil turn).
 func LinkOver(g Geometry, turns float64, wire unit.Length) (Link, error) {
+	return LinkOverAt(g, turns, wire, 0)
+}
+
+// LinkOverAt is LinkOver with the link moved offset beyond the cold end
+// along the axis (looser coupling).
+func LinkOverAt(g Geometry, turns float64, wire, offset unit.Length) (Link, error) {
+	if !finite(float64(offset)) || offset < 0 || offset > 1 {
+		return Link{}, inputErrorf("link_offset", "must be between 0 and 1 m")
+	}
 	if err := g.Validate(); err != nil {
 		return Link{}, err
 	}
@@ -80,7 +92,7 @@ func LinkOver(g Geometry, turns float64, wire unit.Length) (Link, error) {
 	for i := 0; float64(i) < g.Turns; i++ {
 		w := math.Min(1, g.Turns-float64(i))
 		for j := 0; float64(j) < turns; j++ {
-			m += w * LoopMutual(ac, al, float64(i)*pitch-float64(j)*lw)
+			m += w * LoopMutual(ac, al, float64(i)*pitch+float64(j)*lw+float64(offset))
 		}
 	}
 	var l float64
@@ -93,5 +105,5 @@ func LinkOver(g Geometry, turns float64, wire unit.Length) (Link, error) {
 		}
 	}
 	lc := float64(p.InductanceCoil)
-	return Link{Turns: turns, Diameter: unit.Length(2 * al), Wire: wire, M: unit.Inductance(m), L: unit.Inductance(l), K: m / math.Sqrt(lc*l)}, nil
+	return Link{Turns: turns, Diameter: unit.Length(2 * al), Wire: wire, M: unit.Inductance(m), L: unit.Inductance(l), K: m / math.Sqrt(lc*l), Offset: offset}, nil
 }

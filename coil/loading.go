@@ -177,22 +177,50 @@ func TapForLoad(g Geometry, goal LoadGoal) (LoadPlan, error) {
 		wire = 1.2e-3
 	}
 	maxLink := math.Min(math.Max(1, math.Floor(g.Turns)), 12)
-	for n := 1.0; n <= maxLink; n++ {
-		l, err := LinkOver(g, n, wire)
+	linkAt := func(n float64, off unit.Length) (LinkChoice, error) {
+		l, err := LinkOverAt(g, n, wire, off)
 		if err != nil {
-			return plan, err
+			return LinkChoice{}, err
 		}
 		wm, xl := w*float64(l.M), w*float64(l.L)
 		rr := wm * wm * rs / (rs*rs + xl*xl)
-		rseries := x/plan.TankQ + rr
-		ql := x / rseries
+		ql := x / (x/plan.TankQ + rr)
 		lc := LinkChoice{Link: l, Reflected: unit.Resistance(rr), LoadedQ: ql, Bandwidth: unit.Frequency(f / ql)}
 		if xl > rs/5 {
 			lc.SeriesCap = unit.Capacitance(1 / (w * xl))
 		}
+		return lc, nil
+	}
+	for n := 1.0; n <= maxLink; n++ {
+		lc, err := linkAt(n, 0)
+		if err != nil {
+			return plan, err
+		}
+		ql := lc.LoadedQ
 		if plan.Link == nil || math.Abs(math.Log(ql/plan.WantLoadedQ)) < math.Abs(math.Log(plan.Link.LoadedQ/plan.WantLoadedQ)) {
 			c := lc
 			plan.Link = &c
+		}
+	}
+	// One turn directly over the cold end still loads too heavily: move
+	// it along the axis, away from the coil, until the loaded Q is the
+	// one wanted (bisection on the offset; coupling falls monotonically).
+	if l := plan.Link; l != nil && l.Turns == 1 && l.LoadedQ < plan.WantLoadedQ/(1+TapRatioTolerance/2) {
+		lo, hi := 0.0, 4*float64(g.FormerDiameter)+float64(g.Pitch)*g.Turns
+		for range 50 {
+			mid := (lo + hi) / 2
+			lc, err := linkAt(1, unit.Length(mid))
+			if err != nil {
+				return plan, err
+			}
+			if lc.LoadedQ < plan.WantLoadedQ {
+				lo = mid
+			} else {
+				hi = mid
+			}
+		}
+		if lc, err := linkAt(1, unit.Length(hi)); err == nil {
+			plan.Link = &lc
 		}
 	}
 	// The divider: the tank capacitance that resonates L_eff at f.

@@ -48,6 +48,7 @@ type linkRec struct {
 	M         float64 `json:"mutual_inductance"`
 	L         float64 `json:"inductance"`
 	K         float64 `json:"k"`
+	Offset    float64 `json:"offset"`
 	Reflected float64 `json:"reflected_resistance"`
 	LoadedQ   float64 `json:"loaded_q"`
 	Bandwidth float64 `json:"bandwidth"`
@@ -84,7 +85,7 @@ func NewLoadPlanRecord(p coil.LoadPlan) *LoadPlanRecord {
 		r.Taps = append(r.Taps, tapChoiceRec{t.TapTurns, t.Achieved, t.Error, t.LoadedQ, float64(t.Bandwidth)})
 	}
 	if l := p.Link; l != nil {
-		r.Link = &linkRec{l.Turns, float64(l.Diameter), float64(l.M), float64(l.L), l.K, float64(l.Reflected), l.LoadedQ, float64(l.Bandwidth), float64(l.SeriesCap)}
+		r.Link = &linkRec{l.Turns, float64(l.Diameter), float64(l.M), float64(l.L), l.K, float64(l.Offset), float64(l.Reflected), l.LoadedQ, float64(l.Bandwidth), float64(l.SeriesCap)}
 	}
 	if d := p.Divider; d != nil {
 		r.Divider = &dividerRec{float64(d.Tank), float64(d.C1), float64(d.C2), d.Ratio, d.QC2}
@@ -117,8 +118,16 @@ func WriteLoadPlanLines(w io.Writer, p coil.LoadPlan, indent string) {
 	}
 	fmt.Fprintf(w, "%s  no quarter-turn tap is within ±%.0f %% of the ratio; instead:\n", indent, coil.TapRatioTolerance*100)
 	if l := p.Link; l != nil {
-		s := fmt.Sprintf("%s  link: %g turns of insulated wire close-wound over the cold end (%s across), M %s, k %.3f: loaded Q %.0f, bandwidth %s",
-			indent, l.Turns, quantity.FormatEng(float64(l.Diameter), "m", 3), quantity.FormatEng(float64(l.M), "H", 3), l.K, l.LoadedQ, quantity.FormatEng(float64(l.Bandwidth), "Hz", 3))
+		where := "close-wound over the cold end"
+		if l.Offset > 0 {
+			where = fmt.Sprintf("%s beyond the cold end's turn, along the axis", quantity.FormatEng(float64(l.Offset), "m", 3))
+		}
+		turns := fmt.Sprintf("%g turns", l.Turns)
+		if l.Turns == 1 {
+			turns = "1 turn"
+		}
+		s := fmt.Sprintf("%s  link: %s of insulated wire %s (%s across), M %s, k %.3f: loaded Q %.0f, bandwidth %s",
+			indent, turns, where, quantity.FormatEng(float64(l.Diameter), "m", 3), quantity.FormatEng(float64(l.M), "H", 3), l.K, l.LoadedQ, quantity.FormatEng(float64(l.Bandwidth), "Hz", 3))
 		if l.SeriesCap > 0 {
 			s += fmt.Sprintf("; put %s in series with the link to tune out its reactance", quantity.FormatCapacitance(float64(l.SeriesCap)))
 		}
