@@ -83,7 +83,11 @@ type BandOnRange struct {
 type BandCoverage struct {
 	Band    Band
 	Ranges  []BandOnRange // only ranges that reach some of the band
-	Covered bool          // some range holds the whole band
+	Covered bool          // some range holds the whole band, or both together (Across)
+	// Across is true when neither range holds the band alone but the two
+	// overlapping ranges hold it together, from the low range's bottom to
+	// the high range's top: a band wider than one range, tuned on both.
+	Across bool
 }
 
 // Coincidence is a stretch of the dial where, with the low range tuned
@@ -457,6 +461,9 @@ func (c *spanCircuit) coverage(sp *Span, b Band) BandCoverage {
 		if on.Whole {
 			bc.Covered = true
 		}
+	}
+	if !bc.Covered && sp.HasHigh && sp.Overlap >= 0 && lo >= float64(sp.Low.Min) && hi <= float64(sp.High.Max) {
+		bc.Covered, bc.Across = true, true
 	}
 	return bc
 }

@@ -34,7 +34,9 @@ func WriteSpanTable(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Sp
 	fmt.Fprintf(tw, "%s of %s on %s, pitch %s, tapped %s from the cold end\n\n",
 		quantity.FormatTurnsWord(g.Turns), spec.DescribeWire(s, lf), s.SupportName, lf.Format(float64(g.Pitch)), quantity.FormatTurnsWord(sec.TapTurns))
 
-	if p := out.Plan; p != nil {
+	if out.CoilPlan != nil {
+		writeCoilChoice(tw, out.CoilPlan, lf)
+	} else if p := out.Plan; p != nil {
 		fmt.Fprintln(tw, "TAP CHOICE")
 		verdict := "meets every requirement"
 		if !p.Feasible {
@@ -192,27 +194,28 @@ func ordinalWord(m int) string {
 
 // spanRecord is the JSON document of `turnwise span`.
 type spanRecord struct {
-	Schema          int              `json:"schema"`
-	Coil            CoilRecord       `json:"coil"`
-	TapTurns        float64          `json:"tap_turns"`
-	TapPosition     float64          `json:"tap_position"`
-	Sections        sectionsRecord   `json:"sections"`
-	SelfCapacitance float64          `json:"self_capacitance"`
-	GangA           gangRecord       `json:"gang_a"`
-	GangB           gangRecord       `json:"gang_b"`
-	Dial            []dialRecord     `json:"dial"`
-	LowRange        rangeRecord      `json:"low_range"`
-	HighRange       *rangeRecord     `json:"high_range"`
-	Overlap         float64          `json:"overlap"`
-	Margin          float64          `json:"margin"`
-	Bands           []bandRecord     `json:"bands"`
-	Coincidences    []coincidenceRec `json:"coincidences"`
-	MaxHarmonic     int              `json:"max_harmonic"`
-	Tracking        []trackingRec    `json:"tracking"`
-	PassbandRule    string           `json:"passband_rule"`
-	ChooseTap       *chooseTapRecord `json:"choose_tap,omitempty"`
-	Warnings        []string         `json:"warnings"`
-	DialConvention  string           `json:"dial_convention"`
+	Schema          int               `json:"schema"`
+	Coil            CoilRecord        `json:"coil"`
+	TapTurns        float64           `json:"tap_turns"`
+	TapPosition     float64           `json:"tap_position"`
+	Sections        sectionsRecord    `json:"sections"`
+	SelfCapacitance float64           `json:"self_capacitance"`
+	GangA           gangRecord        `json:"gang_a"`
+	GangB           gangRecord        `json:"gang_b"`
+	Dial            []dialRecord      `json:"dial"`
+	LowRange        rangeRecord       `json:"low_range"`
+	HighRange       *rangeRecord      `json:"high_range"`
+	Overlap         float64           `json:"overlap"`
+	Margin          float64           `json:"margin"`
+	Bands           []bandRecord      `json:"bands"`
+	Coincidences    []coincidenceRec  `json:"coincidences"`
+	MaxHarmonic     int               `json:"max_harmonic"`
+	Tracking        []trackingRec     `json:"tracking"`
+	PassbandRule    string            `json:"passband_rule"`
+	ChooseTap       *chooseTapRecord  `json:"choose_tap,omitempty"`
+	ChooseCoil      *chooseCoilRecord `json:"choose_coil,omitempty"`
+	Warnings        []string          `json:"warnings"`
+	DialConvention  string            `json:"dial_convention"`
 }
 
 type sectionsRecord struct {
@@ -370,6 +373,7 @@ func newSpanRecord(s spec.Spec, set spec.SpanSettings, out spec.SpanOutcome) (sp
 	for _, tr := range sp.Tracking {
 		rec.Tracking = append(rec.Tracking, trackingRec{tr.Order, tr.SettingFrom, tr.SettingTo, tr.RatioMin, tr.RatioMax, tr.Closest})
 	}
+	rec.ChooseCoil = newChooseCoilRecord(out.CoilPlan)
 	if pl := out.Plan; pl != nil {
 		rec.ChooseTap = &chooseTapRecord{pl.Feasible, pl.TapTurns, float64(pl.Geometry.Pitch), pl.Clearance, append([]string{}, pl.Conflicts...),
 			pl.Tried, pl.Covering, pl.Overlapping, pl.Clean, pl.CoveringOverlapping}
