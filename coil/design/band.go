@@ -56,6 +56,7 @@ type BandTarget struct {
 
 // BandFit is where the trimmer sits for one candidate of a band design.
 type BandFit struct {
+	Low, High unit.Frequency // the band
 	// TrimmerLow and TrimmerHigh are the trimmer settings that tune the
 	// coil to the band's low and high edge.
 	TrimmerLow, TrimmerHigh unit.Capacitance
@@ -209,6 +210,7 @@ func checkBand(cand Candidate, b BandTarget, cf, m float64) (BandFit, bool) {
 		return bc, false
 	}
 	swing := float64(b.TrimMax - b.TrimMin)
+	bc.Low, bc.High = b.Low, b.High
 	bc.TrimmerLow, bc.TrimmerHigh = unit.Capacitance(tl), unit.Capacitance(th)
 	bc.LEffLow, bc.LEffHigh = unit.Inductance(ll), unit.Inductance(lh)
 	bc.MarginLow = (float64(b.TrimMax) - tl) / swing

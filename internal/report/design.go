@@ -25,10 +25,11 @@ type designCandidateRecord struct {
 	TuneHigh         float64 `json:"tune_high,omitempty"`
 	SpringbackOrigin string  `json:"springback_note,omitempty"`
 	FreeDiameter     bool    `json:"free_diameter,omitempty"`
-	// Band designs: the trimmer settings at the band edges.
-	TrimmerLow  *float64        `json:"trimmer_low,omitempty"`
-	TrimmerHigh *float64        `json:"trimmer_high,omitempty"`
-	Tap         *LoadPlanRecord `json:"tap,omitempty"`
+	// Band designs: the band and the trimmer settings at its edges.
+	Band        *bandEdgesRecord `json:"band,omitempty"`
+	TrimmerLow  *float64         `json:"trimmer_low,omitempty"`
+	TrimmerHigh *float64         `json:"trimmer_high,omitempty"`
+	Tap         *LoadPlanRecord  `json:"tap,omitempty"`
 }
 
 func newDesignCandidateRecord(rows map[string]forms.Wire, rank int, c design.Candidate) designCandidateRecord {
@@ -44,6 +45,7 @@ func newDesignCandidateRecord(rows map[string]forms.Wire, rank int, c design.Can
 	if b := c.Band; b != nil {
 		lo, hi := float64(b.TrimmerLow), float64(b.TrimmerHigh)
 		out.TrimmerLow, out.TrimmerHigh = &lo, &hi
+		out.Band = &bandEdgesRecord{float64(b.Low), float64(b.High)}
 	}
 	if tp := c.Tapped; tp != nil {
 		out.Tap = NewLoadPlanRecord(tp.Plan)

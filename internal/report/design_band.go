@@ -34,6 +34,11 @@ func newBandRecord(b *design.BandInfo) *bandRecord2 {
 		t.TrimMargin, t.MinQ, float64(b.WindowLow), float64(b.WindowHigh)}
 }
 
+type bandEdgesRecord struct {
+	Low  float64 `json:"low"`
+	High float64 `json:"high"`
+}
+
 type tapChoiceRec struct {
 	TapTurns  float64 `json:"tap_turns"`
 	Ratio     float64 `json:"impedance_ratio"`
