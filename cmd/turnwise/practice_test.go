@@ -84,9 +84,13 @@ func TestDesignTappedJSON(t *testing.T) {
 					Ratio float64 `json:"impedance_ratio"`
 					Error float64 `json:"error"`
 				} `json:"taps"`
-				Link    *struct{ LoadedQ float64 `json:"loaded_q"` } `json:"link"`
-				Divider *struct{ C1 float64 `json:"c_top"` }       `json:"capacitive_divider"`
-				WantQ   float64                                    `json:"loaded_q_wanted"`
+				Link *struct {
+					LoadedQ float64 `json:"loaded_q"`
+				} `json:"link"`
+				Divider *struct {
+					C1 float64 `json:"c_top"`
+				} `json:"capacitive_divider"`
+				WantQ float64 `json:"loaded_q_wanted"`
 			} `json:"tap"`
 		} `json:"candidates"`
 	}
