@@ -70,7 +70,12 @@
 //   - CODATA 2018 recommended values (μ0).
 //   - J. C. Maxwell, A Treatise on Electricity and Magnetism, 1873, §701–705
 //     (mutual inductance of coaxial circles; thin-ring self-inductance), used
-//     for tapped sections and partial turns.
+//     for tapped sections and partial turns, and for link windings
+//     (link.go: LoopMutual, LinkOver, summed over turn pairs).
+//   - F. E. Terman, Radio Engineers' Handbook, 1943, sec. 3 (from memory):
+//     a load R_s at a tap of voltage ratio n loads the tank as R_s/n² in
+//     parallel (loading.go: LoadedQ, TapForLoad; a quarter-turn tap is
+//     accepted within ±10 % of the impedance ratio, common practice).
 //   - R. M. Foster, "A reactance theorem", Bell System Technical Journal 3,
 //     259–267, 1924 (the two-gang circuit's resonances alternate with its
 //     zeros).
