@@ -12,6 +12,7 @@ import (
 	"turnwise/internal/report"
 
 	"github.com/spf13/cobra"
+	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
 )
@@ -201,6 +202,9 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 		}
 	}
 	rec := report.NewTapRecord(cs, p, goal, goalKey, target, choices, findErr == nil)
+	if goal == coil.GoalImpedanceRatio && !opts.at.set && len(choices) > 0 && math.Abs(choices[0].Error) > coil.TapRatioTolerance {
+		rec.Warnings = append(rec.Warnings, ratioMissAdvice(cs.Geometry, opts.freq.v, target, choices[0].Error))
+	}
 	if opts.json {
 		if err := report.WriteTapJSON(stdout, rec); err != nil {
 			return err
@@ -263,6 +267,24 @@ func runTapLoad(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) e
 		fmt.Fprintf(stderr, "warning: %s\n", w)
 	}
 	return nil
+}
+
+// ratioMissAdvice says what to use when no quarter-turn tap is within
+// ±10 % of an impedance ratio: a capacitive divider (with the values, at
+// a frequency) or a link winding (sized by --source).
+func ratioMissAdvice(g coil.Geometry, f unit.Frequency, ratio, miss float64) string {
+	msg := fmt.Sprintf("no quarter-turn tap is within ±%.0f %% of the impedance ratio %.4g (the nearest misses by %+.0f %%): use a link winding over the cold end (run with --source 50ohm and --freq to size it) or a capacitive divider",
+		coil.TapRatioTolerance*100, ratio, miss*100)
+	if f > 0 {
+		if p, err := coil.Predict(g, f); err == nil && p.InductanceEffective > 0 {
+			w := 2 * math.Pi * float64(f)
+			c := 1 / (w * w * float64(p.InductanceEffective))
+			n := math.Sqrt(ratio)
+			msg += fmt.Sprintf(": the tank's %s as %s (top to tap node) in series with %s (tap node to ground)",
+				quantity.FormatCapacitance(c), quantity.FormatCapacitance(c/(1-n)), quantity.FormatCapacitance(c/n))
+		}
+	}
+	return msg
 }
 
 // tapFlagError names the flag of a tap error; goalFlag is the flag that
