@@ -115,7 +115,7 @@ func WriteLoadPlanLines(w io.Writer, p coil.LoadPlan, indent string) {
 		if t.LoadedQ > 0 {
 			q = fmt.Sprintf(", loaded Q %.0f, bandwidth %s", t.LoadedQ, quantity.FormatEng(float64(t.Bandwidth), "Hz", 3))
 		}
-		fmt.Fprintf(w, "%stap %s: %s turns from the cold end gives ratio %.4g (%+.0f %%)%s\n", indent, mark, quantity.FormatTurns(t.TapTurns), t.Achieved, t.Error*100, q)
+		fmt.Fprintf(w, "%stap %s: %s from the cold end gives ratio %.4g (%+.0f %%)%s\n", indent, mark, quantity.FormatTurnsWord(t.TapTurns), t.Achieved, t.Error*100, q)
 	}
 	if p.Within {
 		fmt.Fprintf(w, "%s  the nearest tap is within ±%.0f %% of the ratio: use it\n", indent, coil.TapRatioTolerance*100)
