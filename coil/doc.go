@@ -98,6 +98,12 @@
 //   - G. J. Burke and A. J. Poggio, Numerical Electromagnetics Code (NEC-2),
 //     Lawrence Livermore National Laboratory, 1981 (the method-of-moments
 //     reference for the SRF calibration, run as nec2c; testdata/nec/srf.csv).
+//     for tapped sections and partial turns, and for link windings
+//     (link.go: LoopMutual, LinkOver, summed over turn pairs).
+//   - F. E. Terman, Radio Engineers' Handbook, 1943, sec. 3 (from memory):
+//     a load R_s at a tap of voltage ratio n loads the tank as R_s/n² in
+//     parallel (loading.go: LoadedQ, TapForLoad; a quarter-turn tap is
+//     accepted within ±10 % of the impedance ratio, common practice).
 //   - R. M. Foster, "A reactance theorem", Bell System Technical Journal 3,
 //     259–267, 1924 (the two-gang circuit's resonances alternate with its
 //     zeros).

@@ -169,3 +169,16 @@ func LoadBands(r io.Reader, file string) ([]Band, error) {
 	}
 	return out, nil
 }
+
+// ParseInductanceRange reads an inductance window as MIN-MAX, "90-110nH"
+// or "90nH-110nH"; MIN must be below MAX.
+func ParseInductanceRange(s string) (lo, hi unit.Inductance, err error) {
+	l, h, err := parseEdges(strings.TrimSpace(s), quantity.ParseInductance)
+	if err != nil {
+		return 0, 0, &quantity.Error{Input: s, Want: "inductance window", Reason: err.Error() + "; write MIN-MAX, e.g. 90-110nH", Err: err}
+	}
+	if !(l > 0 && h > l) {
+		return 0, 0, &quantity.Error{Input: s, Want: "inductance window", Reason: "give a positive MIN below MAX, e.g. 90-110nH"}
+	}
+	return unit.Inductance(l), unit.Inductance(h), nil
+}

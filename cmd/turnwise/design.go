@@ -12,6 +12,8 @@ import (
 
 	"turnwise/coil/design"
 	"turnwise/coil/thermal"
+	"turnwise/forms"
+	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 )
@@ -37,12 +39,75 @@ func (f *wireSizeFlag) Set(s string) error {
 	return nil
 }
 
+// designFreqFlag takes one frequency, or a band LOW-HIGH.
+type designFreqFlag struct {
+	raw    string
+	v      unit.Frequency
+	lo, hi unit.Frequency
+	set    bool
+	isBand bool
+}
+
+func (f *designFreqFlag) String() string { return f.raw }
+func (f *designFreqFlag) Type() string   { return "frequency|band" }
+func (f *designFreqFlag) Set(s string) error {
+	if strings.Contains(strings.TrimLeft(strings.TrimSpace(s), "+-"), "-") {
+		b, err := forms.ParseBand(s)
+		if err != nil {
+			return err
+		}
+		f.raw, f.lo, f.hi, f.set, f.isBand = s, b.Low, b.High, true, true
+		return nil
+	}
+	v, err := quantity.ParseFrequency(s)
+	if err != nil {
+		return err
+	}
+	f.raw, f.v, f.set, f.isBand = s, v, true, false
+	return nil
+}
+
+// designInductanceFlag takes one inductance, or a window MIN-MAX.
+type designInductanceFlag struct {
+	raw    string
+	v, max unit.Inductance
+	set    bool
+}
+
+func (f *designInductanceFlag) String() string { return f.raw }
+func (f *designInductanceFlag) Type() string   { return "inductance|window" }
+func (f *designInductanceFlag) Set(s string) error {
+	if strings.Contains(strings.TrimLeft(strings.TrimSpace(s), "+-"), "-") {
+		lo, hi, err := forms.ParseInductanceRange(s)
+		if err != nil {
+			return err
+		}
+		f.raw, f.v, f.max, f.set = s, lo, hi, true
+		return nil
+	}
+	v, err := quantity.ParseInductance(s)
+	if err != nil {
+		return err
+	}
+	f.raw, f.v, f.max, f.set = s, v, 0, true
+	return nil
+}
+
 // designOptions holds everything `turnwise design` needs; no cobra types.
 type designOptions struct {
-	inductance    inductanceFlag
+	inductance    designInductanceFlag
 	capacitance   capacitanceFlag
 	stray         capacitanceFlag
-	freq          frequencyFlag
+	freq          designFreqFlag
+	band          designFreqFlag
+	trimmer       string
+	trimmerMargin percentFlag
+	minQ          float64
+	tapRatio      ratioFlag
+	tapImpedance  resistanceFlag
+	tankImpedance resistanceFlag
+	tankQ         float64
+	loadedQ       float64
 	tolerance     percentFlag
 	leads         lengthFlag
 	temp          temperatureFlag
@@ -84,7 +149,16 @@ func (o *designOptions) addFlags(fs *pflag.FlagSet) {
 	fs.Var(&o.inductance, "inductance", "the inductance wanted at the terminals, leads included, at --freq when given, e.g. 4.7uH")
 	fs.Var(&o.capacitance, "cap", "resonate with this capacitance at --freq instead, e.g. 22pF (the coil's own self-capacitance is accounted for)")
 	fs.Var(&o.stray, "stray", "wiring and device capacitance across the coil, added to --cap, e.g. 3pF")
-	fs.Var(&o.freq, "freq", "operating frequency for L at f, Q and the SRF check; with --cap, the resonance, e.g. 145MHz")
+	fs.Var(&o.freq, "freq", "operating frequency for L at f, Q and the SRF check; with --cap, the resonance, e.g. 145MHz (a band LOW-HIGH is --band)")
+	fs.Var(&o.band, "band", "a band the coil must tune with --cap and --trimmer, LOW-HIGH, e.g. 144-146MHz")
+	fs.StringVar(&o.trimmer, "trimmer", "", "trimmer in parallel with --cap, MIN-MAX, e.g. 2-10pF")
+	fs.Var(&o.trimmerMargin, "trimmer-margin", "share of the trimmer's swing kept free at each band edge, percent (default 10%)")
+	fs.Float64Var(&o.minQ, "min-q", 0, "least unloaded Q at the operating frequency (the band centre for --band), e.g. 150")
+	fs.Var(&o.tapRatio, "tap-ratio", "also tap each coil for this impedance ratio, e.g. 1:50")
+	fs.Var(&o.tapImpedance, "tap-impedance", "also tap each coil for this resistance at the tap, e.g. 50ohm (with --loaded-q, --tank-q or --tank-impedance)")
+	fs.Var(&o.tankImpedance, "tank-impedance", "the tank's parallel resistance at resonance, e.g. 20kohm (default: from the coil's Q)")
+	fs.Float64Var(&o.tankQ, "tank-q", 0, "the tank's unloaded Q (default: the coil model's Q)")
+	fs.Float64Var(&o.loadedQ, "loaded-q", 0, "the loaded Q wanted with the tap load (default: matched, half the unloaded Q)")
 	fs.Var(&o.tolerance, "tolerance", "how close the predicted value must be, percent (default 2%)")
 	fs.Var(&o.leads, "leads", "length of each of the two leads to the solder joint, e.g. 5mm (default 10mm, with a warning)")
 	fs.Var(&o.temp, "temp", "conductor temperature (default 20C)")
@@ -135,6 +209,22 @@ a length of 0.5 to 2 diameters) and wire used; --prefer shifts the weights.
 The Pareto list shows, for each size, the highest Q the stock reaches
 (within about 15 %), so nobody has to trust the weights.
 
+A band (--band 144-146MHz, or --freq 144-146MHz) is tuned by --cap (fixed)
+and --trimmer MIN-MAX in parallel, plus --stray: every candidate's
+effective inductance, taken at each band edge, lets the trimmer tune both
+edges with --trimmer-margin (default 10 %) of its swing left at each end;
+the trimmer settings at the edges are printed. --min-q sets a floor on Q
+(at the band centre). --inductance MIN-MAX asks for a window instead.
+
+Tapped designs: --tap-ratio R, or --tap-impedance 50ohm with the tank's
+--tank-q or --tank-impedance (default: the coil's own Q) and the
+--loaded-q wanted (default: matched, half the unloaded Q). A resistance R_s
+at a tap of voltage ratio n loads the tank as R_s/n² in parallel (Terman
+1943): Q_L = (R_p ∥ R_s/n²)/X. The nearest quarter-turn taps are printed;
+when none is within ±10 % of the impedance ratio, a link winding over the
+cold end (coupling from Maxwell's formula for coaxial turns) and a
+capacitive divider are given instead.
+
 Self-supporting coils (--support mandrel) use only wire of at least 0.6 mm
 and 1/15 of the mandrel diameter, so that they keep their shape; any coil
 needs a support at least twice the wire diameter; hand winding takes wire
@@ -142,10 +232,15 @@ from 0.2 mm to 4.2 mm (common practice).
 ` + exitStatusHelp),
 		Example: exampleText(`
   turnwise design --freq 145MHz --cap 22pF --leads 5mm --max-length 15mm
-  turnwise design --inductance 4.7uH --freq 7MHz --leads 15mm --support former --json`),
+  turnwise design --inductance 4.7uH --freq 7MHz --leads 15mm --support former --json
+  turnwise design --band 144-146MHz --cap 15pF --trimmer 2-10pF --stray 2pF --min-q 150 --leads 5mm
+  turnwise design --band 144-146MHz --cap 15pF --trimmer 2-10pF --leads 5mm --tap-impedance 50ohm`),
 		Args: noArgs,
 		RunE: func(cmd *cobra.Command, _ []string) error {
 			if err := mutuallyExclusive(cmd, "inductance", "cap"); err != nil {
+				return err
+			}
+			if err := mutuallyExclusive(cmd, "inductance", "band"); err != nil {
 				return err
 			}
 			if err := mutuallyExclusive(cmd, "mandrel", "former"); err != nil {
@@ -163,6 +258,14 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 	var notes []string
 	so := &spec.SearchOptions{
 		Inductance:    o.inductance.v,
+		InductanceMax: o.inductance.max,
+		MinQ:          o.minQ,
+		TapRatio:      o.tapRatio.v,
+		TapSource:     o.tapImpedance.v,
+		TankImpedance: o.tankImpedance.v,
+		TankQ:         o.tankQ,
+		LoadedQ:       o.loadedQ,
+		TrimmerMargin: o.trimmerMargin.v,
 		Capacitance:   o.capacitance.v,
 		Stray:         o.stray.v,
 		Freq:          o.freq.v,
@@ -207,6 +310,51 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 	}
 	if srfGiven {
 		so.MinSRFRatio = o.minSRFRatio
+	}
+	band := o.band
+	if o.freq.isBand {
+		if o.band.set {
+			return nil, nil, usageErrorf("--freq %s is a band and --band is given too; give the band once", o.freq.raw)
+		}
+		band, so.Freq = o.freq, 0
+	}
+	if band.set {
+		if !band.isBand {
+			return nil, nil, usageErrorf("--band %s: give the band as LOW-HIGH, e.g. 144-146MHz", band.raw)
+		}
+		so.BandLow, so.BandHigh = band.lo, band.hi
+	}
+	if o.trimmer != "" {
+		lo, hi, err := forms.ParseCapacitanceRange(o.trimmer)
+		if err != nil {
+			return nil, nil, &flagError{Flag: "trimmer", Err: err}
+		}
+		if !(hi > lo) {
+			return nil, nil, usageErrorf("--trimmer %s: give the trimmer's range as MIN-MAX with MIN below MAX, e.g. 2-10pF", o.trimmer)
+		}
+		if !band.set {
+			return nil, nil, usageErrorf("--trimmer tunes a band: give --band LOW-HIGH, e.g. --band 144-146MHz")
+		}
+		so.TrimMin, so.TrimMax = lo, hi
+	}
+	if o.trimmerMargin.set && !(o.trimmerMargin.v > 0 && o.trimmerMargin.v < 0.5) {
+		return nil, nil, usageErrorf("--trimmer-margin %s: give a percentage above 0 and below 50, e.g. 10%%", o.trimmerMargin.raw)
+	}
+	for _, q := range []struct {
+		name string
+		v    float64
+	}{{"min-q", o.minQ}, {"tank-q", o.tankQ}, {"loaded-q", o.loadedQ}} {
+		if math.IsNaN(q.v) || math.IsInf(q.v, 0) || q.v < 0 || q.v > 1e5 {
+			return nil, nil, usageErrorf("--%s %g: give a Q from 1 to 100000, e.g. 150", q.name, q.v)
+		}
+	}
+	switch {
+	case o.tapRatio.set && o.tapImpedance.set:
+		return nil, nil, usageErrorf("give --tap-ratio or --tap-impedance, not both")
+	case (o.tankQ > 0 || o.tankImpedance.set || o.loadedQ > 0) && !o.tapImpedance.set:
+		return nil, nil, usageErrorf("--tank-q, --tank-impedance and --loaded-q say how the tap load is worked out: add --tap-impedance, e.g. 50ohm")
+	case o.tankQ > 0 && o.tankImpedance.set:
+		return nil, nil, usageErrorf("give the tank's --tank-q or its --tank-impedance, not both")
 	}
 	if o.springback.set {
 		v := o.springback.v

@@ -29,30 +29,35 @@ import (
 
 // spanOptions holds everything `turnwise span` needs; no cobra types.
 type spanOptions struct {
-	coil      coilOptions
-	stock     *stockOptions
-	tap       turnsFlag
-	gang      string
-	gangB     string
-	law       string
-	trimA     capacitanceFlag
-	trimB     capacitanceFlag
-	strayA    capacitanceFlag
-	strayB    capacitanceFlag
-	steps     int
-	bands     []string
-	bandsFile string
-	loadedQ   float64
-	margin    percentFlag
-	chooseTap bool
-	varyPitch bool
-	chart     bool
-	units     *choiceFlag
-	json      bool
-	driftAt   string
-	tempRange tempRangeFlag
-	gangTC    string
-	pitch     *choiceFlag
+	coil       coilOptions
+	stock      *stockOptions
+	tap        turnsFlag
+	gang       string
+	gangB      string
+	law        string
+	trimA      capacitanceFlag
+	trimB      capacitanceFlag
+	strayA     capacitanceFlag
+	strayB     capacitanceFlag
+	steps      int
+	bands      []string
+	bandsFile  string
+	loadedQ    float64
+	margin     percentFlag
+	chooseTap  bool
+	varyPitch  bool
+	chart      bool
+	units      *choiceFlag
+	json       bool
+	driftAt    string
+	tempRange  tempRangeFlag
+	gangTC     string
+	pitch      *choiceFlag
+	maxHarm    int
+	chooseCoil bool
+	minTurns   float64
+	maxTurns   float64
+	spread     percentFlag
 }
 
 func newSpanCmd(g *globalOptions) *cobra.Command {
@@ -66,9 +71,13 @@ capacitor, section A from the top of the coil to ground and section B
 from a tap to ground, on one shaft. At every dial setting the circuit has
 two resonances, a low range and a high range; span prints both across the
 dial, whether they overlap, where your bands fall on the dial, and the
-dial settings where a harmonic (2nd or 3rd) of the low range lands inside
-the high range's passband: a receiver with a harmonic-rich oscillator
-tuned there hears strong stations from the other band.
+dial settings where a harmonic (2nd to --max-harmonic, default 5th) of
+the low range lands inside the high range's passband: a receiver with a
+harmonic-rich oscillator tuned there hears strong stations from the other
+band. It also names every stretch of the dial where the high range stays
+within 2 % of an integer multiple of the low range (the harmonic follows
+it along the stretch), and warns when a band takes less than --bandspread
+(default 3 %) of the dial.
 
 The dial runs from 0 % (plates fully open: the top of both ranges) to
 100 % (fully meshed). Both resonances come from the two-node circuit with
@@ -82,6 +91,11 @@ band with --margin to spare, makes the ranges overlap by --margin and
 keeps harmonics out of the passband where the low range is in a band.
 When none does it prints the best compromise and exits with status 3.
 
+--choose-coil chooses turns (--min-turns to --max-turns), pitch (close-wound
+to three wire diameters) and tap together on the former and wire given.
+When no coil does, it says what would: more turns, a capacitor of larger
+maximum or smaller minimum, or a second winding with a band switch.
+
 Caution: a tank driven by a transmitter carries high RF voltage at the
 hot end and across the capacitor; use a capacitor rated for it and follow
 local regulations and licensed practice.
@@ -91,8 +105,17 @@ local regulations and licensed practice.
   turnwise span --former "pvc 20mm" --wire 0.5mm --turns 40 --pitch 1mm --leads 20mm --gang 15-365pF --bands testdata/span/hf-listening.txt --choose-tap --json`),
 		Args: noArgs,
 		RunE: func(cmd *cobra.Command, _ []string) error {
-			if !opts.chooseTap && !opts.tap.set {
-				return usageErrorf("give --tap TURNS (counted from the cold, grounded end, e.g. --tap 12.5) or --choose-tap")
+			if !opts.chooseTap && !opts.chooseCoil && !opts.tap.set {
+				return usageErrorf("give --tap TURNS (counted from the cold, grounded end, e.g. --tap 12.5), --choose-tap or --choose-coil")
+			}
+			if err := mutuallyExclusive(cmd, "tap", "choose-coil"); err != nil {
+				return err
+			}
+			if err := mutuallyExclusive(cmd, "choose-tap", "choose-coil"); err != nil {
+				return err
+			}
+			if (cmd.Flags().Changed("min-turns") || cmd.Flags().Changed("max-turns")) && !opts.chooseCoil {
+				return usageErrorf("--min-turns and --max-turns bound --choose-coil; add it")
 			}
 			if err := mutuallyExclusive(cmd, "tap", "choose-tap"); err != nil {
 				return err
@@ -121,6 +144,11 @@ local regulations and licensed practice.
 	fs.Var(&opts.margin, "margin", "how far inside a range each band must sit, and how much the ranges must overlap, percent (default 3)")
 	fs.BoolVar(&opts.chooseTap, "choose-tap", false, "choose the tap for the bands instead of giving --tap")
 	fs.BoolVar(&opts.varyPitch, "vary-pitch", false, "with --choose-tap, also choose the pitch (turns held)")
+	fs.BoolVar(&opts.chooseCoil, "choose-coil", false, "choose turns, pitch and tap together for the bands (the --turns and --pitch given are only a start)")
+	fs.Float64Var(&opts.minTurns, "min-turns", 0, "with --choose-coil, the fewest turns to try (default 3)")
+	fs.Float64Var(&opts.maxTurns, "max-turns", 0, "with --choose-coil, the most turns to try (default 3 × --turns, at most 200)")
+	fs.IntVar(&opts.maxHarm, "max-harmonic", tuning.DefaultMaxHarmonic, "highest harmonic of the low range checked against the high range, 2 to 20")
+	fs.Var(&opts.spread, "bandspread", "warn when a band takes less than this share of the dial, percent (default 3)")
 	fs.BoolVar(&opts.chart, "chart", false, "add a text chart of both ranges across the dial")
 	fs.Var(opts.units, "units", "display lengths in mm or in")
 	fs.BoolVar(&opts.json, "json", false, "print JSON (SI units) instead of a table")
@@ -136,7 +164,17 @@ func (o *spanOptions) settings() (spec.SpanSettings, error) {
 	s := spec.SpanSettings{
 		Tap: o.tap.v, Law: o.law, TrimA: o.trimA.v, TrimB: o.trimB.v, StrayA: o.strayA.v, StrayB: o.strayB.v,
 		Steps: o.steps, LoadedQ: o.loadedQ, ChooseTap: o.chooseTap, VaryPitch: o.varyPitch,
-		Mounting: o.coil.mounting.v,
+		Mounting:    o.coil.mounting.v,
+		MaxHarmonic: o.maxHarm, ChooseCoil: o.chooseCoil, MinTurns: o.minTurns, MaxTurns: o.maxTurns,
+	}
+	if o.maxHarm < 2 || o.maxHarm > tuning.MaxHarmonicLimit {
+		return s, usageErrorf("--max-harmonic %d: give 2 to %d (5 checks the 2nd to the 5th)", o.maxHarm, tuning.MaxHarmonicLimit)
+	}
+	if o.spread.set {
+		if !(o.spread.v > 0) || o.spread.v > 0.5 {
+			return s, usageErrorf("--bandspread %s: give a share of the dial above 0 and at most 50 %%, e.g. 3%%", o.spread.raw)
+		}
+		s.Bandspread = o.spread.v
 	}
 	if o.steps < 2 || o.steps > 1001 {
 		// One rule for every value: 0 is not "the default", it is refused

@@ -12,6 +12,7 @@ import (
 	"turnwise/internal/report"
 
 	"github.com/spf13/cobra"
+	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
 )
@@ -82,6 +83,11 @@ type tapOptions struct {
 	freq      frequencyFlag
 	units     *choiceFlag
 	json      bool
+	source    resistanceFlag
+	load      resistanceFlag
+	tankQ     float64
+	tankR     resistanceFlag
+	loadedQ   float64
 }
 
 func newTapCmd(g *globalOptions) *cobra.Command {
@@ -98,6 +104,11 @@ Find the tap on a coil you describe (as for predict) for one goal:
                        coil's, e.g. 1:50 for a 50 Ω load on a 2.5 kΩ tank
   --bottom-l L         the inductance between the cold end and the tap
 
+  --source R / --load R  a resistance at the tap, e.g. 50ohm: the tap for
+                       the --loaded-q wanted (default: matched, half the
+                       unloaded Q), with the tank's --tank-q or
+                       --tank-impedance (default: the coil model's Q)
+
 or evaluate a tap you already have with --at TURNS. turnwise prints the
 nearest quarter-turn taps with what each gives. Taps count from the cold
 (grounded) end.
@@ -109,6 +120,13 @@ wire itself is not modelled: keep it short. The impedance ratio is the
 voltage ratio squared, which holds for a high-Q tank whose tap load is
 light; a heavy load on a loosely coupled tap transforms less.
 
+For --source/--load the rule is: R_s at a tap of voltage ratio n loads
+the tank with R_s/n² in parallel, Q_L = (R_p ∥ R_s/n²)/X (Terman 1943);
+the loaded Q and bandwidth of each tap are printed. When no quarter-turn
+tap is within ±10 % of the impedance ratio, a link winding over the cold
+end (coupling by Maxwell's formula for coaxial turns) and a capacitive
+divider are given instead.
+
 Caution: a tank driven by a transmitter carries high RF voltage at its
 hot end; follow local regulations and licensed practice.
 ` + exitStatusHelp),
@@ -118,13 +136,21 @@ hot end; follow local regulations and licensed practice.
 		Args: noArgs,
 		RunE: func(cmd *cobra.Command, _ []string) error {
 			n := 0
-			for _, f := range []string{"ratio", "impedance-ratio", "bottom-l", "at"} {
+			for _, f := range []string{"ratio", "impedance-ratio", "bottom-l", "at", "source", "load"} {
 				if cmd.Flags().Changed(f) {
 					n++
 				}
 			}
 			if n != 1 {
-				return usageErrorf("give exactly one of --ratio, --impedance-ratio, --bottom-l (what the tap is for) or --at TURNS (a tap you have)")
+				return usageErrorf("give exactly one of --ratio, --impedance-ratio, --bottom-l, --source/--load (what the tap is for) or --at TURNS (a tap you have)")
+			}
+			if opts.source.set || opts.load.set {
+				return runTapLoad(cmd.Context(), opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
+			}
+			for _, f := range []string{"tank-q", "tank-impedance", "loaded-q"} {
+				if cmd.Flags().Changed(f) {
+					return usageErrorf("--%s works with --source or --load (the resistance at the tap), e.g. --source 50ohm", f)
+				}
 			}
 			return runTap(cmd.Context(), opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
 		},
@@ -135,6 +161,11 @@ hot end; follow local regulations and licensed practice.
 	cmd.Flags().Var(&opts.impedance, "impedance-ratio", "impedance ratio at the tap: 0.02 or 1:50")
 	cmd.Flags().Var(&opts.bottomL, "bottom-l", "inductance from the cold end to the tap, e.g. 1.2uH")
 	cmd.Flags().Var(&opts.at, "at", "evaluate a tap this many turns from the cold end")
+	cmd.Flags().Var(&opts.source, "source", "a source resistance at the tap, e.g. 50ohm: find the tap for --loaded-q (default matched)")
+	cmd.Flags().Var(&opts.load, "load", "a load resistance at the tap, e.g. 50ohm (the same rule as --source)")
+	cmd.Flags().Float64Var(&opts.tankQ, "tank-q", 0, "the tank's unloaded Q (default: the coil model's Q)")
+	cmd.Flags().Var(&opts.tankR, "tank-impedance", "the tank's parallel resistance at resonance, e.g. 20kohm (instead of --tank-q)")
+	cmd.Flags().Float64Var(&opts.loadedQ, "loaded-q", 0, "the loaded Q wanted (default: matched, half the unloaded Q)")
 	cmd.Flags().Var(&opts.freq, "freq", "operating frequency for the inductances (skin effect), e.g. 7.1MHz")
 	cmd.Flags().Var(opts.units, "units", "display lengths in mm or in")
 	cmd.Flags().BoolVar(&opts.json, "json", false, "print JSON (SI units) instead of a table")
@@ -174,6 +205,9 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 		}
 	}
 	rec := report.NewTapRecord(cs, p, goal, goalKey, target, choices, findErr == nil)
+	if goal == coil.GoalImpedanceRatio && !opts.at.set && len(choices) > 0 && math.Abs(choices[0].Error) > coil.TapRatioTolerance {
+		rec.Warnings = append(rec.Warnings, ratioMissAdvice(cs.Geometry, opts.freq.v, target, choices[0].Error))
+	}
 	if opts.json {
 		if err := report.WriteTapJSON(stdout, rec); err != nil {
 			return err
@@ -183,6 +217,73 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 	}
 	printWarnings(stderr, rec.Warnings)
 	return findErr
+}
+
+// runTapLoad finds the tap (or link, or divider) for a resistance at the
+// tap and a loaded Q.
+func runTapLoad(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error {
+	r := opts.source
+	if opts.load.set {
+		r = opts.load
+	}
+	switch {
+	case !opts.freq.set:
+		return usageErrorf("a tap for a load needs the tank's frequency: add --freq, e.g. --freq 7.1MHz")
+	case opts.tankQ != 0 && opts.tankR.set:
+		return usageErrorf("give the tank's --tank-q or its --tank-impedance, not both")
+	}
+	for _, q := range []struct {
+		name string
+		v    float64
+	}{{"tank-q", opts.tankQ}, {"loaded-q", opts.loadedQ}} {
+		if math.IsNaN(q.v) || math.IsInf(q.v, 0) || q.v < 0 || q.v > 1e5 {
+			return usageErrorf("--%s %g: give a Q from 1 to 100000, e.g. 100", q.name, q.v)
+		}
+	}
+	cs, p, err := predictCoil(&opts.coil, opts.stock, opts.freq)
+	if err != nil {
+		return err
+	}
+	plan, err := coil.TapForLoad(cs.Geometry, coil.LoadGoal{Frequency: opts.freq.v, Source: r.v, TankImpedance: opts.tankR.v, TankQ: opts.tankQ, LoadedQ: opts.loadedQ})
+	if err != nil {
+		var ie *coil.InputError
+		if errors.As(err, &ie) {
+			flag := map[string]string{"loaded_q": "loaded-q", "tank_q": "tank-q", "tank_impedance": "tank-impedance", "frequency": "freq", "source": "source"}[ie.Param]
+			if flag != "" {
+				return &flagError{Flag: flag, Err: err}
+			}
+		}
+		return err
+	}
+	warnings := plan.Advice()
+	if opts.json {
+		return report.WriteTapLoadJSON(stdout, cs, p, float64(r.v), plan, warnings)
+	}
+	if err := report.WriteTapLoadTable(stdout, cs, p, float64(r.v), plan, newLengthFormatter(opts.units.v)); err != nil {
+		return err
+	}
+	for _, w := range warnings {
+		fmt.Fprintf(stderr, "warning: %s\n", w)
+	}
+	return nil
+}
+
+// ratioMissAdvice says what to use when no quarter-turn tap is within
+// ±10 % of an impedance ratio: a capacitive divider (with the values, at
+// a frequency) or a link winding (sized by --source).
+func ratioMissAdvice(g coil.Geometry, f unit.Frequency, ratio, miss float64) string {
+	msg := fmt.Sprintf("no quarter-turn tap is within ±%.0f %% of the impedance ratio %.4g (the nearest misses by %+.0f %%): use a link winding over the cold end (run with --source 50ohm and --freq to size it) or a capacitive divider",
+		coil.TapRatioTolerance*100, ratio, miss*100)
+	if f > 0 {
+		if p, err := coil.Predict(g, f); err == nil && p.InductanceEffective > 0 {
+			w := 2 * math.Pi * float64(f)
+			c := 1 / (w * w * float64(p.InductanceEffective))
+			n := math.Sqrt(ratio)
+			msg += fmt.Sprintf(": the tank's %s as %s (top to tap node) in series with %s (tap node to ground)",
+				quantity.FormatCapacitance(c), quantity.FormatCapacitance(c/(1-n)), quantity.FormatCapacitance(c/n))
+		}
+	}
+	return msg
 }
 
 // tapFlagError names the flag of a tap error; goalFlag is the flag that

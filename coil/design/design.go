@@ -194,6 +194,12 @@ type Candidate struct {
 	TrimLengthPerPercent unit.Length
 	// Free is true for a coil on a free-diameter support.
 	Free bool
+	// Band, for a band design (SearchBand), is where the trimmer sits at
+	// the band edges; nil otherwise.
+	Band *BandFit
+	// Tapped, for a tapped design (see tapped.go), is the tap and its
+	// alternatives; nil otherwise.
+	Tapped *TapFit
 }
 
 // Result is what Design returns.
@@ -221,6 +227,11 @@ type Result struct {
 	Pareto   []Candidate
 	Warnings []string
 	Stats    Stats
+	// Band, for a band design (SearchBand), describes the band and the
+	// inductance window; nil otherwise.
+	Band *BandInfo
+	// Tap, for a tapped design, is the impedance goal; nil otherwise.
+	Tap *TapGoalInfo
 }
 
 // Stats describe the work the search did; tests and benchmarks use them.

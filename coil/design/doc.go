@@ -14,6 +14,14 @@
 // tables through coil.SelfCapacitanceMinOver and coil.ProximityRow, and every
 // candidate returned is re-evaluated with coil.Predict.
 //
+// Practitioner's targets sit on top of the search (band.go, tapped.go):
+// SearchBand, a band tuned by a fixed capacitor and a trimmer (every
+// candidate re-predicted at both edges, the trimmer settings reported,
+// 10 % of the trimmer's swing kept free at each end, common practice);
+// WithMinQ, a floor on Q; AddTaps, the tap of every candidate for an
+// impedance ratio or for a load and a loaded Q (coil.TapForLoad), with a
+// link winding and a capacitive divider as alternatives.
+//
 // References:
 //   - H. Nagaoka, "The inductance coefficients of solenoids", J. Coll. Sci.
 //     Tokyo 27 (1909): the current-sheet inductance.
@@ -25,5 +33,8 @@
 //   - J. D. Kraus, Antennas, 2nd ed. (1988): small-loop radiation resistance.
 //   - A. H. Land and A. G. Doig, "An automatic method of solving discrete
 //     programming problems", Econometrica 28 (1960): branch and bound.
+//   - F. E. Terman, Radio Engineers' Handbook, McGraw-Hill, 1943, sec. 3
+//     (from memory): a load R_s at a tap of voltage ratio n appears as
+//     R_s/n² across the tank; loaded Q and bandwidth f/Q.
 //   - Hand-winding and self-supporting wire rules: common practice.
 package design

@@ -76,7 +76,7 @@ func (s tapScore) cost(margin float64) float64 {
 // ChooseTap chooses the tap of spec's coil (spec.TapTurns is ignored) so
 // that every listed band lies wholly inside one range with spec.Margin to
 // spare at both ends, the two ranges overlap by at least the margin, and
-// no harmonic of order 2 or 3 of the low range falls inside the high
+// no harmonic of order 2 … spec.MaxHarmonic of the low range falls inside the high
 // range's passband where the low range is in a listed band. Every
 // quarter-turn tap on the winding is tried; among taps meeting all three
 // the one keeping harmonics farthest from the high range's peak is chosen.
@@ -140,7 +140,7 @@ func (p *TapPlan) binding() string {
 	case p.CoveringOverlapping == 0:
 		return "covering every band and overlapping the ranges conflict: the taps that cover every band leave too little overlap, and those that overlap miss a band"
 	}
-	return "every tap that covers the bands and overlaps puts a 2nd or 3rd harmonic inside the high range's passband"
+	return "every tap that covers the bands and overlaps puts a harmonic of the low range inside the high range's passband"
 }
 
 // bestTap tries every quarter-turn tap of g and returns the lowest cost.
@@ -184,6 +184,13 @@ func bestTap(spec Spec, g coil.Geometry, margin float64, plan *TapPlan) (tapScor
 // scoreTap measures one candidate against the requirements; m is
 // spec.Geometry's coilModel.
 func scoreTap(spec Spec, m *coilModel, margin float64) (tapScore, error) {
+	return scoreTapOpt(spec, m, margin, false)
+}
+
+// scoreTapOpt is scoreTap; quick skips the harmonic scan when the tap
+// already misses coverage or overlap (it cannot be feasible), which is
+// what makes ChooseCoil's many coils affordable.
+func scoreTapOpt(spec Spec, m *coilModel, margin float64, quick bool) (tapScore, error) {
 	c, err := newSpanCircuitOf(spec, m)
 	if err != nil {
 		return tapScore{}, err
@@ -202,10 +209,7 @@ func scoreTap(spec Spec, m *coilModel, margin float64) (tapScore, error) {
 	hasHigh := open.FHigh > 0 && meshed.FHigh > 0
 	s.slack = math.Inf(1)
 	for _, b := range spec.Bands {
-		room := rangeRoom(b, low)
-		if hasHigh {
-			room = math.Max(room, rangeRoom(b, high))
-		}
+		room := bandRoom(b, low, high, hasHigh, margin)
 		s.coverShort += math.Max(0, margin-room)
 		s.slack = math.Min(s.slack, room-margin)
 	}
@@ -217,6 +221,9 @@ func scoreTap(spec Spec, m *coilModel, margin float64) (tapScore, error) {
 		s.overShort = 1
 		return s, nil
 	}
+	if quick && (s.coverShort > 0 || s.overShort > 0) {
+		return s, nil
+	}
 	// The same rows and runs as Solve's coincidences, so that the
 	// verdict here is the one the chosen span reports.
 	for _, w := range c.lowWindows(spec.Bands, low) {
@@ -224,7 +231,7 @@ func scoreTap(spec Spec, m *coilModel, margin float64) (tapScore, error) {
 		if err != nil {
 			return tapScore{}, err
 		}
-		for _, m := range []int{2, 3} {
+		for _, m := range orders(c.maxHarm) {
 			runs := c.runs(w.band, m, rows)
 			for _, co := range runs {
 				s.clearance = math.Min(s.clearance, co.Depth)
@@ -238,6 +245,21 @@ func scoreTap(spec Spec, m *coilModel, margin float64) (tapScore, error) {
 		}
 	}
 	return s, nil
+}
+
+// bandRoom is how far band b sits inside the range that holds it best: the
+// low range, the high range, or, when neither holds it with the margin
+// and they overlap by the margin, both together from the low range's bottom to the high range's top (a band
+// wider than either range).
+func bandRoom(b Band, low, high FreqRange, hasHigh bool, margin float64) float64 {
+	room := rangeRoom(b, low)
+	if hasHigh {
+		room = math.Max(room, rangeRoom(b, high))
+		if room < margin && float64(low.Max-high.Min)/float64(high.Min) >= margin {
+			room = math.Max(room, rangeRoom(b, FreqRange{Min: low.Min, Max: high.Max}))
+		}
+	}
+	return room
 }
 
 // rangeRoom is how far band b sits inside rg at its tighter end, as a
@@ -315,7 +337,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 				room, rg, name = h, sp.High, "high"
 			}
 		}
-		if room >= margin {
+		if bandRoom(b.Band, sp.Low, sp.High, sp.HasHigh, margin) >= margin {
 			continue
 		}
 		edge := fmt.Sprintf("the %s range runs %s to %s", name, quantity.FormatFrequency(float64(rg.Min)), quantity.FormatFrequency(float64(rg.Max)))

@@ -3,8 +3,12 @@
 // ground, on one shaft. It owns the capacitor laws (GangSection), the
 // two-node circuit's resonances (TwoNodeResonances), the span across the
 // dial with band coverage, harmonic coincidences and gap advice (Solve),
-// and the choice of tap, and optionally pitch, for a list of bands
-// (ChooseTap).
+// the choice of tap, and optionally pitch, for a list of bands
+// (ChooseTap), the choice of turns, pitch and tap together (ChooseCoil,
+// choosecoil.go), harmonics of any order with the dial stretches where the
+// ranges track an integer ratio, and the bandspread warning (harmonics.go;
+// default 5th harmonic, 2 % tracking tolerance, 3 % of the dial per band:
+// common practice).
 //
 // The coil itself comes from package coil: its sections at the tap
 // (coil.Tap: L_a, L_b, M), its self-capacitance and Q (coil.Predict).

@@ -38,6 +38,12 @@ type Spec struct {
 	// Mounting is the coil's mounting (zero: one end grounded); its SRF
 	// and equivalent self-capacitance are the ones used.
 	Mounting coil.Mounting
+	// MaxHarmonic is the highest harmonic order checked for coincidences
+	// and tracking, 2 … MaxHarmonicLimit; 0 means DefaultMaxHarmonic.
+	MaxHarmonic int
+	// Bandspread is the least share of the dial a covered band should
+	// take before a warning; 0 means DefaultBandspread.
+	Bandspread float64
 }
 
 // DefaultMargin is the default coverage and overlap margin, 3 %: enough
@@ -80,7 +86,11 @@ type BandOnRange struct {
 type BandCoverage struct {
 	Band    Band
 	Ranges  []BandOnRange // only ranges that reach some of the band
-	Covered bool          // some range holds the whole band
+	Covered bool          // some range holds the whole band, or both together (Across)
+	// Across is true when neither range holds the band alone but the two
+	// overlapping ranges hold it together, from the low range's bottom to
+	// the high range's top: a band wider than one range, tuned on both.
+	Across bool
 }
 
 // Coincidence is a stretch of the dial where, with the low range tuned
@@ -90,7 +100,7 @@ type BandCoverage struct {
 // closest to the high range's peak.
 type Coincidence struct {
 	Band        string // the listed band the low range is in ("" when none are listed)
-	Order       int    // 2 or 3
+	Order       int    // 2 … Spec.MaxHarmonic
 	Setting     float64
 	SettingFrom float64
 	SettingTo   float64
@@ -134,8 +144,13 @@ type Span struct {
 	WidestOverlap    unit.Frequency
 	Bands            []BandCoverage
 	Coincidences     []Coincidence
-	Margin           float64
-	Warnings         []string
+	// Tracking lists the dial stretches where the high range stays near
+	// an integer multiple of the low range (see Tracking).
+	Tracking []Tracking
+	// MaxHarmonic is the highest harmonic order checked.
+	MaxHarmonic int
+	Margin      float64
+	Warnings    []string
 }
 
 // spanScan is the internal dial resolution for coincidences: 0.25 % of
@@ -151,6 +166,7 @@ type spanCircuit struct {
 	srf     float64 // the whole coil's self-resonance, Hz
 	loadedQ float64
 	q       qTable
+	maxHarm int
 }
 
 func (c *spanCircuit) at(x float64) (DialRow, error) {
@@ -205,6 +221,12 @@ func validateSpan(spec *Spec) (coil.Sections, error) {
 	}
 	if !finite(spec.LoadedQ) || spec.LoadedQ < 0 || spec.LoadedQ > 1e5 {
 		return coil.Sections{}, inputErrorf("loaded_q", "must be between 0 (from the coil model) and 100000")
+	}
+	if spec.MaxHarmonic != 0 && (spec.MaxHarmonic < 2 || spec.MaxHarmonic > MaxHarmonicLimit) {
+		return coil.Sections{}, inputErrorf("max_harmonic", "%d: give 2 to %d", spec.MaxHarmonic, MaxHarmonicLimit)
+	}
+	if !finite(spec.Bandspread) || spec.Bandspread < 0 || spec.Bandspread > 0.5 {
+		return coil.Sections{}, inputErrorf("bandspread", "must be between 0 and 50 %% of the dial")
 	}
 	if !finite(spec.Margin) || spec.Margin < 0 || spec.Margin > 0.5 {
 		return coil.Sections{}, inputErrorf("margin", "must be between 0 and 50 %%")
@@ -264,6 +286,7 @@ func newSpanCircuitOf(spec Spec, m *coilModel) (*spanCircuit, error) {
 		srf:     float64(m.whole.SRFUsed()),
 		loadedQ: spec.LoadedQ,
 		q:       m.q,
+		maxHarm: spec.MaxHarmonic,
 	}
 	// First pass at low frequency, then the sections at the mid-dial
 	// frequency.
@@ -286,7 +309,10 @@ func newSpanCircuitOf(spec Spec, m *coilModel) (*spanCircuit, error) {
 }
 
 func (c *spanCircuit) solve(spec Spec) (Span, error) {
-	sp := Span{Sections: c.sec, SelfCapacitance: unit.Capacitance(c.cself), Margin: spec.Margin}
+	sp := Span{Sections: c.sec, SelfCapacitance: unit.Capacitance(c.cself), Margin: spec.Margin, MaxHarmonic: spec.MaxHarmonic}
+	if sp.MaxHarmonic == 0 {
+		sp.MaxHarmonic = DefaultMaxHarmonic
+	}
 	if sp.Margin == 0 {
 		sp.Margin = DefaultMargin
 	}
@@ -317,11 +343,22 @@ func (c *spanCircuit) solve(spec Spec) (Span, error) {
 			return Span{}, err
 		}
 		sp.Coincidences = co
+		if sp.Tracking, err = c.tracking(spec.MaxHarmonic); err != nil {
+			return Span{}, err
+		}
 	}
 	if sp.HasHigh && sp.Overlap < 0 {
 		sp.WidestOverlapTap, sp.WidestOverlap = widestOverlapTap(spec)
 	}
 	sp.Warnings = c.warnings(&sp)
+	share := spec.Bandspread
+	if share == 0 {
+		share = DefaultBandspread
+	}
+	sp.Warnings = append(sp.Warnings, bandspreadWarnings(&sp, share)...)
+	for _, t := range sp.Tracking {
+		sp.Warnings = append(sp.Warnings, trackingWarning(t))
+	}
 	return sp, nil
 }
 
@@ -428,6 +465,9 @@ func (c *spanCircuit) coverage(sp *Span, b Band) BandCoverage {
 			bc.Covered = true
 		}
 	}
+	if !bc.Covered && sp.HasHigh && sp.Overlap >= 0 && lo >= float64(sp.Low.Min) && hi <= float64(sp.High.Max) {
+		bc.Covered, bc.Across = true, true
+	}
 	return bc
 }
 
@@ -470,7 +510,7 @@ func (c *spanCircuit) windowRows(w window) ([]DialRow, error) {
 }
 
 // coincidences scans the stretches of the dial where the low range is in a
-// listed band for harmonics of order 2 and 3 inside the high range's
+// listed band for harmonics of order 2 … c.maxHarm inside the high range's
 // passband.
 func (c *spanCircuit) coincidences(bands []Band) ([]Coincidence, error) {
 	low, err := c.lowRange()
@@ -483,7 +523,7 @@ func (c *spanCircuit) coincidences(bands []Band) ([]Coincidence, error) {
 		if err != nil {
 			return nil, err
 		}
-		for _, m := range []int{2, 3} {
+		for _, m := range orders(c.maxHarm) {
 			out = append(out, c.runs(w.band, m, rows)...)
 		}
 	}

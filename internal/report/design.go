@@ -26,6 +26,11 @@ type designCandidateRecord struct {
 	TuneHigh         float64 `json:"tune_high,omitempty"`
 	SpringbackOrigin string  `json:"springback_note,omitempty"`
 	FreeDiameter     bool    `json:"free_diameter,omitempty"`
+	// Band designs: the band and the trimmer settings at its edges.
+	Band        *bandEdgesRecord `json:"band,omitempty"`
+	TrimmerLow  *float64         `json:"trimmer_low,omitempty"`
+	TrimmerHigh *float64         `json:"trimmer_high,omitempty"`
+	Tap         *LoadPlanRecord  `json:"tap,omitempty"`
 }
 
 func newDesignCandidateRecord(cat *forms.Catalog, so *spec.SearchOptions, rows map[string]forms.Wire, rank int, c design.Candidate) designCandidateRecord {
@@ -36,12 +41,21 @@ func newDesignCandidateRecord(cat *forms.Catalog, so *spec.SearchOptions, rows m
 	if k, ok, _ := spec.Tempco(cat, cs, c.Prediction.Frequency, so.PitchFollows); ok {
 		tc = NewTempcoRecord(k, float64(c.Prediction.Frequency))
 	}
-	return designCandidateRecord{
+	out := designCandidateRecord{
 		Rank: rank, CoilRecord: rec, TempcoRecord: tc, Matched: float64(c.Matched), Score: c.Score, Why: c.Why,
 		TrimMin: float64(c.TrimMin), TrimMax: float64(c.TrimMax),
 		TuneLow: float64(c.TuneLow), TuneHigh: float64(c.TuneHigh),
 		SpringbackOrigin: c.Support.SpringbackNote, FreeDiameter: c.Free,
 	}
+	if b := c.Band; b != nil {
+		lo, hi := float64(b.TrimmerLow), float64(b.TrimmerHigh)
+		out.TrimmerLow, out.TrimmerHigh = &lo, &hi
+		out.Band = &bandEdgesRecord{float64(b.Low), float64(b.High)}
+	}
+	if tp := c.Tapped; tp != nil {
+		out.Tap = NewLoadPlanRecord(tp.Plan)
+	}
+	return out
 }
 
 type designTargetRecord struct {
@@ -85,11 +99,12 @@ func WriteDesignJSON(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, re
 	doc := struct {
 		Schema     int                     `json:"schema"`
 		Target     designTargetRecord      `json:"target"`
+		Band       *bandRecord2            `json:"band,omitempty"`
 		Candidates []designCandidateRecord `json:"candidates"`
 		Pareto     []designCandidateRecord `json:"pareto"`
 		Search     designSearchRecord      `json:"search"`
 		Warnings   []string                `json:"warnings"`
-	}{Schema: SchemaVersion, Target: t, Candidates: []designCandidateRecord{}, Pareto: []designCandidateRecord{}, Warnings: warnings}
+	}{Schema: SchemaVersion, Target: t, Band: newBandRecord(res.Band), Candidates: []designCandidateRecord{}, Pareto: []designCandidateRecord{}, Warnings: warnings}
 	if doc.Warnings == nil {
 		doc.Warnings = []string{}
 	}
@@ -127,7 +142,9 @@ func WriteDesignTable(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, r
 	f := float64(res.Frequency)
 	tol := fmt.Sprintf("± %.3g %%", res.Tolerance*100)
 	leads := "2 × " + lf.Format(float64(so.Leads)) + " leads"
-	if res.Effective {
+	if res.Band != nil {
+		writeBandTarget(w, res.Band, leads)
+	} else if res.Effective {
 		c := quantity.FormatCapacitance(float64(so.Capacitance))
 		if so.Stray > 0 {
 			c += " + " + quantity.FormatCapacitance(float64(so.Stray)) + " stray"
@@ -220,6 +237,7 @@ func writeDesignCandidate(w io.Writer, cat *forms.Catalog, so *spec.SearchOption
 	if line := designTempcoLine(cat, so, cs, c); line != "" {
 		fmt.Fprintf(w, "    %s\n", line)
 	}
+	writeBandTapLines(w, c, res)
 	fmt.Fprintf(w, "    why: %s\n", c.Why)
 }
 

@@ -34,7 +34,9 @@ func WriteSpanTable(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Sp
 	fmt.Fprintf(tw, "%s of %s on %s, pitch %s, tapped %s from the cold end\n\n",
 		quantity.FormatTurnsWord(g.Turns), spec.DescribeWire(s, lf), s.SupportName, lf.Format(float64(g.Pitch)), quantity.FormatTurnsWord(sec.TapTurns))
 
-	if p := out.Plan; p != nil {
+	if out.CoilPlan != nil {
+		writeCoilChoice(tw, out.CoilPlan, lf)
+	} else if p := out.Plan; p != nil {
 		fmt.Fprintln(tw, "TAP CHOICE")
 		verdict := "meets every requirement"
 		if !p.Feasible {
@@ -126,14 +128,15 @@ func WriteSpanTable(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Sp
 		}
 	}
 
-	fmt.Fprintln(tw, "\nHARMONIC COINCIDENCES (2nd and 3rd harmonic of the low range)")
+	orders := fmt.Sprintf("2nd to %s", ordinalWord(sp.MaxHarmonic))
+	fmt.Fprintf(tw, "\nHARMONIC COINCIDENCES (%s harmonic of the low range)\n", orders)
 	switch {
 	case !sp.HasHigh:
 		row("none", "there is no high range")
 	case len(sp.Coincidences) == 0 && len(sp.Bands) > 0:
-		row("none", "where the low range is in a listed band, no 2nd or 3rd harmonic falls inside the high range's passband")
+		row("none", fmt.Sprintf("where the low range is in a listed band, no %s harmonic falls inside the high range's passband", orders))
 	case len(sp.Coincidences) == 0:
-		row("none", "nowhere on the dial does a 2nd or 3rd harmonic fall inside the high range's passband")
+		row("none", fmt.Sprintf("nowhere on the dial does a %s harmonic fall inside the high range's passband", orders))
 	}
 	for _, c := range sp.Coincidences {
 		span := "at " + dialPct(c.Setting)
@@ -151,6 +154,11 @@ func WriteSpanTable(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Sp
 		}
 		row("dial "+span, fmt.Sprintf("low range at %s%s: its %s harmonic %s %s; strong signals near %s get through",
 			hz(c.FLow), where, ordinalWord(c.Order), hz(c.Harmonic), inside, hz(c.FHigh)))
+	}
+	for _, tr := range sp.Tracking {
+		row(fmt.Sprintf("dial %s to %s", dialPct(tr.SettingFrom), dialPct(tr.SettingTo)),
+			fmt.Sprintf("the high range is %.3g–%.3g× the low range, within %.0f %% of %d: the %s harmonic follows it along the whole stretch",
+				tr.RatioMin, tr.RatioMax, tuning.TrackingTolerance*100, tr.Order, ordinalWord(tr.Order)))
 	}
 	row("passband rule", tuning.PassbandRule(set.LoadedQ))
 	if err := tw.Flush(); err != nil {
@@ -191,26 +199,29 @@ func ordinalWord(m int) string {
 
 // spanRecord is the JSON document of `turnwise span`.
 type spanRecord struct {
-	Schema          int              `json:"schema"`
-	Coil            CoilRecord       `json:"coil"`
-	TapTurns        float64          `json:"tap_turns"`
-	TapPosition     float64          `json:"tap_position"`
-	Sections        sectionsRecord   `json:"sections"`
-	SelfCapacitance float64          `json:"self_capacitance"`
-	GangA           gangRecord       `json:"gang_a"`
-	GangB           gangRecord       `json:"gang_b"`
-	Dial            []dialRecord     `json:"dial"`
-	LowRange        rangeRecord      `json:"low_range"`
-	HighRange       *rangeRecord     `json:"high_range"`
-	Overlap         float64          `json:"overlap"`
-	Margin          float64          `json:"margin"`
-	Bands           []bandRecord     `json:"bands"`
-	Coincidences    []coincidenceRec `json:"coincidences"`
-	PassbandRule    string           `json:"passband_rule"`
-	ChooseTap       *chooseTapRecord `json:"choose_tap,omitempty"`
-	Drift           *spanDriftRecord `json:"drift,omitempty"`
-	Warnings        []string         `json:"warnings"`
-	DialConvention  string           `json:"dial_convention"`
+	Schema          int               `json:"schema"`
+	Coil            CoilRecord        `json:"coil"`
+	TapTurns        float64           `json:"tap_turns"`
+	TapPosition     float64           `json:"tap_position"`
+	Sections        sectionsRecord    `json:"sections"`
+	SelfCapacitance float64           `json:"self_capacitance"`
+	GangA           gangRecord        `json:"gang_a"`
+	GangB           gangRecord        `json:"gang_b"`
+	Dial            []dialRecord      `json:"dial"`
+	LowRange        rangeRecord       `json:"low_range"`
+	HighRange       *rangeRecord      `json:"high_range"`
+	Overlap         float64           `json:"overlap"`
+	Margin          float64           `json:"margin"`
+	Bands           []bandRecord      `json:"bands"`
+	Coincidences    []coincidenceRec  `json:"coincidences"`
+	MaxHarmonic     int               `json:"max_harmonic"`
+	Tracking        []trackingRec     `json:"tracking"`
+	PassbandRule    string            `json:"passband_rule"`
+	ChooseTap       *chooseTapRecord  `json:"choose_tap,omitempty"`
+	ChooseCoil      *chooseCoilRecord `json:"choose_coil,omitempty"`
+	Drift           *spanDriftRecord  `json:"drift,omitempty"`
+	Warnings        []string          `json:"warnings"`
+	DialConvention  string            `json:"dial_convention"`
 }
 
 type sectionsRecord struct {
@@ -287,6 +298,17 @@ type coincidenceRec struct {
 	Band          string  `json:"band"`
 }
 
+// trackingRec is a dial stretch where the high range stays near an
+// integer multiple of the low range.
+type trackingRec struct {
+	Order       int     `json:"order"`
+	SettingFrom float64 `json:"setting_from"`
+	SettingTo   float64 `json:"setting_to"`
+	RatioMin    float64 `json:"ratio_min"`
+	RatioMax    float64 `json:"ratio_max"`
+	Deviation   float64 `json:"deviation"`
+}
+
 type chooseTapRecord struct {
 	Feasible            bool     `json:"feasible"`
 	TapTurns            float64  `json:"tap_turns"`
@@ -330,6 +352,8 @@ func newSpanRecord(s spec.Spec, set spec.SpanSettings, out spec.SpanOutcome) (sp
 		Margin:          sp.Margin,
 		Bands:           []bandRecord{},
 		Coincidences:    []coincidenceRec{},
+		MaxHarmonic:     sp.MaxHarmonic,
+		Tracking:        []trackingRec{},
 		PassbandRule:    tuning.PassbandRule(set.LoadedQ),
 		Warnings:        append([]string{}, sp.Warnings...),
 		DialConvention:  tuning.DialConvention,
@@ -353,6 +377,10 @@ func newSpanRecord(s spec.Spec, set spec.SpanSettings, out spec.SpanOutcome) (sp
 		rec.Coincidences = append(rec.Coincidences, coincidenceRec{c.Setting, c.Order, float64(c.FLow), float64(c.FHigh), float64(c.Offset),
 			float64(c.Harmonic), float64(c.Passband), c.LoadedQ, c.Depth, c.AttenuationDB, c.SettingFrom, c.SettingTo, c.Band})
 	}
+	for _, tr := range sp.Tracking {
+		rec.Tracking = append(rec.Tracking, trackingRec{tr.Order, tr.SettingFrom, tr.SettingTo, tr.RatioMin, tr.RatioMax, tr.Closest})
+	}
+	rec.ChooseCoil = newChooseCoilRecord(out.CoilPlan)
 	if pl := out.Plan; pl != nil {
 		rec.ChooseTap = &chooseTapRecord{pl.Feasible, pl.TapTurns, float64(pl.Geometry.Pitch), pl.Clearance, append([]string{}, pl.Conflicts...),
 			pl.Tried, pl.Covering, pl.Overlapping, pl.Clean, pl.CoveringOverlapping}

@@ -65,19 +65,105 @@ type SearchOptions struct {
 	// PitchFollows is what sets the pitch on a former as the temperature
 	// changes, for each candidate's temperature coefficients (CandidateTempco).
 	PitchFollows thermal.PitchFollows
+	// A window instead of one inductance: Inductance to InductanceMax.
+	InductanceMax unit.Inductance
+	// A band (BandLow < BandHigh) tuned by Capacitance (fixed) + Stray and
+	// a trimmer TrimMin-TrimMax, TrimmerMargin of its swing free at each
+	// end (0: 10 %).
+	BandLow, BandHigh unit.Frequency
+	TrimMin, TrimMax  unit.Capacitance
+	TrimmerMargin     float64
+	// MinQ is the least Q at the operating frequency (the band centre).
+	MinQ float64
+	// A tapped design: TapRatio (impedance ratio), or TapSource with the
+	// tank's TankImpedance or TankQ (0: the model's) and LoadedQ (0:
+	// matched).
+	TapRatio      float64
+	TapSource     unit.Resistance
+	TankImpedance unit.Resistance
+	TankQ         float64
+	LoadedQ       float64
 }
 
 // Search runs the design search over cat with the options o.
 func Search(cat *forms.Catalog, o *SearchOptions) (design.Result, error) {
-	t, err := searchTarget(o)
+	if o.BandHigh > 0 {
+		return searchBand(cat, o)
+	}
+	oo := *o
+	if o.InductanceMax > 0 {
+		// A window: aim at its middle with its half-width as the tolerance.
+		if !(o.InductanceMax > o.Inductance && o.Inductance > 0) {
+			return design.Result{}, Usagef("--inductance: give the window as MIN-MAX with MIN below MAX, e.g. 90-110nH")
+		}
+		oo.Inductance = (o.Inductance + o.InductanceMax) / 2
+		oo.Tolerance = float64((o.InductanceMax - o.Inductance) / (o.InductanceMax + o.Inductance))
+		if o.Tolerance > 0 {
+			return design.Result{}, Usagef("--tolerance does not apply to an inductance window; the window is the tolerance")
+		}
+	}
+	t, err := searchTarget(&oo)
 	if err != nil {
 		return design.Result{}, err
+	}
+	c, err := searchConstraints(cat, &oo)
+	if err != nil {
+		return design.Result{}, err
+	}
+	top := c.Top
+	if top == 0 {
+		top = design.DefaultTop
+	}
+	if o.MinQ > 0 {
+		c.Top = design.MaxTop
+	}
+	res, err := design.Search(t, c)
+	if err != nil {
+		return res, searchError(err)
+	}
+	if res, err = design.WithMinQ(res, o.MinQ, top); err != nil {
+		return res, searchError(err)
+	}
+	return addTaps(res, o)
+}
+
+// searchBand runs a band design.
+func searchBand(cat *forms.Catalog, o *SearchOptions) (design.Result, error) {
+	switch {
+	case o.Inductance > 0:
+		return design.Result{}, Usagef("--band and --inductance cannot be used together: a band is tuned by --cap and --trimmer")
+	case o.TrimMax == 0:
+		return design.Result{}, Usagef("a band needs a trimmer to tune it: give --trimmer MIN-MAX, e.g. --trimmer 2-10pF (with --cap for the fixed capacitor)")
+	case o.Tolerance > 0:
+		return design.Result{}, Usagef("--tolerance does not apply to a band: the trimmer's range is the tolerance (see --trimmer-margin)")
 	}
 	c, err := searchConstraints(cat, o)
 	if err != nil {
 		return design.Result{}, err
 	}
-	res, err := design.Search(t, c)
+	b := design.BandTarget{Low: o.BandLow, High: o.BandHigh, Fixed: o.Capacitance, Stray: o.Stray, TrimMin: o.TrimMin, TrimMax: o.TrimMax,
+		TrimMargin: o.TrimmerMargin, MinQ: o.MinQ}
+	res, err := design.SearchBand(b, c)
+	if err != nil {
+		return res, searchError(err)
+	}
+	return addTaps(res, o)
+}
+
+// addTaps adds the tap of a tapped design.
+func addTaps(res design.Result, o *SearchOptions) (design.Result, error) {
+	if o.TapRatio == 0 && o.TapSource == 0 {
+		return res, nil
+	}
+	g := design.TapGoalInfo{Ratio: o.TapRatio}
+	if o.TapSource > 0 {
+		g.Load = &coil.LoadGoal{Source: o.TapSource, TankImpedance: o.TankImpedance, TankQ: o.TankQ, LoadedQ: o.LoadedQ}
+	}
+	f := res.Frequency
+	if res.Band != nil {
+		f = res.Band.Centre
+	}
+	res, err := design.AddTaps(res, g, f)
 	if err != nil {
 		return res, searchError(err)
 	}
@@ -335,6 +421,15 @@ func searchCalibrations(cat *forms.Catalog, sups []design.Support, wires []desig
 
 // searchFlags maps coil.InputError parameters to the design flags.
 var searchFlags = map[string]string{
+	"band":            "band",
+	"trimmer":         "trimmer",
+	"trimmer_margin":  "trimmer-margin",
+	"min_q":           "min-q",
+	"tap_ratio":       "tap-ratio",
+	"source":          "tap-impedance",
+	"tank_impedance":  "tank-impedance",
+	"tank_q":          "tank-q",
+	"loaded_q":        "loaded-q",
 	"inductance":      "inductance",
 	"resonance":       "freq",
 	"frequency":       "freq",

@@ -34,6 +34,11 @@ type SpanSettings struct {
 	Margin       float64 // fraction, 0 for tuning.DefaultMargin
 	ChooseTap    bool
 	VaryPitch    bool
+	ChooseCoil   bool    // choose turns, pitch and tap together
+	MinTurns     float64 // for ChooseCoil; 0: 3
+	MaxTurns     float64 // for ChooseCoil; 0: 3 × the coil's turns
+	MaxHarmonic  int     // highest harmonic order checked; 0 for tuning.DefaultMaxHarmonic
+	Bandspread   float64 // least share of the dial per band before a warning; 0 for 3 %
 }
 
 // SpanOutcome is what BuildSpan returns: the span, and with ChooseTap the
@@ -45,6 +50,9 @@ type SpanOutcome struct {
 	// Drift is the ranges' temperature drift at chosen dial settings, when
 	// computed (BuildSpanDrift); nil otherwise.
 	Drift *SpanDrift
+	// CoilPlan is the ChooseCoil plan (nil otherwise); Plan then points
+	// at its tap plan.
+	CoilPlan *tuning.CoilPlan
 }
 
 // GangFromSettings turns the capacitor values into the two sections. A
@@ -97,7 +105,15 @@ func BuildSpan(g coil.Geometry, s SpanSettings) (SpanOutcome, error) {
 	if err != nil {
 		return SpanOutcome{}, err
 	}
-	spec := tuning.Spec{Geometry: g, TapTurns: s.Tap, A: a, B: b, Steps: s.Steps, Bands: s.Bands, LoadedQ: s.LoadedQ, Margin: s.Margin, Mounting: s.Mounting}
+	spec := tuning.Spec{Geometry: g, TapTurns: s.Tap, A: a, B: b, Steps: s.Steps, Bands: s.Bands, LoadedQ: s.LoadedQ, Margin: s.Margin, Mounting: s.Mounting,
+		MaxHarmonic: s.MaxHarmonic, Bandspread: s.Bandspread}
+	if s.ChooseCoil {
+		plan, err := tuning.ChooseCoil(spec, tuning.CoilSearch{MinTurns: s.MinTurns, MaxTurns: s.MaxTurns})
+		if err != nil && !errors.Is(err, coil.ErrInfeasible) {
+			return SpanOutcome{}, spanFlagError(err, s.GangBSet)
+		}
+		return SpanOutcome{Span: plan.Span, Geometry: plan.Geometry, Plan: &plan.TapPlan, CoilPlan: &plan}, err
+	}
 	if s.ChooseTap {
 		plan, err := tuning.ChooseTap(spec, tuning.TapSearch{VaryPitch: s.VaryPitch})
 		if err != nil && !errors.Is(err, coil.ErrInfeasible) {
@@ -126,7 +142,7 @@ func spanFlagError(err error, gangBSet bool) error {
 		"tap_turns": "tap", "gang_a": "gang", "gang_b": gangB, "gang_a_law": "law", "gang_b_law": "law",
 		"gang_a_table": "law", "gang_b_table": "law", "gang_a_trimmer": "trim-a", "gang_b_trimmer": "trim-b",
 		"gang_a_stray": "stray-a", "gang_b_stray": "stray-b", "steps": "steps", "loaded_q": "loaded-q",
-		"margin": "margin", "band": "band",
+		"margin": "margin", "band": "band", "max_harmonic": "max-harmonic", "bandspread": "bandspread", "turns_range": "max-turns",
 	}[ie.Param]
 	if flag == "" {
 		return err
