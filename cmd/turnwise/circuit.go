@@ -247,13 +247,6 @@ func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Wri
 	return report.WriteCircuitTable(stdout, r)
 }
 
-// withFlag names the flag an output error came from.
-func withFlag(flag string, err error) error {
-	if ue, ok := err.(*usageError); ok {
-		return usageErrorf("--%s: %s", flag, ue.Msg)
-	}
-	return fmt.Errorf("--%s: %w", flag, err)
-}
 
 // writeCircuitTouchstone writes the sweep's S parameters.
 func writeCircuitTouchstone(w io.Writer, m *spec.CircuitModel, r *spec.CircuitResult) error {

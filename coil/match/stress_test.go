@@ -37,7 +37,7 @@ func TestSectionStressIsI2R(t *testing.T) {
 			if top.Dissipation < 0 || bot.Dissipation < 0 {
 				t.Fatalf("negative section dissipation: top %g W, bottom %g W", top.Dissipation, bot.Dissipation)
 			}
-			if relErr(top.Dissipation+bot.Dissipation, whole.Dissipation) > 1e-9 { // sum of the sections (implTol)
+			if relErr(top.Dissipation+bot.Dissipation, whole.Dissipation) > implTol { // sum of the sections
 				t.Errorf("sections %g + %g W, whole %g W", top.Dissipation, bot.Dissipation, whole.Dissipation)
 			}
 			// Independent route: the circuit solver on the wound coil.
