@@ -247,7 +247,6 @@ func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Wri
 	return report.WriteCircuitTable(stdout, r)
 }
 
-
 // writeCircuitTouchstone writes the sweep's S parameters.
 func writeCircuitTouchstone(w io.Writer, m *spec.CircuitModel, r *spec.CircuitResult) error {
 	d := touchstone.Data{Ports: r.Ports, Param: touchstone.S, Z0: m.Net.Ports[0].Z0}
