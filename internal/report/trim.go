@@ -146,7 +146,7 @@ func TrimWarnings(res *Trim) []string {
 	for _, f := range res.Findings {
 		w = append(w, findingText(res, f))
 	}
-	return append(w, res.After.Warnings()...)
+	return append(w, res.After.WarningsIn(res.LF)...)
 }
 
 // findingText is one finding in the builder's words.
