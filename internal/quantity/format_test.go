@@ -20,7 +20,7 @@ func TestFormat(t *testing.T) {
 		{"in", LengthFormat{Inches: true}.Format(0.0254), "1.000 in"}, // 1 in = 25.4 mm exactly (1959)
 		{"small in, never mil", LengthFormat{Inches: true}.Format(0.0254e-3 * 5), "0.005 in"},
 		{"8.68 mil in in", LengthFormat{Inches: true}.Format(8.68 * 0.0254e-3), "0.00868 in"}, // 1 mil = 25.4 µm exactly
-		{"size as stated", LengthFormat{}.FormatSize(0.315e-3), "0.315 mm"},                     // IEC 60317 R20 size, forms/data/wire.csv
+		{"size as stated", LengthFormat{}.FormatSize(0.315e-3), "0.315 mm"},                   // IEC 60317 R20 size, forms/data/wire.csv
 		{"size whole", LengthFormat{}.FormatSize(1e-3), "1.00 mm"},
 		{"size 22awg", LengthFormat{}.FormatSize(0.6438e-3), "0.6438 mm"}, // 22 AWG, ASTM B258 (from memory)
 		{"size in", LengthFormat{Inches: true}.FormatSize(0.0254e-3 * 40), "0.040 in"},
