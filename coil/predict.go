@@ -244,7 +244,8 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	p.ProximityFactor = loss.Proximity
 	p.RRadiation = unit.Resistance(loss.RRadiation)
 	p.RAC = unit.Resistance(loss.REff)
-	p.Q, p.QMin, p.QMax = loss.Q, loss.Q*QMinFactor, loss.Q*QMaxFactor
+	p.Q, p.QMin = loss.Q, loss.Q*QMinFactor
+	p.QMax = qMaxCapped(loss.Q, c.QCeiling(&w, helix, srf))
 
 	if f > srf/3 {
 		flags |= FlagNearSRF

@@ -7,8 +7,13 @@ import (
 )
 
 // Warnings words the prediction's flags for a builder, most important
-// first. Informational flags (Wheeler's range) are not included.
-func (p *Prediction) Warnings() []string {
+// first, with lengths in millimetres. Informational flags (Wheeler's range)
+// are not included.
+func (p *Prediction) Warnings() []string { return p.WarningsIn(quantity.LengthFormat{}) }
+
+// WarningsIn is Warnings with lengths in lf's display unit, so that a run
+// in inches never prints a millimetre.
+func (p *Prediction) WarningsIn(lf quantity.LengthFormat) []string {
 	var w []string
 	f := float64(p.Frequency)
 	if p.Flags&FlagNearSRF != 0 {
@@ -17,8 +22,8 @@ func (p *Prediction) Warnings() []string {
 	}
 	if p.Flags&FlagLongWire != 0 {
 		lambda := SpeedOfLight / f
-		w = append(w, fmt.Sprintf("the winding's wire (%.3g m) is longer than a tenth of a wavelength (%.3g m) at %s: the lumped model is only a guide",
-			float64(p.HelixWire), lambda/10, quantity.FormatFrequency(f)))
+		w = append(w, fmt.Sprintf("the winding's wire (%s) is longer than a tenth of a wavelength (%s) at %s: the lumped model is only a guide",
+			lf.Format(float64(p.HelixWire)), lf.Format(lambda/10), quantity.FormatFrequency(f)))
 	}
 	if p.Flags&FlagMedhurstExtrap != 0 {
 		ld := float64(p.SheetLength) / float64(p.MeanDiameter)
@@ -34,12 +39,12 @@ func (p *Prediction) Warnings() []string {
 		w = append(w, fmt.Sprintf("length/diameter %.3g is outside 0.01 … 100: an unusual shape for a single-layer coil; check the geometry", ld))
 	}
 	if p.Flags&FlagSteepPitch != 0 {
-		w = append(w, fmt.Sprintf("pitch %.3g mm is more than an eighth of the coil diameter: the helix departs from the rings the inductance formula assumes (against a helix integral it reads 1 %% low at D/5, 2–13 %% low at D/2); measure and trim",
-			float64(p.Geometry.Pitch)*1e3))
+		w = append(w, fmt.Sprintf("pitch %s is more than an eighth of the coil diameter: the helix departs from the rings the inductance formula assumes (against a helix integral it reads 1 %% low at D/5, 2–13 %% low at D/2); measure and trim",
+			lf.Format(float64(p.Geometry.Pitch))))
 	}
 	if p.Flags&FlagTinned != 0 && f > 0 {
-		w = append(w, fmt.Sprintf("tinned wire: the %.3g µm tin plating (override with --plating) raises RF resistance and Q includes it; silver-plated or bare copper is better at VHF",
-			tinMicrons(p.Geometry)))
+		w = append(w, fmt.Sprintf("tinned wire: the %s tin plating (override with --plating) raises RF resistance and Q includes it; silver-plated or bare copper is better at VHF",
+			lf.Format(tinMicrons(p.Geometry)*1e-6)))
 	}
 	return w
 }

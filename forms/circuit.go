@@ -204,6 +204,9 @@ func LoadCircuit(r io.Reader, name string) (*Circuit, error) {
 		return nil, &ParseError{Kind: "circuit", File: name, Err: fmt.Errorf("larger than %d MiB; is this the right file?", maxCircuitBytes>>20)}
 	}
 	text := string(data)
+	if err := checkShape(text, "circuit", name); err != nil { // nesting before the decoder sees it
+		return nil, err
+	}
 	var doc map[string]any
 	if _, err := toml.Decode(text, &doc); err != nil {
 		var pe toml.ParseError

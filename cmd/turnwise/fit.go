@@ -146,7 +146,7 @@ func runFit(ctx context.Context, opts *fitOptions, stdout, _ io.Writer) error {
 	rec := report.NewFitRecord(opts.file, fx, ld.Corrected, opts.sweep.lead, fit, model)
 	if opts.plot != "" {
 		format, _ := sweepfile.PlotFormat(opts.plot)
-		if err := writeOutput(ctx, "--plot", opts.plot, []string{opts.file, opts.sweep.open, opts.sweep.short}, stdout, func(w io.Writer) error {
+		if err := writeOutput(ctx, "--plot", opts.plot, []string{opts.file, opts.sweep.open, opts.sweep.short, opts.stock.path}, stdout, func(w io.Writer) error {
 			return sweepfile.PlotFit(w, format, opts.file, ld, fit, asWound)
 		}); err != nil {
 			return err

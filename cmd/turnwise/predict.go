@@ -66,6 +66,10 @@ func runPredict(_ context.Context, opts *predictOptions, stdout, stderr io.Write
 		return err
 	}
 	rec := report.NewPredictRecord(s, p)
+	lf := newLengthFormatter(opts.units.v)
+	if !opts.json {
+		rec.Warnings = p.WarningsIn(lf) // the table's length unit on stderr too
+	}
 	var tc report.TempcoRecord
 	pf, _ := thermal.ParsePitchFollows(opts.pitch.v)
 	if c, ok, warn := spec.Tempco(cat, s, p.Frequency, pf); ok {
@@ -78,7 +82,7 @@ func runPredict(_ context.Context, opts *predictOptions, stdout, stderr io.Write
 			return err
 		}
 	} else {
-		if err := report.WritePredictTable(stdout, s, p, rec, newLengthFormatter(opts.units.v)); err != nil {
+		if err := report.WritePredictTable(stdout, s, p, rec, lf); err != nil {
 			return err
 		}
 		if err := report.WriteTempcoTable(stdout, tc); err != nil {

@@ -205,6 +205,10 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 		}
 	}
 	rec := report.NewTapRecord(cs, p, goal, goalKey, target, choices, findErr == nil)
+	if !opts.json {
+		// The model's warnings lead the list: reword them in the table's length unit.
+		copy(rec.Warnings, p.WarningsIn(newLengthFormatter(opts.units.v)))
+	}
 	if goal == coil.GoalImpedanceRatio && !opts.at.set && len(choices) > 0 && math.Abs(choices[0].Error) > coil.TapRatioTolerance {
 		rec.Warnings = append(rec.Warnings, ratioMissAdvice(cs.Geometry, opts.freq.v, target, choices[0].Error))
 	}

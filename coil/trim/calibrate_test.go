@@ -391,7 +391,8 @@ func TestCorrectWindowOverflow(t *testing.T) {
 		want   Action
 	}{
 		{"inside, more", most * 0.98, ActionSqueeze},
-		{"inside, less", least * 1.02, ActionSpread},
+		{"inside, less", least * 1.10, ActionSpread},
+		{"inside, at the loose end (WindowMargin)", least * 1.02, ActionRemoveTurns},
 		{"above close-wound", most * 1.15, ActionAddTurns},
 		{"below loosest", least * 0.85, ActionRemoveTurns},
 		{"far above", most * 3, ActionAddTurns},

@@ -110,6 +110,11 @@ func Correct(g coil.Geometry, t Target, opt CorrectOptions) (Correction, error) 
 		if err != nil {
 			return c, err
 		}
+		if alt, ok := marginTurns(g, t, opt, c.Geometry); ok {
+			c.set(alt.Geometry, alt.LengthStep)
+			c.After, c.Action = alt.After, ActionRemoveTurns
+			break
+		}
 		switch {
 		case c.LengthAfter < c.LengthBefore:
 			c.Action = ActionSqueeze
@@ -142,6 +147,49 @@ func Correct(g coil.Geometry, t Target, opt CorrectOptions) (Correction, error) 
 		c.LengthPerPercent = dl
 	}
 	return c, nil
+}
+
+// WindowMargin is the rule for a spread: a final pitch within this
+// fraction of the window's width (close-wound … LoosestPitchFactor·d_o)
+// of its loose end sits where the turns barely hold and a small slip
+// leaves the window, so removing a quarter turn and spreading into the
+// middle of the window is preferred when that reaches the target with the
+// pitch at least WindowMargin from both ends. The close-wound end needs no
+// margin: pushing the turns together is an exact, easy setting (common
+// practice).
+const WindowMargin = 0.10
+
+// windowPlace is where pitch p sits in g's window: 0 close-wound, 1 at the
+// loosest pitch.
+func windowPlace(g coil.Geometry, p float64) float64 {
+	tight, loose := windowPitches(g)
+	if loose <= tight {
+		return 0
+	}
+	return (p - tight) / (loose - tight)
+}
+
+// marginTurns is the WindowMargin rule: when spread, the corrected coil
+// got sits within the margin of the window's loose end, the same coil with
+// a quarter turn less, spread to the target, if that lands inside the
+// margins and within the tolerance.
+func marginTurns(g coil.Geometry, t Target, opt CorrectOptions, got coil.Geometry) (Correction, bool) {
+	var c Correction
+	if got.Pitch <= g.Pitch || windowPlace(g, float64(got.Pitch)) <= 1-WindowMargin || g.Turns < 1.25 {
+		return c, false
+	}
+	h := rewound(g, g.Turns-0.25)
+	ng, step := solvePitch(h, t, opt)
+	if x := windowPlace(h, float64(ng.Pitch)); x < WindowMargin || x > 1-WindowMargin {
+		return c, false
+	}
+	v, err := t.Of(ng)
+	if err != nil || math.Abs(float64(v)/float64(t.Inductance)-1) > math.Max(opt.Tolerance, 0.005) {
+		return c, false
+	}
+	c.set(ng, step)
+	c.After = v
+	return c, true
 }
 
 // set records the corrected geometry and the length step it was rounded to.

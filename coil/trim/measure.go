@@ -146,6 +146,11 @@ type Reading struct {
 	// uncertainty in farads.
 	TotalStray            unit.Capacitance
 	TotalStrayUncertainty unit.Capacitance
+	// StrayUncertaintyOnePercent and UncertaintyOnePercent (two-capacitor
+	// method, when TotalStrayUncertainty exceeds |TotalStray|) are what
+	// 1 % capacitors would give from the same readings; zero otherwise.
+	StrayUncertaintyOnePercent unit.Capacitance
+	UncertaintyOnePercent      float64
 	// FitResidual (MeasureTwoCapacitor, three or more resonances) is the
 	// rms relative deviation of the resonances from the fitted line.
 	FitResidual float64
@@ -314,23 +319,7 @@ func (m *Measurement) reduceLine() (Reading, error) {
 	// a small relative step) times its tolerance, added root-sum-square as
 	// independent errors. A step of a whole tolerance would give a secant
 	// instead, several percent low for a 5 % capacitor.
-	const step = 1e-6
-	var varL, varC0 float64
-	work := slices.Clone(rs)
-	add := func(i int, sigmaPerStep float64) {
-		l1, c1, _ := fitLine(work)
-		varL += sq((l1 - l) * sigmaPerStep)
-		varC0 += sq((c1 - c0) * sigmaPerStep)
-		work[i] = rs[i]
-	}
-	for i, r := range rs {
-		c := float64(r.Capacitance)
-		work[i].Capacitance = r.Capacitance * (1 + step)
-		add(i, m.capSigma(c)/(step*c))
-		work[i].Frequency = r.Frequency * (1 + step)
-		add(i, m.FrequencyTolerance/step)
-	}
-	uC0, uL := math.Sqrt(varC0), math.Sqrt(varL)/l
+	uC0, uL := m.lineSigma(rs, l, c0)
 	if uL > maxLineUncertainty {
 		return Reading{}, inputErrorf("resonance", "the readings cannot fix L: ±%.0f %% from the capacitor and frequency tolerances; use capacitors further apart (ideally 1:4) or closer tolerances (--cap-tol)", uL*100)
 	}
@@ -347,16 +336,57 @@ func (m *Measurement) reduceLine() (Reading, error) {
 	for _, r := range rs {
 		logSum += math.Log(float64(r.Frequency))
 	}
+	// When the tolerances swamp the stray itself, say what 1 % capacitors
+	// (a common class) would give from the same readings.
+	var uC1, uL1 float64
+	if uC0 > math.Abs(c0) && (m.CapacitorTolerance > OnePercent || m.CapacitorToleranceAbs > 0) {
+		m1 := *m
+		m1.CapacitorTolerance, m1.CapacitorToleranceAbs = OnePercent, 0
+		uC1, uL1 = m1.lineSigma(rs, l, c0)
+	}
 	return Reading{
-		Kind:                  MeasureTwoCapacitor,
-		Inductance:            unit.Inductance(l),
-		Uncertainty:           uL,
-		Frequency:             unit.Frequency(math.Exp(logSum / float64(len(rs)))),
-		Effective:             false,
-		TotalStray:            unit.Capacitance(c0),
-		TotalStrayUncertainty: unit.Capacitance(uC0),
-		FitResidual:           resid,
+		StrayUncertaintyOnePercent: unit.Capacitance(uC1),
+		UncertaintyOnePercent:      uL1,
+		Kind:                       MeasureTwoCapacitor,
+		Inductance:                 unit.Inductance(l),
+		Uncertainty:                uL,
+		Frequency:                  unit.Frequency(math.Exp(logSum / float64(len(rs)))),
+		Effective:                  false,
+		TotalStray:                 unit.Capacitance(c0),
+		TotalStrayUncertainty:      unit.Capacitance(uC0),
+		FitResidual:                resid,
 	}, nil
+}
+
+// OnePercent is the capacitor tolerance the two-capacitor method's advice
+// computes with when the given tolerance cannot fix the stray: 1 % silver
+// mica and C0G parts are common stock (common practice).
+const OnePercent = 0.01
+
+// lineSigma propagates the capacitor and frequency tolerances through the
+// two-capacitor line fitted to rs (l, c0): first-order, each input's
+// sensitivity (from a small relative step) times its tolerance, added
+// root-sum-square as independent errors. A step of a whole tolerance would
+// give a secant instead, several percent low for a 5 % capacitor. It
+// returns the stray's standard uncertainty (F) and L's relative one.
+func (m *Measurement) lineSigma(rs []Resonance, l, c0 float64) (uC0, uL float64) {
+	const step = 1e-6
+	var varL, varC0 float64
+	work := slices.Clone(rs)
+	add := func(i int, sigmaPerStep float64) {
+		l1, c1, _ := fitLine(work)
+		varL += sq((l1 - l) * sigmaPerStep)
+		varC0 += sq((c1 - c0) * sigmaPerStep)
+		work[i] = rs[i]
+	}
+	for i, r := range rs {
+		c := float64(r.Capacitance)
+		work[i].Capacitance = r.Capacitance * (1 + step)
+		add(i, m.capSigma(c)/(step*c))
+		work[i].Frequency = r.Frequency * (1 + step)
+		add(i, m.FrequencyTolerance/step)
+	}
+	return math.Sqrt(varC0), math.Sqrt(varL) / l
 }
 
 // maxLineUncertainty is the largest relative uncertainty of L from the

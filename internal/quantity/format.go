@@ -3,6 +3,8 @@ package quantity
 import (
 	"fmt"
 	"math"
+	"strconv"
+	"strings"
 )
 
 // Printing quantities is the mirror of parsing them: the command tables and
@@ -47,26 +49,62 @@ func FormatCapacitance(c float64) string {
 // value) or inches.
 type LengthFormat struct{ Inches bool }
 
-// Format prints a length in metres: mm with two decimals (µm below 0.1 mm,
-// m from 1 m), or inches with three (one from 10 in, mil below 0.01 in).
+// Format prints a length in metres in the run's one display unit: mm with
+// two decimals (three significant figures below 0.1 mm, e.g. "0.0759 mm";
+// m from 1 m), or inches with three decimals (three significant figures
+// below 0.01 in, e.g. "0.00868 in"; one decimal from 10 in). A run never
+// mixes in µm or mil.
 func (f LengthFormat) Format(m float64) string {
 	if f.Inches {
 		in := m / Inch
 		switch {
 		case in != 0 && math.Abs(in) < 0.01:
-			return fmt.Sprintf("%.2f mil", in*1000)
+			return smallFixed(in) + " in"
 		case math.Abs(in) >= 10:
 			return fmt.Sprintf("%.1f in", in)
 		}
 		return fmt.Sprintf("%.3f in", in)
 	}
 	if m != 0 && math.Abs(m) < 0.1e-3 {
-		return fmt.Sprintf("%.1f µm", m*1e6)
+		return smallFixed(m*1e3) + " mm"
 	}
 	if math.Abs(m) >= 1 {
 		return fmt.Sprintf("%.3f m", m)
 	}
 	return fmt.Sprintf("%.2f mm", m*1e3)
+}
+
+// smallFixed prints |v| < 0.1 to three significant figures in fixed
+// notation (never an exponent), trailing zeros dropped: 0.0759, 0.001.
+func smallFixed(v float64) string {
+	dec := 2 - int(math.Floor(math.Log10(math.Abs(v))))
+	if dec > 12 {
+		dec = 12
+	}
+	s := strings.TrimRight(strconv.FormatFloat(v, 'f', dec, 64), "0")
+	return strings.TrimSuffix(s, ".")
+}
+
+// FormatSize prints a stock size (a wire's or a rod's diameter) with every
+// digit it was given, up to 0.1 µm or 0.00001 in: "0.315 mm", not
+// "0.32 mm"; at least Format's decimals ("1.00 mm", "0.040 in").
+func (f LengthFormat) FormatSize(m float64) string {
+	v, minDec, maxDec, sym := m*1e3, 2, 4, " mm"
+	if f.Inches {
+		v, minDec, maxDec, sym = m/Inch, 3, 5, " in"
+	}
+	if v == 0 || math.Abs(v) >= 1000 {
+		return f.Format(m)
+	}
+	s := strconv.FormatFloat(v, 'f', maxDec, 64)
+	if i := strings.IndexByte(s, '.'); i >= 0 {
+		keep := len(s)
+		for keep > i+1+minDec && s[keep-1] == '0' {
+			keep--
+		}
+		s = s[:keep]
+	}
+	return s + sym
 }
 
 // FormatTurns prints quarter turns as a builder says them: 5, 5¼, 5½, 5¾,

@@ -237,7 +237,7 @@ func writeDesignCandidate(w io.Writer, cat *forms.Catalog, so *spec.SearchOption
 	if line := designTempcoLine(cat, so, cs, c); line != "" {
 		fmt.Fprintf(w, "    %s\n", line)
 	}
-	writeBandTapLines(w, c, res)
+	writeBandTapLines(w, c, res, lf)
 	fmt.Fprintf(w, "    why: %s\n", c.Why)
 }
 

@@ -99,7 +99,7 @@ func NewLoadPlanRecord(p coil.LoadPlan) *LoadPlanRecord {
 }
 
 // WriteLoadPlanLines prints a tap plan, each line indented by indent.
-func WriteLoadPlanLines(w io.Writer, p coil.LoadPlan, indent string) {
+func WriteLoadPlanLines(w io.Writer, p coil.LoadPlan, indent string, lf quantity.LengthFormat) {
 	if p.TankQ > 0 {
 		fmt.Fprintf(w, "%stank: X %s, unloaded Q %.0f (R_p %s); wanted loaded Q %.0f: impedance ratio %.4g (1:%.0f) by the rule Q_L = (R_p ∥ R_s/n²)/X\n",
 			indent, quantity.FormatEng(float64(p.X), "Ω", 3), p.TankQ, quantity.FormatEng(float64(p.TankR), "Ω", 3), p.WantLoadedQ, p.WantRatio, 1/p.WantRatio)
@@ -125,14 +125,14 @@ func WriteLoadPlanLines(w io.Writer, p coil.LoadPlan, indent string) {
 	if l := p.Link; l != nil {
 		where := "close-wound over the cold end"
 		if l.Offset > 0 {
-			where = fmt.Sprintf("%s beyond the cold end's turn, along the axis", quantity.FormatEng(float64(l.Offset), "m", 3))
+			where = fmt.Sprintf("%s beyond the cold end's turn, along the axis", lf.Format(float64(l.Offset)))
 		}
 		turns := fmt.Sprintf("%g turns", l.Turns)
 		if l.Turns == 1 {
 			turns = "1 turn"
 		}
 		s := fmt.Sprintf("%s  link: %s of insulated wire %s (%s across), M %s, k %.3f: loaded Q %.0f, bandwidth %s",
-			indent, turns, where, quantity.FormatEng(float64(l.Diameter), "m", 3), quantity.FormatEng(float64(l.M), "H", 3), l.K, l.LoadedQ, quantity.FormatEng(float64(l.Bandwidth), "Hz", 3))
+			indent, turns, where, lf.Format(float64(l.Diameter)), quantity.FormatEng(float64(l.M), "H", 3), l.K, l.LoadedQ, quantity.FormatEng(float64(l.Bandwidth), "Hz", 3))
 		if l.SeriesCap > 0 {
 			s += fmt.Sprintf("; put %s in series with the link to tune out its reactance", quantity.FormatCapacitance(float64(l.SeriesCap)))
 		}
@@ -149,7 +149,7 @@ func WriteLoadPlanLines(w io.Writer, p coil.LoadPlan, indent string) {
 }
 
 // writeBandTapLines prints a candidate's trimmer settings and tap.
-func writeBandTapLines(w io.Writer, c design.Candidate, res design.Result) {
+func writeBandTapLines(w io.Writer, c design.Candidate, res design.Result, lf quantity.LengthFormat) {
 	if b := c.Band; b != nil && res.Band != nil {
 		t := res.Band.Target
 		fmt.Fprintf(w, "    trimmer: %s at %s, %s at %s (range %s–%s; %.0f %% and %.0f %% of its swing left at the ends)\n",
@@ -158,7 +158,7 @@ func writeBandTapLines(w io.Writer, c design.Candidate, res design.Result) {
 			quantity.FormatCapacitance(float64(t.TrimMin)), quantity.FormatCapacitance(float64(t.TrimMax)), b.MarginLow*100, b.MarginHigh*100)
 	}
 	if tp := c.Tapped; tp != nil {
-		WriteLoadPlanLines(w, tp.Plan, "    ")
+		WriteLoadPlanLines(w, tp.Plan, "    ", lf)
 	}
 }
 

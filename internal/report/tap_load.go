@@ -44,7 +44,7 @@ func WriteTapLoadTable(w io.Writer, s spec.Spec, p coil.Prediction, source float
 	fmt.Fprintf(w, "%s turns of %s on %s, pitch %s: %s effective at %s\n", quantity.FormatTurns(g.Turns), spec.DescribeWire(s, lf), s.SupportName,
 		lf.Format(float64(g.Pitch)), quantity.FormatEng(float64(p.InductanceEffective), "H", 3), quantity.FormatEng(float64(plan.Frequency), "Hz", 4))
 	fmt.Fprintf(w, "LOAD  %s at the tap\n", quantity.FormatEng(source, "Ω", 3))
-	WriteLoadPlanLines(w, plan, "  ")
+	WriteLoadPlanLines(w, plan, "  ", lf)
 	fmt.Fprintf(w, "RULE  %s\n", LoadRule)
 	fmt.Fprintln(w, "Caution: a tank driven by a transmitter carries high RF voltage at its hot end; follow local regulations and licensed practice.")
 	return nil

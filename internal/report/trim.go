@@ -79,6 +79,12 @@ func expectText(res *Trim) string {
 	return after
 }
 
+// ActionWords says a correction in words for the table ("remove turns",
+// not the JSON token remove_turns).
+func ActionWords(a trim.Action) string {
+	return strings.ReplaceAll(a.String(), "_", " ")
+}
+
 // TrimInstruction is the one clear sentence a builder acts on.
 func TrimInstruction(res *Trim) string {
 	c := res.Correction
@@ -146,7 +152,7 @@ func TrimWarnings(res *Trim) []string {
 	for _, f := range res.Findings {
 		w = append(w, findingText(res, f))
 	}
-	return append(w, res.After.Warnings()...)
+	return append(w, res.After.WarningsIn(res.LF)...)
 }
 
 // findingText is one finding in the builder's words.
@@ -260,6 +266,10 @@ func WriteTrimTable(w io.Writer, res *Trim) error {
 	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", quantity.FormatEng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
 	if r.Kind == trim.MeasureTwoCapacitor {
 		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", signedFarads(float64(r.TotalStray)), quantity.FormatCapacitance(float64(r.TotalStrayUncertainty))))
+		if u1 := r.StrayUncertaintyOnePercent; u1 > 0 {
+			row("", fmt.Sprintf("the capacitor tolerance swamps it: the uncertainty is larger than the value; 1 %% capacitors would give ± %s (and L ± %.1f %%) from the same readings",
+				quantity.FormatCapacitance(float64(u1)), r.UncertaintyOnePercent*100))
+		}
 		sc := fmt.Sprintf("model %s (equivalent, from the helical-line SRF)", quantity.FormatCapacitance(float64(cal.SelfCapacitance)))
 		if ct := cal.SelfCapacitanceAtTerminals; res.SelfCapacitanceThroughLeads {
 			// Long leads: the line sees the self-capacitance through them.
@@ -304,7 +314,7 @@ func WriteTrimTable(w io.Writer, res *Trim) error {
 	case trim.ActionNone:
 		row("action", "none")
 	default:
-		row("action", c.Action.String())
+		row("action", ActionWords(c.Action))
 		if ng.Turns != g.Turns {
 			row("turns", fmt.Sprintf("%s, was %s", quantity.FormatTurns(ng.Turns), quantity.FormatTurns(g.Turns)))
 		}

@@ -27,7 +27,7 @@ func DescribeWire(s Spec, lf quantity.LengthFormat) string {
 	w := s.Wire
 	desc := w.Name
 	if w.Origin == "command line" || desc == "" {
-		desc = lf.Format(float64(w.Bare))
+		desc = lf.FormatSize(float64(w.Bare)) // every digit the user gave: 0.315 mm, not 0.32 mm
 	}
 	cond := s.Geometry.Conductor.String()
 	named := strings.Contains(strings.ToLower(desc), cond)
@@ -151,7 +151,7 @@ func NewSheetCoil(spec Spec, p coil.Prediction, lf quantity.LengthFormat) sheets
 		SpringbackNote:   spec.SpringbackNote,
 		CloseWound:       spec.PitchSource == "close-wound" || closeWound(p.Geometry),
 		Prediction:       p,
-		Warnings:         p.Warnings(),
+		Warnings:         p.WarningsIn(lf),
 	}
 	if p.Frequency > 0 {
 		if p0, err := coil.Predict(p.Geometry, 0); err == nil {

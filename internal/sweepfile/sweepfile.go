@@ -2,7 +2,10 @@ package sweepfile
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
+	"io"
+	"io/fs"
 	"os"
 
 	"turnwise/coil"
@@ -55,10 +58,34 @@ func Load(f Files) (Loaded, error) {
 	return out, nil
 }
 
+// MaxSweepBytes is the largest Touchstone file read: 64 MiB, far above a
+// sweep of touchstone.MaxLines points, checked before reading it whole.
+const MaxSweepBytes = 64 << 20
+
+// readLimited reads name, refusing a file above MaxSweepBytes.
+func readLimited(name string) ([]byte, error) {
+	f, err := os.Open(name)
+	if errors.Is(err, fs.ErrNotExist) {
+		return nil, &coil.InputError{Param: "sweep", Reason: fmt.Sprintf("sweep file %q does not exist; check the path (demos are in testdata/sweep/)", name)}
+	}
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	b, err := io.ReadAll(io.LimitReader(f, MaxSweepBytes+1))
+	if err != nil {
+		return nil, err
+	}
+	if len(b) > MaxSweepBytes {
+		return nil, fmt.Errorf("%s: larger than the %d MiB limit for a sweep file; is this the right file?", name, MaxSweepBytes>>20)
+	}
+	return b, nil
+}
+
 // ReadImpedance reads one Touchstone file (the port count from its
 // extension) and converts it with the fixture.
 func ReadImpedance(name string, fx sweep.Fixture) ([]sweep.Point, touchstone.Data, error) {
-	b, err := os.ReadFile(name)
+	b, err := readLimited(name)
 	if err != nil {
 		return nil, touchstone.Data{}, err
 	}
