@@ -14,6 +14,7 @@ import (
 
 	"turnwise/coil"
 	"turnwise/forms"
+	"turnwise/internal/report"
 	"turnwise/internal/spec"
 	"turnwise/sheets"
 )
@@ -260,7 +261,7 @@ func sheetDocumentOf(opts *sheetOptions, inputs *[]string) (sheets.Document, []s
 			doc.Circuits = append(doc.Circuits, *c)
 		}
 		if job.Coupler != nil {
-			cp, w, err := couplerSheetPage(job, opts.stock, opts.stockGiven)
+			cp, w, err := report.CouplerSheetPage(context.Background(), job, opts.stock.path, opts.stock.use.v, opts.stockGiven)
 			if err != nil {
 				return doc, nil, err
 			}
