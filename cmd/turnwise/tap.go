@@ -2,17 +2,13 @@ package main
 
 import (
 	"context"
-	"errors"
-	"fmt"
 	"io"
 	"math"
-	"strconv"
 	"strings"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
+	"turnwise/internal/spec"
 
 	"github.com/spf13/cobra"
-	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
 )
@@ -28,48 +24,12 @@ type ratioFlag struct {
 func (f *ratioFlag) String() string { return f.raw }
 func (f *ratioFlag) Type() string   { return "ratio" }
 func (f *ratioFlag) Set(s string) error {
-	v, err := parseRatio(s)
+	v, err := spec.ParseRatio(s)
 	if err != nil {
 		return err
 	}
 	f.raw, f.v, f.set = s, v, true
 	return nil
-}
-
-// parseRatio reads "0.2", "20%" or "1:5" (the first number over the second).
-func parseRatio(s string) (float64, error) {
-	t := strings.TrimSpace(s)
-	bad := fmt.Errorf("%q is not a ratio; write 0.2, 20%% or 1:5", s)
-	var v float64
-	switch {
-	case strings.Contains(t, ":"):
-		a, b, _ := strings.Cut(t, ":")
-		x, err1 := strconv.ParseFloat(strings.TrimSpace(a), 64)
-		y, err2 := strconv.ParseFloat(strings.TrimSpace(b), 64)
-		if err1 != nil || err2 != nil || y == 0 {
-			return 0, bad
-		}
-		v = x / y
-	case strings.HasSuffix(t, "%"):
-		p, err := quantity.ParsePercent(t)
-		if err != nil {
-			return 0, bad
-		}
-		v = p
-	default:
-		x, err := strconv.ParseFloat(t, 64)
-		if err != nil {
-			return 0, bad
-		}
-		v = x
-	}
-	if a, b, ok := strings.Cut(t, ":"); ok && v > 1 && !math.IsInf(v, 0) {
-		return 0, fmt.Errorf("%q: a tap ratio is the part over the whole, so it must be below 1; did you mean %s:%s?", s, strings.TrimSpace(b), strings.TrimSpace(a))
-	}
-	if math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 || v >= 1 {
-		return 0, fmt.Errorf("%q: a tap ratio must be between 0 and 1 (the tap sees part of the whole coil), e.g. 0.2 or 1:5", s)
-	}
-	return v, nil
 }
 
 // tapOptions holds everything `turnwise tap` needs; no cobra types.
@@ -177,37 +137,16 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 	if err != nil {
 		return err
 	}
-	g := cs.Geometry
-	var goal coil.TapGoal
-	var target float64
-	goalKey, goalFlag := "at", "at"
-	switch {
-	case opts.ratio.set:
-		goal, target, goalKey, goalFlag = coil.GoalVoltageRatio, opts.ratio.v, "voltage_ratio", "ratio"
-	case opts.impedance.set:
-		goal, target, goalKey, goalFlag = coil.GoalImpedanceRatio, opts.impedance.v, "impedance_ratio", "impedance-ratio"
-	case opts.bottomL.set:
-		goal, target, goalKey, goalFlag = coil.GoalBottomInductance, float64(opts.bottomL.v), "bottom_inductance", "bottom-l"
+	pl, err := spec.PlanTap(cs.Geometry, opts.freq.v, spec.TapGoalInput{
+		Ratio: opts.ratio.v, ImpedanceRatio: opts.impedance.v, BottomL: opts.bottomL.v, At: opts.at.v,
+		RatioSet: opts.ratio.set, ImpedanceSet: opts.impedance.set, BottomLSet: opts.bottomL.set, AtSet: opts.at.set,
+	})
+	if err != nil {
+		return err
 	}
-	var choices []coil.TapChoice
-	var findErr error
-	if opts.at.set {
-		s, err := coil.Tap(g, opts.at.v, opts.freq.v)
-		if err != nil {
-			return tapFlagError(err, goalFlag)
-		}
-		target = opts.at.v
-		choices = []coil.TapChoice{{Sections: s}}
-	} else {
-		choices, findErr = coil.FindTap(g, opts.freq.v, goal, target)
-		if findErr != nil && len(choices) == 0 {
-			return tapFlagError(findErr, goalFlag)
-		}
-	}
-	rec := report.NewTapRecord(cs, p, goal, goalKey, target, choices, findErr == nil)
-	if goal == coil.GoalImpedanceRatio && !opts.at.set && len(choices) > 0 && math.Abs(choices[0].Error) > coil.TapRatioTolerance {
-		rec.Warnings = append(rec.Warnings, ratioMissAdvice(cs.Geometry, opts.freq.v, target, choices[0].Error))
-	}
+	goal, goalKey, target, choices := pl.Goal, pl.GoalKey, pl.Target, pl.Choices
+	rec := report.NewTapRecord(cs, p, goal, goalKey, target, choices, pl.Found == nil)
+	rec.Warnings = append(rec.Warnings, pl.Advice...)
 	if opts.json {
 		if err := report.WriteTapJSON(stdout, rec); err != nil {
 			return err
@@ -216,7 +155,7 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 		return err
 	}
 	printWarnings(stderr, rec.Warnings)
-	return findErr
+	return pl.Found
 }
 
 // runTapLoad finds the tap (or link, or divider) for a resistance at the
@@ -246,14 +185,7 @@ func runTapLoad(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) e
 	}
 	plan, err := coil.TapForLoad(cs.Geometry, coil.LoadGoal{Frequency: opts.freq.v, Source: r.v, TankImpedance: opts.tankR.v, TankQ: opts.tankQ, LoadedQ: opts.loadedQ})
 	if err != nil {
-		var ie *coil.InputError
-		if errors.As(err, &ie) {
-			flag := map[string]string{"loaded_q": "loaded-q", "tank_q": "tank-q", "tank_impedance": "tank-impedance", "frequency": "freq", "source": "source"}[ie.Param]
-			if flag != "" {
-				return &flagError{Flag: flag, Err: err}
-			}
-		}
-		return err
+		return spec.TapLoadError(err)
 	}
 	warnings := plan.Advice()
 	if opts.json {
@@ -262,44 +194,6 @@ func runTapLoad(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) e
 	if err := report.WriteTapLoadTable(stdout, cs, p, float64(r.v), plan, newLengthFormatter(opts.units.v)); err != nil {
 		return err
 	}
-	for _, w := range warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, warnings)
 	return nil
-}
-
-// ratioMissAdvice says what to use when no quarter-turn tap is within
-// ±10 % of an impedance ratio: a capacitive divider (with the values, at
-// a frequency) or a link winding (sized by --source).
-func ratioMissAdvice(g coil.Geometry, f unit.Frequency, ratio, miss float64) string {
-	msg := fmt.Sprintf("no quarter-turn tap is within ±%.0f %% of the impedance ratio %.4g (the nearest misses by %+.0f %%): use a link winding over the cold end (run with --source 50ohm and --freq to size it) or a capacitive divider",
-		coil.TapRatioTolerance*100, ratio, miss*100)
-	if f > 0 {
-		if p, err := coil.Predict(g, f); err == nil && p.InductanceEffective > 0 {
-			w := 2 * math.Pi * float64(f)
-			c := 1 / (w * w * float64(p.InductanceEffective))
-			n := math.Sqrt(ratio)
-			msg += fmt.Sprintf(": the tank's %s as %s (top to tap node) in series with %s (tap node to ground)",
-				quantity.FormatCapacitance(c), quantity.FormatCapacitance(c/(1-n)), quantity.FormatCapacitance(c/n))
-		}
-	}
-	return msg
-}
-
-// tapFlagError names the flag of a tap error; goalFlag is the flag that
-// gave the target.
-func tapFlagError(err error, goalFlag string) error {
-	var ie *coil.InputError
-	if !errors.As(err, &ie) {
-		return err
-	}
-	switch ie.Param {
-	case "tap_turns":
-		return &flagError{Flag: "at", Err: err}
-	case "frequency":
-		return &flagError{Flag: "freq", Err: err}
-	case "target":
-		return &flagError{Flag: goalFlag, Err: err}
-	}
-	return err
 }
