@@ -2,32 +2,12 @@ package main
 
 import (
 	"fmt"
-	"strconv"
-	"strings"
 	"turnwise/coil"
 	"turnwise/forms"
 	"turnwise/internal/spec"
 
 	"github.com/spf13/pflag"
 )
-
-// turnsFlag takes a number of turns in quarter steps ("5", "5.25").
-type turnsFlag struct {
-	raw string
-	v   float64
-	set bool
-}
-
-func (f *turnsFlag) String() string { return f.raw }
-func (f *turnsFlag) Type() string   { return "turns" }
-func (f *turnsFlag) Set(s string) error {
-	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-	if err != nil || !(v == v) || v > 1e9 || v < -1e9 {
-		return fmt.Errorf("%q is not a number of turns; use e.g. 5 or 5.25 (quarter turns)", s)
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
 
 // coilOptions are the flags that describe one wound coil; predict, sheet,
 // tap, span and trim share them.

@@ -22,23 +22,6 @@ import (
 // short mount on a board or tag strip (common practice). A warning says so.
 const defaultDesignLeads unit.Length = 10e-3
 
-// wireSizeFlag takes a bare diameter or a gauge (--min-wire, --max-wire).
-type wireSizeFlag struct {
-	raw string
-	v   unit.Length
-}
-
-func (f *wireSizeFlag) String() string { return f.raw }
-func (f *wireSizeFlag) Type() string   { return "diameter|gauge" }
-func (f *wireSizeFlag) Set(s string) error {
-	v, err := spec.ParseWireSize(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v = s, v
-	return nil
-}
-
 // designFreqFlag takes one frequency, or a band LOW-HIGH.
 type designFreqFlag struct {
 	raw    string

@@ -12,28 +12,9 @@ import (
 	"github.com/spf13/cobra"
 
 	"turnwise/coil/match"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 )
-
-// powerFlag is a power with a unit, e.g. 100W.
-type powerFlag struct {
-	raw string
-	v   float64
-	set bool
-}
-
-func (f *powerFlag) String() string { return f.raw }
-func (f *powerFlag) Type() string   { return "power" }
-func (f *powerFlag) Set(s string) error {
-	v, err := quantity.ParsePower(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
 
 // matchOptions holds everything `turnwise match` needs; no cobra types.
 type matchOptions struct {

@@ -13,25 +13,6 @@ import (
 	"turnwise/coil"
 )
 
-// ratioFlag takes a ratio as a fraction (0.2), a percentage (20%) or
-// "1:5".
-type ratioFlag struct {
-	raw string
-	v   float64
-	set bool
-}
-
-func (f *ratioFlag) String() string { return f.raw }
-func (f *ratioFlag) Type() string   { return "ratio" }
-func (f *ratioFlag) Set(s string) error {
-	v, err := spec.ParseRatio(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
-
 // tapOptions holds everything `turnwise tap` needs; no cobra types.
 type tapOptions struct {
 	coil      coilOptions

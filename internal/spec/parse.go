@@ -86,3 +86,10 @@ func ParseResistance(s string) (unit.Resistance, error) {
 	}
 	return unit.Resistance(v), nil
 }
+
+// Given is how a flag was given: as typed (Raw, for messages) and whether
+// at all (Set).
+type Given struct {
+	Raw string
+	Set bool
+}
