@@ -3,7 +3,6 @@ package main
 import (
 	"context"
 	"io"
-	"math"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -18,10 +17,6 @@ import (
 	"turnwise/internal/spec"
 )
 
-// defaultDesignLeads is assumed when --leads is not given: 10 mm each, a
-// short mount on a board or tag strip (common practice). A warning says so.
-const defaultDesignLeads unit.Length = 10e-3
-
 // designFreqFlag takes one frequency, or a band LOW-HIGH.
 type designFreqFlag struct {
 	raw    string
@@ -31,6 +26,9 @@ type designFreqFlag struct {
 	isBand bool
 }
 
+func (f *designFreqFlag) bandGiven() spec.BandGiven {
+	return spec.BandGiven{Given: spec.Given{Raw: f.raw, Set: f.set}, IsBand: f.isBand, Lo: f.lo, Hi: f.hi}
+}
 func (f *designFreqFlag) String() string { return f.raw }
 func (f *designFreqFlag) Type() string   { return "frequency|band" }
 func (f *designFreqFlag) Set(s string) error {
@@ -238,7 +236,6 @@ from 0.2 mm to 4.2 mm (common practice).
 
 // searchOptions turns the flags into the glue's options.
 func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []string, error) {
-	var notes []string
 	so := &spec.SearchOptions{
 		Inductance:    o.inductance.v,
 		InductanceMax: o.inductance.max,
@@ -271,83 +268,19 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 		Top:           o.top,
 		FreeDiameter:  o.freeDiameter,
 	}
-	for _, l := range []struct {
-		name string
-		f    lengthFlag
-		eg   string
-	}{{"max-length", o.maxLength, "15mm"}, {"max-diameter", o.maxDiameter, "20mm"}, {"max-wire-length", o.maxWireLength, "1m"}} {
-		if l.f.set && !(l.f.v > 0) {
-			return nil, nil, usageErrorf("--%s %s: a limit must be a positive length, e.g. --%s %s (leave the flag out for no limit)", l.name, l.f.raw, l.name, l.eg)
-		}
-	}
 	so.PitchFollows, _ = thermal.ParsePitchFollows(o.pitch.v)
-	switch {
-	case o.top < 1 || o.top > design.MaxTop:
-		return nil, nil, usageErrorf("--top %d: give a number from 1 to %d", o.top, design.MaxTop)
-	case o.tolerance.set && !(o.tolerance.v > 0):
-		return nil, nil, usageErrorf("--tolerance %s: give a positive percentage, e.g. 2%%", o.tolerance.raw)
-	case o.trimMargin.set && !(o.trimMargin.v > 0):
-		return nil, nil, usageErrorf("--trim-margin %s: give a positive percentage, e.g. 5%%", o.trimMargin.raw)
-	case math.IsNaN(o.minSRFRatio) || math.IsInf(o.minSRFRatio, 0) || srfGiven && o.minSRFRatio == 0:
-		return nil, nil, usageErrorf("--min-srf-ratio %g: give a ratio from 1.2 to 100, such as 3 (common practice)", o.minSRFRatio)
-	}
-	if srfGiven {
-		so.MinSRFRatio = o.minSRFRatio
-	}
-	band := o.band
-	if o.freq.isBand {
-		if o.band.set {
-			return nil, nil, usageErrorf("--freq %s is a band and --band is given too; give the band once", o.freq.raw)
-		}
-		band, so.Freq = o.freq, 0
-	}
-	if band.set {
-		if !band.isBand {
-			return nil, nil, usageErrorf("--band %s: give the band as LOW-HIGH, e.g. 144-146MHz", band.raw)
-		}
-		so.BandLow, so.BandHigh = band.lo, band.hi
-	}
-	if o.trimmer != "" {
-		lo, hi, err := forms.ParseCapacitanceRange(o.trimmer)
-		if err != nil {
-			return nil, nil, &flagError{Flag: "trimmer", Err: err}
-		}
-		if !(hi > lo) {
-			return nil, nil, usageErrorf("--trimmer %s: give the trimmer's range as MIN-MAX with MIN below MAX, e.g. 2-10pF", o.trimmer)
-		}
-		if !band.set {
-			return nil, nil, usageErrorf("--trimmer tunes a band: give --band LOW-HIGH, e.g. --band 144-146MHz")
-		}
-		so.TrimMin, so.TrimMax = lo, hi
-	}
-	if o.trimmerMargin.set && !(o.trimmerMargin.v > 0 && o.trimmerMargin.v < 0.5) {
-		return nil, nil, usageErrorf("--trimmer-margin %s: give a percentage above 0 and below 50, e.g. 10%%", o.trimmerMargin.raw)
-	}
-	for _, q := range []struct {
-		name string
-		v    float64
-	}{{"min-q", o.minQ}, {"tank-q", o.tankQ}, {"loaded-q", o.loadedQ}} {
-		if math.IsNaN(q.v) || math.IsInf(q.v, 0) || q.v < 0 || q.v > 1e5 {
-			return nil, nil, usageErrorf("--%s %g: give a Q from 1 to 100000, e.g. 150", q.name, q.v)
-		}
-	}
-	switch {
-	case o.tapRatio.set && o.tapImpedance.set:
-		return nil, nil, usageErrorf("give --tap-ratio or --tap-impedance, not both")
-	case (o.tankQ > 0 || o.tankImpedance.set || o.loadedQ > 0) && !o.tapImpedance.set:
-		return nil, nil, usageErrorf("--tank-q, --tank-impedance and --loaded-q say how the tap load is worked out: add --tap-impedance, e.g. 50ohm")
-	case o.tankQ > 0 && o.tankImpedance.set:
-		return nil, nil, usageErrorf("give the tank's --tank-q or its --tank-impedance, not both")
-	}
 	if o.springback.set {
 		v := o.springback.v
 		so.Springback = &v
 	}
-	if !o.leads.set {
-		so.Leads = defaultDesignLeads
-		notes = append(notes, "--leads not given: 10 mm each assumed; at VHF leads are often 10–20 % of the inductance, so give the real length")
-	}
-	return so, notes, nil
+	notes, err := so.ApplyFlags(spec.SearchFlags{
+		MaxLength: o.maxLength.given(), MaxDiameter: o.maxDiameter.given(), MaxWireLength: o.maxWireLength.given(),
+		Tolerance: o.tolerance.given(), TrimMargin: o.trimMargin.given(), TrimmerMargin: o.trimmerMargin.given(),
+		TapRatio: o.tapRatio.given(), TapImpedance: o.tapImpedance.given(), TankImpedance: o.tankImpedance.given(),
+		Leads: o.leads.given(), MinSRFRatio: o.minSRFRatio, SRFGiven: srfGiven, Trimmer: o.trimmer,
+		Freq: o.freq.bandGiven(), Band: o.band.bandGiven(),
+	})
+	return so, notes, err
 }
 
 func runDesign(_ context.Context, opts *designOptions, srfGiven bool, stdout, stderr io.Writer) error {
