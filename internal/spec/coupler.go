@@ -46,28 +46,9 @@ func MatchOptions(o MatchFlags) (match.Options, []string, error) {
 		mo.Frequencies = append(mo.Frequencies, float64(f))
 		labels = append(labels, "")
 	}
-	var bands []forms.Band
-	for _, s := range o.Bands {
-		b, err := forms.ParseBand(s)
-		if err != nil {
-			return mo, nil, &FlagError{Flag: "band", Err: err}
-		}
-		bands = append(bands, b)
-	}
-	if o.BandsFile != "" {
-		f, err := os.Open(o.BandsFile)
-		if err != nil {
-			if errors.Is(err, os.ErrNotExist) {
-				return mo, nil, Usagef("--bands: %q does not exist; check the path", o.BandsFile)
-			}
-			return mo, nil, fmt.Errorf("--bands: %w", err)
-		}
-		defer f.Close()
-		list, err := forms.LoadBands(f, o.BandsFile)
-		if err != nil {
-			return mo, nil, err
-		}
-		bands = append(bands, list...)
+	bands, err := LoadBandFlags(o.Bands, o.BandsFile)
+	if err != nil {
+		return mo, nil, err
 	}
 	for _, b := range bands {
 		mo.Frequencies = append(mo.Frequencies, float64(b.Low+b.High)/2)
