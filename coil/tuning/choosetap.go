@@ -85,10 +85,10 @@ func (s tapScore) cost(margin float64) float64 {
 // an error wrapping coil.ErrInfeasible that names the requirements in conflict.
 func ChooseTap(spec Spec, search TapSearch) (TapPlan, error) {
 	if len(spec.Bands) == 0 {
-		return TapPlan{}, inputErrorf("band", "choosing a tap needs the bands to cover; list them, e.g. 3.5-3.8MHz")
+		return TapPlan{}, coil.InputErrorf("band", "choosing a tap needs the bands to cover; list them, e.g. 3.5-3.8MHz")
 	}
 	if spec.Geometry.Turns < 0.5 {
-		return TapPlan{}, inputErrorf("turns", "a coil needs at least half a turn to take a tap")
+		return TapPlan{}, coil.InputErrorf("turns", "a coil needs at least half a turn to take a tap")
 	}
 	spec.TapTurns = 0
 	if _, err := validateSpan(&spec); err != nil {
@@ -176,7 +176,7 @@ func bestTap(spec Spec, g coil.Geometry, margin float64, plan *TapPlan) (tapScor
 		}
 	}
 	if best.tap < 0 {
-		return tapScore{}, inputErrorf("turns", "a coil of %g turns has no quarter-turn tap on its winding", g.Turns)
+		return tapScore{}, coil.InputErrorf("turns", "a coil of %g turns has no quarter-turn tap on its winding", g.Turns)
 	}
 	return best, nil
 }
