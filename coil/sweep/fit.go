@@ -249,16 +249,7 @@ func crossing(pts []Point) (f, sigma float64) {
 		return f0, (b.Frequency - a.Frequency) / 3
 	}
 	n := float64(len(xs))
-	var mx, my float64
-	for i := range xs {
-		mx += xs[i] / n
-		my += ys[i] / n
-	}
-	var sxx, sxy float64
-	for i := range xs {
-		sxx += (xs[i] - mx) * (xs[i] - mx)
-		sxy += (xs[i] - mx) * (ys[i] - my)
-	}
+	mx, my, sxx, sxy := moments(xs, ys)
 	slope := sxy / sxx
 	if !(slope > 0) {
 		return f0, (b.Frequency - a.Frequency) / 3
@@ -398,19 +389,24 @@ func initial(pts []Point) (Model, error) {
 	return m, nil
 }
 
-// line is the least-squares straight line y = a + b·x.
-func line(xs, ys []float64) (a, b float64) {
+// moments are the means of xs and ys and the sums of squares and products
+// about them, from which a least-squares line follows.
+func moments(xs, ys []float64) (mx, my, sxx, sxy float64) {
 	n := float64(len(xs))
-	var mx, my float64
 	for i := range xs {
 		mx += xs[i] / n
 		my += ys[i] / n
 	}
-	var sxx, sxy float64
 	for i := range xs {
 		sxx += (xs[i] - mx) * (xs[i] - mx)
 		sxy += (xs[i] - mx) * (ys[i] - my)
 	}
+	return mx, my, sxx, sxy
+}
+
+// line is the least-squares straight line y = a + b·x.
+func line(xs, ys []float64) (a, b float64) {
+	mx, my, sxx, sxy := moments(xs, ys)
 	if sxx == 0 {
 		return my, 0
 	}

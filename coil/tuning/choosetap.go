@@ -356,7 +356,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 	if s.coincidence > 0 {
 		for _, co := range sp.Coincidences {
 			out = append(out, fmt.Sprintf("the %s harmonic of the low range%s falls inside the high range's passband at %.1f %% of the dial (%s against %s)",
-				ordinal(co.Order), inBand(co.Band), co.Setting*100, quantity.FormatFrequency(float64(co.Harmonic)), quantity.FormatFrequency(float64(co.FHigh))))
+				Ordinal(co.Order), inBand(co.Band), co.Setting*100, quantity.FormatFrequency(float64(co.Harmonic)), quantity.FormatFrequency(float64(co.FHigh))))
 		}
 	}
 	return out

@@ -675,7 +675,7 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 			where = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband", quantity.FormatFrequency(float64(co.Passband)))
 		}
 		w = append(w, fmt.Sprintf("harmonic coincidence at %.1f %% of the dial (0 %% = plates open): low range at %s%s, its %s harmonic %s %s",
-			co.Setting*100, quantity.FormatFrequency(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), quantity.FormatFrequency(float64(co.Harmonic)), where))
+			co.Setting*100, quantity.FormatFrequency(float64(co.FLow)), inBand(co.Band), Ordinal(co.Order), quantity.FormatFrequency(float64(co.Harmonic)), where))
 	}
 	return w
 }
@@ -706,7 +706,8 @@ func inBand(name string) string {
 	return " (in " + name + ")"
 }
 
-func ordinal(m int) string {
+// Ordinal writes a harmonic order: 2nd, 3rd, 4th …
+func Ordinal(m int) string {
 	switch m {
 	case 2:
 		return "2nd"
