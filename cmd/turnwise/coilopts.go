@@ -46,29 +46,9 @@ func (o *coilOptions) addFlags(fs *pflag.FlagSet) {
 // winding is the coil the flags describe, in the terms of a job file's
 // fixed winding (whose keys have the flags' names): spec.Resolve takes both.
 func (o *coilOptions) winding() forms.JobWinding {
-	w := forms.JobWinding{Mandrel: o.mandrel, Former: o.former, Wire: o.wire, Insulation: o.insulation, Conductor: o.conductor}
-	if o.springback.set {
-		w.Springback = &o.springback.v
-	}
-	if o.turns.set {
-		w.Turns = &o.turns.v
-	}
-	if o.pitch.set {
-		w.Pitch = &o.pitch.v
-	}
-	if o.length.set {
-		w.Length = &o.length.v
-	}
-	if o.leads.set {
-		w.Leads = &o.leads.v
-	}
-	if o.temp.set {
-		w.Temp = &o.temp.v
-	}
-	if o.plating.set {
-		w.Plating = &o.plating.v
-	}
-	return w
+	return forms.JobWinding{Mandrel: o.mandrel, Former: o.former, Wire: o.wire, Insulation: o.insulation, Conductor: o.conductor,
+		Springback: o.springback.ptr(), Turns: o.turns.ptr(), Pitch: o.pitch.ptr(), Length: o.length.ptr(),
+		Leads: o.leads.ptr(), Temp: o.temp.ptr(), Plating: o.plating.ptr()}
 }
 
 // predictCoil resolves the flags and evaluates the model at f.

@@ -38,6 +38,14 @@ func (f *valueFlag[T, K]) Set(s string) error {
 	return nil
 }
 
+// ptr is the value when the flag was given, else nil.
+func (f *valueFlag[T, K]) ptr() *T {
+	if !f.set {
+		return nil
+	}
+	return &f.v
+}
+
 // given is what a check of the flag needs besides its value.
 func (f *valueFlag[T, K]) given() spec.Given { return spec.Given{Raw: f.raw, Set: f.set} }
 
