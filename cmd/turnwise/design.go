@@ -7,72 +7,12 @@ import (
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
-	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil/design"
 	"turnwise/coil/thermal"
-	"turnwise/forms"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 )
-
-// designFreqFlag takes one frequency, or a band LOW-HIGH.
-type designFreqFlag struct {
-	raw    string
-	v      unit.Frequency
-	lo, hi unit.Frequency
-	set    bool
-	isBand bool
-}
-
-func (f *designFreqFlag) bandGiven() spec.BandGiven {
-	return spec.BandGiven{Given: spec.Given{Raw: f.raw, Set: f.set}, IsBand: f.isBand, Lo: f.lo, Hi: f.hi}
-}
-func (f *designFreqFlag) String() string { return f.raw }
-func (f *designFreqFlag) Type() string   { return "frequency|band" }
-func (f *designFreqFlag) Set(s string) error {
-	if strings.Contains(strings.TrimLeft(strings.TrimSpace(s), "+-"), "-") {
-		b, err := forms.ParseBand(s)
-		if err != nil {
-			return err
-		}
-		f.raw, f.lo, f.hi, f.set, f.isBand = s, b.Low, b.High, true, true
-		return nil
-	}
-	v, err := quantity.ParseFrequency(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set, f.isBand = s, v, true, false
-	return nil
-}
-
-// designInductanceFlag takes one inductance, or a window MIN-MAX.
-type designInductanceFlag struct {
-	raw    string
-	v, max unit.Inductance
-	set    bool
-}
-
-func (f *designInductanceFlag) String() string { return f.raw }
-func (f *designInductanceFlag) Type() string   { return "inductance|window" }
-func (f *designInductanceFlag) Set(s string) error {
-	if strings.Contains(strings.TrimLeft(strings.TrimSpace(s), "+-"), "-") {
-		lo, hi, err := forms.ParseInductanceRange(s)
-		if err != nil {
-			return err
-		}
-		f.raw, f.v, f.max, f.set = s, lo, hi, true
-		return nil
-	}
-	v, err := quantity.ParseInductance(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.max, f.set = s, v, 0, true
-	return nil
-}
 
 // designOptions holds everything `turnwise design` needs; no cobra types.
 type designOptions struct {
@@ -237,8 +177,8 @@ from 0.2 mm to 4.2 mm (common practice).
 // searchOptions turns the flags into the glue's options.
 func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []string, error) {
 	so := &spec.SearchOptions{
-		Inductance:    o.inductance.v,
-		InductanceMax: o.inductance.max,
+		Inductance:    o.inductance.v.Min,
+		InductanceMax: o.inductance.v.Max,
 		MinQ:          o.minQ,
 		TapRatio:      o.tapRatio.v,
 		TapSource:     o.tapImpedance.v,
@@ -248,7 +188,7 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 		TrimmerMargin: o.trimmerMargin.v,
 		Capacitance:   o.capacitance.v,
 		Stray:         o.stray.v,
-		Freq:          o.freq.v,
+		Freq:          o.freq.v.F,
 		Tolerance:     o.tolerance.v,
 		Leads:         o.leads.v,
 		Temp:          o.temp.v,
@@ -278,7 +218,7 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 		Tolerance: o.tolerance.given(), TrimMargin: o.trimMargin.given(), TrimmerMargin: o.trimmerMargin.given(),
 		TapRatio: o.tapRatio.given(), TapImpedance: o.tapImpedance.given(), TankImpedance: o.tankImpedance.given(),
 		Leads: o.leads.given(), MinSRFRatio: o.minSRFRatio, SRFGiven: srfGiven, Trimmer: o.trimmer,
-		Freq: o.freq.bandGiven(), Band: o.band.bandGiven(),
+		Freq: bandGiven(&o.freq), Band: bandGiven(&o.band),
 	})
 	return so, notes, err
 }
@@ -306,4 +246,8 @@ func runDesign(_ context.Context, opts *designOptions, srfGiven bool, stdout, st
 	}
 	printWarnings(stderr, warnings)
 	return nil
+}
+
+func bandGiven(f *designFreqFlag) spec.BandGiven {
+	return spec.BandGiven{Given: f.given(), IsBand: f.v.IsBand, Lo: f.v.Lo, Hi: f.v.Hi}
 }

@@ -61,21 +61,39 @@ type (
 	ratioFlag       = valueFlag[float64, ratioKind]
 	turnsFlag       = valueFlag[float64, turnsKind]
 	wireSizeFlag    = valueFlag[unit.Length, wireSizeKind]
+	// designFreqFlag takes one frequency, or a band LOW-HIGH.
+	designFreqFlag = valueFlag[spec.FreqOrBand, freqOrBandKind]
+	// designInductanceFlag takes one inductance, or a window MIN-MAX.
+	designInductanceFlag = valueFlag[spec.InductanceWindow, inductanceWindowKind]
+	// tempRangeFlag is --temp-range, e.g. 10C-40C; low and high in kelvin.
+	tempRangeFlag = valueFlag[spec.TempRange, tempRangeKind]
 )
 
 type (
-	lengthKind      struct{}
-	frequencyKind   struct{}
-	inductanceKind  struct{}
-	capacitanceKind struct{}
-	percentKind     struct{}
-	temperatureKind struct{}
-	resistanceKind  struct{}
-	powerKind       struct{}
-	ratioKind       struct{}
-	turnsKind       struct{}
-	wireSizeKind    struct{}
+	lengthKind           struct{}
+	frequencyKind        struct{}
+	inductanceKind       struct{}
+	capacitanceKind      struct{}
+	percentKind          struct{}
+	temperatureKind      struct{}
+	resistanceKind       struct{}
+	powerKind            struct{}
+	ratioKind            struct{}
+	turnsKind            struct{}
+	wireSizeKind         struct{}
+	freqOrBandKind       struct{}
+	inductanceWindowKind struct{}
+	tempRangeKind        struct{}
 )
+
+func (freqOrBandKind) name() string                            { return "frequency|band" }
+func (freqOrBandKind) parse(s string) (spec.FreqOrBand, error) { return spec.ParseFreqOrBand(s) }
+func (inductanceWindowKind) name() string                      { return "inductance|window" }
+func (inductanceWindowKind) parse(s string) (spec.InductanceWindow, error) {
+	return spec.ParseInductanceWindow(s)
+}
+func (tempRangeKind) name() string                           { return "range" }
+func (tempRangeKind) parse(s string) (spec.TempRange, error) { return spec.ParseTempRange(s) }
 
 func (lengthKind) name() string                                { return "length" }
 func (lengthKind) parse(s string) (unit.Length, error)         { return quantity.ParseLength(s) }

@@ -219,7 +219,7 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 func (o *spanOptions) driftSettings() (spec.SpanDriftSettings, bool, error) {
 	ds, use, err := spec.ParseSpanDrift(o.driftAt, o.gangTC, o.pitch.v)
 	if use && o.tempRange.set {
-		ds.Low, ds.High = o.tempRange.low, o.tempRange.high
+		ds.Low, ds.High = o.tempRange.v.Low, o.tempRange.v.High
 	}
 	return ds, use, err
 }

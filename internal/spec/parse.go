@@ -5,6 +5,7 @@ import (
 	"math"
 	"strconv"
 	"strings"
+	"turnwise/forms"
 	"turnwise/internal/quantity"
 
 	"gonum.org/v1/gonum/unit"
@@ -92,4 +93,52 @@ func ParseResistance(s string) (unit.Resistance, error) {
 type Given struct {
 	Raw string
 	Set bool
+}
+
+// FreqOrBand is one frequency (F) or a band Lo-Hi (IsBand), as design's
+// --freq and --band take.
+type FreqOrBand struct {
+	F      unit.Frequency
+	IsBand bool
+	Lo, Hi unit.Frequency
+}
+
+// ParseFreqOrBand reads one frequency ("145MHz") or a band LOW-HIGH.
+func ParseFreqOrBand(s string) (FreqOrBand, error) {
+	if isRange(s) {
+		b, err := forms.ParseBand(s)
+		if err != nil {
+			return FreqOrBand{}, err
+		}
+		return FreqOrBand{IsBand: true, Lo: b.Low, Hi: b.High}, nil
+	}
+	v, err := quantity.ParseFrequency(s)
+	return FreqOrBand{F: v}, err
+}
+
+// InductanceWindow is one inductance (Max 0) or a window Min-Max.
+type InductanceWindow struct{ Min, Max unit.Inductance }
+
+// ParseInductanceWindow reads one inductance ("4.7uH") or a window MIN-MAX.
+func ParseInductanceWindow(s string) (InductanceWindow, error) {
+	if isRange(s) {
+		lo, hi, err := forms.ParseInductanceRange(s)
+		return InductanceWindow{Min: lo, Max: hi}, err
+	}
+	v, err := quantity.ParseInductance(s)
+	return InductanceWindow{Min: v}, err
+}
+
+// isRange tells a range LOW-HIGH from one value that may carry a sign.
+func isRange(s string) bool {
+	return strings.Contains(strings.TrimLeft(strings.TrimSpace(s), "+-"), "-")
+}
+
+// TempRange is --temp-range's low and high temperature, in kelvin.
+type TempRange struct{ Low, High unit.Temperature }
+
+// ParseTempRange reads a temperature range, e.g. 10C-40C.
+func ParseTempRange(s string) (TempRange, error) {
+	lo, hi, err := quantity.ParseTemperatureRange(s)
+	return TempRange{Low: lo, High: hi}, err
 }
