@@ -104,15 +104,9 @@ func ChooseCoil(spec Spec, cs CoilSearch) (CoilPlan, error) {
 	if !found {
 		return CoilPlan{}, coil.InputErrorf("turns_range", "no coil from %g to %g turns could be evaluated on this former and wire", lo, hi)
 	}
-	spec.Geometry, spec.TapTurns = bestG, best.tap
-	sp, err := Solve(spec)
-	if err != nil {
+	if err := plan.settle(spec, bestG, best, margin); err != nil {
 		return CoilPlan{}, err
 	}
-	plan.Span, plan.Geometry, plan.TapTurns = sp, bestG, best.tap
-	plan.Feasible = best.feasible()
-	plan.Clearance = math.Min(best.clearance, ClearanceNone)
-	plan.Conflicts = describeConflicts(&sp, best, margin)
 	if plan.Feasible {
 		return plan, nil
 	}

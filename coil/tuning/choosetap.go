@@ -113,15 +113,9 @@ func ChooseTap(spec Spec, search TapSearch) (TapPlan, error) {
 			geom, best = g, s
 		}
 	}
-	spec.Geometry, spec.TapTurns = geom, best.tap
-	sp, err := Solve(spec)
-	if err != nil {
+	if err := plan.settle(spec, geom, best, margin); err != nil {
 		return TapPlan{}, err
 	}
-	plan.Span, plan.Geometry, plan.TapTurns = sp, geom, best.tap
-	plan.Feasible = best.feasible()
-	plan.Clearance = math.Min(best.clearance, ClearanceNone)
-	plan.Conflicts = describeConflicts(&sp, best, margin)
 	if !plan.Feasible {
 		return plan, fmt.Errorf("%w: no tap meets every requirement: %s; of the %d quarter-turn taps at the requested pitch %d cover every band, %d overlap, %d are free of harmonic coincidences and %d both cover and overlap; the best compromise, at %g turns, misses: %s",
 			coil.ErrInfeasible, plan.binding(), plan.Tried, plan.Covering, plan.Overlapping, plan.Clean, plan.CoveringOverlapping, plan.TapTurns, strings.Join(plan.Conflicts, "; "))
@@ -327,6 +321,21 @@ func searchPitch(spec Spec, margin float64) (coil.Geometry, tapScore, error) {
 }
 
 // describeConflicts words each requirement the span still misses.
+// settle solves spec's coil g tapped at best's tap and takes the span, the
+// choice and what it still misses into the plan.
+func (p *TapPlan) settle(spec Spec, g coil.Geometry, best tapScore, margin float64) error {
+	spec.Geometry, spec.TapTurns = g, best.tap
+	sp, err := Solve(spec)
+	if err != nil {
+		return err
+	}
+	p.Span, p.Geometry, p.TapTurns = sp, g, best.tap
+	p.Feasible = best.feasible()
+	p.Clearance = math.Min(best.clearance, ClearanceNone)
+	p.Conflicts = describeConflicts(&sp, best, margin)
+	return nil
+}
+
 func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 	var out []string
 	for _, b := range sp.Bands {
