@@ -3,13 +3,11 @@ package main
 import (
 	"context"
 	"io"
-	"math"
 	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
 
-	"turnwise/coil/circuit"
 	"turnwise/forms/touchstone"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
@@ -167,18 +165,11 @@ func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Wri
 		}
 	}
 	if opts.spice != "" {
-		at := math.Sqrt(r.Freqs[0] * r.Freqs[len(r.Freqs)-1])
-		if opts.spiceAt.set {
-			at = float64(opts.spiceAt.v)
-		}
-		s, err := circuit.NewSolver(m.Net)
+		netlist, err := m.SpiceNetlist(r, opts.spiceAt.ptr())
 		if err != nil {
-			return m.FileError(err)
+			return err
 		}
-		if err := writeOutput(ctx, "--spice", opts.spice, circuitInputs(opts), stdout, func(w io.Writer) error {
-			return s.WriteSpice(w, circuit.SpiceOptions{Title: "* " + r.TitleOrFile(), At: at,
-				From: r.Freqs[0], To: r.Freqs[len(r.Freqs)-1], Points: len(r.Freqs), Log: r.Log})
-		}); err != nil {
+		if err := writeOutput(ctx, "--spice", opts.spice, circuitInputs(opts), stdout, netlist); err != nil {
 			return err
 		}
 	}

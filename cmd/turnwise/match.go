@@ -6,7 +6,6 @@ package main
 import (
 	"context"
 	"io"
-	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -14,6 +13,7 @@ import (
 	"turnwise/coil/match"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
+	"turnwise/internal/sweepfile"
 )
 
 // matchOptions holds everything `turnwise match` needs; no cobra types.
@@ -129,12 +129,7 @@ func runMatch(ctx context.Context, opts *matchOptions, stdout, stderr io.Writer)
 	}
 	format := ""
 	if opts.plot != "" {
-		switch strings.ToLower(filepath.Ext(opts.plot)) {
-		case ".svg":
-			format = "svg"
-		case ".png":
-			format = "png"
-		default:
+		if format, err = sweepfile.PlotFormat(opts.plot); err != nil {
 			return usageErrorf("--plot %s: name a .svg or .png file", opts.plot)
 		}
 	}

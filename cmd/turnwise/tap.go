@@ -3,7 +3,6 @@ package main
 import (
 	"context"
 	"io"
-	"math"
 	"strings"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
@@ -146,19 +145,8 @@ func runTapLoad(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) e
 	if opts.load.set {
 		r = opts.load
 	}
-	switch {
-	case !opts.freq.set:
-		return usageErrorf("a tap for a load needs the tank's frequency: add --freq, e.g. --freq 7.1MHz")
-	case opts.tankQ != 0 && opts.tankR.set:
-		return usageErrorf("give the tank's --tank-q or its --tank-impedance, not both")
-	}
-	for _, q := range []struct {
-		name string
-		v    float64
-	}{{"tank-q", opts.tankQ}, {"loaded-q", opts.loadedQ}} {
-		if math.IsNaN(q.v) || math.IsInf(q.v, 0) || q.v < 0 || q.v > 1e5 {
-			return usageErrorf("--%s %g: give a Q from 1 to 100000, e.g. 100", q.name, q.v)
-		}
+	if err := spec.CheckTapLoad(opts.freq.set, opts.tankQ, opts.tankR.set, opts.loadedQ); err != nil {
+		return err
 	}
 	cs, p, err := predictCoil(&opts.coil, opts.stock, opts.freq)
 	if err != nil {

@@ -116,3 +116,24 @@ func tapFlagError(err error, goalFlag string) error {
 	}
 	return err
 }
+
+// CheckTapLoad checks the tank flags of a tap for a load: the frequency
+// is needed, the tank's Q and impedance exclude each other, and each Q is
+// 0 (not given) to 100000.
+func CheckTapLoad(freqSet bool, tankQ float64, tankRSet bool, loadedQ float64) error {
+	switch {
+	case !freqSet:
+		return Usagef("a tap for a load needs the tank's frequency: add --freq, e.g. --freq 7.1MHz")
+	case tankQ != 0 && tankRSet:
+		return Usagef("give the tank's --tank-q or its --tank-impedance, not both")
+	}
+	for _, q := range []struct {
+		name string
+		v    float64
+	}{{"tank-q", tankQ}, {"loaded-q", loadedQ}} {
+		if math.IsNaN(q.v) || math.IsInf(q.v, 0) || q.v < 0 || q.v > 1e5 {
+			return Usagef("--%s %g: give a Q from 1 to 100000, e.g. 100", q.name, q.v)
+		}
+	}
+	return nil
+}
