@@ -139,7 +139,7 @@ func PlotCircuit(w io.Writer, c *Circuit, format string, widthMM, heightMM float
 // circuitPage draws a circuit's page: the response, its resonances and
 // the band table.
 func (s *sheet) circuitPage(c *Circuit, n int) {
-	x, w, y := s.titledPage("Circuit: "+c.Title)
+	x, w, y := s.titledPage("Circuit: " + c.Title)
 	desc := "The network the coils go into, computed with each coil's own model (L and loss at each frequency, self-capacitance). Shaded: the bands; dashed: the resonances."
 	if c.Source != "" {
 		desc = "From " + c.Source + ". " + desc

@@ -33,7 +33,7 @@ type Coupler struct {
 // couplerPage draws one coupler page (continuation pages if its lists
 // run long).
 func (s *sheet) couplerPage(c *Coupler) {
-	x, w, y := s.titledPage(c.Name+": match map")
+	x, w, y := s.titledPage(c.Name + ": match map")
 	if c.About != "" {
 		y = s.para(x, y, w, c.About)
 	}

@@ -18,7 +18,7 @@ import (
 
 func (s *sheet) spanPage(c *Coil) {
 	sp := c.Span
-	x, w, y := s.titledPage(c.Name+": tuning chart")
+	x, w, y := s.titledPage(c.Name + ": tuning chart")
 	tapTurns := "the tap"
 	if c.Tap != nil {
 		tapTurns = "the tap (" + quantity.FormatTurns(c.Tap.Turns) + " turns from the cold end)"
