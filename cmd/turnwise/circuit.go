@@ -121,15 +121,7 @@ func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Wri
 	if err != nil {
 		return err
 	}
-	c, err := spec.LoadCircuitFile(opts.file)
-	if err != nil {
-		return err
-	}
-	cat, err := opts.stock.load()
-	if err != nil {
-		return err
-	}
-	m, err := spec.BuildCircuit(c, cat, opts.stock.path, opts.stock.use.v, opts.stockGiven)
+	c, cat, m, err := spec.LoadCircuitModel(opts.file, opts.stock.path, opts.stock.use.v, opts.stockGiven)
 	if err != nil {
 		return err
 	}

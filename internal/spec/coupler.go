@@ -100,15 +100,7 @@ type Coupler struct {
 // LoadCoupler reads a circuit file and builds its coupler; stockPath, use
 // and flagsGiven choose the catalogs its coils draw on.
 func LoadCoupler(path, stockPath, use string, flagsGiven bool) (*Coupler, error) {
-	c, err := LoadCircuitFile(path)
-	if err != nil {
-		return nil, err
-	}
-	cat, err := LoadCatalog(stockPath, use)
-	if err != nil {
-		return nil, err
-	}
-	m, err := BuildCircuit(c, cat, stockPath, use, flagsGiven)
+	c, _, m, err := LoadCircuitModel(path, stockPath, use, flagsGiven)
 	if err != nil {
 		return nil, err
 	}
@@ -122,6 +114,25 @@ func LoadCoupler(path, stockPath, use string, flagsGiven bool) (*Coupler, error)
 // matchFlags are the match.InputError keys that are the match command's
 // flags; the others (range, load.node, rating, port) are circuit file keys.
 var matchFlags = map[string]bool{"freq": true, "load-r": true, "load-x": true, "swr": true, "power": true, "choose-tap": true}
+
+// LoadCircuitModel reads a circuit file and builds its network from the
+// catalogs stockPath and use select (flagsGiven: chosen on the command
+// line), returning the file, the catalogs and the model.
+func LoadCircuitModel(path, stockPath, use string, flagsGiven bool) (*forms.Circuit, *forms.Catalog, *CircuitModel, error) {
+	c, err := LoadCircuitFile(path)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	cat, err := LoadCatalog(stockPath, use)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	m, err := BuildCircuit(c, cat, stockPath, use, flagsGiven)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	return c, cat, m, nil
+}
 
 // MatchError names the flag or the circuit file key of a refusal.
 func MatchError(err error, file string) error {
