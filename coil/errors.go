@@ -21,9 +21,12 @@ func (e *InputError) Unwrap() error { return e.Err }
 // can meet it.
 var ErrInfeasible = errors.New("coil: no coil meets the request")
 
-// inputErrorf formats the reason like fmt.Errorf: a %w verb keeps its
-// error as the cause.
-func inputErrorf(param, format string, args ...any) error {
+// InputErrorf is a *InputError naming the request's field param, its
+// reason formatted like fmt.Errorf: a %w verb keeps its error as the
+// cause. Every package under coil reports bad input with it.
+func InputErrorf(param, format string, args ...any) error {
 	e := fmt.Errorf(format, args...)
 	return &InputError{Param: param, Reason: e.Error(), Err: errors.Unwrap(e)}
 }
+
+func inputErrorf(param, format string, args ...any) error { return InputErrorf(param, format, args...) }

@@ -103,7 +103,10 @@ func (g *Geometry) overall() float64 {
 	return float64(g.WireOverall)
 }
 
-func finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+// Finite reports whether x is neither NaN nor infinite.
+func Finite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
+func finite(x float64) bool { return Finite(x) }
 
 // Validate reports the first input the model cannot accept.
 func (g *Geometry) Validate() error {

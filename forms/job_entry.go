@@ -40,23 +40,7 @@ func (e *jobEntry) missing(err error) {
 
 // str returns the text of key; ok is false when absent or not text.
 func (e *jobEntry) str(key string, required bool, example string) (string, bool) {
-	v, present := e.m[key]
-	if !present {
-		if required {
-			e.missing(fmt.Errorf("add %s = %s", key, example))
-		}
-		return "", false
-	}
-	s, isStr := v.(string)
-	if !isStr {
-		e.fail(key, key, fmt.Errorf("is a %s; write it in quotes, e.g. %s = %s", tomlType(v), key, example))
-		return "", false
-	}
-	if required && strings.TrimSpace(s) == "" {
-		e.fail(key, key, fmt.Errorf("is empty; e.g. %s = %s", key, example))
-		return "", false
-	}
-	return s, true
+	return tableString(e.m, key, required, example, e.fail, e.missing)
 }
 
 // choice reads key as one of choices (case ignored) and returns the

@@ -278,21 +278,27 @@ func (e *stockEntry) fail(key, field string, err error) {
 
 // str returns the text of key; ok is false when absent or not text.
 func (e *stockEntry) str(key string, required bool, example string) (string, bool) {
-	v, present := e.m[key]
+	return tableString(e.m, key, required, example, e.fail, e.missing)
+}
+
+// tableString reads key of a TOML table m as text, for stock and job
+// entries alike; ok is false when absent or not text. A required key that
+// is absent goes to missing, a wrong or empty value to fail.
+func tableString(m map[string]any, key string, required bool, example string, fail func(key, field string, err error), missing func(error)) (string, bool) {
+	v, present := m[key]
 	if !present {
 		if required {
-			e.missing(fmt.Errorf("add %s = %s", key, example))
+			missing(fmt.Errorf("add %s = %s", key, example))
 		}
 		return "", false
 	}
 	s, isStr := v.(string)
 	if !isStr {
-		hint := fmt.Sprintf("write it in quotes, e.g. %s = %s", key, example)
-		e.fail(key, key, fmt.Errorf("is a %s; %s", tomlType(v), hint))
+		fail(key, key, fmt.Errorf("is a %s; write it in quotes, e.g. %s = %s", tomlType(v), key, example))
 		return "", false
 	}
 	if required && strings.TrimSpace(s) == "" {
-		e.fail(key, key, fmt.Errorf("is empty; e.g. %s = %s", key, example))
+		fail(key, key, fmt.Errorf("is empty; e.g. %s = %s", key, example))
 		return "", false
 	}
 	return s, true

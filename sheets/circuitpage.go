@@ -139,14 +139,7 @@ func PlotCircuit(w io.Writer, c *Circuit, format string, widthMM, heightMM float
 // circuitPage draws a circuit's page: the response, its resonances and
 // the band table.
 func (s *sheet) circuitPage(c *Circuit, n int) {
-	s.pdf.AddPage()
-	s.black()
-	x, w := margin, s.contentW()
-	y := margin + 6
-	s.font("B", 17)
-	s.text(x, y, s.fit("Circuit: "+c.Title, w))
-	y += 6.5
-	s.font("", bodySize)
+	x, w, y := s.titledPage("Circuit: " + c.Title)
 	desc := "The network the coils go into, computed with each coil's own model (L and loss at each frequency, self-capacitance). Shaded: the bands; dashed: the resonances."
 	if c.Source != "" {
 		desc = "From " + c.Source + ". " + desc

@@ -33,14 +33,7 @@ type Coupler struct {
 // couplerPage draws one coupler page (continuation pages if its lists
 // run long).
 func (s *sheet) couplerPage(c *Coupler) {
-	s.pdf.AddPage()
-	s.black()
-	x, w := margin, s.contentW()
-	y := margin + 6
-	s.font("B", 17)
-	s.text(x, y, s.fit(c.Name+": match map", w))
-	y += 6.5
-	s.font("", bodySize)
+	x, w, y := s.titledPage(c.Name + ": match map")
 	if c.About != "" {
 		y = s.para(x, y, w, c.About)
 	}

@@ -542,3 +542,16 @@ func shortWire(c Coil) string {
 	}
 	return c.Wire
 }
+
+// titledPage starts a page with title in bold across the content width
+// and returns where the body starts: x, the width and y.
+func (s *sheet) titledPage(title string) (x, w, y float64) {
+	s.pdf.AddPage()
+	s.black()
+	x, w = margin, s.contentW()
+	y = margin + 6
+	s.font("B", 17)
+	s.text(x, y, s.fit(title, w))
+	s.font("", bodySize)
+	return x, w, y + 6.5
+}

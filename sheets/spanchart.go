@@ -18,14 +18,7 @@ import (
 
 func (s *sheet) spanPage(c *Coil) {
 	sp := c.Span
-	s.pdf.AddPage()
-	s.black()
-	x, w := margin, s.contentW()
-	y := margin + 6
-	s.font("B", 17)
-	s.text(x, y, s.fit(c.Name+": tuning chart", w))
-	y += 6.5
-	s.font("", bodySize)
+	x, w, y := s.titledPage(c.Name + ": tuning chart")
 	tapTurns := "the tap"
 	if c.Tap != nil {
 		tapTurns = "the tap (" + quantity.FormatTurns(c.Tap.Turns) + " turns from the cold end)"

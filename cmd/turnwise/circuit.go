@@ -2,17 +2,12 @@ package main
 
 import (
 	"context"
-	"fmt"
 	"io"
-	"math"
-	"os"
 	"path/filepath"
 	"strings"
 
 	"github.com/spf13/cobra"
 
-	"turnwise/coil/circuit"
-	"turnwise/forms"
 	"turnwise/forms/touchstone"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
@@ -112,68 +107,13 @@ to your licence and local regulations.
 func (o *circuitOptions) settings() (spec.CircuitSettings, error) {
 	set := spec.CircuitSettings{From: float64(o.from.v), To: float64(o.to.v), Points: o.points,
 		LO: float64(o.lo.v), IF: float64(o.ifreq.v), Signal: float64(o.signal.v)}
-	if o.points < 2 || o.points > 1_000_000 {
-		return set, usageErrorf("--points %d: give 2 to 1000000 points", o.points)
-	}
-	if o.from.set && o.to.set && !(o.to.v > o.from.v) {
-		return set, usageErrorf("--from %s is not below --to %s; give the sweep low to high", o.from.raw, o.to.raw)
-	}
-	if o.logSet {
-		v := o.log
-		set.Log = &v
-	}
-	for _, b := range o.bands {
-		fb, err := forms.ParseBand(b)
-		if err != nil {
-			return set, &flagError{Flag: "band", Err: err}
-		}
-		set.Bands = append(set.Bands, circuit.Band{Name: fb.Name, Low: float64(fb.Low), High: float64(fb.High)})
-	}
-	if o.bandsFile != "" {
-		f, err := os.Open(o.bandsFile)
-		if err != nil {
-			return set, usageErrorf("--bands: %q cannot be read; check the path", o.bandsFile)
-		}
-		defer f.Close()
-		list, err := forms.LoadBands(f, o.bandsFile)
-		if err != nil {
-			return set, err
-		}
-		for _, b := range list {
-			set.Bands = append(set.Bands, circuit.Band{Name: b.Name, Low: float64(b.Low), High: float64(b.High)})
-		}
-	}
-	for _, a := range o.at {
-		var f frequencyFlag
-		if err := f.Set(a); err != nil {
-			return set, &flagError{Flag: "at", Err: err}
-		}
-		if !(f.v > 0) {
-			return set, usageErrorf("--at %s: give a positive frequency", a)
-		}
-		set.At = append(set.At, float64(f.v))
-	}
-	if o.lo.set != o.ifreq.set {
-		return set, usageErrorf("--lo and --if go together: give both, e.g. --lo 116MHz --if 29MHz")
-	}
-	if o.signal.set && !o.lo.set {
-		return set, usageErrorf("--signal needs --lo and --if")
-	}
-	for flag, path := range map[string]string{"plot": o.plot, "touchstone": o.touchstone, "spice": o.spice} {
-		if path == "" {
-			continue
-		}
-		ext := strings.ToLower(filepath.Ext(path))
-		ok := map[string][]string{"plot": {".svg", ".png"}, "touchstone": {".s1p", ".s2p"}, "spice": {".cir", ".sp", ".net"}}[flag]
-		good := false
-		for _, e := range ok {
-			good = good || ext == e
-		}
-		if !good {
-			return set, usageErrorf("--%s %s: the file name must end in %s", flag, path, strings.Join(ok, " or "))
-		}
-	}
-	return set, nil
+	err := set.ApplyFlags(spec.CircuitFlags{
+		From: o.from.given(), To: o.to.given(), Log: o.log, LogSet: o.logSet,
+		Bands: o.bands, BandsFile: o.bandsFile, At: o.at, ParseAt: frequencyKind{}.parse,
+		LOSet: o.lo.set, IFSet: o.ifreq.set, SignalSet: o.signal.set,
+		Plot: o.plot, Touchstone: o.touchstone, Spice: o.spice,
+	})
+	return set, err
 }
 
 func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Writer) error {
@@ -181,22 +121,13 @@ func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Wri
 	if err != nil {
 		return err
 	}
-	c, err := spec.LoadCircuitFile(opts.file)
-	if err != nil {
-		return err
-	}
-	cat, err := opts.stock.load()
-	if err != nil {
-		return err
-	}
-	m, err := spec.BuildCircuit(c, cat, opts.stock.path, opts.stock.use.v, opts.stockGiven)
+	c, cat, m, err := spec.LoadCircuitModel(opts.file, opts.stock.path, opts.stock.use.v, opts.stockGiven)
 	if err != nil {
 		return err
 	}
 	if opts.touchstone != "" {
-		want := fmt.Sprintf(".s%dp", len(m.Net.Ports))
-		if strings.ToLower(filepath.Ext(opts.touchstone)) != want {
-			return usageErrorf("--touchstone %s: this circuit has %d port(s); name the file %s", opts.touchstone, len(m.Net.Ports), want)
+		if err := m.CheckTouchstoneName(opts.touchstone); err != nil {
+			return err
 		}
 	}
 	if len(set.Bands) == 0 {
@@ -226,18 +157,11 @@ func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Wri
 		}
 	}
 	if opts.spice != "" {
-		at := math.Sqrt(r.Freqs[0] * r.Freqs[len(r.Freqs)-1])
-		if opts.spiceAt.set {
-			at = float64(opts.spiceAt.v)
-		}
-		s, err := circuit.NewSolver(m.Net)
+		netlist, err := m.SpiceNetlist(r, opts.spiceAt.ptr())
 		if err != nil {
-			return m.FileError(err)
+			return err
 		}
-		if err := writeOutput(ctx, "--spice", opts.spice, circuitInputs(opts), stdout, func(w io.Writer) error {
-			return s.WriteSpice(w, circuit.SpiceOptions{Title: "* " + r.TitleOrFile(), At: at,
-				From: r.Freqs[0], To: r.Freqs[len(r.Freqs)-1], Points: len(r.Freqs), Log: r.Log})
-		}); err != nil {
+		if err := writeOutput(ctx, "--spice", opts.spice, circuitInputs(opts), stdout, netlist); err != nil {
 			return err
 		}
 	}
@@ -247,7 +171,13 @@ func runCircuit(ctx context.Context, opts *circuitOptions, stdout, stderr io.Wri
 	return report.WriteCircuitTable(stdout, r)
 }
 
-// writeCircuitTouchstone writes the sweep's S parameters.
+// circuitInputs are the files a circuit run reads: an output must not be one
+// of them.
+func circuitInputs(opts *circuitOptions) []string {
+	return []string{opts.file, opts.stock.path}
+}
+
+// writeCircuitTouchstone writes the sweep's S parameters as Touchstone 1.1.
 func writeCircuitTouchstone(w io.Writer, m *spec.CircuitModel, r *spec.CircuitResult) error {
 	d := touchstone.Data{Ports: r.Ports, Param: touchstone.S, Z0: m.Net.Ports[0].Z0}
 	for _, resp := range r.Sweep {
@@ -257,10 +187,4 @@ func writeCircuitTouchstone(w io.Writer, m *spec.CircuitModel, r *spec.CircuitRe
 		return usageErrorf("the two ports have different reference impedances; Touchstone 1.1 has one")
 	}
 	return touchstone.Write(w, d, []string{"turnwise circuit: " + r.TitleOrFile(), "computed response, not a measurement"})
-}
-
-// circuitInputs are the files a circuit run reads: an output must not be one
-// of them.
-func circuitInputs(opts *circuitOptions) []string {
-	return []string{opts.file, opts.stock.path}
 }

@@ -30,7 +30,7 @@ func addCircuitThermal(o *circuitThermalOptions, cat *forms.Catalog, m *spec.Cir
 	set := spec.CircuitThermalSettings{Compensate: o.compensate}
 	set.Pitch, _ = thermal.ParsePitchFollows(o.pitch.v)
 	if o.tempRange.set {
-		set.Low, set.High = o.tempRange.low, o.tempRange.high
+		set.Low, set.High = o.tempRange.v.Low, o.tempRange.v.High
 	}
 	d, err := spec.CircuitThermal(cat, m.Net, m.Coils, m.Lumped, r.Resonances, set)
 	if err != nil {

@@ -2,32 +2,12 @@ package main
 
 import (
 	"fmt"
-	"strconv"
-	"strings"
 	"turnwise/coil"
 	"turnwise/forms"
 	"turnwise/internal/spec"
 
 	"github.com/spf13/pflag"
 )
-
-// turnsFlag takes a number of turns in quarter steps ("5", "5.25").
-type turnsFlag struct {
-	raw string
-	v   float64
-	set bool
-}
-
-func (f *turnsFlag) String() string { return f.raw }
-func (f *turnsFlag) Type() string   { return "turns" }
-func (f *turnsFlag) Set(s string) error {
-	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-	if err != nil || !(v == v) || v > 1e9 || v < -1e9 {
-		return fmt.Errorf("%q is not a number of turns; use e.g. 5 or 5.25 (quarter turns)", s)
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
 
 // coilOptions are the flags that describe one wound coil; predict, sheet,
 // tap, span and trim share them.
@@ -66,29 +46,9 @@ func (o *coilOptions) addFlags(fs *pflag.FlagSet) {
 // winding is the coil the flags describe, in the terms of a job file's
 // fixed winding (whose keys have the flags' names): spec.Resolve takes both.
 func (o *coilOptions) winding() forms.JobWinding {
-	w := forms.JobWinding{Mandrel: o.mandrel, Former: o.former, Wire: o.wire, Insulation: o.insulation, Conductor: o.conductor}
-	if o.springback.set {
-		w.Springback = &o.springback.v
-	}
-	if o.turns.set {
-		w.Turns = &o.turns.v
-	}
-	if o.pitch.set {
-		w.Pitch = &o.pitch.v
-	}
-	if o.length.set {
-		w.Length = &o.length.v
-	}
-	if o.leads.set {
-		w.Leads = &o.leads.v
-	}
-	if o.temp.set {
-		w.Temp = &o.temp.v
-	}
-	if o.plating.set {
-		w.Plating = &o.plating.v
-	}
-	return w
+	return forms.JobWinding{Mandrel: o.mandrel, Former: o.former, Wire: o.wire, Insulation: o.insulation, Conductor: o.conductor,
+		Springback: o.springback.ptr(), Turns: o.turns.ptr(), Pitch: o.pitch.ptr(), Length: o.length.ptr(),
+		Leads: o.leads.ptr(), Temp: o.temp.ptr(), Plating: o.plating.ptr()}
 }
 
 // predictCoil resolves the flags and evaluates the model at f.

@@ -3,95 +3,16 @@ package main
 import (
 	"context"
 	"io"
-	"math"
 	"strings"
 
 	"github.com/spf13/cobra"
 	"github.com/spf13/pflag"
-	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil/design"
 	"turnwise/coil/thermal"
-	"turnwise/forms"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 )
-
-// defaultDesignLeads is assumed when --leads is not given: 10 mm each, a
-// short mount on a board or tag strip (common practice). A warning says so.
-const defaultDesignLeads unit.Length = 10e-3
-
-// wireSizeFlag takes a bare diameter or a gauge (--min-wire, --max-wire).
-type wireSizeFlag struct {
-	raw string
-	v   unit.Length
-}
-
-func (f *wireSizeFlag) String() string { return f.raw }
-func (f *wireSizeFlag) Type() string   { return "diameter|gauge" }
-func (f *wireSizeFlag) Set(s string) error {
-	v, err := spec.ParseWireSize(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v = s, v
-	return nil
-}
-
-// designFreqFlag takes one frequency, or a band LOW-HIGH.
-type designFreqFlag struct {
-	raw    string
-	v      unit.Frequency
-	lo, hi unit.Frequency
-	set    bool
-	isBand bool
-}
-
-func (f *designFreqFlag) String() string { return f.raw }
-func (f *designFreqFlag) Type() string   { return "frequency|band" }
-func (f *designFreqFlag) Set(s string) error {
-	if strings.Contains(strings.TrimLeft(strings.TrimSpace(s), "+-"), "-") {
-		b, err := forms.ParseBand(s)
-		if err != nil {
-			return err
-		}
-		f.raw, f.lo, f.hi, f.set, f.isBand = s, b.Low, b.High, true, true
-		return nil
-	}
-	v, err := quantity.ParseFrequency(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set, f.isBand = s, v, true, false
-	return nil
-}
-
-// designInductanceFlag takes one inductance, or a window MIN-MAX.
-type designInductanceFlag struct {
-	raw    string
-	v, max unit.Inductance
-	set    bool
-}
-
-func (f *designInductanceFlag) String() string { return f.raw }
-func (f *designInductanceFlag) Type() string   { return "inductance|window" }
-func (f *designInductanceFlag) Set(s string) error {
-	if strings.Contains(strings.TrimLeft(strings.TrimSpace(s), "+-"), "-") {
-		lo, hi, err := forms.ParseInductanceRange(s)
-		if err != nil {
-			return err
-		}
-		f.raw, f.v, f.max, f.set = s, lo, hi, true
-		return nil
-	}
-	v, err := quantity.ParseInductance(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.max, f.set = s, v, 0, true
-	return nil
-}
 
 // designOptions holds everything `turnwise design` needs; no cobra types.
 type designOptions struct {
@@ -255,10 +176,9 @@ from 0.2 mm to 4.2 mm (common practice).
 
 // searchOptions turns the flags into the glue's options.
 func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []string, error) {
-	var notes []string
 	so := &spec.SearchOptions{
-		Inductance:    o.inductance.v,
-		InductanceMax: o.inductance.max,
+		Inductance:    o.inductance.v.Min,
+		InductanceMax: o.inductance.v.Max,
 		MinQ:          o.minQ,
 		TapRatio:      o.tapRatio.v,
 		TapSource:     o.tapImpedance.v,
@@ -268,7 +188,7 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 		TrimmerMargin: o.trimmerMargin.v,
 		Capacitance:   o.capacitance.v,
 		Stray:         o.stray.v,
-		Freq:          o.freq.v,
+		Freq:          o.freq.v.F,
 		Tolerance:     o.tolerance.v,
 		Leads:         o.leads.v,
 		Temp:          o.temp.v,
@@ -288,83 +208,19 @@ func (o *designOptions) searchOptions(srfGiven bool) (*spec.SearchOptions, []str
 		Top:           o.top,
 		FreeDiameter:  o.freeDiameter,
 	}
-	for _, l := range []struct {
-		name string
-		f    lengthFlag
-		eg   string
-	}{{"max-length", o.maxLength, "15mm"}, {"max-diameter", o.maxDiameter, "20mm"}, {"max-wire-length", o.maxWireLength, "1m"}} {
-		if l.f.set && !(l.f.v > 0) {
-			return nil, nil, usageErrorf("--%s %s: a limit must be a positive length, e.g. --%s %s (leave the flag out for no limit)", l.name, l.f.raw, l.name, l.eg)
-		}
-	}
 	so.PitchFollows, _ = thermal.ParsePitchFollows(o.pitch.v)
-	switch {
-	case o.top < 1 || o.top > design.MaxTop:
-		return nil, nil, usageErrorf("--top %d: give a number from 1 to %d", o.top, design.MaxTop)
-	case o.tolerance.set && !(o.tolerance.v > 0):
-		return nil, nil, usageErrorf("--tolerance %s: give a positive percentage, e.g. 2%%", o.tolerance.raw)
-	case o.trimMargin.set && !(o.trimMargin.v > 0):
-		return nil, nil, usageErrorf("--trim-margin %s: give a positive percentage, e.g. 5%%", o.trimMargin.raw)
-	case math.IsNaN(o.minSRFRatio) || math.IsInf(o.minSRFRatio, 0) || srfGiven && o.minSRFRatio == 0:
-		return nil, nil, usageErrorf("--min-srf-ratio %g: give a ratio from 1.2 to 100, such as 3 (common practice)", o.minSRFRatio)
-	}
-	if srfGiven {
-		so.MinSRFRatio = o.minSRFRatio
-	}
-	band := o.band
-	if o.freq.isBand {
-		if o.band.set {
-			return nil, nil, usageErrorf("--freq %s is a band and --band is given too; give the band once", o.freq.raw)
-		}
-		band, so.Freq = o.freq, 0
-	}
-	if band.set {
-		if !band.isBand {
-			return nil, nil, usageErrorf("--band %s: give the band as LOW-HIGH, e.g. 144-146MHz", band.raw)
-		}
-		so.BandLow, so.BandHigh = band.lo, band.hi
-	}
-	if o.trimmer != "" {
-		lo, hi, err := forms.ParseCapacitanceRange(o.trimmer)
-		if err != nil {
-			return nil, nil, &flagError{Flag: "trimmer", Err: err}
-		}
-		if !(hi > lo) {
-			return nil, nil, usageErrorf("--trimmer %s: give the trimmer's range as MIN-MAX with MIN below MAX, e.g. 2-10pF", o.trimmer)
-		}
-		if !band.set {
-			return nil, nil, usageErrorf("--trimmer tunes a band: give --band LOW-HIGH, e.g. --band 144-146MHz")
-		}
-		so.TrimMin, so.TrimMax = lo, hi
-	}
-	if o.trimmerMargin.set && !(o.trimmerMargin.v > 0 && o.trimmerMargin.v < 0.5) {
-		return nil, nil, usageErrorf("--trimmer-margin %s: give a percentage above 0 and below 50, e.g. 10%%", o.trimmerMargin.raw)
-	}
-	for _, q := range []struct {
-		name string
-		v    float64
-	}{{"min-q", o.minQ}, {"tank-q", o.tankQ}, {"loaded-q", o.loadedQ}} {
-		if math.IsNaN(q.v) || math.IsInf(q.v, 0) || q.v < 0 || q.v > 1e5 {
-			return nil, nil, usageErrorf("--%s %g: give a Q from 1 to 100000, e.g. 150", q.name, q.v)
-		}
-	}
-	switch {
-	case o.tapRatio.set && o.tapImpedance.set:
-		return nil, nil, usageErrorf("give --tap-ratio or --tap-impedance, not both")
-	case (o.tankQ > 0 || o.tankImpedance.set || o.loadedQ > 0) && !o.tapImpedance.set:
-		return nil, nil, usageErrorf("--tank-q, --tank-impedance and --loaded-q say how the tap load is worked out: add --tap-impedance, e.g. 50ohm")
-	case o.tankQ > 0 && o.tankImpedance.set:
-		return nil, nil, usageErrorf("give the tank's --tank-q or its --tank-impedance, not both")
-	}
 	if o.springback.set {
 		v := o.springback.v
 		so.Springback = &v
 	}
-	if !o.leads.set {
-		so.Leads = defaultDesignLeads
-		notes = append(notes, "--leads not given: 10 mm each assumed; at VHF leads are often 10–20 % of the inductance, so give the real length")
-	}
-	return so, notes, nil
+	notes, err := so.ApplyFlags(spec.SearchFlags{
+		MaxLength: o.maxLength.given(), MaxDiameter: o.maxDiameter.given(), MaxWireLength: o.maxWireLength.given(),
+		Tolerance: o.tolerance.given(), TrimMargin: o.trimMargin.given(), TrimmerMargin: o.trimmerMargin.given(),
+		TapRatio: o.tapRatio.given(), TapImpedance: o.tapImpedance.given(), TankImpedance: o.tankImpedance.given(),
+		Leads: o.leads.given(), MinSRFRatio: o.minSRFRatio, SRFGiven: srfGiven, Trimmer: o.trimmer,
+		Freq: bandGiven(&o.freq), Band: bandGiven(&o.band),
+	})
+	return so, notes, err
 }
 
 func runDesign(_ context.Context, opts *designOptions, srfGiven bool, stdout, stderr io.Writer) error {
@@ -390,4 +246,8 @@ func runDesign(_ context.Context, opts *designOptions, srfGiven bool, stdout, st
 	}
 	printWarnings(stderr, warnings)
 	return nil
+}
+
+func bandGiven(f *designFreqFlag) spec.BandGiven {
+	return spec.BandGiven{Given: f.given(), IsBand: f.v.IsBand, Lo: f.v.Lo, Hi: f.v.Hi}
 }

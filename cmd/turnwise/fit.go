@@ -2,7 +2,6 @@ package main
 
 import (
 	"context"
-	"errors"
 	"io"
 	"strings"
 
@@ -12,6 +11,7 @@ import (
 	"turnwise/coil"
 	"turnwise/coil/sweep"
 	"turnwise/internal/report"
+	"turnwise/internal/spec"
 	"turnwise/internal/sweepfile"
 )
 
@@ -39,22 +39,9 @@ func (o *sweepOptions) load(file string, f float64) (sweepfile.Loaded, sweep.Fix
 	ld, fx, fit, err := sweepfile.Fit(sweepfile.Request{File: file, Fixture: o.fixture, Open: o.open, Short: o.short,
 		FMin: float64(o.from.v), FMax: float64(o.to.v), Frequency: f, Lead: o.lead})
 	if err != nil {
-		return ld, fx, nil, sweepFlagError(err)
+		return ld, fx, nil, spec.SweepFlagError(err)
 	}
 	return ld, fx, fit, nil
-}
-
-// sweepFlagError names the flag a sweep error belongs to.
-func sweepFlagError(err error) error {
-	ie, ok := errors.AsType[*coil.InputError](err)
-	if !ok {
-		return err
-	}
-	flag := map[string]string{"fixture": "fixture", "open": "open", "short": "short", "freq": "freq", "fit_range": "fit-to"}[ie.Param]
-	if flag == "" {
-		return err
-	}
-	return &flagError{Flag: flag, Err: err}
 }
 
 type fitOptions struct {

@@ -8,9 +8,10 @@ import (
 	"strings"
 	"testing"
 
-	"gonum.org/v1/gonum/unit"
 	"turnwise/coil"
 	"turnwise/internal/spec"
+
+	"gonum.org/v1/gonum/unit"
 )
 
 var demoSweep = []string{"../../testdata/sweep/l1-as-wound.s1p", "--open", "../../testdata/sweep/jig-open.s1p", "--short", "../../testdata/sweep/jig-short.s1p"}

@@ -2,123 +2,144 @@ package main
 
 import (
 	"fmt"
+	"strconv"
 	"strings"
 	"turnwise/internal/quantity"
+	"turnwise/internal/spec"
 
 	"github.com/spf13/cobra"
 	"gonum.org/v1/gonum/unit"
 )
 
 // Quantity flags: each keeps what the user typed (for messages) and the
-// parsed SI value; set reports whether the flag was given.
-
-type lengthFlag struct {
+// parsed value; set reports whether the flag was given. K names the kind
+// of value and parses it.
+type valueFlag[T any, K valueKind[T]] struct {
 	raw string
-	v   unit.Length
+	v   T
 	set bool
 }
 
-func (f *lengthFlag) String() string { return f.raw }
-func (f *lengthFlag) Type() string   { return "length" }
-func (f *lengthFlag) Set(s string) error {
-	v, err := quantity.ParseLength(s)
+// valueKind is one kind of flag value: its name in the help and its parser.
+type valueKind[T any] interface {
+	name() string
+	parse(s string) (T, error)
+}
+
+func (f *valueFlag[T, K]) String() string { return f.raw }
+func (f *valueFlag[T, K]) Type() string   { var k K; return k.name() }
+func (f *valueFlag[T, K]) Set(s string) error {
+	var k K
+	v, err := k.parse(s)
 	if err != nil {
 		return err
 	}
 	f.raw, f.v, f.set = s, v, true
 	return nil
+}
+
+// ptr is the value when the flag was given, else nil.
+func (f *valueFlag[T, K]) ptr() *T {
+	if !f.set {
+		return nil
+	}
+	return &f.v
+}
+
+// given is what a check of the flag needs besides its value.
+func (f *valueFlag[T, K]) given() spec.Given { return spec.Given{Raw: f.raw, Set: f.set} }
+
+type (
+	lengthFlag      = valueFlag[unit.Length, lengthKind]
+	frequencyFlag   = valueFlag[unit.Frequency, frequencyKind]
+	inductanceFlag  = valueFlag[unit.Inductance, inductanceKind]
+	capacitanceFlag = valueFlag[unit.Capacitance, capacitanceKind]
+	percentFlag     = valueFlag[float64, percentKind] // a fraction
+	temperatureFlag = valueFlag[unit.Temperature, temperatureKind]
+	resistanceFlag  = valueFlag[unit.Resistance, resistanceKind]
+	powerFlag       = valueFlag[float64, powerKind] // W
+	ratioFlag       = valueFlag[float64, ratioKind]
+	turnsFlag       = valueFlag[float64, turnsKind]
+	wireSizeFlag    = valueFlag[unit.Length, wireSizeKind]
+	// designFreqFlag takes one frequency, or a band LOW-HIGH.
+	designFreqFlag = valueFlag[spec.FreqOrBand, freqOrBandKind]
+	// designInductanceFlag takes one inductance, or a window MIN-MAX.
+	designInductanceFlag = valueFlag[spec.InductanceWindow, inductanceWindowKind]
+	// tempRangeFlag is --temp-range, e.g. 10C-40C; low and high in kelvin.
+	tempRangeFlag = valueFlag[spec.TempRange, tempRangeKind]
+)
+
+type (
+	lengthKind           struct{}
+	frequencyKind        struct{}
+	inductanceKind       struct{}
+	capacitanceKind      struct{}
+	percentKind          struct{}
+	temperatureKind      struct{}
+	resistanceKind       struct{}
+	powerKind            struct{}
+	ratioKind            struct{}
+	turnsKind            struct{}
+	wireSizeKind         struct{}
+	freqOrBandKind       struct{}
+	inductanceWindowKind struct{}
+	tempRangeKind        struct{}
+)
+
+func (freqOrBandKind) name() string                            { return "frequency|band" }
+func (freqOrBandKind) parse(s string) (spec.FreqOrBand, error) { return spec.ParseFreqOrBand(s) }
+func (inductanceWindowKind) name() string                      { return "inductance|window" }
+func (inductanceWindowKind) parse(s string) (spec.InductanceWindow, error) {
+	return spec.ParseInductanceWindow(s)
+}
+func (tempRangeKind) name() string                           { return "range" }
+func (tempRangeKind) parse(s string) (spec.TempRange, error) { return spec.ParseTempRange(s) }
+
+func (lengthKind) name() string                                { return "length" }
+func (lengthKind) parse(s string) (unit.Length, error)         { return quantity.ParseLength(s) }
+func (inductanceKind) name() string                            { return "inductance" }
+func (inductanceKind) parse(s string) (unit.Inductance, error) { return quantity.ParseInductance(s) }
+func (capacitanceKind) name() string                           { return "capacitance" }
+func (capacitanceKind) parse(s string) (unit.Capacitance, error) {
+	return quantity.ParseCapacitance(s)
+}
+func (percentKind) name() string                                 { return "percent" }
+func (percentKind) parse(s string) (float64, error)              { return quantity.ParsePercent(s) }
+func (temperatureKind) name() string                             { return "temperature" }
+func (temperatureKind) parse(s string) (unit.Temperature, error) { return quantity.ParseTemperature(s) }
+func (resistanceKind) name() string                              { return "resistance" }
+func (resistanceKind) parse(s string) (unit.Resistance, error)   { return spec.ParseResistance(s) }
+func (powerKind) name() string                                   { return "power" }
+func (powerKind) parse(s string) (float64, error)                { return quantity.ParsePower(s) }
+func (ratioKind) name() string                                   { return "ratio" }
+func (ratioKind) parse(s string) (float64, error)                { return spec.ParseRatio(s) }
+func (wireSizeKind) name() string                                { return "diameter|gauge" }
+func (wireSizeKind) parse(s string) (unit.Length, error)         { return spec.ParseWireSize(s) }
+func (turnsKind) name() string                                   { return "turns" }
+
+// parse takes a number of turns in quarter steps ("5", "5.25").
+func (turnsKind) parse(s string) (float64, error) {
+	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
+	if err != nil || !(v == v) || v > 1e9 || v < -1e9 {
+		return 0, fmt.Errorf("%q is not a number of turns; use e.g. 5 or 5.25 (quarter turns)", s)
+	}
+	return v, nil
 }
 
 // MinFrequency is the lowest frequency a flag accepts, Hz: below it a coil
 // is a resistor and the printed numbers lose their meaning.
 const MinFrequency = 1.0
 
-type frequencyFlag struct {
-	raw string
-	v   unit.Frequency
-	set bool
-}
-
-func (f *frequencyFlag) String() string { return f.raw }
-func (f *frequencyFlag) Type() string   { return "frequency" }
-func (f *frequencyFlag) Set(s string) error {
+func (frequencyKind) name() string { return "frequency" }
+func (frequencyKind) parse(s string) (unit.Frequency, error) {
 	v, err := quantity.ParseFrequency(s)
 	if err != nil {
-		return err
+		return 0, err
 	}
 	if v < 0 || (v > 0 && v < MinFrequency) {
-		return fmt.Errorf("%q is below %g Hz, the lowest frequency turnwise works at; give e.g. 7.1MHz", clip(s), MinFrequency)
+		return 0, fmt.Errorf("%q is below %g Hz, the lowest frequency turnwise works at; give e.g. 7.1MHz", clip(s), MinFrequency)
 	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
-
-type inductanceFlag struct {
-	raw string
-	v   unit.Inductance
-	set bool
-}
-
-func (f *inductanceFlag) String() string { return f.raw }
-func (f *inductanceFlag) Type() string   { return "inductance" }
-func (f *inductanceFlag) Set(s string) error {
-	v, err := quantity.ParseInductance(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
-
-type capacitanceFlag struct {
-	raw string
-	v   unit.Capacitance
-	set bool
-}
-
-func (f *capacitanceFlag) String() string { return f.raw }
-func (f *capacitanceFlag) Type() string   { return "capacitance" }
-func (f *capacitanceFlag) Set(s string) error {
-	v, err := quantity.ParseCapacitance(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
-
-type percentFlag struct {
-	raw string
-	v   float64 // fraction
-	set bool
-}
-
-func (f *percentFlag) String() string { return f.raw }
-func (f *percentFlag) Type() string   { return "percent" }
-func (f *percentFlag) Set(s string) error {
-	v, err := quantity.ParsePercent(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
-
-type temperatureFlag struct {
-	raw string
-	v   unit.Temperature
-	set bool
-}
-
-func (f *temperatureFlag) String() string { return f.raw }
-func (f *temperatureFlag) Type() string   { return "temperature" }
-func (f *temperatureFlag) Set(s string) error {
-	v, err := quantity.ParseTemperature(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
+	return v, nil
 }
 
 // choiceFlag accepts one of a fixed set of words.

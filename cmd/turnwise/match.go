@@ -5,42 +5,16 @@ package main
 
 import (
 	"context"
-	"errors"
-	"fmt"
 	"io"
-	"os"
-	"path/filepath"
-	"sort"
 	"strings"
 
 	"github.com/spf13/cobra"
 
-	"turnwise/coil"
-	"turnwise/coil/circuit"
 	"turnwise/coil/match"
-	"turnwise/forms"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
+	"turnwise/internal/sweepfile"
 )
-
-// powerFlag is a power with a unit, e.g. 100W.
-type powerFlag struct {
-	raw string
-	v   float64
-	set bool
-}
-
-func (f *powerFlag) String() string { return f.raw }
-func (f *powerFlag) Type() string   { return "power" }
-func (f *powerFlag) Set(s string) error {
-	v, err := quantity.ParsePower(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
 
 // matchOptions holds everything `turnwise match` needs; no cobra types.
 type matchOptions struct {
@@ -139,145 +113,13 @@ regulations and licensed practice. The cautions are printed with --power.
 	return cmd
 }
 
-// matchRequest is a parsed command line: the map options and a label per
+// request is the parsed command line: the map options and a label per
 // frequency.
 func (o *matchOptions) request() (match.Options, []string, error) {
-	var mo match.Options
-	var labels []string
-	for _, s := range o.freqs {
-		f, err := quantity.ParseFrequency(s)
-		if err != nil {
-			return mo, nil, &flagError{Flag: "freq", Err: err}
-		}
-		mo.Frequencies = append(mo.Frequencies, float64(f))
-		labels = append(labels, "")
-	}
-	var bands []forms.Band
-	for _, s := range o.bands {
-		b, err := forms.ParseBand(s)
-		if err != nil {
-			return mo, nil, &flagError{Flag: "band", Err: err}
-		}
-		bands = append(bands, b)
-	}
-	if o.bandsFile != "" {
-		f, err := os.Open(o.bandsFile)
-		if err != nil {
-			if errors.Is(err, os.ErrNotExist) {
-				return mo, nil, usageErrorf("--bands: %q does not exist; check the path", o.bandsFile)
-			}
-			return mo, nil, fmt.Errorf("--bands: %w", err)
-		}
-		defer f.Close()
-		list, err := forms.LoadBands(f, o.bandsFile)
-		if err != nil {
-			return mo, nil, err
-		}
-		bands = append(bands, list...)
-	}
-	for _, b := range bands {
-		mo.Frequencies = append(mo.Frequencies, float64(b.Low+b.High)/2)
-		labels = append(labels, b.Name)
-	}
-	if len(mo.Frequencies) == 0 {
-		return mo, nil, usageErrorf("give at least one --freq (e.g. --freq 7.1MHz), --band or --bands")
-	}
-	// Lowest frequency first, each label with its frequency.
-	order := make([]int, len(mo.Frequencies))
-	for i := range order {
-		order[i] = i
-	}
-	sort.SliceStable(order, func(a, b int) bool { return mo.Frequencies[order[a]] < mo.Frequencies[order[b]] })
-	fs, ls := make([]float64, len(order)), make([]string, len(order))
-	for k, i := range order {
-		fs[k], ls[k] = mo.Frequencies[i], labels[i]
-	}
-	mo.Frequencies, labels = fs, ls
-	rLo, rHi, err := spec.ParseOhmRange(o.loadR)
-	if err != nil {
-		return mo, nil, &flagError{Flag: "load-r", Err: err}
-	}
-	xLo, xHi, err := spec.ParseOhmRange(o.loadX)
-	if err != nil {
-		return mo, nil, &flagError{Flag: "load-x", Err: err}
-	}
-	mo.Grid = match.Grid{RMin: rLo, RMax: rHi, NR: o.rSteps, XMin: xLo, XMax: xHi, NX: o.xSteps}
-	if o.rSteps < 1 || o.rSteps > 200 {
-		return mo, nil, usageErrorf("--r-steps %d: give 1 to 200", o.rSteps)
-	}
-	if o.xSteps < 1 || o.xSteps > 200 {
-		return mo, nil, usageErrorf("--x-steps %d: give 1 to 200", o.xSteps)
-	}
-	mo.SWR = o.swr
-	if o.power.set && !(o.power.v >= 0) {
-		return mo, nil, usageErrorf("--power %s: the power must be zero or positive, e.g. 100W", o.power.raw)
-	}
-	mo.Power = o.power.v
-	return mo, labels, nil
-}
-
-// coupler is a circuit file made ready to map.
-type coupler struct {
-	file  *forms.Circuit
-	setup match.Setup
-}
-
-// loadCoupler reads a circuit file and builds its coupler; stock and
-// flagsGiven choose the catalogs its coils draw on.
-func loadCoupler(path string, so *stockOptions, flagsGiven bool) (*coupler, error) {
-	c, err := spec.LoadCircuitFile(path)
-	if err != nil {
-		return nil, err
-	}
-	cat, err := so.load()
-	if err != nil {
-		return nil, err
-	}
-	m, err := spec.BuildCircuit(c, cat, so.path, so.use.v, flagsGiven)
-	if err != nil {
-		return nil, err
-	}
-	s, err := spec.MatchSetup(c, m.Net)
-	if err != nil {
-		return nil, err
-	}
-	return &coupler{file: c, setup: s}, nil
-}
-
-// matchFlags are the match.InputError keys that are this command's flags;
-// the others (range, load.node, rating, port) are circuit file keys.
-var matchFlags = map[string]bool{"freq": true, "load-r": true, "load-x": true, "swr": true, "power": true, "choose-tap": true}
-
-// matchError names the flag or the circuit file key of a refusal.
-func matchError(err error, file string) error {
-	var ie *coil.InputError
-	if !errors.As(err, &ie) {
-		return err
-	}
-	if matchFlags[ie.Param] {
-		return &flagError{Flag: ie.Param, Err: err}
-	}
-	return &forms.ParseError{Kind: "circuit", File: file, Field: ie.Param, Err: errors.New(ie.Reason)}
-}
-
-// tappedCoil is the coil --choose-tap moves: --tap-coil, or the only
-// tapped coil of the circuit.
-func tappedCoil(net *circuit.Network, name string) (string, error) {
-	var tapped []string
-	for _, p := range net.Parts {
-		if p.Kind == circuit.Wound && p.TapNode >= 0 {
-			tapped = append(tapped, p.Name)
-		}
-	}
-	switch {
-	case name != "":
-		return name, nil
-	case len(tapped) == 1:
-		return tapped[0], nil
-	case len(tapped) == 0:
-		return "", usageErrorf("--choose-tap: the circuit has no tapped coil; give a [[coil]] tap = and tap_node =")
-	}
-	return "", usageErrorf("--choose-tap: the circuit has %d tapped coils (%s); name one with --tap-coil", len(tapped), strings.Join(tapped, ", "))
+	return spec.MatchOptions(spec.MatchFlags{
+		Freqs: o.freqs, Bands: o.bands, BandsFile: o.bandsFile, LoadR: o.loadR, LoadX: o.loadX,
+		RSteps: o.rSteps, XSteps: o.xSteps, SWR: o.swr, Power: o.power.v, PowerSet: o.power.set, PowerRaw: o.power.raw,
+	})
 }
 
 func runMatch(ctx context.Context, opts *matchOptions, stdout, stderr io.Writer) error {
@@ -287,42 +129,30 @@ func runMatch(ctx context.Context, opts *matchOptions, stdout, stderr io.Writer)
 	}
 	format := ""
 	if opts.plot != "" {
-		switch strings.ToLower(filepath.Ext(opts.plot)) {
-		case ".svg":
-			format = "svg"
-		case ".png":
-			format = "png"
-		default:
+		if format, err = sweepfile.PlotFormat(opts.plot); err != nil {
 			return usageErrorf("--plot %s: name a .svg or .png file", opts.plot)
 		}
 	}
-	cp, err := loadCoupler(opts.circuit, opts.stock, opts.stockSet)
+	cp, err := spec.LoadCoupler(opts.circuit, opts.stock.path, opts.stock.use.v, opts.stockSet)
 	if err != nil {
 		return err
 	}
-	req := report.MatchRequest{Circuit: opts.circuit, Title: cp.file.Title, Labels: labels}
+	req := report.MatchRequest{Circuit: opts.circuit, Title: cp.File.Title, Labels: labels}
 	if opts.chooseTap {
-		name, err := tappedCoil(&cp.setup.Network, opts.tapCoil)
+		name, err := spec.TappedCoil(&cp.Setup.Network, opts.tapCoil)
 		if err != nil {
 			return err
 		}
-		taps, err := match.ChooseTap(ctx, cp.setup, mo, name, opts.keep)
+		taps, err := match.ChooseTap(ctx, cp.Setup, mo, name, opts.keep)
 		if err != nil {
-			return matchError(err, opts.circuit)
+			return spec.MatchError(err, opts.circuit)
 		}
 		req.TapCoil, req.Taps = name, taps
-		// Map the best tap.
-		parts := append([]circuit.Part(nil), cp.setup.Network.Parts...)
-		for i := range parts {
-			if parts[i].Name == name {
-				parts[i].TapTurns = taps[0].TapTurns
-			}
-		}
-		cp.setup.Network.Parts = parts
+		cp.SetTap(name, taps[0].TapTurns) // map the best tap
 	}
-	res, err := match.Map(ctx, cp.setup, mo)
+	res, err := match.Map(ctx, cp.Setup, mo)
 	if err != nil {
-		return matchError(err, opts.circuit)
+		return spec.MatchError(err, opts.circuit)
 	}
 	if format != "" {
 		err := writeOutput(ctx, "--plot", opts.plot, []string{opts.circuit, opts.stock.path}, stdout, func(w io.Writer) error {
@@ -338,8 +168,6 @@ func runMatch(ctx context.Context, opts *matchOptions, stdout, stderr io.Writer)
 	if err := report.WriteMatchTable(stdout, req, res); err != nil {
 		return err
 	}
-	for _, w := range res.Warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, res.Warnings)
 	return nil
 }

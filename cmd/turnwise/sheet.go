@@ -1,19 +1,15 @@
 package main
 
 import (
-	"cmp"
 	"context"
-	"fmt"
 	"io"
-	"path/filepath"
 	"strings"
 	"time"
-	"unicode"
 
 	"github.com/spf13/cobra"
 
-	"turnwise/coil"
-	"turnwise/forms"
+	"turnwise/internal/quantity"
+	"turnwise/internal/report"
 	"turnwise/internal/spec"
 	"turnwise/sheets"
 )
@@ -134,7 +130,17 @@ file and renamed, so an existing FILE is replaced only by a complete one.
 }
 
 func runSheet(ctx context.Context, opts *sheetOptions, stdout, stderr io.Writer) error {
-	doc, warnings, inputs, err := sheetDocument(opts)
+	doc, warnings, inputs, err := report.SheetDocument(report.SheetRequest{
+		Job: opts.job, Title: opts.title, TitleGiven: opts.titleGiven, Paper: opts.paper.v, Units: opts.units.v,
+		Date: opts.date, Now: opts.now, StockPath: opts.stock.path, Use: opts.stock.use.v, StockGiven: opts.stockGiven,
+		FlagCoil: func(lf quantity.LengthFormat) (sheets.Coil, []string, error) {
+			cs, p, err := predictCoil(&opts.coil, opts.stock, opts.freq)
+			if err != nil {
+				return sheets.Coil{}, nil, err
+			}
+			return spec.FlagSheetCoil(cs, p, lf, opts.name, opts.quantity, opts.tap.set, opts.tap.v, opts.tap.raw)
+		},
+	})
 	if err != nil {
 		return err
 	}
@@ -145,186 +151,10 @@ func runSheet(ctx context.Context, opts *sheetOptions, stdout, stderr io.Writer)
 		return err
 	}
 	printWarnings(stderr, warnings)
-	report := stdout
 	if opts.output == "-" {
-		report = stderr
-	}
-	pages, charts := 1+len(doc.Coils), 0
-	for _, c := range doc.Coils {
-		if c.Span != nil {
-			charts++
-		}
-	}
-	what := fmt.Sprintf("cover and %d coil %s", len(doc.Coils), sheetPlural(len(doc.Coils), "page", "pages"))
-	if charts > 0 {
-		what += fmt.Sprintf(", %d tuning %s", charts, sheetPlural(charts, "chart", "charts"))
-	}
-	if n := len(doc.Circuits); n > 0 {
-		pages += n
-		what += fmt.Sprintf(", %d circuit %s", n, sheetPlural(n, "page", "pages"))
-	}
-	name := opts.output
-	if name == "-" {
-		name = "standard output"
-	}
-	if n := len(doc.Couplers); n > 0 {
-		what += fmt.Sprintf(", %d coupler %s", n, sheetPlural(n, "page", "pages"))
-		pages += n
-	}
-	fmt.Fprintf(report, "wrote %s: %d pages (%s), %s\n", name, pages+charts, what, doc.Paper)
-	fmt.Fprintln(report, "Print at 100 % (actual size) and measure the 50 mm bar on each page before using the drawings.")
-	return nil
-}
-
-func sheetPlural(n int, one, many string) string {
-	if n == 1 {
-		return one
-	}
-	return many
-}
-
-// sheetDocument resolves every coil before anything is written, so a bad
-// job file leaves no output behind. inputs lists the files it read (job,
-// stock, law tables), which -o must not name.
-func sheetDocument(opts *sheetOptions) (doc sheets.Document, warnings, inputs []string, err error) {
-	doc, warnings, err = sheetDocumentOf(opts, &inputs)
-	return doc, warnings, inputs, err
-}
-
-func sheetDocumentOf(opts *sheetOptions, inputs *[]string) (sheets.Document, []string, error) {
-	doc := sheets.Document{Title: opts.title, Paper: opts.paper.v, Units: opts.units.v}
-	var warnings []string
-	var date time.Time
-	if strings.ContainsFunc(opts.title, unicode.IsControl) {
-		return doc, nil, usageErrorf("--title holds a control character; give printable words, e.g. --title \"Club build night\"")
-	}
-	if opts.titleGiven && strings.TrimSpace(opts.title) == "" {
-		return doc, nil, usageErrorf("--title is blank; give the words to print on every page, e.g. --title \"Club build night\", or leave --title out")
-	}
-	*inputs = append(*inputs, opts.stock.path)
-	if opts.date != "" {
-		d, err := time.Parse("2006-01-02", strings.TrimSpace(opts.date))
-		if err != nil {
-			return doc, nil, usageErrorf("--date %q: write it as 2026-03-14", opts.date)
-		}
-		date = d
-	}
-	if opts.job == "" {
-		c, w, err := flagSheetCoil(opts)
-		if err != nil {
-			return doc, nil, err
-		}
-		doc.Coils = []sheets.Coil{c}
-		warnings = w
-		if doc.Title == "" {
-			doc.Title = "Build sheet"
-		}
+		report.WriteSheetSummary(stderr, doc, "standard output")
 	} else {
-		*inputs = append(*inputs, opts.job)
-		job, err := spec.LoadJob(opts.job)
-		if err != nil {
-			return doc, nil, err
-		}
-		*inputs = append(*inputs, jobInputs(job)...)
-		cat, err := spec.JobCatalog(job, opts.stock.path, opts.stock.use.v, opts.stockGiven)
-		if err != nil {
-			return doc, nil, err
-		}
-		if doc.Title == "" {
-			doc.Title = job.Title
-		}
-		if doc.Paper == "" {
-			doc.Paper = job.Paper
-		}
-		if doc.Units == "" {
-			doc.Units = job.Units
-		}
-		if date.IsZero() {
-			date = job.Date
-		}
-		doc.Notes = job.Notes
-		doc.Source = filepath.Base(job.File)
-		for i := range job.Coils {
-			c, w, err := spec.JobSheetCoil(job, &job.Coils[i], cat, newLengthFormatter(cmp.Or(doc.Units, "mm")))
-			if err != nil {
-				return doc, nil, err
-			}
-			doc.Coils = append(doc.Coils, c)
-			warnings = append(warnings, w...)
-		}
-		for _, path := range job.Circuits {
-			c, err := spec.JobCircuitPage(job, path, opts.stock.path, opts.stock.use.v, opts.stockGiven)
-			if err != nil {
-				return doc, nil, err
-			}
-			doc.Circuits = append(doc.Circuits, *c)
-		}
-		if job.Coupler != nil {
-			cp, w, err := couplerSheetPage(job, opts.stock, opts.stockGiven)
-			if err != nil {
-				return doc, nil, err
-			}
-			doc.Couplers = append(doc.Couplers, cp)
-			warnings = append(warnings, w...)
-		}
+		report.WriteSheetSummary(stdout, doc, opts.output)
 	}
-	doc.Paper, doc.Units = cmp.Or(doc.Paper, "A4"), cmp.Or(doc.Units, "mm")
-	if date.IsZero() {
-		now := opts.now()
-		date = time.Date(now.Year(), now.Month(), now.Day(), 0, 0, 0, 0, time.UTC)
-	}
-	doc.Date = date
-	return doc, warnings, nil
-}
-
-// flagSheetCoil is the one coil described by predict's flags.
-func flagSheetCoil(opts *sheetOptions) (sheets.Coil, []string, error) {
-	cs, p, err := predictCoil(&opts.coil, opts.stock, opts.freq)
-	if err != nil {
-		return sheets.Coil{}, nil, err
-	}
-	if opts.quantity < 1 || opts.quantity > 10000 {
-		return sheets.Coil{}, nil, usageErrorf("--quantity %d: give how many to build, 1 to 10000", opts.quantity)
-	}
-	if strings.TrimSpace(opts.name) == "" {
-		return sheets.Coil{}, nil, usageErrorf("--name is empty; name the coil as the builder will call it, e.g. --name L1")
-	}
-	if strings.ContainsFunc(opts.name, unicode.IsControl) {
-		return sheets.Coil{}, nil, usageErrorf("--name holds a control character; name the coil in printable text, e.g. --name L1")
-	}
-	lf := newLengthFormatter(cmp.Or(opts.units.v, "mm"))
-	c := spec.NewSheetCoil(cs, p, lf)
-	c.Name, c.Quantity = strings.TrimSpace(opts.name), opts.quantity
-	if opts.tap.set {
-		if opts.tap.v <= 0 {
-			return c, nil, usageErrorf("--tap %s: a tap at the cold end is no tap; give the turns from the cold (grounded) end, e.g. --tap 1.5", opts.tap.raw)
-		}
-		s, err := coil.Tap(cs.Geometry, opts.tap.v, p.Frequency)
-		if err != nil {
-			return c, nil, &flagError{Flag: "tap", Err: err}
-		}
-		c.Tap = spec.SheetTap(s)
-	}
-	return c, spec.SheetWarnings(c.Name, c.Warnings), nil
-}
-
-// jobInputs lists the other files a job reads: its stock file and law
-// tables, as given and relative to the job file.
-func jobInputs(job *forms.Job) []string {
-	var out []string
-	rel := func(p string) {
-		out = append(out, p)
-		if !filepath.IsAbs(p) {
-			out = append(out, filepath.Join(filepath.Dir(job.File), p))
-		}
-	}
-	if job.Stock != "" {
-		rel(job.Stock)
-	}
-	for i := range job.Coils {
-		if c := &job.Coils[i]; c.Has("law") {
-			rel(strings.Trim(c.Raw("law"), "\""))
-		}
-	}
-	return out
+	return nil
 }

@@ -11,18 +11,13 @@ package main
 import (
 	"context"
 	"errors"
-	"fmt"
 	"io"
-	"os"
 	"strings"
 
 	"github.com/spf13/cobra"
 
 	"turnwise/coil"
-	"turnwise/coil/thermal"
 	"turnwise/coil/tuning"
-	"turnwise/forms"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 )
@@ -167,68 +162,11 @@ func (o *spanOptions) settings() (spec.SpanSettings, error) {
 		Mounting:    o.coil.mounting.v,
 		MaxHarmonic: o.maxHarm, ChooseCoil: o.chooseCoil, MinTurns: o.minTurns, MaxTurns: o.maxTurns,
 	}
-	if o.maxHarm < 2 || o.maxHarm > tuning.MaxHarmonicLimit {
-		return s, usageErrorf("--max-harmonic %d: give 2 to %d (5 checks the 2nd to the 5th)", o.maxHarm, tuning.MaxHarmonicLimit)
-	}
-	if o.spread.set {
-		if !(o.spread.v > 0) || o.spread.v > 0.5 {
-			return s, usageErrorf("--bandspread %s: give a share of the dial above 0 and at most 50 %%, e.g. 3%%", o.spread.raw)
-		}
-		s.Bandspread = o.spread.v
-	}
-	if o.steps < 2 || o.steps > 1001 {
-		// One rule for every value: 0 is not "the default", it is refused
-		// like 1 (the default, 11, applies when the flag is left out).
-		return s, usageErrorf("--steps %d: give 2 to 1001 dial rows (default 11)", o.steps)
-	}
-	if o.margin.set {
-		if o.margin.v <= 0 {
-			return s, usageErrorf("--margin must be above 0 %%, e.g. 3%%")
-		}
-		s.Margin = o.margin.v
-	}
-	if o.gang != "" {
-		lo, hi, err := forms.ParseCapacitanceRange(o.gang)
-		if err != nil {
-			return s, &flagError{Flag: "gang", Err: err}
-		}
-		if hi == 0 {
-			return s, usageErrorf("--gang %s leaves section A, across the whole coil, without a capacitor; give the capacitor's minimum and maximum per section, e.g. --gang 15-365pF", o.gang)
-		}
-		s.GangA = [2]float64{float64(lo), float64(hi)}
-	}
-	if o.gangB != "" {
-		lo, hi, err := forms.ParseCapacitanceRange(o.gangB)
-		if err != nil {
-			return s, &flagError{Flag: "gang-b", Err: err}
-		}
-		s.GangB, s.GangBSet = [2]float64{float64(lo), float64(hi)}, true
-	}
-	for _, b := range o.bands {
-		fb, err := forms.ParseBand(b)
-		if err != nil {
-			return s, &flagError{Flag: "band", Err: err}
-		}
-		s.Bands = append(s.Bands, tuning.Band{Name: fb.Name, Low: fb.Low, High: fb.High})
-	}
-	if o.bandsFile != "" {
-		f, err := os.Open(o.bandsFile)
-		if err != nil {
-			if errors.Is(err, os.ErrNotExist) {
-				return s, usageErrorf("--bands: %q does not exist; check the path", o.bandsFile)
-			}
-			return s, fmt.Errorf("--bands: %w", err)
-		}
-		defer f.Close()
-		list, err := forms.LoadBands(f, o.bandsFile)
-		if err != nil {
-			return s, err
-		}
-		for _, b := range list {
-			s.Bands = append(s.Bands, tuning.Band{Name: b.Name, Low: b.Low, High: b.High})
-		}
-	}
-	return s, nil
+	err := s.ApplyFlags(spec.SpanFlags{
+		Gang: o.gang, GangB: o.gangB, Bands: o.bands, BandsFile: o.bandsFile,
+		Margin: o.margin.given(), MarginV: o.margin.v, Spread: o.spread.given(), SpreadV: o.spread.v,
+	})
+	return s, err
 }
 
 func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) error {
@@ -278,23 +216,10 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 
 // driftSettings parses --drift-at, --gang-tempco, --pitch-follows and
 // --temp-range; use is false for --drift-at none.
-func (o *spanOptions) driftSettings() (ds spec.SpanDriftSettings, use bool, err error) {
-	if strings.EqualFold(strings.TrimSpace(o.driftAt), "none") {
-		return ds, false, nil
+func (o *spanOptions) driftSettings() (spec.SpanDriftSettings, bool, error) {
+	ds, use, err := spec.ParseSpanDrift(o.driftAt, o.gangTC, o.pitch.v)
+	if use && o.tempRange.set {
+		ds.Low, ds.High = o.tempRange.v.Low, o.tempRange.v.High
 	}
-	for _, f := range strings.Split(o.driftAt, ",") {
-		v, err := quantity.ParsePercent(strings.TrimSpace(f))
-		if err != nil || v < 0 || v > 1 {
-			return ds, false, usageErrorf("--drift-at %s: give dial settings from 0 to 100 (percent), comma-separated, e.g. 0,50,100, or none", o.driftAt)
-		}
-		ds.Settings = append(ds.Settings, v)
-	}
-	if ds.Gang, err = thermal.ParseClass(o.gangTC); err != nil {
-		return ds, false, &flagError{Flag: "gang-tempco", Err: err}
-	}
-	ds.Pitch, _ = thermal.ParsePitchFollows(o.pitch.v)
-	if o.tempRange.set {
-		ds.Low, ds.High = o.tempRange.low, o.tempRange.high
-	}
-	return ds, true, nil
+	return ds, use, err
 }

@@ -2,7 +2,6 @@ package main
 
 import (
 	"os"
-	"path/filepath"
 
 	"github.com/spf13/pflag"
 
@@ -33,14 +32,11 @@ func (o *stockOptions) load() (*forms.Catalog, error) { return spec.LoadCatalog(
 // when --stock or --use was given there (flagsGiven), else the job file's
 // own stock = and use = keys, the stock path taken relative to the job file.
 func jobStockOptions(job *forms.Job, so *stockOptions, flagsGiven bool) *stockOptions {
-	if flagsGiven || (job.Stock == "" && job.Use == "") {
+	path, use := spec.JobStock(job, so.path, so.use.v, flagsGiven)
+	if path == so.path && use == so.use.v {
 		return so
 	}
 	out := newStockOptions()
-	out.path = job.Stock
-	if out.path != "" && !filepath.IsAbs(out.path) {
-		out.path = filepath.Join(filepath.Dir(job.File), out.path)
-	}
-	out.use.v = job.Use
+	out.path, out.use.v = path, use
 	return out
 }

@@ -2,75 +2,15 @@ package main
 
 import (
 	"context"
-	"errors"
-	"fmt"
 	"io"
-	"math"
-	"strconv"
 	"strings"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
+	"turnwise/internal/spec"
 
 	"github.com/spf13/cobra"
-	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil"
 )
-
-// ratioFlag takes a ratio as a fraction (0.2), a percentage (20%) or
-// "1:5".
-type ratioFlag struct {
-	raw string
-	v   float64
-	set bool
-}
-
-func (f *ratioFlag) String() string { return f.raw }
-func (f *ratioFlag) Type() string   { return "ratio" }
-func (f *ratioFlag) Set(s string) error {
-	v, err := parseRatio(s)
-	if err != nil {
-		return err
-	}
-	f.raw, f.v, f.set = s, v, true
-	return nil
-}
-
-// parseRatio reads "0.2", "20%" or "1:5" (the first number over the second).
-func parseRatio(s string) (float64, error) {
-	t := strings.TrimSpace(s)
-	bad := fmt.Errorf("%q is not a ratio; write 0.2, 20%% or 1:5", s)
-	var v float64
-	switch {
-	case strings.Contains(t, ":"):
-		a, b, _ := strings.Cut(t, ":")
-		x, err1 := strconv.ParseFloat(strings.TrimSpace(a), 64)
-		y, err2 := strconv.ParseFloat(strings.TrimSpace(b), 64)
-		if err1 != nil || err2 != nil || y == 0 {
-			return 0, bad
-		}
-		v = x / y
-	case strings.HasSuffix(t, "%"):
-		p, err := quantity.ParsePercent(t)
-		if err != nil {
-			return 0, bad
-		}
-		v = p
-	default:
-		x, err := strconv.ParseFloat(t, 64)
-		if err != nil {
-			return 0, bad
-		}
-		v = x
-	}
-	if a, b, ok := strings.Cut(t, ":"); ok && v > 1 && !math.IsInf(v, 0) {
-		return 0, fmt.Errorf("%q: a tap ratio is the part over the whole, so it must be below 1; did you mean %s:%s?", s, strings.TrimSpace(b), strings.TrimSpace(a))
-	}
-	if math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 || v >= 1 {
-		return 0, fmt.Errorf("%q: a tap ratio must be between 0 and 1 (the tap sees part of the whole coil), e.g. 0.2 or 1:5", s)
-	}
-	return v, nil
-}
 
 // tapOptions holds everything `turnwise tap` needs; no cobra types.
 type tapOptions struct {
@@ -177,41 +117,20 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 	if err != nil {
 		return err
 	}
-	g := cs.Geometry
-	var goal coil.TapGoal
-	var target float64
-	goalKey, goalFlag := "at", "at"
-	switch {
-	case opts.ratio.set:
-		goal, target, goalKey, goalFlag = coil.GoalVoltageRatio, opts.ratio.v, "voltage_ratio", "ratio"
-	case opts.impedance.set:
-		goal, target, goalKey, goalFlag = coil.GoalImpedanceRatio, opts.impedance.v, "impedance_ratio", "impedance-ratio"
-	case opts.bottomL.set:
-		goal, target, goalKey, goalFlag = coil.GoalBottomInductance, float64(opts.bottomL.v), "bottom_inductance", "bottom-l"
+	pl, err := spec.PlanTap(cs.Geometry, opts.freq.v, spec.TapGoalInput{
+		Ratio: opts.ratio.v, ImpedanceRatio: opts.impedance.v, BottomL: opts.bottomL.v, At: opts.at.v,
+		RatioSet: opts.ratio.set, ImpedanceSet: opts.impedance.set, BottomLSet: opts.bottomL.set, AtSet: opts.at.set,
+	})
+	if err != nil {
+		return err
 	}
-	var choices []coil.TapChoice
-	var findErr error
-	if opts.at.set {
-		s, err := coil.Tap(g, opts.at.v, opts.freq.v)
-		if err != nil {
-			return tapFlagError(err, goalFlag)
-		}
-		target = opts.at.v
-		choices = []coil.TapChoice{{Sections: s}}
-	} else {
-		choices, findErr = coil.FindTap(g, opts.freq.v, goal, target)
-		if findErr != nil && len(choices) == 0 {
-			return tapFlagError(findErr, goalFlag)
-		}
-	}
-	rec := report.NewTapRecord(cs, p, goal, goalKey, target, choices, findErr == nil)
+	goal, goalKey, target, choices := pl.Goal, pl.GoalKey, pl.Target, pl.Choices
+	rec := report.NewTapRecord(cs, p, goal, goalKey, target, choices, pl.Found == nil)
 	if !opts.json {
 		// The model's warnings lead the list: reword them in the table's length unit.
 		copy(rec.Warnings, p.WarningsIn(newLengthFormatter(opts.units.v)))
 	}
-	if goal == coil.GoalImpedanceRatio && !opts.at.set && len(choices) > 0 && math.Abs(choices[0].Error) > coil.TapRatioTolerance {
-		rec.Warnings = append(rec.Warnings, ratioMissAdvice(cs.Geometry, opts.freq.v, target, choices[0].Error))
-	}
+	rec.Warnings = append(rec.Warnings, pl.Advice...)
 	if opts.json {
 		if err := report.WriteTapJSON(stdout, rec); err != nil {
 			return err
@@ -220,7 +139,7 @@ func runTap(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) error
 		return err
 	}
 	printWarnings(stderr, rec.Warnings)
-	return findErr
+	return pl.Found
 }
 
 // runTapLoad finds the tap (or link, or divider) for a resistance at the
@@ -230,19 +149,8 @@ func runTapLoad(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) e
 	if opts.load.set {
 		r = opts.load
 	}
-	switch {
-	case !opts.freq.set:
-		return usageErrorf("a tap for a load needs the tank's frequency: add --freq, e.g. --freq 7.1MHz")
-	case opts.tankQ != 0 && opts.tankR.set:
-		return usageErrorf("give the tank's --tank-q or its --tank-impedance, not both")
-	}
-	for _, q := range []struct {
-		name string
-		v    float64
-	}{{"tank-q", opts.tankQ}, {"loaded-q", opts.loadedQ}} {
-		if math.IsNaN(q.v) || math.IsInf(q.v, 0) || q.v < 0 || q.v > 1e5 {
-			return usageErrorf("--%s %g: give a Q from 1 to 100000, e.g. 100", q.name, q.v)
-		}
+	if err := spec.CheckTapLoad(opts.freq.set, opts.tankQ, opts.tankR.set, opts.loadedQ); err != nil {
+		return err
 	}
 	cs, p, err := predictCoil(&opts.coil, opts.stock, opts.freq)
 	if err != nil {
@@ -250,14 +158,7 @@ func runTapLoad(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) e
 	}
 	plan, err := coil.TapForLoad(cs.Geometry, coil.LoadGoal{Frequency: opts.freq.v, Source: r.v, TankImpedance: opts.tankR.v, TankQ: opts.tankQ, LoadedQ: opts.loadedQ})
 	if err != nil {
-		var ie *coil.InputError
-		if errors.As(err, &ie) {
-			flag := map[string]string{"loaded_q": "loaded-q", "tank_q": "tank-q", "tank_impedance": "tank-impedance", "frequency": "freq", "source": "source"}[ie.Param]
-			if flag != "" {
-				return &flagError{Flag: flag, Err: err}
-			}
-		}
-		return err
+		return spec.TapLoadError(err)
 	}
 	warnings := plan.Advice()
 	if opts.json {
@@ -266,44 +167,6 @@ func runTapLoad(_ context.Context, opts *tapOptions, stdout, stderr io.Writer) e
 	if err := report.WriteTapLoadTable(stdout, cs, p, float64(r.v), plan, newLengthFormatter(opts.units.v)); err != nil {
 		return err
 	}
-	for _, w := range warnings {
-		fmt.Fprintf(stderr, "warning: %s\n", w)
-	}
+	printWarnings(stderr, warnings)
 	return nil
-}
-
-// ratioMissAdvice says what to use when no quarter-turn tap is within
-// ±10 % of an impedance ratio: a capacitive divider (with the values, at
-// a frequency) or a link winding (sized by --source).
-func ratioMissAdvice(g coil.Geometry, f unit.Frequency, ratio, miss float64) string {
-	msg := fmt.Sprintf("no quarter-turn tap is within ±%.0f %% of the impedance ratio %.4g (the nearest misses by %+.0f %%): use a link winding over the cold end (run with --source 50ohm and --freq to size it) or a capacitive divider",
-		coil.TapRatioTolerance*100, ratio, miss*100)
-	if f > 0 {
-		if p, err := coil.Predict(g, f); err == nil && p.InductanceEffective > 0 {
-			w := 2 * math.Pi * float64(f)
-			c := 1 / (w * w * float64(p.InductanceEffective))
-			n := math.Sqrt(ratio)
-			msg += fmt.Sprintf(": the tank's %s as %s (top to tap node) in series with %s (tap node to ground)",
-				quantity.FormatCapacitance(c), quantity.FormatCapacitance(c/(1-n)), quantity.FormatCapacitance(c/n))
-		}
-	}
-	return msg
-}
-
-// tapFlagError names the flag of a tap error; goalFlag is the flag that
-// gave the target.
-func tapFlagError(err error, goalFlag string) error {
-	var ie *coil.InputError
-	if !errors.As(err, &ie) {
-		return err
-	}
-	switch ie.Param {
-	case "tap_turns":
-		return &flagError{Flag: "at", Err: err}
-	case "frequency":
-		return &flagError{Flag: "freq", Err: err}
-	case "target":
-		return &flagError{Flag: goalFlag, Err: err}
-	}
-	return err
 }

@@ -289,21 +289,8 @@ func (s *Solver) FindPassband(freqs []float64) (Passband, error) {
 		return v
 	}
 	// Golden-section search for the maximum in [lo, hi].
-	const phi = 0.6180339887498949
-	a, b := lo, hi
-	x1, x2 := b-phi*(b-a), a+phi*(b-a)
-	g1, g2 := gain(x1), gain(x2)
-	for it := 0; it < 200 && b-a > 1e-12*b; it++ {
-		if g1 > g2 {
-			b, x2, g2 = x2, x1, g1
-			x1 = b - phi*(b-a)
-			g1 = gain(x1)
-		} else {
-			a, x1, g1 = x1, x2, g2
-			x2 = a + phi*(b-a)
-			g2 = gain(x2)
-		}
-	}
+	a, b := goldenMin(func(f float64) float64 { return -gain(f) }, lo, hi,
+		func(a, b float64) bool { return b-a > 1e-12*b })
 	if ferr != nil {
 		return Passband{}, ferr
 	}

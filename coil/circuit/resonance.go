@@ -132,21 +132,7 @@ func (s *Solver) refine(kind ResonanceKind, f0, lo, hi float64) (Resonance, erro
 	a, b := math.Log(lo), math.Log(hi)
 	// Shrink the bracket around f0 while that keeps an interior extremum:
 	// the lossless frequency is a very good start.
-	const phi = 0.6180339887498949
-	x1 := b - phi*(b-a)
-	x2 := a + phi*(b-a)
-	g1, g2 := g(x1), g(x2)
-	for it := 0; it < 200 && b-a > 1e-13*math.Max(1, math.Abs(a)); it++ {
-		if g1 < g2 {
-			b, x2, g2 = x2, x1, g1
-			x1 = b - phi*(b-a)
-			g1 = g(x1)
-		} else {
-			a, x1, g1 = x1, x2, g2
-			x2 = a + phi*(b-a)
-			g2 = g(x2)
-		}
-	}
+	a, b = goldenMin(g, a, b, func(a, b float64) bool { return b-a > 1e-13*math.Max(1, math.Abs(a)) })
 	if ferr != nil {
 		return Resonance{}, ferr
 	}
@@ -224,4 +210,24 @@ func (s *Solver) dominantPart(m Mode) string {
 		}
 	}
 	return name
+}
+
+// goldenMin narrows [a, b] around a minimum of g by golden-section search
+// while wide(a, b) holds, for at most 200 steps, and returns the bracket.
+func goldenMin(g func(float64) float64, a, b float64, wide func(a, b float64) bool) (float64, float64) {
+	const phi = 0.6180339887498949
+	x1, x2 := b-phi*(b-a), a+phi*(b-a)
+	g1, g2 := g(x1), g(x2)
+	for it := 0; it < 200 && wide(a, b); it++ {
+		if g1 < g2 {
+			b, x2, g2 = x2, x1, g1
+			x1 = b - phi*(b-a)
+			g1 = g(x1)
+		} else {
+			a, x1, g1 = x1, x2, g2
+			x2 = a + phi*(b-a)
+			g2 = g(x2)
+		}
+	}
+	return a, b
 }

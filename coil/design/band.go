@@ -86,20 +86,20 @@ func SearchBand(b BandTarget, c Constraints) (Result, error) {
 	res := Result{}
 	info := &BandInfo{}
 	lo, hi := float64(b.Low), float64(b.High)
-	bad := func(v float64) bool { return !finite(v) || v < 0 }
+	bad := func(v float64) bool { return !coil.Finite(v) || v < 0 }
 	switch {
 	case bad(lo) || bad(hi) || lo == 0 || hi <= lo:
-		return res, inputErrorf("band", "give the band as LOW-HIGH with LOW below HIGH, e.g. 144-146MHz")
+		return res, coil.InputErrorf("band", "give the band as LOW-HIGH with LOW below HIGH, e.g. 144-146MHz")
 	case hi > coil.MaxFrequency:
-		return res, inputErrorf("band", "must be at most 10 GHz")
+		return res, coil.InputErrorf("band", "must be at most 10 GHz")
 	case bad(float64(b.Fixed)) || bad(float64(b.Stray)) || bad(float64(b.TrimMin)) || bad(float64(b.TrimMax)):
-		return res, inputErrorf("trimmer", "capacitances must be finite and not negative")
+		return res, coil.InputErrorf("trimmer", "capacitances must be finite and not negative")
 	case !(b.TrimMax > b.TrimMin):
-		return res, inputErrorf("trimmer", "give the trimmer's range as MIN-MAX with MIN below MAX, e.g. 2-10pF")
-	case !finite(b.TrimMargin) || b.TrimMargin < 0 || b.TrimMargin >= 0.5:
-		return res, inputErrorf("trimmer_margin", "%.3g %% of the trimmer's swing is outside 0 … 50 %%", b.TrimMargin*100)
-	case !finite(b.MinQ) || b.MinQ < 0 || b.MinQ > 1e5:
-		return res, inputErrorf("min_q", "%g is outside 0 … 100000", b.MinQ)
+		return res, coil.InputErrorf("trimmer", "give the trimmer's range as MIN-MAX with MIN below MAX, e.g. 2-10pF")
+	case !coil.Finite(b.TrimMargin) || b.TrimMargin < 0 || b.TrimMargin >= 0.5:
+		return res, coil.InputErrorf("trimmer_margin", "%.3g %% of the trimmer's swing is outside 0 … 50 %%", b.TrimMargin*100)
+	case !coil.Finite(b.MinQ) || b.MinQ < 0 || b.MinQ > 1e5:
+		return res, coil.InputErrorf("min_q", "%g is outside 0 … 100000", b.MinQ)
 	}
 	if b.TrimMargin == 0 {
 		b.TrimMargin = DefaultBandTrimMargin
@@ -228,7 +228,7 @@ func WithMinQ(r Result, minQ float64, top int) (Result, error) {
 		return r, nil
 	}
 	if r.Frequency == 0 {
-		return r, inputErrorf("min_q", "a Q floor needs the frequency it holds at; give the operating frequency")
+		return r, coil.InputErrorf("min_q", "a Q floor needs the frequency it holds at; give the operating frequency")
 	}
 	best := 0.0
 	var kept, pareto []Candidate

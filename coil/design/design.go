@@ -380,27 +380,27 @@ type settings struct {
 
 func resolve(t Target, c Constraints) (settings, error) {
 	s := settings{t: t, c: c}
-	bad := func(v float64) bool { return !finite(v) || v < 0 }
+	bad := func(v float64) bool { return !coil.Finite(v) || v < 0 }
 	switch {
 	case bad(float64(t.Inductance)), bad(float64(t.Resonance)), bad(float64(t.Capacitance)),
 		bad(float64(t.Stray)), bad(float64(t.Frequency)), bad(t.Tolerance):
-		return s, inputErrorf("target", "inductance, resonance, capacitance, stray, frequency and tolerance must be finite and not negative")
+		return s, coil.InputErrorf("target", "inductance, resonance, capacitance, stray, frequency and tolerance must be finite and not negative")
 	case t.Inductance > 0 && (t.Resonance > 0 || t.Capacitance > 0):
-		return s, inputErrorf("inductance", "give an inductance, or a resonance with a capacitance, not both")
+		return s, coil.InputErrorf("inductance", "give an inductance, or a resonance with a capacitance, not both")
 	case t.Inductance == 0 && (t.Resonance == 0 || t.Capacitance == 0):
 		if t.Capacitance > 0 {
-			return s, inputErrorf("resonance", "a capacitance needs the frequency it must resonate at")
+			return s, coil.InputErrorf("resonance", "a capacitance needs the frequency it must resonate at")
 		}
 		if t.Resonance > 0 {
-			return s, inputErrorf("capacitance", "a resonance needs the capacitance it resonates with")
+			return s, coil.InputErrorf("capacitance", "a resonance needs the capacitance it resonates with")
 		}
-		return s, inputErrorf("inductance", "give the inductance wanted, or a resonance with a capacitance")
+		return s, coil.InputErrorf("inductance", "give the inductance wanted, or a resonance with a capacitance")
 	case t.Frequency > coil.MaxFrequency || t.Resonance > coil.MaxFrequency:
-		return s, inputErrorf("frequency", "must be at most 10 GHz")
+		return s, coil.InputErrorf("frequency", "must be at most 10 GHz")
 	case t.Tolerance > 0.5:
-		return s, inputErrorf("tolerance", "%.3g %% is too loose; use at most 50 %%", t.Tolerance*100)
+		return s, coil.InputErrorf("tolerance", "%.3g %% is too loose; use at most 50 %%", t.Tolerance*100)
 	case t.Tolerance > 0 && t.Tolerance < MinTolerance:
-		return s, inputErrorf("tolerance", "%.3g %% is tighter than any coil can be wound or measured; use at least %g %%", t.Tolerance*100, MinTolerance*100)
+		return s, coil.InputErrorf("tolerance", "%.3g %% is tighter than any coil can be wound or measured; use at least %g %%", t.Tolerance*100, MinTolerance*100)
 	}
 	s.tol = t.Tolerance
 	if s.tol == 0 {
@@ -411,7 +411,7 @@ func resolve(t Target, c Constraints) (settings, error) {
 		s.matchF = float64(t.Frequency)
 		s.opF = float64(t.Frequency)
 		if !(s.required >= 1e-12 && s.required <= 1) {
-			return s, inputErrorf("inductance", "%.3g H is outside 1 pH … 1 H", s.required)
+			return s, coil.InputErrorf("inductance", "%.3g H is outside 1 pH … 1 H", s.required)
 		}
 	} else {
 		s.effective = true
@@ -423,74 +423,74 @@ func resolve(t Target, c Constraints) (settings, error) {
 		s.required = float64(coil.InductanceForResonance(t.Resonance, t.Capacitance+t.Stray))
 		if !(s.required >= 1e-12 && s.required <= 1) {
 			if alone := float64(coil.InductanceForResonance(t.Resonance, t.Capacitance)); t.Stray != 0 && alone >= 1e-12 && alone <= 1 {
-				return s, inputErrorf("stray", "%s of stray capacitance makes resonating at %s need %.3g H, outside 1 pH … 1 H; give the wiring's few pF, e.g. 2pF",
+				return s, coil.InputErrorf("stray", "%s of stray capacitance makes resonating at %s need %.3g H, outside 1 pH … 1 H; give the wiring's few pF, e.g. 2pF",
 					quantity.FormatCapacitance(float64(t.Stray)), quantity.FormatFrequency(s.matchF), s.required)
 			}
-			return s, inputErrorf("capacitance", "resonating at %s needs %.3g H, outside 1 pH … 1 H", quantity.FormatFrequency(s.matchF), s.required)
+			return s, coil.InputErrorf("capacitance", "resonating at %s needs %.3g H, outside 1 pH … 1 H", quantity.FormatFrequency(s.matchF), s.required)
 		}
 	}
-	bl := func(v unit.Length) bool { return !finite(float64(v)) || v < 0 }
+	bl := func(v unit.Length) bool { return !coil.Finite(float64(v)) || v < 0 }
 	switch {
 	case bl(c.LeadLength) || float64(c.LeadLength) > coil.MaxLeadLength:
-		return s, inputErrorf("lead_length", "must be between 0 and 1 m, e.g. 5mm")
+		return s, coil.InputErrorf("lead_length", "must be between 0 and 1 m, e.g. 5mm")
 	case bl(c.MaxLength):
-		return s, inputErrorf("max_length", "must be a positive length, e.g. 15mm (zero means no limit)")
+		return s, coil.InputErrorf("max_length", "must be a positive length, e.g. 15mm (zero means no limit)")
 	case bl(c.MaxDiameter):
-		return s, inputErrorf("max_diameter", "must be a positive length, e.g. 20mm (zero means no limit)")
+		return s, coil.InputErrorf("max_diameter", "must be a positive length, e.g. 20mm (zero means no limit)")
 	case bl(c.MaxWireLength):
-		return s, inputErrorf("max_wire_length", "must be a positive length, e.g. 1m (zero means no limit)")
+		return s, coil.InputErrorf("max_wire_length", "must be a positive length, e.g. 1m (zero means no limit)")
 	case bl(c.MinWire):
-		return s, inputErrorf("min_wire", "must be a positive length, e.g. 0.5mm (zero means no limit)")
+		return s, coil.InputErrorf("min_wire", "must be a positive length, e.g. 0.5mm (zero means no limit)")
 	case bl(c.MaxWire):
-		return s, inputErrorf("max_wire", "must be a positive length, e.g. 2mm (zero means no limit)")
+		return s, coil.InputErrorf("max_wire", "must be a positive length, e.g. 2mm (zero means no limit)")
 	case c.MinWire > 0 && c.MaxWire > 0 && c.MinWire > c.MaxWire:
-		return s, inputErrorf("min_wire", "%s is more than the maximum wire %s", quantity.FormatMillimetres(float64(c.MinWire)), quantity.FormatMillimetres(float64(c.MaxWire)))
-	case !finite(c.MinSRFRatio) || c.MinSRFRatio < 0 || (c.MinSRFRatio > 0 && c.MinSRFRatio < 1.2) || c.MinSRFRatio > 100:
-		return s, inputErrorf("min_srf_ratio", "%g is outside 1.2 … 100 (the model needs the SRF well above f; 3 is common practice)", c.MinSRFRatio)
-	case !finite(c.TrimMargin) || c.TrimMargin < 0 || c.TrimMargin > 0.3:
-		return s, inputErrorf("trim_margin", "%.3g %% is outside 0 … 30 %%", c.TrimMargin*100)
-	case !finite(c.MinTurns) || c.MinTurns < 0 || (c.MinTurns > 0 && c.MinTurns < 2) || c.MinTurns > coil.MaxTurns:
-		return s, inputErrorf("min_turns", "%g is outside 2 … %d: fewer than two turns cannot be trimmed by squeezing or spreading", c.MinTurns, coil.MaxTurns)
+		return s, coil.InputErrorf("min_wire", "%s is more than the maximum wire %s", quantity.FormatMillimetres(float64(c.MinWire)), quantity.FormatMillimetres(float64(c.MaxWire)))
+	case !coil.Finite(c.MinSRFRatio) || c.MinSRFRatio < 0 || (c.MinSRFRatio > 0 && c.MinSRFRatio < 1.2) || c.MinSRFRatio > 100:
+		return s, coil.InputErrorf("min_srf_ratio", "%g is outside 1.2 … 100 (the model needs the SRF well above f; 3 is common practice)", c.MinSRFRatio)
+	case !coil.Finite(c.TrimMargin) || c.TrimMargin < 0 || c.TrimMargin > 0.3:
+		return s, coil.InputErrorf("trim_margin", "%.3g %% is outside 0 … 30 %%", c.TrimMargin*100)
+	case !coil.Finite(c.MinTurns) || c.MinTurns < 0 || (c.MinTurns > 0 && c.MinTurns < 2) || c.MinTurns > coil.MaxTurns:
+		return s, coil.InputErrorf("min_turns", "%g is outside 2 … %d: fewer than two turns cannot be trimmed by squeezing or spreading", c.MinTurns, coil.MaxTurns)
 	case c.Top < 0 || c.Top > MaxTop:
-		return s, inputErrorf("top", "%d is outside 1 … %d", c.Top, MaxTop)
+		return s, coil.InputErrorf("top", "%d is outside 1 … %d", c.Top, MaxTop)
 	case c.Prefer < PreferBalanced || c.Prefer > PreferEasy:
-		return s, inputErrorf("prefer", "unknown preference %d", int(c.Prefer))
+		return s, coil.InputErrorf("prefer", "unknown preference %d", int(c.Prefer))
 	case len(c.Wires) == 0:
-		return s, inputErrorf("wires", "no wire to choose from; add wire to the stock")
+		return s, coil.InputErrorf("wires", "no wire to choose from; add wire to the stock")
 	case len(c.Supports) == 0 && c.FreeDiameter == nil:
-		return s, inputErrorf("supports", "no mandrel or former to choose from; add one to the stock or allow a free diameter")
+		return s, coil.InputErrorf("supports", "no mandrel or former to choose from; add one to the stock or allow a free diameter")
 	}
 	if c.Temperature != 0 {
 		k := float64(c.Temperature) - 273.15
-		if !finite(k) || k < coil.MinTemperatureC || k > coil.MaxTemperatureC {
-			return s, inputErrorf("temperature", "%.4g °C is outside %g … %g °C", k, coil.MinTemperatureC, coil.MaxTemperatureC)
+		if !coil.Finite(k) || k < coil.MinTemperatureC || k > coil.MaxTemperatureC {
+			return s, coil.InputErrorf("temperature", "%.4g °C is outside %g … %g °C", k, coil.MinTemperatureC, coil.MaxTemperatureC)
 		}
 	}
 	if fd := c.FreeDiameter; fd != nil {
 		if bl(fd.Min) || bl(fd.Max) || (fd.Max > 0 && fd.Min > fd.Max) {
-			return s, inputErrorf("free_diameter", "the range %s … %s is not a range", quantity.FormatMillimetres(float64(fd.Min)), quantity.FormatMillimetres(float64(fd.Max)))
+			return s, coil.InputErrorf("free_diameter", "the range %s … %s is not a range", quantity.FormatMillimetres(float64(fd.Min)), quantity.FormatMillimetres(float64(fd.Max)))
 		}
 	}
 	for _, sp := range c.Supports {
-		if !finite(float64(sp.Diameter)) || sp.Diameter <= 0 {
-			return s, inputErrorf("supports", "%q: diameter %s is not a diameter", sp.Name, quantity.FormatMillimetres(float64(sp.Diameter)))
+		if !coil.Finite(float64(sp.Diameter)) || sp.Diameter <= 0 {
+			return s, coil.InputErrorf("supports", "%q: diameter %s is not a diameter", sp.Name, quantity.FormatMillimetres(float64(sp.Diameter)))
 		}
-		if !finite(sp.Springback) || sp.Springback < coil.MinSpringback || sp.Springback > coil.MaxSpringback {
-			return s, inputErrorf("springback", "%q: %.3g %% is outside %g … %g %%", sp.Name, sp.Springback*100, coil.MinSpringback*100, coil.MaxSpringback*100)
+		if !coil.Finite(sp.Springback) || sp.Springback < coil.MinSpringback || sp.Springback > coil.MaxSpringback {
+			return s, coil.InputErrorf("springback", "%q: %.3g %% is outside %g … %g %%", sp.Name, sp.Springback*100, coil.MinSpringback*100, coil.MaxSpringback*100)
 		}
 	}
 	for _, w := range c.Wires {
 		d, do := float64(w.Diameter), float64(w.Overall)
-		if !finite(d) || d <= 0 || !finite(do) || (do != 0 && do < d) {
-			return s, inputErrorf("wires", "%q: diameters %s over %s are not a wire", w.Name, quantity.FormatMillimetres(d), quantity.FormatMillimetres(do))
+		if !coil.Finite(d) || d <= 0 || !coil.Finite(do) || (do != 0 && do < d) {
+			return s, coil.InputErrorf("wires", "%q: diameters %s over %s are not a wire", w.Name, quantity.FormatMillimetres(d), quantity.FormatMillimetres(do))
 		}
 		if w.Conductor < coil.Copper || w.Conductor > coil.Tinned {
-			return s, inputErrorf("wires", "%q: unknown conductor", w.Name)
+			return s, coil.InputErrorf("wires", "%q: unknown conductor", w.Name)
 		}
 	}
 	for _, cal := range c.Calibrations {
-		if !finite(cal.Springback) || cal.Springback < coil.MinSpringback || cal.Springback > coil.MaxSpringback {
-			return s, inputErrorf("springback", "calibration %q on %q: %.3g %% is outside %g … %g %%", cal.Wire, cal.Support, cal.Springback*100, coil.MinSpringback*100, coil.MaxSpringback*100)
+		if !coil.Finite(cal.Springback) || cal.Springback < coil.MinSpringback || cal.Springback > coil.MaxSpringback {
+			return s, coil.InputErrorf("springback", "calibration %q on %q: %.3g %% is outside %g … %g %%", cal.Wire, cal.Support, cal.Springback*100, coil.MinSpringback*100, coil.MaxSpringback*100)
 		}
 	}
 	s.margin = c.TrimMargin

@@ -5,6 +5,9 @@ import (
 	"turnwise/coil"
 )
 
+// twoPi saves a multiply in hot paths.
+const twoPi = 2 * math.Pi
+
 // The score of a coil that meets the target and every constraint (higher
 // is better), in natural-log units so that each term is scale-free:
 //

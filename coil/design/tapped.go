@@ -31,9 +31,9 @@ type TapFit struct {
 func AddTaps(r Result, goal TapGoalInfo, f unit.Frequency) (Result, error) {
 	switch {
 	case goal.Load == nil && !(goal.Ratio > 0 && goal.Ratio < 1):
-		return r, inputErrorf("tap_ratio", "give an impedance ratio between 0 and 1, e.g. 1:50, or the impedance at the tap")
+		return r, coil.InputErrorf("tap_ratio", "give an impedance ratio between 0 and 1, e.g. 1:50, or the impedance at the tap")
 	case !(f > 0):
-		return r, inputErrorf("frequency", "a tapped design needs the operating frequency")
+		return r, coil.InputErrorf("frequency", "a tapped design needs the operating frequency")
 	}
 	r.Tap = &goal
 	fit := func(c *Candidate) error {

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"math/cmplx"
+	"turnwise/coil"
 
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/optimize"
@@ -125,19 +126,19 @@ var ErrFit = errors.New("sweep: no fit")
 // "freq", "fit_range" or "sweep".
 func FitModel(pts []Point, opt Options) (*Fit, error) {
 	if len(pts) < MinPoints {
-		return nil, inputErrorf("sweep", "%d points: the fit needs at least %d", len(pts), MinPoints)
+		return nil, coil.InputErrorf("sweep", "%d points: the fit needs at least %d", len(pts), MinPoints)
 	}
 	for i, p := range pts {
 		if !(p.Frequency > 0) || math.IsInf(p.Frequency, 0) || cmplx.IsNaN(p.Z) || cmplx.IsInf(p.Z) || !(p.Sens > 0) {
-			return nil, inputErrorf("sweep", "point %d is not a finite impedance at a positive frequency", i+1)
+			return nil, coil.InputErrorf("sweep", "point %d is not a finite impedance at a positive frequency", i+1)
 		}
 		if i > 0 && !(p.Frequency > pts[i-1].Frequency) {
-			return nil, inputErrorf("sweep", "frequencies must ascend (point %d)", i+1)
+			return nil, coil.InputErrorf("sweep", "frequencies must ascend (point %d)", i+1)
 		}
 	}
 	if opt.FMin < 0 || opt.FMax < 0 || (opt.FMax > 0 && opt.FMax <= opt.FMin) || opt.Frequency < 0 ||
 		math.IsInf(opt.FMax, 0) || math.IsNaN(opt.FMin+opt.FMax+opt.Frequency) || math.IsInf(opt.Frequency, 0) {
-		return nil, inputErrorf("fit_range", "the range must be 0 ≤ low < high, e.g. 10MHz-120MHz")
+		return nil, coil.InputErrorf("fit_range", "the range must be 0 ≤ low < high, e.g. 10MHz-120MHz")
 	}
 	srfData, srfSigma := crossing(pts)
 	hi := opt.FMax
@@ -149,7 +150,7 @@ func FitModel(pts []Point, opt Options) (*Fit, error) {
 	}
 	used := selectRange(pts, opt.FMin, hi)
 	if len(used) < MinPoints {
-		return nil, inputErrorf("fit_range", "%d points between %s and %s: the fit needs at least %d; widen the range or sweep more points",
+		return nil, coil.InputErrorf("fit_range", "%d points between %s and %s: the fit needs at least %d; widen the range or sweep more points",
 			len(used), fmtHz(opt.FMin), fmtHz(math.Min(hi, pts[len(pts)-1].Frequency)), MinPoints)
 	}
 	fr, err := fitPoints(used, opt.LeadInductance)
@@ -178,7 +179,7 @@ func FitModel(pts []Point, opt Options) (*Fit, error) {
 	}
 	srfFit := fr.m.SRF()
 	if f.Frequency > 0.9*srfFit {
-		return nil, inputErrorf("freq", "%s is above 90 %% of the fitted self-resonance %s: the coil is not a usable inductor there", fmtHz(f.Frequency), fmtHz(srfFit))
+		return nil, coil.InputErrorf("freq", "%s is above 90 %% of the fitted self-resonance %s: the coil is not a usable inductor there", fmtHz(f.Frequency), fmtHz(srfFit))
 	}
 	at := f.Frequency
 	f.Inductance = fr.derived(func(m Model) float64 { return m.InductanceAt(at) })
@@ -248,16 +249,7 @@ func crossing(pts []Point) (f, sigma float64) {
 		return f0, (b.Frequency - a.Frequency) / 3
 	}
 	n := float64(len(xs))
-	var mx, my float64
-	for i := range xs {
-		mx += xs[i] / n
-		my += ys[i] / n
-	}
-	var sxx, sxy float64
-	for i := range xs {
-		sxx += (xs[i] - mx) * (xs[i] - mx)
-		sxy += (xs[i] - mx) * (ys[i] - my)
-	}
+	mx, my, sxx, sxy := moments(xs, ys)
 	slope := sxy / sxx
 	if !(slope > 0) {
 		return f0, (b.Frequency - a.Frequency) / 3
@@ -372,11 +364,11 @@ func initial(pts []Point) (Model, error) {
 		}
 	}
 	if len(xs) < 2 {
-		return Model{}, inputErrorf("sweep", "the sweep is not inductive below its self-resonance: check the fixture (reflection, series, shunt) and the file")
+		return Model{}, coil.InputErrorf("sweep", "the sweep is not inductive below its self-resonance: check the fixture (reflection, series, shunt) and the file")
 	}
 	a, b := line(xs, ys)
 	if !(a > 0) {
-		return Model{}, inputErrorf("sweep", "the sweep does not look like a coil: its apparent inductance does not settle at low frequency")
+		return Model{}, coil.InputErrorf("sweep", "the sweep does not look like a coil: its apparent inductance does not settle at low frequency")
 	}
 	m := Model{L: 1 / a, C: -b}
 	fmax := pts[len(pts)-1].Frequency
@@ -397,19 +389,24 @@ func initial(pts []Point) (Model, error) {
 	return m, nil
 }
 
-// line is the least-squares straight line y = a + b·x.
-func line(xs, ys []float64) (a, b float64) {
+// moments are the means of xs and ys and the sums of squares and products
+// about them, from which a least-squares line follows.
+func moments(xs, ys []float64) (mx, my, sxx, sxy float64) {
 	n := float64(len(xs))
-	var mx, my float64
 	for i := range xs {
 		mx += xs[i] / n
 		my += ys[i] / n
 	}
-	var sxx, sxy float64
 	for i := range xs {
 		sxx += (xs[i] - mx) * (xs[i] - mx)
 		sxy += (xs[i] - mx) * (ys[i] - my)
 	}
+	return mx, my, sxx, sxy
+}
+
+// line is the least-squares straight line y = a + b·x.
+func line(xs, ys []float64) (a, b float64) {
+	mx, my, sxx, sxy := moments(xs, ys)
 	if sxx == 0 {
 		return my, 0
 	}
@@ -505,11 +502,11 @@ func solve(p *problem, full []float64) (*fitResult, error) {
 	jtj.SymOuterK(1, jac.T())
 	var ch mat.Cholesky
 	if !ch.Factorize(&jtj) {
-		return nil, inputErrorf("sweep", "the sweep cannot separate L, C and the loss: sweep wider, closer to the self-resonance, or with more points")
+		return nil, coil.InputErrorf("sweep", "the sweep cannot separate L, C and the loss: sweep wider, closer to the self-resonance, or with more points")
 	}
 	cov := mat.NewSymDense(n, nil)
 	if err := ch.InverseTo(cov); err != nil {
-		return nil, inputErrorf("sweep", "the sweep cannot separate L, C and the loss: sweep wider, closer to the self-resonance, or with more points")
+		return nil, coil.InputErrorf("sweep", "the sweep cannot separate L, C and the loss: sweep wider, closer to the self-resonance, or with more points")
 	}
 	dof := float64(m - n)
 	cov.ScaleSym(ssr/dof, cov)

@@ -66,17 +66,17 @@ type Point struct {
 func Impedance(fx Fixture, ports int, z0 float64, pts []SPoint) ([]Point, error) {
 	switch {
 	case fx == Reflection && ports != 1 && ports != 2:
-		return nil, inputErrorf("fixture", "a reflection fixture needs a one- or two-port sweep")
+		return nil, coil.InputErrorf("fixture", "a reflection fixture needs a one- or two-port sweep")
 	case (fx == Series || fx == Shunt) && ports != 2:
-		return nil, inputErrorf("fixture", "a %s fixture needs a two-port sweep (.s2p); a one-port sweep (.s1p) is a reflection fixture", fx)
+		return nil, coil.InputErrorf("fixture", "a %s fixture needs a two-port sweep (.s2p); a one-port sweep (.s1p) is a reflection fixture", fx)
 	case fx != Reflection && fx != Series && fx != Shunt:
-		return nil, inputErrorf("fixture", "no fixture given: reflection, series or shunt")
+		return nil, coil.InputErrorf("fixture", "no fixture given: reflection, series or shunt")
 	}
 	if !(z0 > 0) || math.IsInf(z0, 0) {
-		return nil, inputErrorf("reference", "reference impedance %g ohm must be positive", z0)
+		return nil, coil.InputErrorf("reference", "reference impedance %g ohm must be positive", z0)
 	}
 	if len(pts) == 0 {
-		return nil, inputErrorf("sweep", "the sweep has no points")
+		return nil, coil.InputErrorf("sweep", "the sweep has no points")
 	}
 	out := make([]Point, 0, len(pts))
 	r := complex(z0, 0)
@@ -98,7 +98,7 @@ func Impedance(fx Fixture, ports int, z0 float64, pts []SPoint) ([]Point, error)
 			sens = cmplx.Abs(2 * r / ((2*z + r) * (2*z + r)))
 		}
 		if cmplx.IsInf(z) || cmplx.IsNaN(z) || !(p.Frequency > 0) {
-			return nil, inputErrorf("sweep", "at %s the %s fixture gives no impedance (S at the edge of the chart); drop the point or check the fixture", fmtHz(p.Frequency), fx)
+			return nil, coil.InputErrorf("sweep", "at %s the %s fixture gives no impedance (S at the edge of the chart); drop the point or check the fixture", fmtHz(p.Frequency), fx)
 		}
 		out = append(out, Point{Frequency: p.Frequency, Z: z, Sens: sens})
 	}
@@ -115,10 +115,10 @@ func Correct(pts, open, short []Point) ([]Point, error) {
 		zo, ok1 := interp(open, p.Frequency)
 		zs, ok2 := interp(short, p.Frequency)
 		if !ok1 {
-			return nil, inputErrorf("open", "the open sweep does not cover %s: measure the jig over the coil's range", fmtHz(p.Frequency))
+			return nil, coil.InputErrorf("open", "the open sweep does not cover %s: measure the jig over the coil's range", fmtHz(p.Frequency))
 		}
 		if !ok2 {
-			return nil, inputErrorf("short", "the short sweep does not cover %s: measure the jig over the coil's range", fmtHz(p.Frequency))
+			return nil, coil.InputErrorf("short", "the short sweep does not cover %s: measure the jig over the coil's range", fmtHz(p.Frequency))
 		}
 		// Yo from the open less the short, kept as an admittance so that an
 		// ideal open (Z = ∞) is Yo = 0.
@@ -130,7 +130,7 @@ func Correct(pts, open, short []Point) ([]Point, error) {
 		den := 1 - d*yo
 		z := d / den
 		if den == 0 || cmplx.IsInf(z) || cmplx.IsNaN(z) {
-			return nil, inputErrorf("open", "at %s the coil reads the same as the open jig: the open/short files do not belong to this sweep", fmtHz(p.Frequency))
+			return nil, coil.InputErrorf("open", "at %s the coil reads the same as the open jig: the open/short files do not belong to this sweep", fmtHz(p.Frequency))
 		}
 		out[i] = Point{Frequency: p.Frequency, Z: z, Sens: p.Sens * cmplx.Abs(den*den)}
 	}
@@ -155,10 +155,6 @@ func interp(pts []Point, f float64) (complex128, bool) {
 		}
 	}
 	return pts[n-1].Z, true
-}
-
-func inputErrorf(param, format string, args ...any) error {
-	return &coil.InputError{Param: param, Reason: fmt.Sprintf(format, args...)}
 }
 
 func fmtHz(f float64) string { return quantity.FormatFrequency(f) }

@@ -4,6 +4,7 @@ import (
 	"math"
 	"strings"
 
+	"turnwise/coil"
 	"turnwise/internal/quantity"
 )
 
@@ -80,7 +81,7 @@ func ParseClass(s string) (Class, error) {
 	u := strings.ToUpper(t)
 	switch u {
 	case "":
-		return Class{}, inputErrorf("tempco", "is empty; give a class (C0G, N750 …), air or a number such as -750ppm/K")
+		return Class{}, coil.InputErrorf("tempco", "is empty; give a class (C0G, N750 …), air or a number such as -750ppm/K")
 	case "NP0", "NPO", "COG":
 		u = "C0G"
 	case "AIR", "AIR-VARIABLE", "AIR VARIABLE":
@@ -105,18 +106,18 @@ func ParseClass(s string) (Class, error) {
 		// The tolerance carries the unit: "-750±120ppm/K".
 		tv, err := quantity.ParsePerKelvin(tol)
 		if err != nil {
-			return Class{}, inputErrorf("tempco", "%v", err)
+			return Class{}, coil.InputErrorf("tempco", "%v", err)
 		}
 		unitPart := strings.TrimLeft(strings.TrimSpace(tol), "0123456789.eE+- ")
 		v, err := quantity.ParsePerKelvin(strings.TrimSpace(num) + unitPart)
 		if err != nil {
-			return Class{}, inputErrorf("tempco", "%v", err)
+			return Class{}, coil.InputErrorf("tempco", "%v", err)
 		}
 		return Class{Code: t, Nominal: v, Tolerance: math.Abs(tv), Source: "given"}, nil
 	}
 	v, err := quantity.ParsePerKelvin(t)
 	if err != nil {
-		return Class{}, inputErrorf("tempco", "%q is not a class (C0G, NP0, N150 … N4700, P100, an EIA code such as U2J, or air) nor a number such as -750ppm/K", s)
+		return Class{}, coil.InputErrorf("tempco", "%q is not a class (C0G, NP0, N150 … N4700, P100, an EIA code such as U2J, or air) nor a number such as -750ppm/K", s)
 	}
 	return Class{Code: t, Nominal: v, Source: "given"}, nil
 }

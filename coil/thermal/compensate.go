@@ -2,6 +2,7 @@ package thermal
 
 import (
 	"math"
+	"turnwise/coil"
 )
 
 // E12 is the IEC 60063 E12 series of preferred values, one decade.
@@ -51,10 +52,10 @@ type CompensateOptions struct {
 // comes within MaxValueError.
 func Compensate(c, sensitivity, target float64, opt CompensateOptions) (Split, error) {
 	if !(c > 0) || math.IsInf(c, 0) {
-		return Split{}, inputErrorf("capacitance", "must be a positive capacitance to split")
+		return Split{}, coil.InputErrorf("capacitance", "must be a positive capacitance to split")
 	}
 	if !(sensitivity < 0) || math.IsInf(sensitivity, 0) {
-		return Split{}, inputErrorf("sensitivity", "the capacitor does not set the resonance (d ln f/d ln C = %g): nothing to compensate with it", sensitivity)
+		return Split{}, coil.InputErrorf("sensitivity", "the capacitor does not set the resonance (d ln f/d ln C = %g): nothing to compensate with it", sensitivity)
 	}
 	maxErr := opt.MaxValueError
 	if maxErr == 0 {
@@ -98,7 +99,7 @@ func Compensate(c, sensitivity, target float64, opt CompensateOptions) (Split, e
 		}
 	}
 	if math.IsInf(bestScore, 1) {
-		return Split{}, inputErrorf("capacitance", "no two E12 values make %.4g pF within %.3g %%", c*1e12, maxErr*100)
+		return Split{}, coil.InputErrorf("capacitance", "no two E12 values make %.4g pF within %.3g %%", c*1e12, maxErr*100)
 	}
 	best.Target = target
 	return best, nil

@@ -80,7 +80,7 @@ func naturalAt(net *circuit.Network, r circuit.Resonance) (float64, error) {
 		}
 	}
 	if best == 0 {
-		return 0, inputErrorf("circuit", "the resonance near %.6g Hz vanished when the parts moved with temperature", r.Natural)
+		return 0, coil.InputErrorf("circuit", "the resonance near %.6g Hz vanished when the parts moved with temperature", r.Natural)
 	}
 	return best, nil
 }

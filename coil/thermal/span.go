@@ -36,7 +36,7 @@ func SpanDrift(spec tuning.Spec, s Support, gang Class, settings []float64) ([]D
 	}
 	for _, x := range settings {
 		if !(x >= 0 && x <= 1) {
-			return nil, inputErrorf("dial", "setting %g is outside 0 … 100 %%", x*100)
+			return nil, coil.InputErrorf("dial", "setting %g is outside 0 … 100 %%", x*100)
 		}
 	}
 	out := make([]DialDrift, 0, len(settings))
@@ -137,7 +137,7 @@ func dialAt(spec tuning.Spec, s Support, tau, x, dT, fRef float64) (tuning.Reson
 // circuit has one resonance.
 func SpanShift(spec tuning.Spec, s Support, gang Class, d DialDrift, low, high float64) (lo, hi Shift, err error) {
 	if !(high > low) || low <= 0 {
-		return lo, hi, inputErrorf("temp_range", "%g K … %g K: give a low end below the high end, both above absolute zero", low, high)
+		return lo, hi, coil.InputErrorf("temp_range", "%g K … %g K: give a low end below the high end, both above absolute zero", low, high)
 	}
 	ref := kelvin(spec.Geometry.Temperature)
 	fRef := d.SectionsAt

@@ -1,7 +1,6 @@
 package thermal
 
 import (
-	"fmt"
 	"math"
 
 	"gonum.org/v1/gonum/unit"
@@ -50,7 +49,7 @@ func ParsePitchFollows(s string) (PitchFollows, error) {
 	case "wire":
 		return PitchFollowsWire, nil
 	}
-	return 0, inputErrorf("pitch_follows", "%q: use wire or former", s)
+	return 0, coil.InputErrorf("pitch_follows", "%q: use wire or former", s)
 }
 
 // Support is what sets a coil's dimensions as the temperature changes.
@@ -185,7 +184,7 @@ func (s Support) validate() error {
 	}{{"former_expansion", s.Former}, {"former_expansion_low", s.FormerLow},
 		{"former_expansion_high", s.FormerHigh}, {"wire_expansion", s.Wire}} {
 		if math.IsNaN(v.x) || math.Abs(v.x) > 1e-3 {
-			return inputErrorf(v.name, "%g per kelvin is outside ±1000 ppm/K", v.x)
+			return coil.InputErrorf(v.name, "%g per kelvin is outside ±1000 ppm/K", v.x)
 		}
 	}
 	return nil
@@ -216,10 +215,4 @@ func tempco(g coil.Geometry, f float64, s Support) Coefficients {
 	coil.Evaluate(&hi, &thi, f)
 	c.Skin = dln(float64(lo.Inductance), float64(hi.Inductance), float64(base.Inductance))
 	return c
-}
-
-// inputErrorf is a *coil.InputError, so callers map this package's bad
-// input as they map the model's.
-func inputErrorf(param, format string, args ...any) error {
-	return &coil.InputError{Param: param, Reason: fmt.Sprintf(format, args...)}
 }

@@ -58,7 +58,7 @@ type CoilPlan struct {
 // pitch and tap are starting values only) for spec's bands.
 func ChooseCoil(spec Spec, cs CoilSearch) (CoilPlan, error) {
 	if len(spec.Bands) == 0 {
-		return CoilPlan{}, inputErrorf("band", "choosing a coil needs the bands to cover; list them, e.g. 3.5-3.8MHz")
+		return CoilPlan{}, coil.InputErrorf("band", "choosing a coil needs the bands to cover; list them, e.g. 3.5-3.8MHz")
 	}
 	spec.TapTurns = 0
 	if _, err := validateSpan(&spec); err != nil {
@@ -71,8 +71,8 @@ func ChooseCoil(spec Spec, cs CoilSearch) (CoilPlan, error) {
 	if hi == 0 {
 		hi = math.Min(200, math.Max(lo, 3*math.Ceil(spec.Geometry.Turns)))
 	}
-	if !finite(lo) || !finite(hi) || lo < 1 || hi < lo || hi > 500 {
-		return CoilPlan{}, inputErrorf("turns_range", "%g to %g turns: give whole turns from 1 to 500, the first no more than the second", lo, hi)
+	if !coil.Finite(lo) || !coil.Finite(hi) || lo < 1 || hi < lo || hi > 500 {
+		return CoilPlan{}, coil.InputErrorf("turns_range", "%g to %g turns: give whole turns from 1 to 500, the first no more than the second", lo, hi)
 	}
 	margin := spec.Margin
 	if margin == 0 {
@@ -102,17 +102,11 @@ func ChooseCoil(spec Spec, cs CoilSearch) (CoilPlan, error) {
 		}
 	}
 	if !found {
-		return CoilPlan{}, inputErrorf("turns_range", "no coil from %g to %g turns could be evaluated on this former and wire", lo, hi)
+		return CoilPlan{}, coil.InputErrorf("turns_range", "no coil from %g to %g turns could be evaluated on this former and wire", lo, hi)
 	}
-	spec.Geometry, spec.TapTurns = bestG, best.tap
-	sp, err := Solve(spec)
-	if err != nil {
+	if err := plan.settle(spec, bestG, best, margin); err != nil {
 		return CoilPlan{}, err
 	}
-	plan.Span, plan.Geometry, plan.TapTurns = sp, bestG, best.tap
-	plan.Feasible = best.feasible()
-	plan.Clearance = math.Min(best.clearance, ClearanceNone)
-	plan.Conflicts = describeConflicts(&sp, best, margin)
 	if plan.Feasible {
 		return plan, nil
 	}
@@ -183,7 +177,7 @@ func bestTapCoarse(spec Spec, g coil.Geometry, margin float64) (tapScore, error)
 		}
 	}
 	if best.tap < 0 {
-		return tapScore{}, inputErrorf("turns", "a coil of %g turns has no quarter-turn tap on its winding", g.Turns)
+		return tapScore{}, coil.InputErrorf("turns", "a coil of %g turns has no quarter-turn tap on its winding", g.Turns)
 	}
 	c := int(math.Round(best.tap * 4))
 	for i := max(1, c-stride+1); i < min(steps, c+stride); i++ {

@@ -85,10 +85,10 @@ func (s tapScore) cost(margin float64) float64 {
 // an error wrapping coil.ErrInfeasible that names the requirements in conflict.
 func ChooseTap(spec Spec, search TapSearch) (TapPlan, error) {
 	if len(spec.Bands) == 0 {
-		return TapPlan{}, inputErrorf("band", "choosing a tap needs the bands to cover; list them, e.g. 3.5-3.8MHz")
+		return TapPlan{}, coil.InputErrorf("band", "choosing a tap needs the bands to cover; list them, e.g. 3.5-3.8MHz")
 	}
 	if spec.Geometry.Turns < 0.5 {
-		return TapPlan{}, inputErrorf("turns", "a coil needs at least half a turn to take a tap")
+		return TapPlan{}, coil.InputErrorf("turns", "a coil needs at least half a turn to take a tap")
 	}
 	spec.TapTurns = 0
 	if _, err := validateSpan(&spec); err != nil {
@@ -113,15 +113,9 @@ func ChooseTap(spec Spec, search TapSearch) (TapPlan, error) {
 			geom, best = g, s
 		}
 	}
-	spec.Geometry, spec.TapTurns = geom, best.tap
-	sp, err := Solve(spec)
-	if err != nil {
+	if err := plan.settle(spec, geom, best, margin); err != nil {
 		return TapPlan{}, err
 	}
-	plan.Span, plan.Geometry, plan.TapTurns = sp, geom, best.tap
-	plan.Feasible = best.feasible()
-	plan.Clearance = math.Min(best.clearance, ClearanceNone)
-	plan.Conflicts = describeConflicts(&sp, best, margin)
 	if !plan.Feasible {
 		return plan, fmt.Errorf("%w: no tap meets every requirement: %s; of the %d quarter-turn taps at the requested pitch %d cover every band, %d overlap, %d are free of harmonic coincidences and %d both cover and overlap; the best compromise, at %g turns, misses: %s",
 			coil.ErrInfeasible, plan.binding(), plan.Tried, plan.Covering, plan.Overlapping, plan.Clean, plan.CoveringOverlapping, plan.TapTurns, strings.Join(plan.Conflicts, "; "))
@@ -176,7 +170,7 @@ func bestTap(spec Spec, g coil.Geometry, margin float64, plan *TapPlan) (tapScor
 		}
 	}
 	if best.tap < 0 {
-		return tapScore{}, inputErrorf("turns", "a coil of %g turns has no quarter-turn tap on its winding", g.Turns)
+		return tapScore{}, coil.InputErrorf("turns", "a coil of %g turns has no quarter-turn tap on its winding", g.Turns)
 	}
 	return best, nil
 }
@@ -327,6 +321,21 @@ func searchPitch(spec Spec, margin float64) (coil.Geometry, tapScore, error) {
 }
 
 // describeConflicts words each requirement the span still misses.
+// settle solves spec's coil g tapped at best's tap and takes the span, the
+// choice and what it still misses into the plan.
+func (p *TapPlan) settle(spec Spec, g coil.Geometry, best tapScore, margin float64) error {
+	spec.Geometry, spec.TapTurns = g, best.tap
+	sp, err := Solve(spec)
+	if err != nil {
+		return err
+	}
+	p.Span, p.Geometry, p.TapTurns = sp, g, best.tap
+	p.Feasible = best.feasible()
+	p.Clearance = math.Min(best.clearance, ClearanceNone)
+	p.Conflicts = describeConflicts(&sp, best, margin)
+	return nil
+}
+
 func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 	var out []string
 	for _, b := range sp.Bands {
@@ -356,7 +365,7 @@ func describeConflicts(sp *Span, s tapScore, margin float64) []string {
 	if s.coincidence > 0 {
 		for _, co := range sp.Coincidences {
 			out = append(out, fmt.Sprintf("the %s harmonic of the low range%s falls inside the high range's passband at %.1f %% of the dial (%s against %s)",
-				ordinal(co.Order), inBand(co.Band), co.Setting*100, quantity.FormatFrequency(float64(co.Harmonic)), quantity.FormatFrequency(float64(co.FHigh))))
+				Ordinal(co.Order), inBand(co.Band), co.Setting*100, quantity.FormatFrequency(float64(co.Harmonic)), quantity.FormatFrequency(float64(co.FHigh))))
 		}
 	}
 	return out

@@ -9,6 +9,9 @@ import (
 	"gonum.org/v1/gonum/unit"
 )
 
+// twoPi saves a multiply in hot paths.
+const twoPi = 2 * math.Pi
+
 // Law is how a variable capacitor's capacitance follows its rotation.
 type Law int
 
@@ -70,44 +73,44 @@ func (s *GangSection) Validate(param string) error {
 	lo, hi := float64(s.Min), float64(s.Max)
 	if s.Law == LawTable {
 		if len(s.Table) < 2 {
-			return inputErrorf(param+"_table", "a measured law needs at least two points (plates open and fully meshed)")
+			return coil.InputErrorf(param+"_table", "a measured law needs at least two points (plates open and fully meshed)")
 		}
 		t := s.Table
 		if t[0].Setting != 0 || t[len(t)-1].Setting != 1 {
-			return inputErrorf(param+"_table", "the measured points must start at 0 %% (plates open) and end at 100 %% (fully meshed)")
+			return coil.InputErrorf(param+"_table", "the measured points must start at 0 %% (plates open) and end at 100 %% (fully meshed)")
 		}
 		for i, p := range t {
 			c := float64(p.Capacitance)
-			if !finite(p.Setting) || !finite(c) || c < 0 || c > 1e-6 {
-				return inputErrorf(param+"_table", "point %d: capacitance must be between 0 and 1 µF", i+1)
+			if !coil.Finite(p.Setting) || !coil.Finite(c) || c < 0 || c > 1e-6 {
+				return coil.InputErrorf(param+"_table", "point %d: capacitance must be between 0 and 1 µF", i+1)
 			}
 			if i > 0 && p.Setting <= t[i-1].Setting {
-				return inputErrorf(param+"_table", "point %d: settings must rise (%.4g %% follows %.4g %%)", i+1, p.Setting*100, t[i-1].Setting*100)
+				return coil.InputErrorf(param+"_table", "point %d: settings must rise (%.4g %% follows %.4g %%)", i+1, p.Setting*100, t[i-1].Setting*100)
 			}
 			if i > 0 && c < float64(t[i-1].Capacitance) {
-				return inputErrorf(param+"_table", "point %d: capacitance falls from %.4g pF to %.4g pF; it must rise as the plates mesh", i+1, float64(t[i-1].Capacitance)*1e12, c*1e12)
+				return coil.InputErrorf(param+"_table", "point %d: capacitance falls from %.4g pF to %.4g pF; it must rise as the plates mesh", i+1, float64(t[i-1].Capacitance)*1e12, c*1e12)
 			}
 		}
 		lo, hi = float64(t[0].Capacitance), float64(t[len(t)-1].Capacitance)
 	} else if s.Law < LawSLC || s.Law > LawSLW {
-		return inputErrorf(param+"_law", "unknown law %d", int(s.Law))
+		return coil.InputErrorf(param+"_law", "unknown law %d", int(s.Law))
 	}
 	switch {
-	case !finite(lo) || !finite(hi) || lo < 0 || hi < 0:
-		return inputErrorf(param, "capacitance must be zero or positive, e.g. 15-365pF")
+	case !coil.Finite(lo) || !coil.Finite(hi) || lo < 0 || hi < 0:
+		return coil.InputErrorf(param, "capacitance must be zero or positive, e.g. 15-365pF")
 	case hi < lo:
-		return inputErrorf(param, "maximum %.4g pF is below the minimum %.4g pF; give MIN-MAX", hi*1e12, lo*1e12)
+		return coil.InputErrorf(param, "maximum %.4g pF is below the minimum %.4g pF; give MIN-MAX", hi*1e12, lo*1e12)
 	case hi > 1e-6:
-		return inputErrorf(param, "%.4g pF is more than 1 µF; a tuning capacitor is pF to nF", hi*1e12)
+		return coil.InputErrorf(param, "%.4g pF is more than 1 µF; a tuning capacitor is pF to nF", hi*1e12)
 	case (s.Law == LawSLF || s.Law == LawSLW) && lo == 0 && hi > 0:
-		return inputErrorf(param, "the %s law needs a minimum above 0 pF (every capacitor has one; e.g. 12-365pF)", s.Law)
+		return coil.InputErrorf(param, "the %s law needs a minimum above 0 pF (every capacitor has one; e.g. 12-365pF)", s.Law)
 	}
 	for _, x := range []struct {
 		name string
 		v    unit.Capacitance
 	}{{"trimmer", s.Trimmer}, {"stray", s.Stray}} {
-		if v := float64(x.v); !finite(v) || v < 0 || v > 1e-6 {
-			return inputErrorf(param+"_"+x.name, "must be between 0 and 1 µF, e.g. 5pF")
+		if v := float64(x.v); !coil.Finite(v) || v < 0 || v > 1e-6 {
+			return coil.InputErrorf(param+"_"+x.name, "must be between 0 and 1 µF, e.g. 5pF")
 		}
 	}
 	return nil
@@ -191,10 +194,10 @@ func TwoNodeResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances
 	la, lb, m := float64(s.LA), float64(s.LB), float64(s.M)
 	ct, cb := float64(cTop), float64(cTap)
 	switch {
-	case !finite(ct) || !finite(cb) || ct < 0 || cb < 0:
-		return Resonances{}, inputErrorf("capacitance", "node capacitances must be zero or positive")
-	case !finite(la) || !finite(lb) || !finite(m) || la < 0 || lb < 0:
-		return Resonances{}, inputErrorf("sections", "section inductances must be zero or positive")
+	case !coil.Finite(ct) || !coil.Finite(cb) || ct < 0 || cb < 0:
+		return Resonances{}, coil.InputErrorf("capacitance", "node capacitances must be zero or positive")
+	case !coil.Finite(la) || !coil.Finite(lb) || !coil.Finite(m) || la < 0 || lb < 0:
+		return Resonances{}, coil.InputErrorf("sections", "section inductances must be zero or positive")
 	}
 	switch {
 	case la == 0: // tap at the top: both sections' capacitance across the whole coil
@@ -204,10 +207,10 @@ func TwoNodeResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances
 	}
 	det := la*lb - m*m
 	if !(det > 0) {
-		return Resonances{}, inputErrorf("sections", "coupling k = %.6g is not below 1: the sections are not a physical pair", m/math.Sqrt(la*lb))
+		return Resonances{}, coil.InputErrorf("sections", "coupling k = %.6g is not below 1: the sections are not a physical pair", m/math.Sqrt(la*lb))
 	}
 	if ct == 0 && cb == 0 {
-		return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance: no resonance")
+		return Resonances{}, coil.InputErrorf("capacitance", "the circuit has no capacitance: no resonance")
 	}
 	l := la + lb + 2*m
 	b := l*ct + lb*cb
@@ -225,7 +228,7 @@ func TwoNodeResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances
 // singleTank is the one resonance of inductance l with capacitance c.
 func singleTank(l, c float64) (Resonances, error) {
 	if l <= 0 || c <= 0 {
-		return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance across its inductance: no resonance")
+		return Resonances{}, coil.InputErrorf("capacitance", "the circuit has no capacitance across its inductance: no resonance")
 	}
 	return Resonances{Low: unit.Frequency(1 / (twoPi * math.Sqrt(l*c)))}, nil
 }

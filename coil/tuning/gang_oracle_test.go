@@ -34,14 +34,14 @@ func eigenResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances, 
 	la, lb, m := float64(s.LA), float64(s.LB), float64(s.M)
 	ct, cb := float64(cTop), float64(cTap)
 	switch {
-	case !finite(ct) || !finite(cb) || ct < 0 || cb < 0:
-		return Resonances{}, inputErrorf("capacitance", "node capacitances must be zero or positive")
-	case !finite(la) || !finite(lb) || !finite(m) || la < 0 || lb < 0:
-		return Resonances{}, inputErrorf("sections", "section inductances must be zero or positive")
+	case !coil.Finite(ct) || !coil.Finite(cb) || ct < 0 || cb < 0:
+		return Resonances{}, coil.InputErrorf("capacitance", "node capacitances must be zero or positive")
+	case !coil.Finite(la) || !coil.Finite(lb) || !coil.Finite(m) || la < 0 || lb < 0:
+		return Resonances{}, coil.InputErrorf("sections", "section inductances must be zero or positive")
 	}
 	single := func(l, c float64) (Resonances, error) {
 		if l <= 0 || c <= 0 {
-			return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance across its inductance: no resonance")
+			return Resonances{}, coil.InputErrorf("capacitance", "the circuit has no capacitance across its inductance: no resonance")
 		}
 		return Resonances{Low: unit.Frequency(1 / (twoPi * math.Sqrt(l*c)))}, nil
 	}
@@ -53,7 +53,7 @@ func eigenResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances, 
 	}
 	det := la*lb - m*m
 	if !(det > 0) {
-		return Resonances{}, inputErrorf("sections", "coupling k = %.6g is not below 1: the sections are not a physical pair", m/math.Sqrt(la*lb))
+		return Resonances{}, coil.InputErrorf("sections", "coupling k = %.6g is not below 1: the sections are not a physical pair", m/math.Sqrt(la*lb))
 	}
 	// Λ⁻¹ (order i_b, i_a) and Γ = Aᵀ Λ⁻¹ A with A = [[0,1],[1,−1]].
 	inv := mat.NewDense(2, 2, []float64{la / det, -m / det, -m / det, lb / det})
@@ -62,7 +62,7 @@ func eigenResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances, 
 	tmp.Mul(inv, a)
 	gamma.Mul(a.T(), &tmp)
 	if ct == 0 && cb == 0 {
-		return Resonances{}, inputErrorf("capacitance", "the circuit has no capacitance: no resonance")
+		return Resonances{}, coil.InputErrorf("capacitance", "the circuit has no capacitance: no resonance")
 	}
 	if cb == 0 || ct == 0 {
 		// Eliminate the node without capacitance: Γ_eff = Γ_kk − Γ_kj²/Γ_jj.

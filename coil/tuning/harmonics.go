@@ -101,7 +101,7 @@ func trackingWarning(t Tracking) string {
 		whole = " (the whole dial)"
 	}
 	return fmt.Sprintf("from %.1f %% to %.1f %% of the dial%s the high range sits at %.3g–%.3g× the low range, within %.0f %% of %d: the %s harmonic of the low range follows the high range along the whole stretch, within %.1f %%; a strong station there can come through on the other range (retap, or change one section's capacitance, to move the ratio off %d)",
-		t.SettingFrom*100, t.SettingTo*100, whole, t.RatioMin, t.RatioMax, TrackingTolerance*100, t.Order, ordinal(t.Order), t.Closest*100, t.Order)
+		t.SettingFrom*100, t.SettingTo*100, whole, t.RatioMin, t.RatioMax, TrackingTolerance*100, t.Order, Ordinal(t.Order), t.Closest*100, t.Order)
 }
 
 // DefaultBandspread is the least share of the dial a band should take

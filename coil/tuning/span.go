@@ -217,24 +217,24 @@ func validateSpan(spec *Spec) (coil.Sections, error) {
 		return coil.Sections{}, err
 	}
 	if spec.Steps != 0 && (spec.Steps < 2 || spec.Steps > 1001) {
-		return coil.Sections{}, inputErrorf("steps", "%d dial rows: give 2 to 1001", spec.Steps)
+		return coil.Sections{}, coil.InputErrorf("steps", "%d dial rows: give 2 to 1001", spec.Steps)
 	}
-	if !finite(spec.LoadedQ) || spec.LoadedQ < 0 || spec.LoadedQ > 1e5 {
-		return coil.Sections{}, inputErrorf("loaded_q", "must be between 0 (from the coil model) and 100000")
+	if !coil.Finite(spec.LoadedQ) || spec.LoadedQ < 0 || spec.LoadedQ > 1e5 {
+		return coil.Sections{}, coil.InputErrorf("loaded_q", "must be between 0 (from the coil model) and 100000")
 	}
 	if spec.MaxHarmonic != 0 && (spec.MaxHarmonic < 2 || spec.MaxHarmonic > MaxHarmonicLimit) {
-		return coil.Sections{}, inputErrorf("max_harmonic", "%d: give 2 to %d", spec.MaxHarmonic, MaxHarmonicLimit)
+		return coil.Sections{}, coil.InputErrorf("max_harmonic", "%d: give 2 to %d", spec.MaxHarmonic, MaxHarmonicLimit)
 	}
-	if !finite(spec.Bandspread) || spec.Bandspread < 0 || spec.Bandspread > 0.5 {
-		return coil.Sections{}, inputErrorf("bandspread", "must be between 0 and 50 %% of the dial")
+	if !coil.Finite(spec.Bandspread) || spec.Bandspread < 0 || spec.Bandspread > 0.5 {
+		return coil.Sections{}, coil.InputErrorf("bandspread", "must be between 0 and 50 %% of the dial")
 	}
-	if !finite(spec.Margin) || spec.Margin < 0 || spec.Margin > 0.5 {
-		return coil.Sections{}, inputErrorf("margin", "must be between 0 and 50 %%")
+	if !coil.Finite(spec.Margin) || spec.Margin < 0 || spec.Margin > 0.5 {
+		return coil.Sections{}, coil.InputErrorf("margin", "must be between 0 and 50 %%")
 	}
 	for i, b := range spec.Bands {
 		lo, hi := float64(b.Low), float64(b.High)
-		if !finite(lo) || !finite(hi) || lo <= 0 || hi <= lo || hi > coil.MaxFrequency {
-			return coil.Sections{}, inputErrorf("band", "band %d (%s): give LOW-HIGH with LOW below HIGH, e.g. 3.5-3.8MHz", i+1, b.Name)
+		if !coil.Finite(lo) || !coil.Finite(hi) || lo <= 0 || hi <= lo || hi > coil.MaxFrequency {
+			return coil.Sections{}, coil.InputErrorf("band", "band %d (%s): give LOW-HIGH with LOW below HIGH, e.g. 3.5-3.8MHz", i+1, b.Name)
 		}
 	}
 	return sec, nil
@@ -675,7 +675,7 @@ func (c *spanCircuit) warnings(sp *Span) []string {
 			where = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband", quantity.FormatFrequency(float64(co.Passband)))
 		}
 		w = append(w, fmt.Sprintf("harmonic coincidence at %.1f %% of the dial (0 %% = plates open): low range at %s%s, its %s harmonic %s %s",
-			co.Setting*100, quantity.FormatFrequency(float64(co.FLow)), inBand(co.Band), ordinal(co.Order), quantity.FormatFrequency(float64(co.Harmonic)), where))
+			co.Setting*100, quantity.FormatFrequency(float64(co.FLow)), inBand(co.Band), Ordinal(co.Order), quantity.FormatFrequency(float64(co.Harmonic)), where))
 	}
 	return w
 }
@@ -706,7 +706,8 @@ func inBand(name string) string {
 	return " (in " + name + ")"
 }
 
-func ordinal(m int) string {
+// Ordinal writes a harmonic order: 2nd, 3rd, 4th …
+func Ordinal(m int) string {
 	switch m {
 	case 2:
 		return "2nd"

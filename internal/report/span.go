@@ -128,7 +128,7 @@ func WriteSpanTable(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Sp
 		}
 	}
 
-	orders := fmt.Sprintf("2nd to %s", ordinalWord(sp.MaxHarmonic))
+	orders := fmt.Sprintf("2nd to %s", tuning.Ordinal(sp.MaxHarmonic))
 	fmt.Fprintf(tw, "\nHARMONIC COINCIDENCES (%s harmonic of the low range)\n", orders)
 	switch {
 	case !sp.HasHigh:
@@ -153,12 +153,12 @@ func WriteSpanTable(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Sp
 			inside = fmt.Sprintf("is on the high range's peak, in the middle of its %s passband (Q %.0f)", hz(c.Passband), c.LoadedQ)
 		}
 		row("dial "+span, fmt.Sprintf("low range at %s%s: its %s harmonic %s %s; strong signals near %s get through",
-			hz(c.FLow), where, ordinalWord(c.Order), hz(c.Harmonic), inside, hz(c.FHigh)))
+			hz(c.FLow), where, tuning.Ordinal(c.Order), hz(c.Harmonic), inside, hz(c.FHigh)))
 	}
 	for _, tr := range sp.Tracking {
 		row(fmt.Sprintf("dial %s to %s", dialPct(tr.SettingFrom), dialPct(tr.SettingTo)),
 			fmt.Sprintf("the high range is %.3g–%.3g× the low range, within %.0f %% of %d: the %s harmonic follows it along the whole stretch",
-				tr.RatioMin, tr.RatioMax, tuning.TrackingTolerance*100, tr.Order, ordinalWord(tr.Order)))
+				tr.RatioMin, tr.RatioMax, tuning.TrackingTolerance*100, tr.Order, tuning.Ordinal(tr.Order)))
 	}
 	row("passband rule", tuning.PassbandRule(set.LoadedQ))
 	if err := tw.Flush(); err != nil {
@@ -185,16 +185,6 @@ func bandName(b tuning.Band) string {
 		return b.Name + " " + r
 	}
 	return r
-}
-
-func ordinalWord(m int) string {
-	switch m {
-	case 2:
-		return "2nd"
-	case 3:
-		return "3rd"
-	}
-	return fmt.Sprintf("%dth", m)
 }
 
 // spanRecord is the JSON document of `turnwise span`.

@@ -3,6 +3,7 @@ package spec
 import (
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"math/cmplx"
 	"path/filepath"
@@ -13,6 +14,8 @@ import (
 	"turnwise/forms"
 	"turnwise/internal/quantity"
 	"turnwise/sheets"
+
+	"gonum.org/v1/gonum/unit"
 )
 
 // CircuitSettings is what to compute for a network.
@@ -324,4 +327,21 @@ func FileBands(c *forms.Circuit) []circuit.Band {
 		out = append(out, circuit.Band{Name: b.Name, Low: float64(b.Low), High: float64(b.High)})
 	}
 	return out
+}
+
+// SpiceNetlist returns the writer of the circuit's SPICE netlist over r's
+// sweep, its AC source at atFreq (nil: the sweep's geometric centre).
+func (m *CircuitModel) SpiceNetlist(r *CircuitResult, atFreq *unit.Frequency) (func(io.Writer) error, error) {
+	at := math.Sqrt(r.Freqs[0] * r.Freqs[len(r.Freqs)-1])
+	if atFreq != nil {
+		at = float64(*atFreq)
+	}
+	s, err := circuit.NewSolver(m.Net)
+	if err != nil {
+		return nil, m.FileError(err)
+	}
+	return func(w io.Writer) error {
+		return s.WriteSpice(w, circuit.SpiceOptions{Title: "* " + r.TitleOrFile(), At: at,
+			From: r.Freqs[0], To: r.Freqs[len(r.Freqs)-1], Points: len(r.Freqs), Log: r.Log})
+	}, nil
 }

@@ -37,3 +37,17 @@ func (e *FlagError) Error() string {
 	return "--" + e.Flag + ": " + e.Err.Error()
 }
 func (e *FlagError) Unwrap() error { return e.Err }
+
+// SweepFlagError names the flag of fit and trim --sweep a sweep error
+// belongs to.
+func SweepFlagError(err error) error {
+	ie, ok := errors.AsType[*coil.InputError](err)
+	if !ok {
+		return err
+	}
+	flag := map[string]string{"fixture": "fixture", "open": "open", "short": "short", "freq": "freq", "fit_range": "fit-to"}[ie.Param]
+	if flag == "" {
+		return err
+	}
+	return &FlagError{Flag: flag, Err: err}
+}

@@ -1,6 +1,8 @@
 package spec
 
 import (
+	"unicode"
+
 	"gonum.org/v1/gonum/unit"
 
 	"errors"
@@ -363,4 +365,32 @@ func sheetCapacitor(a, b tuning.GangSection) string {
 		return DescribeGang(a) + " per section"
 	}
 	return "A " + DescribeGang(a) + ", B " + DescribeGang(b)
+}
+
+// FlagSheetCoil is the build-sheet page of the one coil described by
+// predict's flags: name and quantity as given, a tap at tapTurns from the
+// cold end when tapSet (tapRaw as typed). Errors name the flag.
+func FlagSheetCoil(cs Spec, p coil.Prediction, lf quantity.LengthFormat, name string, qty int, tapSet bool, tapTurns float64, tapRaw string) (sheets.Coil, []string, error) {
+	if qty < 1 || qty > 10000 {
+		return sheets.Coil{}, nil, Usagef("--quantity %d: give how many to build, 1 to 10000", qty)
+	}
+	if strings.TrimSpace(name) == "" {
+		return sheets.Coil{}, nil, Usagef("--name is empty; name the coil as the builder will call it, e.g. --name L1")
+	}
+	if strings.ContainsFunc(name, unicode.IsControl) {
+		return sheets.Coil{}, nil, Usagef("--name holds a control character; name the coil in printable text, e.g. --name L1")
+	}
+	c := NewSheetCoil(cs, p, lf)
+	c.Name, c.Quantity = strings.TrimSpace(name), qty
+	if tapSet {
+		if tapTurns <= 0 {
+			return c, nil, Usagef("--tap %s: a tap at the cold end is no tap; give the turns from the cold (grounded) end, e.g. --tap 1.5", tapRaw)
+		}
+		s, err := coil.Tap(cs.Geometry, tapTurns, p.Frequency)
+		if err != nil {
+			return c, nil, &FlagError{Flag: "tap", Err: err}
+		}
+		c.Tap = SheetTap(s)
+	}
+	return c, SheetWarnings(c.Name, c.Warnings), nil
 }
