@@ -78,6 +78,23 @@ var looserJSON = map[string]float64{
 	"offset":         1e-10,
 	"depth":          1e-10,
 	"attenuation_db": 1e-10,
+	// Temperature coefficients are central differences of the whole model
+	// over ±1 K (coil/thermal): ulp-level differences in L are divided by a
+	// change of about 3e-5·L, so they grow about 3e4-fold. Measured under
+	// GOAMD64=v3: up to 6e-12 relative.
+	"tempco":                1e-9,
+	"tempco_low_frequency":  1e-9,
+	"tempco_q":              1e-9,
+	"tempco_skin":           1e-9,
+	"tempco_uncertainty":    1e-9,
+	"hz_per_k":              1e-9,
+	"ppm_per_k":             1e-9,
+	"uncertainty_hz":        1e-9,
+	"uncertainty_ppm_per_k": 1e-9,
+	"coefficient_per_k":     1e-9,
+	"residual_ppm_per_k":    1e-9,
+	"worst_case_ppm_per_k":  1e-9,
+	"hz":                    1e-9,
 }
 
 // withArgs returns base followed by more, leaving base untouched.

@@ -53,6 +53,20 @@ func BenchmarkSolveSpan(b *testing.B) {
 	}
 }
 
+// BenchmarkSolveSpanThird is BenchmarkSolveSpan checking harmonics up to
+// the 3rd only, the work the span solver did before coincidences of any
+// order: the like-for-like figure against the gonum/mat-based solver.
+func BenchmarkSolveSpanThird(b *testing.B) {
+	spec := Spec{Geometry: hfTapExample(), TapTurns: 17, A: hfGang(), B: hfGang(), Bands: hfBands, MaxHarmonic: 3}
+	for b.Loop() {
+		sp, err := Solve(spec)
+		if err != nil {
+			b.Fatal(err)
+		}
+		sinkSpan = sp
+	}
+}
+
 // BenchmarkChooseTap tries all 159 quarter-turn taps of the HF example.
 func BenchmarkChooseTap(b *testing.B) {
 	spec := Spec{Geometry: hfTapExample(), A: hfGang(), B: hfGang(), Bands: hfBands}
