@@ -44,7 +44,7 @@ func TestTrimGolden(t *testing.T) {
 		{"remove turns", withArgs(vhfTrim, "--measured-l", "101nH", "--target", "60nH"), "trim_remove_turns.txt"},
 		{"job, tapped, sections", []string{"trim", "--job", job, "--coil", "input", "--measured-l", "92nH", "--measured-bottom", "14nH", "--measured-top", "69nH"}, "trim_job_tap.txt"},
 		{"job, in circuit, resonance target", []string{"trim", "--job", job, "--coil", "output", "--measured-f", "131MHz", "--circuit-cap", "17pF", "--target", "137.5MHz"}, "trim_in_circuit.txt"},
-		{"on target", withArgs(vhfTrim, "--measured-l", "101.6nH"), "trim_none.txt"},
+		{"on target", withArgs(vhfTrim, "--measured-l", "102.4nH"), "trim_none.txt"}, // the model expects 102.3 nH (101.5 before the helix pitch correction)
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) { checkGoldenRun(t, tc.args, tc.golden) })
