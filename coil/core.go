@@ -64,6 +64,8 @@ type Core struct {
 	KsDC     float64 // Rosa's k_s at DC
 	Km       float64 // Rosa's k_m
 	PerK     float64 // inductance per unit of Rosa's correction, μ0·a·N
+	Pitched  float64 // the helix beyond Rosa's rings (HelixPitchCorrection), H
+	Internal float64 // the wire's internal inductance at DC, μ0·ℓ/8π, H
 	LCoilDC  float64 // the helix alone, low frequency
 }
 
@@ -79,8 +81,10 @@ func NewCore(n, pitch, d, dm, km float64) Core {
 	lnRatio := math.Log(2 * pitch / d)
 	perK := Mu0 * a * n
 	ksDC := 1.25 - lnRatio
+	dl, sec := HelixPitchCorrection(n, pitch, d, dm)
 	return Core{N: n, Pitch: pitch, D: d, Dm: dm, A: a, L: l, LD: ld, Kn: kn, Ls: ls,
-		KsDC: ksDC, Km: km, PerK: perK, LCoilDC: ls - perK*(ksDC+km)}
+		KsDC: ksDC, Km: km, PerK: perK, Pitched: dl, Internal: perK * sec / 4,
+		LCoilDC: ls - perK*(ksDC+km) + dl}
 }
 
 // Helix is the length of wire in the winding.
@@ -107,7 +111,7 @@ func PartialProximity(phiMax, fs float64) float64 { return 1 + (phiMax-1)*(fs-1)
 // callers' signature.
 func (c *Core) SelfResonance(r, rho float64) (cs, srf float64, inTable bool) {
 	srf = HelixSRF(c.N, c.Pitch, c.D, c.Dm, c.Km, true)
-	lSRF := c.LCoilDC - c.PerK/4
+	lSRF := c.LCoilDC - c.Internal
 	w := twoPi * srf
 	return 1 / (w * w * lSRF), srf, SRFValid(c.LD, c.Pitch/c.D)
 }
@@ -123,7 +127,7 @@ func (c *Core) CoilAt(w *WireAt) float64 {
 	if w.F == 0 {
 		return c.LCoilDC
 	}
-	return c.LCoilDC - c.PerK*(1-w.Phi)/4
+	return c.LCoilDC - c.Internal*(1-w.Phi)
 }
 
 // Effective is the apparent inductance at the terminals at w's frequency

@@ -62,7 +62,15 @@
 //   - E. B. Rosa and F. W. Grover, "Formulas and tables for the calculation of
 //     mutual and self-inductance", Bulletin of the Bureau of Standards 8(1),
 //     1912 (Nagaoka table; Rosa's A and B tables).
-//   - F. W. Grover, Inductance Calculations, Van Nostrand, 1946 (Dover 2004).
+//   - F. W. Grover, Inductance Calculations, Van Nostrand, 1946 (Dover 2004):
+//     also the Neumann formula for the mutual inductance of two filaments
+//     (ch. 1) and the straight round wire's self-inductance with its
+//     geometric mean distance (ch. 2, 5), the parts of the helix Neumann
+//     integral that checks the steep-pitch correction (helixpitch.go,
+//     helix_neumann_test.go). The correction's remainder table
+//     (helixpitch_table.go) is generated from that integral with
+//     gonum/integrate/quad by `go test -tags helixtable -run
+//     TestHelixPitchTable ./coil`.
 //   - H. A. Wheeler, "Simple inductance formulas for radio coils", Proc. IRE
 //     16(10), 1398–1400, 1928.
 //   - R. G. Medhurst, "H.F. resistance and self-capacitance of single-layer

@@ -30,9 +30,9 @@ func ExamplePredict() {
 	fmt.Printf("SRF (one end grounded): %.3g MHz\n", float64(p.SRF)/1e6)
 	fmt.Printf("Q: %.0f (%.0f … %.0f)\n", p.Q, p.QMin, p.QMax)
 	// Output:
-	// L at the terminals: 95.7 nH
+	// L at the terminals: 96.4 nH
 	// SRF (one end grounded): 953 MHz
-	// Q: 397 (278 … 437)
+	// Q: 401 (280 … 441)
 }
 
 // The pitch a builder must set is checked before anything is computed.

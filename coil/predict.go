@@ -30,7 +30,7 @@ const (
 	FlagMedhurstExtrap                         // l/D outside Medhurst's table
 	FlagNagaokaRange                           // l/D outside 0.01 … 100
 	FlagTinned                                 // tinned wire at RF
-	FlagSteepPitch                             // pitch more than an eighth of the diameter: rings no longer model the helix
+	FlagSteepPitch                             // pitch more than the diameter: beyond the helix correction's validated range
 	FlagWheelerOutOfRange                      // Wheeler's formula outside its range (informational)
 	FlagSRFOutsideValidation                   // l/D or p/d outside the SRF model's validated range
 )
@@ -219,7 +219,7 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	if ld < 0.01 || ld > 100 {
 		flags |= FlagNagaokaRange
 	}
-	if pitch > dm/8 {
+	if pitch > helixValidPD*dm*(1+1e-9) {
 		flags |= FlagSteepPitch
 	}
 	if !valid {

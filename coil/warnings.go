@@ -39,7 +39,7 @@ func (p *Prediction) WarningsIn(lf quantity.LengthFormat) []string {
 		w = append(w, fmt.Sprintf("length/diameter %.3g is outside 0.01 … 100: an unusual shape for a single-layer coil; check the geometry", ld))
 	}
 	if p.Flags&FlagSteepPitch != 0 {
-		w = append(w, fmt.Sprintf("pitch %s is more than an eighth of the coil diameter: the helix departs from the rings the inductance formula assumes (against a helix integral it reads 1 %% low at D/5, 2–13 %% low at D/2); measure and trim",
+		w = append(w, fmt.Sprintf("pitch %s is more than the coil diameter: the inductance's helix correction was checked against a helix integral only up to p = D (within 0.2 %%) and is extrapolated beyond; measure and trim",
 			lf.Format(float64(p.Geometry.Pitch))))
 	}
 	if p.Flags&FlagTinned != 0 && f > 0 {

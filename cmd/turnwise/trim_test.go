@@ -18,7 +18,9 @@ var trimData = filepath.Join("..", "..", "testdata", "trim")
 
 // trimDoneWhen is the acceptance case: a coil designed for 48 nH
 // that measures 52 nH. The coil: 4 turns of 1 mm bare copper on a 4.6 mm
-// rod, 8 mm long outside, 5 mm leads, for which the model gives 47.8 nH.
+// rod, 8 mm long outside, 5 mm leads, for which the model gives 49.1 nH
+// (47.8 nH before the helix pitch correction: at p = 2.33 mm = 0.4·D the
+// rings read 2.3 % low against the helix Neumann integral).
 var trimDoneWhen = []string{"trim", "--mandrel", "4.6mm", "--wire", "1mm", "--turns", "4", "--length", "8mm", "--leads", "5mm",
 	"--measured-l", "52nH", "--target", "48nH"}
 
@@ -42,7 +44,7 @@ func TestTrimGolden(t *testing.T) {
 		{"remove turns", withArgs(vhfTrim, "--measured-l", "101nH", "--target", "60nH"), "trim_remove_turns.txt"},
 		{"job, tapped, sections", []string{"trim", "--job", job, "--coil", "input", "--measured-l", "92nH", "--measured-bottom", "14nH", "--measured-top", "69nH"}, "trim_job_tap.txt"},
 		{"job, in circuit, resonance target", []string{"trim", "--job", job, "--coil", "output", "--measured-f", "131MHz", "--circuit-cap", "17pF", "--target", "137.5MHz"}, "trim_in_circuit.txt"},
-		{"on target", withArgs(vhfTrim, "--measured-l", "101.6nH"), "trim_none.txt"},
+		{"on target", withArgs(vhfTrim, "--measured-l", "102.4nH"), "trim_none.txt"}, // the model expects 102.3 nH (101.5 before the helix pitch correction)
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) { checkGoldenRun(t, tc.args, tc.golden) })
@@ -79,11 +81,22 @@ func num(t *testing.T, doc map[string]any, key string) float64 {
 func TestTrimDoneWhen(t *testing.T) {
 	t.Setenv("TURNWISE_STOCK", "")
 	doc := trimDoc(t, trimDoneWhen...)
-	if doc["action"] != "remove_turns" {
-		t.Errorf("action %v, want remove_turns", doc["action"])
+	// Spreading cannot reach 48 nH: calibrated to the 52 nH reading (mean
+	// diameter 5.82 mm), the helix Neumann integral gives 48.41 nH at the
+	// window's loosest pitch, 3.00 mm (the model 48.41 nH; Rosa's rings
+	// alone 46.36 nH, which made "spread to 9.7 mm" the old answer), and
+	// its least over every pitch, 46.3 nH, lies at p ≈ 4–5 mm, past an even
+	// spread. A quarter turn off at 7.7 mm (pitch 2.44 mm) gives 47.95 nH
+	// by the integral: remove ¼ turn is the right correction
+	// (coil/helix_neumann_test.go's helixNeumann, run for these numbers).
+	if doc["action"] != "remove_turns" || num(t, doc, "new_turns") != 3.75 {
+		t.Errorf("action %v to %v turns, want remove_turns to 3.75", doc["action"], doc["new_turns"])
+	}
+	if w := num(t, doc, "window_least"); math.Abs(w/48.41e-9-1) > 0.002 { // the helix integral's 48.41 nH, above
+		t.Errorf("window least %g, want 48.41 nH", w)
 	}
 	ins, _ := doc["instruction"].(string)
-	if !strings.HasPrefix(ins, "remove ¼ turn (3¾ turns left) and set ") || !strings.Contains(ins, "outside length; expect 48") {
+	if !strings.HasPrefix(ins, "remove ¼ turn (3¾ turns left) and set 7.7 mm outside length") || !strings.Contains(ins, "outside length; expect 48") {
 		t.Errorf("instruction %q", ins)
 	}
 	if p := num(t, doc, "new_pitch"); p < 1e-3+0.1*2e-3 || p > 3e-3-0.1*2e-3 { // window 1.00 … 3.00 mm, 10 % margins
@@ -91,6 +104,9 @@ func TestTrimDoneWhen(t *testing.T) {
 	}
 	if got := num(t, doc, "predicted_inductance"); math.Abs(got/48e-9-1) > 0.005 { // the 0.5 %
 		t.Errorf("predicted %g, want 48 nH within 0.5 %%", got)
+	}
+	if l0, l1 := num(t, doc, "winding_length"), num(t, doc, "new_winding_length"); math.Abs(l1-7.7e-3) > 1e-9 || !(l1 < l0) {
+		t.Errorf("winding length from %g to %g, want 7.7 mm", l0, l1)
 	}
 	if got := num(t, doc, "measured_inductance"); got != 52e-9 {
 		t.Errorf("measured_inductance %g, want the 52 nH reading", got)
@@ -299,8 +315,17 @@ func TestTrimSaveNewFile(t *testing.T) {
 		t.Errorf("a new file has no backup, and the rod is added:\n%s", out)
 	}
 	doc := predictDoc(t, "--mandrel", "4.6mm", "--wire", "1mm", "--turns", "4", "--length", "8mm", "--leads", "5mm", "--stock", stock)
-	if doc["springback_source"] != "calibration" || num(t, doc, "springback") <= 0.05 {
-		t.Errorf("predict: springback %v from %v", doc["springback"], doc["springback_source"])
+	// The saved springback is trim's, as the stock file rounds it (4.72 %
+	// with the helix pitch correction; 6.56 % before it).
+	cal := trimDoc(t, trimDoneWhen...)
+	if doc["springback_source"] != "calibration" || math.Abs(num(t, doc, "springback")-num(t, cal, "springback")) > 1e-4 { // the stock file keeps 0.01 %
+		t.Errorf("predict: springback %v from %v, want trim's %v", doc["springback"], doc["springback_source"], cal["springback"])
+	}
+	// The correction, re-predicted with the saved calibration, lands on
+	// the 48 nH target (the done-when, within its 0.5 %).
+	re := predictDoc(t, "--mandrel", "4.6mm", "--wire", "1mm", "--turns", "3.75", "--length", "7.7mm", "--leads", "5mm", "--stock", stock)
+	if l := num(t, re, "inductance"); math.Abs(l/48e-9-1) > 0.005 {
+		t.Errorf("re-predicted %g, want 48 nH within 0.5 %%", l)
 	}
 	if _, err := os.Stat(stock + ".bak"); !os.IsNotExist(err) {
 		t.Errorf("backup of a file that did not exist: %v", err)
@@ -460,7 +485,12 @@ func TestTrimTappedRemoveTurns(t *testing.T) {
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
-	if !strings.Contains(out, "→ remove ¾ turn at the hot end (4¼ turns left)") {
+	// 4¼ turns cannot reach 60 nH: calibrated (mean diameter 6.53 mm),
+	// the helix Neumann integral gives 60.11 nH at the loosest pitch,
+	// 3.00 mm (the model the same; Rosa's rings alone 57.89 nH, the old
+	// "remove ¾ turn"); 4 turns at 2.43 mm give 59.98 nH by the integral,
+	// inside the window with room either way.
+	if !strings.Contains(out, "→ remove 1 turn at the hot end (4 turns left)") {
 		t.Errorf("instruction does not say which end:\n%s", out)
 	}
 	if !strings.Contains(errOut, "or the tap is not at 1 turn\n") || strings.Contains(errOut, "turn turns") {

@@ -12,12 +12,21 @@ import (
 // any coil that meets the SRF limit: the model's inductance at DC (the
 // internal inductance only falls with frequency) plus the leads with their
 // full internal inductance; for an effective target the helix part is
-// divided by the least 1 − (f/SRF)².
+// divided by the least 1 − (f/SRF)². Rosa's ring part falls with the
+// pitch; the helix's own part (coil.HelixPitchCorrection) rises, and for
+// short fat coils past p ≈ 0.7·D so does the whole (the helix integral
+// agrees), so the bound takes the helix part at the loosest pitch the
+// search tries when that is larger: it then holds for every looser pitch
+// too (TestDesignMonotoneInPitch).
 func (x *search) upperL(p *pair, n, pitch float64) float64 {
 	x.stats.BoundEvaluations++
 	dw := &x.wires[p.wi]
 	c := x.core(p, n, pitch)
-	return dw.leadsMax + c.LCoilDC/x.grDiv
+	dl := c.Pitched
+	if loose := coil.LoosestPitchFactor * dw.do; loose > pitch {
+		dl = math.Max(dl, coil.HelixPitchMax(n, loose, 2*dw.r, p.dm))
+	}
+	return dw.leadsMax + (c.LCoilDC-c.Pitched+dl)/x.grDiv
 }
 
 // minTurnsAt is the fewest quarter turns, at least floor, whose upperL at

@@ -772,10 +772,14 @@ func TestDesignFreeDiameter(t *testing.T) {
 	checkCoil(t, tc, res, top)
 }
 
-// The search relies on the model's inductance falling as the pitch grows
-// from close winding to three wire diameters, for two turns or more (below
-// two it does not always: one reason for DefaultMinTurns): check it over
-// wide geometry.
+// The search's turns bound (upperL) relies on Rosa's ring part of the
+// inductance falling as the pitch grows from close winding to three wire
+// diameters, for two turns or more, and on the helix part
+// (coil.HelixPitchCorrection) never exceeding, from any pitch on, the
+// larger of its values there and at three diameters (below two turns the
+// ring part does not always fall: one reason for DefaultMinTurns). The
+// whole inductance may rise with the pitch for short fat coils beyond
+// p ≈ 0.7·D, as the helix integral does. Check both over wide geometry.
 func TestDesignMonotoneInPitch(t *testing.T) {
 	t.Parallel()
 	for _, D := range []float64{2e-3, 6e-3, 20e-3, 100e-3, 200e-3} {
@@ -784,18 +788,21 @@ func TestDesignMonotoneInPitch(t *testing.T) {
 				continue
 			}
 			for _, n := range []float64{2, 2.25, 3, 5, 10, 30, 100, 500} {
-				for _, f := range []float64{0, 7e6} {
-					prev := math.Inf(1)
-					for k := 0; k <= 200; k++ {
-						g := coil.Geometry{FormerDiameter: unit.Length(D), WireDiameter: unit.Length(d), Turns: n,
-							Pitch: unit.Length(d * (1 + 2*float64(k)/200)), LeadLength: 5e-3}
-						var p coil.Prediction
-						coil.Evaluate(&p, &g, f)
-						if l := float64(p.Inductance); !(l < prev) {
-							t.Fatalf("D %g d %g N %g: L rises with pitch at %g d", D, d, n, 1+2*float64(k)/200)
-						} else {
-							prev = l
-						}
+				const steps = 200
+				var ring, helix [steps + 1]float64
+				for k := range steps + 1 {
+					pitch := d * (1 + 2*float64(k)/steps)
+					c := coil.NewCore(n, pitch, d, D+d, coil.RosaMutual(n))
+					ring[k], helix[k] = c.LCoilDC-c.Pitched, c.Pitched
+					if k > 0 && !(ring[k] < ring[k-1]) {
+						t.Fatalf("D %g d %g N %g: the ring part rises with pitch at %g d", D, d, n, 1+2*float64(k)/steps)
+					}
+				}
+				most := helix[steps]
+				for k := steps; k >= 0; k-- {
+					most = math.Max(most, helix[k])
+					if most > math.Max(helix[k], helix[steps])+1e-18 {
+						t.Fatalf("D %g d %g N %g: the helix part beyond %g d exceeds both ends", D, d, n, 1+2*float64(k)/steps)
 					}
 				}
 			}

@@ -138,6 +138,19 @@ type pitchSolver struct {
 // and D), or inverts that form outright; Newton steps in (ln p, ln L) use
 // the slope learned so far and fall back to bisection when they leave the
 // bracket.
+//
+// The value need not fall monotonically with the pitch: for short fat
+// coils it rises again past p ≈ 0.8·D (coil.HelixPitchCorrection, as the
+// helix Neumann integral does). It falls and then at most rises once, so
+// with f(close) > 0 > f(loosest) it crosses the target exactly once (a
+// rising tail ends below the target, so lies wholly below it), and the
+// sign-kept bracket converges to that crossing whatever the slope; Newton
+// steps only use a falling slope and fall back to bisection. The turns
+// range (turnsRange) takes the window's ends, not its interior least: a
+// coil whose interior dips below (1−m)·target while its loosest end does
+// not is left out, which only omits candidates (never admits one outside
+// the trim window) and concerns p > 0.7·D only (design's loosest pitch is
+// 3·d_o, so wire thick against the diameter, D < 4.3·d_o).
 func (x *search) solvePitch(p *pair, n float64, sv *pitchSolver) (float64, bool) {
 	T := x.s.required
 	const relTol = 1e-7

@@ -51,9 +51,12 @@ type Correction struct {
 	// exact.
 	LengthStep unit.Length
 	// WindowLeast and WindowMost are what squeezing and spreading can
-	// reach with the coil's present turns (see coil.Window), in the target's
-	// sense.
-	WindowLeast, WindowMost unit.Inductance
+	// reach with the coil's present turns, in the target's sense, and
+	// WindowLeastPitch and WindowMostPitch the pitches where they are. They
+	// are the window's ends (coil.Window) unless the inductance turns
+	// upward inside it (short fat coils past p ≈ 0.7·D, see scanWindow).
+	WindowLeast, WindowMost           unit.Inductance
+	WindowLeastPitch, WindowMostPitch unit.Length
 	// LengthPerPercent is the length change per 1 % of inductance around
 	// the corrected coil, for the final touch (see LengthPerPercent).
 	LengthPerPercent unit.Length
@@ -88,16 +91,17 @@ func Correct(g coil.Geometry, t Target, opt CorrectOptions) (Correction, error) 
 		return c, err
 	}
 	tight, loose := windowPitches(g)
-	most, err := t.Of(withPitch(g, tight))
-	if err != nil {
+	if _, err := t.Of(withPitch(g, tight)); err != nil {
 		return c, err
 	}
-	least, err := t.Of(withPitch(g, loose))
-	if err != nil {
+	if _, err := t.Of(withPitch(g, loose)); err != nil {
 		return c, err
 	}
+	w := scanWindow(g, t)
+	least, most := unit.Inductance(w.least), unit.Inductance(w.most)
 	c.Target, c.Before = t.Inductance, before
 	c.WindowLeast, c.WindowMost = least, most
+	c.WindowLeastPitch, c.WindowMostPitch = unit.Length(w.leastAt), unit.Length(w.mostAt)
 	c.LengthBefore = g.WindingLength()
 	c.Geometry, c.After, c.LengthAfter = g, before, c.LengthBefore
 
@@ -223,32 +227,140 @@ func valueAtPitch(g coil.Geometry, t Target, p float64) float64 {
 	return float64(v)
 }
 
-// solvePitch finds the pitch within g's window that brings g to t (the
-// nearest end when t is outside it), then rounds the outside length to the
-// coarsest of opt.LengthSteps that keeps the prediction within
-// opt.Tolerance, and returns the step used (zero for exact).
-func solvePitch(g coil.Geometry, t Target, opt CorrectOptions) (coil.Geometry, unit.Length) {
-	want := float64(t.Inductance)
+// window is the target's value sampled over a coil's squeeze/spread
+// window, with its extremes.
+type window struct {
+	p, v                  []float64 // pitches (ascending) and values
+	least, leastAt        float64
+	most, mostAt          float64
+	tight, loose, present float64
+}
+
+// windowSamples is the number of pitches scanWindow samples. The value is
+// smooth and has at most one interior minimum (it falls with the pitch,
+// and for short fat coils the helix's own part makes it rise again past
+// p ≈ 0.7·D; HelixPitchCorrection, checked against the helix Neumann
+// integral), which the golden-section refinement finds.
+const windowSamples = 24
+
+// scanWindow samples g's window and locates its least and most values. The
+// search must not assume the value falls monotonically with the pitch: at
+// p > 0.7·D on short fat coils it rises again (e.g. 4 turns of 1 mm on a
+// 5.8 mm mean diameter: least at p ≈ 4.5 mm, 0.77·D). The most is at an
+// end (close winding in practice); the least is refined by golden section
+// when it lies inside.
+func scanWindow(g coil.Geometry, t Target) window {
 	tight, loose := windowPitches(g)
-	lo, hi := tight, loose // value falls from lo to hi
-	switch {
-	case valueAtPitch(g, t, lo) <= want:
-		return withPitch(g, lo), 0
-	case valueAtPitch(g, t, hi) >= want:
-		return withPitch(g, hi), 0
+	w := window{tight: tight, loose: loose, present: float64(g.Pitch)}
+	w.p = make([]float64, 0, windowSamples+2)
+	w.v = make([]float64, 0, windowSamples+2)
+	for i := range windowSamples {
+		p := tight + (loose-tight)*float64(i)/(windowSamples-1)
+		w.p = append(w.p, p)
+		w.v = append(w.v, valueAtPitch(g, t, p))
 	}
+	im, iM := 0, 0
+	for i, v := range w.v {
+		if v < w.v[im] {
+			im = i
+		}
+		if v > w.v[iM] {
+			iM = i
+		}
+	}
+	w.most, w.mostAt = w.v[iM], w.p[iM]
+	w.least, w.leastAt = w.v[im], w.p[im]
+	if im > 0 && im < len(w.p)-1 {
+		// Golden section on the samples either side; insert the minimum
+		// among the samples so that every crossing of a level above it has
+		// a sign change between neighbours.
+		a, b := w.p[im-1], w.p[im+1]
+		const r = 0.6180339887498949
+		x1, x2 := b-r*(b-a), a+r*(b-a)
+		f1, f2 := valueAtPitch(g, t, x1), valueAtPitch(g, t, x2)
+		for b-a > 1e-9*loose {
+			if f1 < f2 {
+				b, x2, f2 = x2, x1, f1
+				x1 = b - r*(b-a)
+				f1 = valueAtPitch(g, t, x1)
+			} else {
+				a, x1, f1 = x1, x2, f2
+				x2 = a + r*(b-a)
+				f2 = valueAtPitch(g, t, x2)
+			}
+		}
+		pm := (a + b) / 2
+		if vm := valueAtPitch(g, t, pm); vm < w.least {
+			w.least, w.leastAt = vm, pm
+			at := im
+			if pm > w.p[im] {
+				at = im + 1
+			}
+			w.p = append(w.p[:at], append([]float64{pm}, w.p[at:]...)...)
+			w.v = append(w.v[:at], append([]float64{vm}, w.v[at:]...)...)
+		}
+	}
+	return w
+}
+
+// root finds the pitch in w at which the value is want: of the sampled
+// intervals whose ends straddle want, the one nearest the present pitch
+// (the least change for the builder), refined by bisection. With want
+// outside the window it returns the pitch of the nearer extreme.
+func (w *window) root(g coil.Geometry, t Target, want float64) float64 {
+	switch {
+	case want >= w.most:
+		return w.mostAt
+	case want <= w.least:
+		return w.leastAt
+	}
+	best, bestDist := -1, math.Inf(1)
+	for i := 0; i+1 < len(w.p); i++ {
+		if (w.v[i]-want)*(w.v[i+1]-want) > 0 {
+			continue
+		}
+		dist := 0.0
+		if w.present < w.p[i] {
+			dist = w.p[i] - w.present
+		} else if w.present > w.p[i+1] {
+			dist = w.present - w.p[i+1]
+		}
+		if dist < bestDist {
+			best, bestDist = i, dist
+		}
+	}
+	if best < 0 {
+		return w.leastAt // not reached: least < want < most has a crossing
+	}
+	lo, hi := w.p[best], w.p[best+1]
+	falling := w.v[best] > w.v[best+1]
 	for range 100 {
 		mid := (lo + hi) / 2
-		if valueAtPitch(g, t, mid) > want {
+		if (valueAtPitch(g, t, mid) > want) == falling {
 			lo = mid
 		} else {
 			hi = mid
 		}
-		if hi-lo < 1e-12*loose {
+		if hi-lo < 1e-12*w.loose {
 			break
 		}
 	}
-	exact := withPitch(g, (lo+hi)/2)
+	return (lo + hi) / 2
+}
+
+// solvePitch finds the pitch within g's window that brings g to t (the
+// nearest extreme when t is outside it; scanWindow, as the value need not
+// fall monotonically with the pitch), then rounds the outside length to
+// the coarsest of opt.LengthSteps that keeps the prediction within
+// opt.Tolerance, and returns the step used (zero for exact).
+func solvePitch(g coil.Geometry, t Target, opt CorrectOptions) (coil.Geometry, unit.Length) {
+	want := float64(t.Inductance)
+	w := scanWindow(g, t)
+	loose := w.loose
+	exact := withPitch(g, w.root(g, t, want))
+	if want >= w.most || want <= w.least {
+		return exact, 0
+	}
 	if g.Turns <= 1 || len(opt.LengthSteps) == 0 {
 		return exact, 0
 	}
@@ -292,23 +404,23 @@ func findTurns(g coil.Geometry, t Target, more bool) (float64, error) {
 	tight, _ := windowPitches(g)
 	withTurns := func(n float64) coil.Geometry { return rewound(g, n) }
 	// reaches reports whether n turns can reach the target from the side
-	// it lies on: close-wound gives at least want (more), or the loosest
-	// pitch at most want (fewer).
+	// it lies on: the window's most is at least want (more), or its least
+	// at most want (fewer). The ends are evaluated first for the model's
+	// own failure (the frequency above the self-resonance); the extremes
+	// come from scanWindow, as the value need not be monotone in the pitch.
 	reaches := func(n float64) (bool, error) {
 		h := withTurns(n)
 		if more {
-			v, err := t.Of(withPitch(h, tight))
-			if err != nil {
+			if _, err := t.Of(withPitch(h, tight)); err != nil {
 				return false, err
 			}
-			return float64(v) >= want, nil
+			return scanWindow(h, t).most >= want, nil
 		}
 		_, loose := windowPitches(h)
-		v, err := t.Of(withPitch(h, loose))
-		if err != nil {
+		if _, err := t.Of(withPitch(h, loose)); err != nil {
 			return false, err
 		}
-		return float64(v) <= want, nil
+		return scanWindow(h, t).least <= want, nil
 	}
 	q0 := math.Round(g.Turns * 4)
 	if more {
@@ -349,10 +461,13 @@ func findTurns(g coil.Geometry, t Target, more bool) (float64, error) {
 	}
 	// Fewer turns: the value falls with n, so search down to one turn.
 	if ok, err := reaches(1); err != nil || !ok {
-		_, loose := windowPitches(withTurns(1))
-		v, _ := t.Of(withPitch(withTurns(1), loose))
-		return 0, &infeasibleError{fmt.Sprintf("the target %s is below what a single turn of this wire on this diameter gives (%s at its loosest): use a smaller diameter",
-			quantity.FormatInductance(want), quantity.FormatInductance(float64(v)))}
+		v := scanWindow(withTurns(1), t).least
+		if !finite(v) {
+			return 0, &infeasibleError{fmt.Sprintf("the target %s is out of reach: even a single turn of this wire on this diameter is past its self-resonance at %s; use a smaller diameter",
+				quantity.FormatInductance(want), quantity.FormatFrequency(float64(t.Frequency)))}
+		}
+		return 0, &infeasibleError{fmt.Sprintf("the target %s is below what a single turn of this wire on this diameter gives (%s at its least): use a smaller diameter",
+			quantity.FormatInductance(want), quantity.FormatInductance(v))}
 	}
 	lo, hi := 4.0, q0 // lo reaches, hi does not
 	for hi-lo > 1 {

@@ -32,8 +32,8 @@ func ExampleCalibrate() {
 	}
 	fmt.Printf("%s from %.1f mm to %.1f mm: %.4g nH\n", c.Action, float64(c.LengthBefore)*1e3, float64(c.LengthAfter)*1e3, float64(c.After)*1e9)
 	// Output:
-	// springback 3.03 % (1.6 … 4.45 %), wire-centre diameter 7.18 mm
-	// spread from 8.0 mm to 8.6 mm: 101.7 nH
+	// springback 2.53 % (1.08 … 3.96 %), wire-centre diameter 7.15 mm
+	// spread from 8.0 mm to 8.7 mm: 101.2 nH
 }
 
 // The two-capacitor method: two resonances give L and the capacitance

@@ -307,8 +307,17 @@ func WriteTrimTable(w io.Writer, res *Trim) error {
 		tgt = fmt.Sprintf("resonance at %s with %s: %s", quantity.FormatEng(float64(res.Aim.Resonance), "Hz", 4), quantity.FormatCapacitance(float64(res.Aim.Capacitance)), tgt)
 	}
 	row("target", tgt)
-	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (close-wound), with %s turns", quantity.FormatEng(float64(c.WindowLeast), "H", 3), lf.Format(float64(res.LoosePitch)),
-		quantity.FormatEng(float64(c.WindowMost), "H", 3), quantity.FormatTurns(g.Turns)))
+	// The least is at the loosest pitch unless the inductance turns upward
+	// inside the window (short fat coils, p > 0.7·D).
+	leastAt, mostAt := res.LoosePitch, "close-wound"
+	if c.WindowLeastPitch > 0 {
+		leastAt = c.WindowLeastPitch
+	}
+	if c.WindowMostPitch > g.OverallDiameter()*(1+1e-9) {
+		mostAt = "pitch " + lf.Format(float64(c.WindowMostPitch))
+	}
+	row("squeeze/spread window", fmt.Sprintf("%s (pitch %s) … %s (%s), with %s turns", quantity.FormatEng(float64(c.WindowLeast), "H", 3), lf.Format(float64(leastAt)),
+		quantity.FormatEng(float64(c.WindowMost), "H", 3), mostAt, quantity.FormatTurns(g.Turns)))
 	ng := c.Geometry
 	switch c.Action {
 	case trim.ActionNone:
