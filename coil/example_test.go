@@ -31,8 +31,8 @@ func ExamplePredict() {
 	fmt.Printf("Q: %.0f (%.0f … %.0f)\n", p.Q, p.QMin, p.QMax)
 	// Output:
 	// L at the terminals: 95.7 nH
-	// SRF (one end grounded): 953 MHz
-	// Q: 397 (278 … 437)
+	// SRF (one end grounded): 965 MHz
+	// Q: 398 (278 … 437)
 }
 
 // The pitch a builder must set is checked before anything is computed.
