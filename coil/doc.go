@@ -28,9 +28,10 @@
 // the same wire add their own inductance at the terminals. The
 // self-resonance of both mountings (one end grounded: quarter-wave-like;
 // both ends floating: half-wave-like) comes from the coil as a helical
-// transmission line (srf.go: sheath helix, calibrated end corrections
-// against NEC-2; uncertainty from a leave-one-out check, 8 % grounded and
-// 12 % floating); the equivalent self-capacitance is the C that resonates
+// transmission line (srf.go: sheath helix with an end correction and a
+// slow correction in ln(p/d), ln(p/d)·ln(l/D) and D/l per mounting, five
+// constants each, calibrated against NEC-2; uncertainty from a
+// leave-one-out check, 4 % grounded and 6 % floating); the equivalent self-capacitance is the C that resonates
 // the winding at its mounting's SRF. The effective inductance and Q at the
 // operating frequency follow from the lumped model (leads in series with
 // the coil, the coil in parallel with that self-capacitance). Against a

@@ -31,8 +31,8 @@ func ExamplePredict() {
 	fmt.Printf("Q: %.0f (%.0f … %.0f)\n", p.Q, p.QMin, p.QMax)
 	// Output:
 	// L at the terminals: 96.4 nH
-	// SRF (one end grounded): 953 MHz
-	// Q: 401 (280 … 441)
+	// SRF (one end grounded): 965 MHz
+	// Q: 401 (281 … 441)
 }
 
 // The pitch a builder must set is checked before anything is computed.
