@@ -49,6 +49,11 @@ func (f *valueFlag[T, K]) ptr() *T {
 // given is what a check of the flag needs besides its value.
 func (f *valueFlag[T, K]) given() spec.Given { return spec.Given{Raw: f.raw, Set: f.set} }
 
+// opt is the flag as internal/spec takes it.
+func opt[T any, K valueKind[T]](f *valueFlag[T, K]) spec.Opt[T] {
+	return spec.Opt[T]{V: f.v, Given: spec.Given{Raw: f.raw, Set: f.set}}
+}
+
 type (
 	lengthFlag      = valueFlag[unit.Length, lengthKind]
 	frequencyFlag   = valueFlag[unit.Frequency, frequencyKind]

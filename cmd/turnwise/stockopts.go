@@ -27,16 +27,3 @@ func (o *stockOptions) addFlags(fs *pflag.FlagSet) {
 // load reads the selected catalogs. A named stock file that is missing or
 // malformed is bad input (exit 2).
 func (o *stockOptions) load() (*forms.Catalog, error) { return spec.LoadCatalog(o.path, o.use.v) }
-
-// jobStockOptions returns the stock selection for a job: the command line's
-// when --stock or --use was given there (flagsGiven), else the job file's
-// own stock = and use = keys, the stock path taken relative to the job file.
-func jobStockOptions(job *forms.Job, so *stockOptions, flagsGiven bool) *stockOptions {
-	path, use := spec.JobStock(job, so.path, so.use.v, flagsGiven)
-	if path == so.path && use == so.use.v {
-		return so
-	}
-	out := newStockOptions()
-	out.path, out.use.v = path, use
-	return out
-}

@@ -2,11 +2,9 @@ package main
 
 import (
 	"context"
-	"errors"
 	"fmt"
 	"io"
 	"os"
-	"path/filepath"
 	"strings"
 	"turnwise/internal/quantity"
 	"turnwise/internal/report"
@@ -15,9 +13,7 @@ import (
 	"github.com/spf13/cobra"
 	"gonum.org/v1/gonum/unit"
 
-	"turnwise/coil"
 	"turnwise/coil/trim"
-	"turnwise/forms"
 )
 
 // trimOptions holds everything `turnwise trim` needs; no cobra types.
@@ -158,43 +154,40 @@ local regulations and licensed practice for anything that transmits.
 	return cmd
 }
 
-// trimCoil is the coil under test, resolved from flags or a job entry.
-type trimCoil struct {
-	spec     spec.Spec
-	freq     unit.Frequency
-	tapTurns *float64 // nil for an untapped coil
-	tapRatio *float64 // the ratio to keep, when given
-	stock    *stockOptions
-	cat      *forms.Catalog
-	// job and jobEntry are set when the coil came from a job file; errors
-	// on the coil then point at its keys.
-	job      *forms.Job
-	jobEntry *forms.JobCoil
-}
-
 // trimResult is the library's result with what the writers need besides.
 type trimResult = report.Trim
 
 func runTrim(ctx context.Context, opts *trimOptions, stdout, stderr io.Writer) error {
-	m, via, err := opts.measurement()
+	flags := opts.values()
+	m, via, err := spec.TrimMeasurement(flags)
 	if err != nil {
 		return err
 	}
-	tc, err := opts.resolveCoil()
+	tc, err := spec.ResolveTrimCoil(flags)
 	if err != nil {
 		return err
 	}
 	if m.Kind == trim.MeasureSweep {
-		if m.Sweep, err = opts.sweepReading(float64(tc.freq)); err != nil {
+		_, _, fit, err := opts.sweep.load(opts.sweepFile, float64(tc.Freq))
+		if err != nil {
 			return err
 		}
+		m.Sweep = spec.TrimSweepFit(fit)
 	}
-	res, err := trimCompute(opts, tc, m, via)
+	lf := newLengthFormatter(opts.units.v)
+	req, err := spec.TrimRequest(flags, tc, m, trim.LengthSteps(lf.Inches))
 	if err != nil {
 		return err
 	}
+	plan, err := trim.Plan(req)
+	if err != nil {
+		return spec.TrimError(via, tc, err)
+	}
+	res := &trimResult{Result: plan, Coil: tc.Spec, Meas: m, LF: lf}
+	res.Instruction = report.TrimInstruction(res)
+	res.Warnings = report.TrimWarnings(res)
 	if opts.save {
-		s, err := saveTrimCalibration(ctx, tc, res)
+		s, err := saveTrimCalibration(ctx, tc.Stock.Path, res)
 		if err != nil {
 			return err
 		}
@@ -211,270 +204,23 @@ func runTrim(ctx context.Context, opts *trimOptions, stdout, stderr io.Writer) e
 	return nil
 }
 
-// trimCompute is the trim itself: the request from the flags, one call to
-// trim.Plan, and the flag each input error belongs to.
-func trimCompute(opts *trimOptions, tc trimCoil, m trim.Measurement, via string) (*trimResult, error) {
-	lf := newLengthFormatter(opts.units.v)
-	req := trim.Request{
-		Geometry:    tc.spec.Geometry,
-		Frequency:   tc.freq,
-		Measurement: m,
-		Tolerance:   opts.tolerance.v,
-		LengthSteps: trim.LengthSteps(lf.Inches),
-		OnFormer:    tc.spec.SupportKind == coil.SupportFormer,
+// values is what the flags gave, for internal/spec.
+func (o *trimOptions) values() spec.TrimFlags {
+	return spec.TrimFlags{
+		Freq: opt(&o.freq), MeasuredL: opt(&o.measuredL), FixtureL: opt(&o.fixtureL),
+		MeterFreq: opt(&o.meterFreq), MeasuredF: opt(&o.measuredF), FixtureLeads: opt(&o.fixtureLeads),
+		MeterTol: opt(&o.meterTol), FreqTol: opt(&o.freqTol), Tolerance: opt(&o.tolerance),
+		WithCap: opt(&o.withCap), CircuitCap: opt(&o.circuitCap), Stray: opt(&o.stray),
+		Resonances: o.resonances.v,
+		CapTol:     spec.Given{Raw: o.capTol.raw, Set: o.capTol.raw != ""}, CapTolRel: o.capTol.rel, CapTolAbs: o.capTol.abs,
+		Target: spec.Given{Raw: o.target.raw, Set: o.target.set}, TargetL: o.target.l, TargetF: o.target.f, TargetIsFreq: o.target.isFreq,
+		Tap: opt(&o.tap), TapRatio: opt(&o.tapRatio),
+		MeasuredBottom: opt(&o.measuredBottom), MeasuredTop: opt(&o.measuredTop),
+		Sweep: o.sweepFile != "", Job: o.job, CoilName: o.coilName, Save: o.save,
+		Stock:      spec.Stock{Path: o.stock.path, Use: o.stock.use.v},
+		StockGiven: o.stock.path != os.Getenv("TURNWISE_STOCK") || o.stock.use.v != "",
+		Winding:    o.coil.winding(), FirstCoilFlag: o.coil.firstSet(),
 	}
-	switch {
-	case opts.target.isFreq:
-		if !opts.circuitCap.set {
-			return nil, usageErrorf("--target %s is a frequency: give --circuit-cap, the capacitance it resonates with in the circuit", opts.target.raw)
-		}
-		if !(opts.target.f > 0) {
-			return nil, usageErrorf("--target %s: a resonance to aim for must be a positive frequency, e.g. 145MHz", opts.target.raw)
-		}
-		req.Aim = trim.Aim{Source: trim.TargetResonance, Resonance: opts.target.f, Capacitance: opts.circuitCap.v}
-	case opts.target.set:
-		req.Aim = trim.Aim{Source: trim.TargetGiven, Inductance: opts.target.l}
-	}
-	if tc.tapTurns != nil {
-		section := func(f inductanceFlag) *trim.Measurement {
-			if !f.set {
-				return nil
-			}
-			return &trim.Measurement{Kind: trim.MeasureDirect, Inductance: f.v, TestFrequency: opts.meterFreq.v,
-				FixtureInductance: opts.fixtureL.v, MeterTolerance: opts.meterTol.v, FixtureLeadLength: opts.fixtureLeads.v}
-		}
-		req.Tap = &trim.TapRequest{Turns: *tc.tapTurns, Ratio: tc.tapRatio,
-			Bottom: section(opts.measuredBottom), Top: section(opts.measuredTop)}
-	}
-	plan, err := trim.Plan(req)
-	if err != nil {
-		return nil, opts.trimError(via, tc, err)
-	}
-	res := &trimResult{Result: plan, Coil: tc.spec, Meas: m, LF: lf}
-	res.Instruction = report.TrimInstruction(res)
-	res.Warnings = report.TrimWarnings(res)
-	return res, nil
-}
-
-// measurement builds the trim.Measurement from the flags and checks their
-// combination. via is the flag the reading came from.
-func (o *trimOptions) measurement() (trim.Measurement, string, error) {
-	var m trim.Measurement
-	given := 0
-	for _, set := range []bool{o.measuredL.set, o.measuredF.set, len(o.resonances.v) > 0, o.sweepFile != ""} {
-		if set {
-			given++
-		}
-	}
-	switch {
-	case given == 0:
-		return m, "", usageErrorf("give a measurement: --measured-l 52nH (an inductance meter), --measured-f F with --with-cap C (a test capacitor) or --circuit-cap C (in its circuit), or --resonance F1@C1 --resonance F2@C2 (two-capacitor method)")
-	case given > 1:
-		return m, "", usageErrorf("give one measurement: --measured-l, --measured-f, --resonance or --sweep, not several")
-	}
-	for _, t := range []struct {
-		flag string
-		f    *percentFlag
-		max  float64
-	}{{"meter-tol", &o.meterTol, 0.5}, {"freq-tol", &o.freqTol, 0.2}, {"tolerance", &o.tolerance, 0.2}} {
-		if t.f.v < 0 || t.f.v > t.max {
-			return m, "", usageErrorf("--%s %s is outside 0 … %g%%", t.flag, t.f.raw, t.max*100)
-		}
-	}
-	if o.capTol.rel < 0 || o.capTol.rel > 0.5 || o.capTol.abs < 0 || o.capTol.abs > 1e-9 {
-		return m, "", usageErrorf("--cap-tol %s is not a sensible tolerance; use e.g. 5%% or 0.25pF", o.capTol.raw)
-	}
-	sections := o.measuredBottom.set || o.measuredTop.set
-	meterOnly := []struct {
-		name string
-		set  bool
-	}{{"meter-freq", o.meterFreq.set}, {"fixture-l", o.fixtureL.set}}
-	m.MeterTolerance = o.meterTol.v
-	m.CapacitorTolerance, m.CapacitorToleranceAbs = o.capTol.rel, unit.Capacitance(o.capTol.abs)
-	m.FrequencyTolerance = o.freqTol.v
-	m.FixtureLeadLength = o.fixtureLeads.v
-	via := ""
-	switch {
-	case o.sweepFile != "":
-		via = "sweep"
-		m.Kind = trim.MeasureSweep // fitted in runTrim, at the coil's frequency
-	case o.measuredL.set:
-		m.Kind, m.Inductance, via = trim.MeasureDirect, o.measuredL.v, "measured-l"
-		m.TestFrequency, m.FixtureInductance = o.meterFreq.v, o.fixtureL.v
-		if o.stray.set {
-			return m, "", usageErrorf("--stray belongs to a resonance (--measured-f or --resonance); an inductance meter reading does not need it")
-		}
-	case o.measuredF.set:
-		via = "measured-f"
-		for _, f := range meterOnly {
-			if f.set && !sections {
-				return m, "", usageErrorf("--%s belongs to an inductance meter reading (--measured-l); drop it for a resonance", f.name)
-			}
-		}
-		switch {
-		case o.withCap.set:
-			m.Kind = trim.MeasureResonance
-			m.Resonances = []trim.Resonance{{Frequency: o.measuredF.v, Capacitance: o.withCap.v}}
-			m.Stray, m.StrayTolerance = o.stray.v, o.stray.v/2
-		case o.circuitCap.set:
-			if o.stray.set {
-				return m, "", usageErrorf("--stray belongs to a test fixture (--with-cap); --circuit-cap already includes the circuit's strays")
-			}
-			m.Kind = trim.MeasureInCircuit
-			m.Resonances = []trim.Resonance{{Frequency: o.measuredF.v, Capacitance: o.circuitCap.v}}
-		default:
-			return m, "", usageErrorf("--measured-f needs the capacitance it resonated with: --with-cap C (a known capacitor across the coil) or --circuit-cap C (the coil in its circuit)")
-		}
-	default:
-		via = "resonance"
-		for _, f := range meterOnly {
-			if f.set && !sections {
-				return m, "", usageErrorf("--%s belongs to an inductance meter reading (--measured-l); drop it for a resonance", f.name)
-			}
-		}
-		m.Resonances = o.resonances.v
-		m.Kind = trim.MeasureTwoCapacitor
-		if len(o.resonances.v) == 1 {
-			m.Kind = trim.MeasureResonance
-		}
-		m.Stray, m.StrayTolerance = o.stray.v, o.stray.v/2
-	}
-	if o.circuitCap.set && m.Kind != trim.MeasureInCircuit && !o.target.isFreq {
-		return m, "", usageErrorf("--circuit-cap is the capacitance of the coil's own circuit: it goes with --measured-f (a resonance in that circuit) or with a resonance --target such as 145MHz; drop it, or give one of those")
-	}
-	if o.withCap.set && !o.measuredF.set {
-		return m, "", usageErrorf("--with-cap is the capacitor of a --measured-f resonance; give --measured-f too, or use --resonance F@C")
-	}
-	if sections && !o.tap.set && o.job == "" {
-		return m, "", usageErrorf("--measured-bottom and --measured-top are readings of a tapped coil's sections: give --tap, the tap in turns from the cold end")
-	}
-	if o.tapRatio.set && !o.tap.set && o.job == "" {
-		return m, "", usageErrorf("--tap-ratio needs --tap, where the tap is now")
-	}
-	return m, via, nil
-}
-
-// resolveCoil finds the coil under test: the coil flags, or --job/--coil.
-func (o *trimOptions) resolveCoil() (trimCoil, error) {
-	tc := trimCoil{stock: o.stock, freq: o.freq.v}
-	if o.tap.set {
-		v := o.tap.v
-		tc.tapTurns = &v
-	}
-	if o.tapRatio.set {
-		v := o.tapRatio.v
-		tc.tapRatio = &v
-	}
-	if o.job == "" {
-		if o.coilName != "" {
-			return tc, usageErrorf("--coil names a coil of a job file: give --job FILE too, or describe the coil with --mandrel/--former, --wire, --turns")
-		}
-		so, err := o.saveStockOptionsFor(o.stock)
-		if err != nil {
-			return tc, err
-		}
-		cat, err := so.load()
-		if err != nil {
-			return tc, err
-		}
-		cs, err := spec.Resolve(cat, o.coil.winding())
-		if err != nil {
-			return tc, err
-		}
-		tc.spec, tc.cat, tc.stock = cs, cat, so
-		return tc, nil
-	}
-
-	if o.coilName == "" {
-		return tc, usageErrorf("--job needs --coil NAME, the coil of the job file you measured")
-	}
-	if f := o.coil.firstSet(); f != "" {
-		return tc, usageErrorf("--job takes the coil from the job file; drop --%s (or drop --job and describe the coil with flags)", f)
-	}
-	job, err := spec.LoadJob(o.job)
-	if err != nil {
-		return tc, err
-	}
-	entry, err := job.Coil(o.coilName)
-	if err != nil {
-		return tc, &flagError{Flag: "coil", Err: err}
-	}
-	// --stock or --use on the command line win over the job's own stock.
-	flagsGiven := o.stock.path != os.Getenv("TURNWISE_STOCK") || o.stock.use.v != ""
-	so := jobStockOptions(job, o.stock, flagsGiven)
-	saveSo, err := o.saveStockOptionsFor(so)
-	if err != nil {
-		return tc, err
-	}
-	var cat *forms.Catalog
-	if saveSo != so {
-		cat, err = saveSo.load() // the stock file is new: built-in rows only
-	} else {
-		cat, err = spec.JobCatalog(job, o.stock.path, o.stock.use.v, flagsGiven)
-	}
-	if err != nil {
-		return tc, err
-	}
-	cs, err := spec.ResolveJobCoil(job, entry, cat)
-	if err != nil {
-		return tc, err
-	}
-	tc.spec, tc.cat, tc.stock, tc.job, tc.jobEntry = cs, cat, saveSo, job, entry
-	if !o.freq.set && entry.Winding.Freq != nil {
-		tc.freq = *entry.Winding.Freq
-	}
-	if entry.Tap != nil && !o.tap.set {
-		switch {
-		case entry.Tap.Turns != nil:
-			v := *entry.Tap.Turns
-			tc.tapTurns = &v
-		case entry.Tap.Ratio != nil:
-			// The sheet put the tap at the quarter turn nearest the ratio.
-			choice, err := trim.MoveTap(cs.Geometry, tc.freq, *entry.Tap.Ratio)
-			if err != nil && choice.TapTurns == 0 {
-				return tc, spec.JobFieldError(job, entry, "tap-ratio", err)
-			}
-			v := choice.TapTurns
-			tc.tapTurns = &v
-			if tc.tapRatio == nil {
-				r := *entry.Tap.Ratio
-				tc.tapRatio = &r
-			}
-		}
-	}
-	if tc.tapTurns == nil && (o.measuredBottom.set || o.measuredTop.set) {
-		return tc, usageErrorf("--measured-bottom and --measured-top are readings of a tapped coil's sections; coil %q has no tap: give --tap", entry.Name)
-	}
-	return tc, nil
-}
-
-// saveStockOptionsFor returns the stock selection to load. With --save it
-// needs a stock file; when that file does not exist yet, the built-in
-// catalog alone is loaded (the save creates the file).
-func (o *trimOptions) saveStockOptionsFor(so *stockOptions) (*stockOptions, error) {
-	if !o.save {
-		return so, nil
-	}
-	if so.path == "" {
-		return nil, usageErrorf("--save needs your stock file: give --stock FILE (created if missing) or set TURNWISE_STOCK")
-	}
-	if _, err := os.Stat(so.path); errors.Is(err, os.ErrNotExist) {
-		if dir := filepath.Dir(so.path); !isDir(dir) {
-			return nil, usageErrorf("--save: the stock file's directory %s does not exist; create it first or give another --stock", dir)
-		}
-		if so.use.v == "mine" {
-			return nil, usageErrorf("--use mine: %q does not exist yet; drop --use to start it with --save", so.path)
-		}
-		out := newStockOptions()
-		out.path, out.use.v = so.path, "builtin"
-		return out, nil
-	}
-	return so, nil
-}
-
-func isDir(path string) bool {
-	st, err := os.Stat(path)
-	return err == nil && st.IsDir()
 }
 
 // firstSet names the first coil flag given, or "".
@@ -493,48 +239,6 @@ func (o *coilOptions) firstSet() string {
 		}
 	}
 	return ""
-}
-
-// coilError names the flag (or job key) a model error on the coil belongs to.
-func (tc trimCoil) coilError(o *trimOptions, err error) error {
-	var ie *coil.InputError
-	if errors.As(err, &ie) && ie.Param == "frequency" {
-		return &flagError{Flag: "freq", Err: err}
-	}
-	if tc.job != nil {
-		return spec.JobCoilError(tc.job, tc.jobEntry, spec.AttachFlag(err, tc.spec.SupportKind.String(), tc.spec.PitchSource))
-	}
-	return spec.AttachFlag(err, tc.spec.SupportKind.String(), tc.spec.PitchSource)
-}
-
-// trimError names the flag (or job key) an error of trim.Plan belongs to.
-// via is the flag the measurement came from.
-func (o *trimOptions) trimError(via string, tc trimCoil, err error) error {
-	var ie *coil.InputError
-	if !errors.As(err, &ie) {
-		return err
-	}
-	flag := map[string]string{
-		"frequency":           "freq",
-		"target":              "target",
-		"tap_turns":           "tap",
-		"tap_ratio":           "tap-ratio",
-		"measured_inductance": via,
-		"resonance":           via,
-		"capacitance":         via,
-		"measurement":         via,
-		"fixture_inductance":  "fixture-l",
-		"test_frequency":      "meter-freq",
-		"stray":               "stray",
-		"tolerance":           "cap-tol",
-		"fixture_lead_length": "fixture-leads",
-		"measured_bottom":     "measured-bottom",
-		"measured_top":        "measured-top",
-	}[ie.Param]
-	if flag == "" {
-		return tc.coilError(o, err)
-	}
-	return &flagError{Flag: flag, Err: err}
 }
 
 // targetFlag takes an inductance (48nH) or a resonance frequency (145MHz).
@@ -611,18 +315,4 @@ func (f *capTolFlag) Set(s string) error {
 	}
 	*f = capTolFlag{raw: s, rel: v}
 	return nil
-}
-
-// sweepReading fits the --sweep file with L read at f (the coil's
-// operating frequency; zero for the lowest frequency fitted).
-func (o *trimOptions) sweepReading(f float64) (trim.SweepFit, error) {
-	_, _, fit, err := o.sweep.load(o.sweepFile, f)
-	if err != nil {
-		return trim.SweepFit{}, err
-	}
-	return trim.SweepFit{
-		Inductance: unit.Inductance(fit.InductanceLow.Value), Uncertainty: fit.InductanceLow.Uncertainty / fit.InductanceLow.Value,
-		Frequency: unit.Frequency(fit.Frequency), Capacitance: unit.Capacitance(fit.SelfCapacitance.Value),
-		CapacitanceUncertainty: unit.Capacitance(fit.SelfCapacitance.Uncertainty), Residual: fit.Residual,
-	}, nil
 }

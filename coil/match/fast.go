@@ -157,41 +157,8 @@ func (fn *fastNet) zin(c []float64, z complex128) (complex128, bool) {
 	x := fn.x
 	clear(x)
 	x[fn.port] = 1
-	// Gaussian elimination with partial pivoting.
-	for k := 0; k < n; k++ {
-		piv, best := k, cmplx.Abs(a[k*n+k])
-		for i := k + 1; i < n; i++ {
-			if v := cmplx.Abs(a[i*n+k]); v > best {
-				piv, best = i, v
-			}
-		}
-		if !(best > 1e-300) {
-			return 0, false
-		}
-		if piv != k {
-			for j := k; j < n; j++ {
-				a[k*n+j], a[piv*n+j] = a[piv*n+j], a[k*n+j]
-			}
-			x[k], x[piv] = x[piv], x[k]
-		}
-		inv := 1 / a[k*n+k]
-		for i := k + 1; i < n; i++ {
-			m := a[i*n+k] * inv
-			if m == 0 {
-				continue
-			}
-			for j := k + 1; j < n; j++ {
-				a[i*n+j] -= m * a[k*n+j]
-			}
-			x[i] -= m * x[k]
-		}
-	}
-	for i := n - 1; i >= 0; i-- {
-		v := x[i]
-		for j := i + 1; j < n; j++ {
-			v -= a[i*n+j] * x[j]
-		}
-		x[i] = v / a[i*n+i]
+	if !gaussSolve(a, x, n, cmplx.Abs) {
+		return 0, false
 	}
 	zi := x[fn.port]
 	if cmplx.IsNaN(zi) || cmplx.IsInf(zi) {

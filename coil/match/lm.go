@@ -111,38 +111,11 @@ func (e *engine) levenberg(u0 []float64) candidate {
 	return candidate{u: u, gamma: cmplx.Abs(g)}
 }
 
-// solveSmall solves the d×d system a·x = b (a overwritten) by Gaussian
-// elimination with partial pivoting.
+// solveSmall solves the d×d system a·x = b (a overwritten; b kept).
 func solveSmall(a, b []float64, d int) ([]float64, bool) {
 	x := append([]float64(nil), b...)
-	for k := range d {
-		piv := k
-		for i := k + 1; i < d; i++ {
-			if math.Abs(a[i*d+k]) > math.Abs(a[piv*d+k]) {
-				piv = i
-			}
-		}
-		if !(math.Abs(a[piv*d+k]) > 1e-300) {
-			return nil, false
-		}
-		for j := range d {
-			a[k*d+j], a[piv*d+j] = a[piv*d+j], a[k*d+j]
-		}
-		x[k], x[piv] = x[piv], x[k]
-		for i := k + 1; i < d; i++ {
-			m := a[i*d+k] / a[k*d+k]
-			for j := k; j < d; j++ {
-				a[i*d+j] -= m * a[k*d+j]
-			}
-			x[i] -= m * x[k]
-		}
-	}
-	for i := d - 1; i >= 0; i-- {
-		v := x[i]
-		for j := i + 1; j < d; j++ {
-			v -= a[i*d+j] * x[j]
-		}
-		x[i] = v / a[i*d+i]
+	if !gaussSolve(a, x, d, math.Abs) {
+		return nil, false
 	}
 	for _, v := range x {
 		if math.IsNaN(v) || math.IsInf(v, 0) {

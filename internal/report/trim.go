@@ -16,16 +16,9 @@ import (
 	"gonum.org/v1/gonum/unit"
 )
 
-// SavedCalibration is what `trim --save` wrote.
-type SavedCalibration struct {
-	Path, Backup string // the stock file; its previous version ("" when it is new)
-	Mandrel      string // the mandrel or former, as named in the file
-	Wire         string
-	Springback   float64
-	Note         string
-	Added        []string           // rows added so that the calibration's names resolve
-	Superseded   *forms.Calibration // the calibration in effect before, if any
-}
+// SavedCalibration is what `trim --save` wrote (built by
+// spec.AppendCalibration).
+type SavedCalibration = spec.SavedCalibration
 
 // fmtLenStep prints a length to the resolution it was rounded to (0.1 mm
 // as "9.1 mm"), or to lf's usual precision when exact.
