@@ -319,6 +319,11 @@ func robustCorpus() []robustCase {
 		{"fit plot onto sweep", []string{"fit", "$R/sweep-good.s1p", "--plot", "$R/sweep-good.s1p"}, 2, "--plot", ""},
 		{"fit plot onto stock", []string{"fit", "$R/sweep-good.s1p", "--stock", "$R/stock.svg", "--compare", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "10mm", "--leads", "4mm", "--plot", "$R/stock.svg"}, 2, "--plot", ""},
 		{"trim sweep missing", []string{"trim", "--sweep", "$R/missing.s1p", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "10mm", "--leads", "4mm"}, 2, "missing.s1p", ""},
+		{"fit missing open names --open", []string{"fit", "$R/sweep-good.s1p", "--open", "$R/missing.s1p", "--short", "$R/jig-short.s1p"}, 2, `--open: the jig's open sweep`, ""},
+		{"fit missing short names --short", []string{"fit", "$R/sweep-good.s1p", "--open", "$R/jig-open.s1p", "--short", "$R/missing.s1p"}, 2, `--short: the jig's short sweep`, ""},
+		{"trim sweep missing open names --open", []string{"trim", "--sweep", "$R/sweep-good.s1p", "--open", "$R/missing.s1p", "--short", "$R/jig-short.s1p", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "10mm", "--leads", "4mm"}, 2, `--open: the jig's open sweep`, ""},
+		{"trim sweep missing short names --short", []string{"trim", "--sweep", "$R/sweep-good.s1p", "--open", "$R/jig-open.s1p", "--short", "$R/missing.s1p", "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "10mm", "--leads", "4mm"}, 2, `--short: the jig's short sweep`, ""},
+		{"trim two-capacitor 5% parts json", []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF", "--json"}, 0, "", ""},
 
 		// version, completion, root
 		{"version positional", []string{"version", "now"}, 2, "now", ""},

@@ -412,6 +412,14 @@ type sectionJSON struct {
 	EffectiveDiameter  float64 `json:"effective_diameter"`
 }
 
+// onePercentJSON is the two-capacitor method's uncertainty with 1 %
+// capacitors (coil/trim.OnePercent): the capacitance across the coil (F)
+// and L as a fraction, as the table's advice line prints them.
+type onePercentJSON struct {
+	Capacitance        float64 `json:"capacitance"`
+	InductanceFraction float64 `json:"inductance_fraction"`
+}
+
 type savedJSON struct {
 	StockFile  string   `json:"stock_file"`
 	Backup     string   `json:"backup,omitempty"`
@@ -433,12 +441,15 @@ type TrimRecord struct {
 	MeasurementFrequency          float64  `json:"measurement_frequency"`
 	StrayCapacitance              *float64 `json:"stray_capacitance,omitempty"`
 	StrayCapacitanceUncertainty   *float64 `json:"stray_capacitance_uncertainty,omitempty"`
-	SelfCapacitanceMeasured       *float64 `json:"self_capacitance_measured,omitempty"`
-	SelfCapacitanceModel          float64  `json:"self_capacitance_model"`
-	SelfCapacitanceModelTerminal  *float64 `json:"self_capacitance_model_terminal,omitempty"`
-	FitResidual                   *float64 `json:"fit_residual,omitempty"`
-	ModelInductance               float64  `json:"model_inductance"`
-	InductanceTerminal            float64  `json:"inductance_terminal"`
+	// OnePercentUncertainty is what 1 % capacitors would give from the same
+	// readings, present when the given tolerance swamps the stray.
+	OnePercentUncertainty        *onePercentJSON `json:"one_percent_uncertainty,omitempty"`
+	SelfCapacitanceMeasured      *float64        `json:"self_capacitance_measured,omitempty"`
+	SelfCapacitanceModel         float64         `json:"self_capacitance_model"`
+	SelfCapacitanceModelTerminal *float64        `json:"self_capacitance_model_terminal,omitempty"`
+	FitResidual                  *float64        `json:"fit_residual,omitempty"`
+	ModelInductance              float64         `json:"model_inductance"`
+	InductanceTerminal           float64         `json:"inductance_terminal"`
 
 	SpringbackBefore        float64 `json:"springback_before"`
 	SpringbackSource        string  `json:"springback_source"`
@@ -508,6 +519,9 @@ func WriteTrimJSON(w io.Writer, res *Trim) error {
 	if r.Kind == trim.MeasureTwoCapacitor {
 		d.StrayCapacitance = ptr(float64(r.TotalStray))
 		d.StrayCapacitanceUncertainty = ptr(float64(r.TotalStrayUncertainty))
+		if u1 := r.StrayUncertaintyOnePercent; u1 > 0 {
+			d.OnePercentUncertainty = &onePercentJSON{Capacitance: float64(u1), InductanceFraction: r.UncertaintyOnePercent}
+		}
 		if m.Stray > 0 {
 			d.SelfCapacitanceMeasured = ptr(float64(cal.MeasuredSelfCapacitance))
 		}

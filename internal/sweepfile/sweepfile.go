@@ -43,11 +43,11 @@ func Load(f Files) (Loaded, error) {
 	if f.Open == "" {
 		return out, nil
 	}
-	open, _, err := ReadImpedance(f.Open, f.Fixture)
+	open, _, err := readImpedance(f.Open, "open", f.Fixture)
 	if err != nil {
 		return Loaded{}, err
 	}
-	short, _, err := ReadImpedance(f.Short, f.Fixture)
+	short, _, err := readImpedance(f.Short, "short", f.Fixture)
 	if err != nil {
 		return Loaded{}, err
 	}
@@ -62,11 +62,18 @@ func Load(f Files) (Loaded, error) {
 // sweep of touchstone.MaxLines points, checked before reading it whole.
 const MaxSweepBytes = 64 << 20
 
-// readLimited reads name, refusing a file above MaxSweepBytes.
-func readLimited(name string) ([]byte, error) {
+// readLimited reads name, refusing a file above MaxSweepBytes. role is
+// the file's part in the request: "sweep" (the coil), "open" or "short"
+// (the jig alone); a missing file is a *coil.InputError with that Param,
+// so the message names the flag that gave the path.
+func readLimited(name, role string) ([]byte, error) {
 	f, err := os.Open(name)
 	if errors.Is(err, fs.ErrNotExist) {
-		return nil, &coil.InputError{Param: "sweep", Reason: fmt.Sprintf("sweep file %q does not exist; check the path (demos are in testdata/sweep/)", name)}
+		reason := fmt.Sprintf("sweep file %q does not exist; check the path (demos are in testdata/sweep/)", name)
+		if role != "sweep" {
+			reason = fmt.Sprintf("the jig's %s sweep %q does not exist; check the path (demos are in testdata/sweep/)", role, name)
+		}
+		return nil, &coil.InputError{Param: role, Reason: reason}
 	}
 	if err != nil {
 		return nil, err
@@ -85,7 +92,12 @@ func readLimited(name string) ([]byte, error) {
 // ReadImpedance reads one Touchstone file (the port count from its
 // extension) and converts it with the fixture.
 func ReadImpedance(name string, fx sweep.Fixture) ([]sweep.Point, touchstone.Data, error) {
-	b, err := readLimited(name)
+	return readImpedance(name, "sweep", fx)
+}
+
+// readImpedance is ReadImpedance for the file in role (see readLimited).
+func readImpedance(name, role string, fx sweep.Fixture) ([]sweep.Point, touchstone.Data, error) {
+	b, err := readLimited(name, role)
 	if err != nil {
 		return nil, touchstone.Data{}, err
 	}

@@ -87,6 +87,23 @@ func TestLoad(t *testing.T) {
 			t.Errorf("got %v", err)
 		}
 	})
+	t.Run("a missing file carries its role", func(t *testing.T) {
+		gone := filepath.Join(dir, "gone.s1p")
+		for _, tc := range []struct {
+			role string
+			f    Files
+		}{
+			{"sweep", Files{Sweep: gone, Fixture: sweep.Reflection}},
+			{"open", Files{Sweep: sw, Open: gone, Short: short, Fixture: sweep.Reflection}},
+			{"short", Files{Sweep: sw, Open: open, Short: gone, Fixture: sweep.Reflection}},
+		} {
+			_, err := Load(tc.f)
+			ie, ok := errors.AsType[*coil.InputError](err)
+			if !ok || ie.Param != tc.role || !strings.Contains(ie.Reason, "gone.s1p") || !strings.Contains(ie.Reason, "does not exist") {
+				t.Errorf("%s: got %v", tc.role, err)
+			}
+		}
+	})
 	t.Run("series fixture on a one-port file", func(t *testing.T) {
 		_, err := Load(Files{Sweep: sw, Fixture: sweep.Series})
 		var ie *coil.InputError
