@@ -32,7 +32,9 @@ import (
 // searches. It does not prove that no setting exists when it reports none:
 // a match region that lies between grid nodes and outside the basin of
 // every started minimum can be missed. TestCoverageAtLeastBruteForce
-// compares the coverage with a 201×201 dial grid.
+// compares the coverage with a 201×201 dial grid;
+// TestDemo2kOhmUnmatchedAt10MHz pins a row the demo cannot match (C1's
+// 250 pF stop), where the reported best SWR is a 401×401 grid's minimum.
 const (
 	maxStarts  = 4
 	gammaStop  = 1e-5 // SWR 1.00002: the search stops here
