@@ -221,22 +221,7 @@ func (o *trimOptions) values() spec.TrimFlags {
 }
 
 // firstSet names the first coil flag given, or "".
-func (o *coilOptions) firstSet() string {
-	for _, f := range []struct {
-		name string
-		set  bool
-	}{
-		{"mandrel", o.mandrel != ""}, {"former", o.former != ""}, {"wire", o.wire != ""},
-		{"insulation", o.insulation != ""}, {"conductor", o.conductor != ""}, {"plating", o.plating.set},
-		{"springback", o.springback.set}, {"turns", o.turns.set}, {"pitch", o.pitch.set},
-		{"length", o.length.set}, {"leads", o.leads.set}, {"temp", o.temp.set},
-	} {
-		if f.set {
-			return f.name
-		}
-	}
-	return ""
-}
+func (o *coilOptions) firstSet() string { return spec.FirstWindingKey(o.winding()) }
 
 // resonanceListFlag collects --resonance F@C readings.
 type resonanceListFlag struct {
