@@ -109,7 +109,7 @@ func (o *circuitOptions) settings() (spec.CircuitSettings, error) {
 		LO: float64(o.lo.v), IF: float64(o.ifreq.v), Signal: float64(o.signal.v)}
 	err := set.ApplyFlags(spec.CircuitFlags{
 		From: o.from.given(), To: o.to.given(), Log: o.log, LogSet: o.logSet,
-		Bands: o.bands, BandsFile: o.bandsFile, At: o.at, ParseAt: frequencyKind{}.parse,
+		Bands: o.bands, BandsFile: o.bandsFile, At: o.at, ParseAt: spec.FrequencyKind{}.Parse,
 		LOSet: o.lo.set, IFSet: o.ifreq.set, SignalSet: o.signal.set,
 		Plot: o.plot, Touchstone: o.touchstone, Spice: o.spice,
 	})

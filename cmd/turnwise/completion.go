@@ -97,21 +97,6 @@ func stockNameCompletion(kind string) cobra.CompletionFunc {
 		if err != nil {
 			return nil, cobra.ShellCompDirectiveNoFileComp
 		}
-		var names []string
-		switch kind {
-		case "wire":
-			for _, w := range cat.Wires {
-				names = append(names, w.Name)
-			}
-		case "mandrel":
-			for _, m := range cat.Mandrels {
-				names = append(names, m.Name)
-			}
-		case "former":
-			for _, f := range cat.Formers {
-				names = append(names, f.Name)
-			}
-		}
-		return fixedCompletion(names, cobra.ShellCompDirectiveNoFileComp)(cmd, nil, prefix)
+		return fixedCompletion(spec.CatalogNames(cat, kind), cobra.ShellCompDirectiveNoFileComp)(cmd, nil, prefix)
 	}
 }

@@ -4,10 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"strconv"
-	"strings"
 	"turnwise/internal/quantity"
-	"unicode"
 
 	"turnwise/coil"
 	"turnwise/forms"
@@ -60,46 +57,5 @@ func exitCode(err error) int {
 
 // printError writes err once, on one line per wrapped layer the user needs.
 func printError(w io.Writer, err error) {
-	fmt.Fprintf(w, "turnwise: %s\n", clipMessage(err.Error()))
-}
-
-// maxEcho is how much of one word of the user's input an error repeats.
-const maxEcho = 80
-
-// clip shortens an echoed input longer than maxEcho characters to its
-// first 50 and last 29 around "…": a long path keeps its file name.
-func clip(s string) string {
-	r := []rune(s)
-	if len(r) <= maxEcho {
-		return s
-	}
-	return string(r[:50]) + "…" + string(r[len(r)-29:])
-}
-
-// clipMessage keeps an error to one readable line: every run of more than
-// maxEcho characters without a space (a pasted name, a whole file) is
-// clipped, control characters are escaped and line breaks become "; ".
-func clipMessage(msg string) string {
-	var b strings.Builder
-	var word []rune
-	flush := func() {
-		b.WriteString(clip(string(word)))
-		word = word[:0]
-	}
-	for _, r := range strings.TrimRight(msg, "\n") {
-		switch {
-		case r == '\n':
-			flush()
-			b.WriteString("; ")
-		case r == ' ' || r == '\t':
-			flush()
-			b.WriteRune(' ')
-		case unicode.IsControl(r):
-			word = append(word, []rune(strings.Trim(strconv.QuoteRune(r), "'"))...)
-		default:
-			word = append(word, r)
-		}
-	}
-	flush()
-	return b.String()
+	fmt.Fprintf(w, "turnwise: %s\n", quantity.ClipMessage(err.Error()))
 }

@@ -2,9 +2,7 @@ package main
 
 import (
 	"fmt"
-	"strconv"
 	"strings"
-	"turnwise/internal/quantity"
 	"turnwise/internal/spec"
 
 	"github.com/spf13/cobra"
@@ -13,7 +11,7 @@ import (
 
 // Quantity flags: each keeps what the user typed (for messages) and the
 // parsed value; set reports whether the flag was given. K names the kind
-// of value and parses it.
+// of value and parses it (the kinds are in internal/spec).
 type valueFlag[T any, K valueKind[T]] struct {
 	raw string
 	v   T
@@ -22,15 +20,15 @@ type valueFlag[T any, K valueKind[T]] struct {
 
 // valueKind is one kind of flag value: its name in the help and its parser.
 type valueKind[T any] interface {
-	name() string
-	parse(s string) (T, error)
+	Name() string
+	Parse(s string) (T, error)
 }
 
 func (f *valueFlag[T, K]) String() string { return f.raw }
-func (f *valueFlag[T, K]) Type() string   { var k K; return k.name() }
+func (f *valueFlag[T, K]) Type() string   { var k K; return k.Name() }
 func (f *valueFlag[T, K]) Set(s string) error {
 	var k K
-	v, err := k.parse(s)
+	v, err := k.Parse(s)
 	if err != nil {
 		return err
 	}
@@ -55,97 +53,28 @@ func opt[T any, K valueKind[T]](f *valueFlag[T, K]) spec.Opt[T] {
 }
 
 type (
-	lengthFlag      = valueFlag[unit.Length, lengthKind]
-	frequencyFlag   = valueFlag[unit.Frequency, frequencyKind]
-	inductanceFlag  = valueFlag[unit.Inductance, inductanceKind]
-	capacitanceFlag = valueFlag[unit.Capacitance, capacitanceKind]
-	percentFlag     = valueFlag[float64, percentKind] // a fraction
-	temperatureFlag = valueFlag[unit.Temperature, temperatureKind]
-	resistanceFlag  = valueFlag[unit.Resistance, resistanceKind]
-	powerFlag       = valueFlag[float64, powerKind] // W
-	ratioFlag       = valueFlag[float64, ratioKind]
-	turnsFlag       = valueFlag[float64, turnsKind]
-	wireSizeFlag    = valueFlag[unit.Length, wireSizeKind]
+	lengthFlag      = valueFlag[unit.Length, spec.LengthKind]
+	frequencyFlag   = valueFlag[unit.Frequency, spec.FrequencyKind]
+	inductanceFlag  = valueFlag[unit.Inductance, spec.InductanceKind]
+	capacitanceFlag = valueFlag[unit.Capacitance, spec.CapacitanceKind]
+	percentFlag     = valueFlag[float64, spec.PercentKind] // a fraction
+	temperatureFlag = valueFlag[unit.Temperature, spec.TemperatureKind]
+	resistanceFlag  = valueFlag[unit.Resistance, spec.ResistanceKind]
+	powerFlag       = valueFlag[float64, spec.PowerKind] // W
+	ratioFlag       = valueFlag[float64, spec.RatioKind]
+	turnsFlag       = valueFlag[float64, spec.TurnsKind]
+	wireSizeFlag    = valueFlag[unit.Length, spec.WireSizeKind]
 	// designFreqFlag takes one frequency, or a band LOW-HIGH.
-	designFreqFlag = valueFlag[spec.FreqOrBand, freqOrBandKind]
+	designFreqFlag = valueFlag[spec.FreqOrBand, spec.FreqOrBandKind]
 	// designInductanceFlag takes one inductance, or a window MIN-MAX.
-	designInductanceFlag = valueFlag[spec.InductanceWindow, inductanceWindowKind]
+	designInductanceFlag = valueFlag[spec.InductanceWindow, spec.InductanceWindowKind]
 	// tempRangeFlag is --temp-range, e.g. 10C-40C; low and high in kelvin.
-	tempRangeFlag = valueFlag[spec.TempRange, tempRangeKind]
+	tempRangeFlag = valueFlag[spec.TempRange, spec.TempRangeKind]
+	// targetFlag is trim's --target: an inductance or a resonance frequency.
+	targetFlag = valueFlag[spec.TrimTarget, spec.TrimTargetKind]
+	// capTolFlag is a capacitor tolerance: relative (5%) or absolute (0.25pF).
+	capTolFlag = valueFlag[spec.CapTol, spec.CapTolKind]
 )
-
-type (
-	lengthKind           struct{}
-	frequencyKind        struct{}
-	inductanceKind       struct{}
-	capacitanceKind      struct{}
-	percentKind          struct{}
-	temperatureKind      struct{}
-	resistanceKind       struct{}
-	powerKind            struct{}
-	ratioKind            struct{}
-	turnsKind            struct{}
-	wireSizeKind         struct{}
-	freqOrBandKind       struct{}
-	inductanceWindowKind struct{}
-	tempRangeKind        struct{}
-)
-
-func (freqOrBandKind) name() string                            { return "frequency|band" }
-func (freqOrBandKind) parse(s string) (spec.FreqOrBand, error) { return spec.ParseFreqOrBand(s) }
-func (inductanceWindowKind) name() string                      { return "inductance|window" }
-func (inductanceWindowKind) parse(s string) (spec.InductanceWindow, error) {
-	return spec.ParseInductanceWindow(s)
-}
-func (tempRangeKind) name() string                           { return "range" }
-func (tempRangeKind) parse(s string) (spec.TempRange, error) { return spec.ParseTempRange(s) }
-
-func (lengthKind) name() string                                { return "length" }
-func (lengthKind) parse(s string) (unit.Length, error)         { return quantity.ParseLength(s) }
-func (inductanceKind) name() string                            { return "inductance" }
-func (inductanceKind) parse(s string) (unit.Inductance, error) { return quantity.ParseInductance(s) }
-func (capacitanceKind) name() string                           { return "capacitance" }
-func (capacitanceKind) parse(s string) (unit.Capacitance, error) {
-	return quantity.ParseCapacitance(s)
-}
-func (percentKind) name() string                                 { return "percent" }
-func (percentKind) parse(s string) (float64, error)              { return quantity.ParsePercent(s) }
-func (temperatureKind) name() string                             { return "temperature" }
-func (temperatureKind) parse(s string) (unit.Temperature, error) { return quantity.ParseTemperature(s) }
-func (resistanceKind) name() string                              { return "resistance" }
-func (resistanceKind) parse(s string) (unit.Resistance, error)   { return spec.ParseResistance(s) }
-func (powerKind) name() string                                   { return "power" }
-func (powerKind) parse(s string) (float64, error)                { return quantity.ParsePower(s) }
-func (ratioKind) name() string                                   { return "ratio" }
-func (ratioKind) parse(s string) (float64, error)                { return spec.ParseRatio(s) }
-func (wireSizeKind) name() string                                { return "diameter|gauge" }
-func (wireSizeKind) parse(s string) (unit.Length, error)         { return spec.ParseWireSize(s) }
-func (turnsKind) name() string                                   { return "turns" }
-
-// parse takes a number of turns in quarter steps ("5", "5.25").
-func (turnsKind) parse(s string) (float64, error) {
-	v, err := strconv.ParseFloat(strings.TrimSpace(s), 64)
-	if err != nil || !(v == v) || v > 1e9 || v < -1e9 {
-		return 0, fmt.Errorf("%q is not a number of turns; use e.g. 5 or 5.25 (quarter turns)", s)
-	}
-	return v, nil
-}
-
-// MinFrequency is the lowest frequency a flag accepts, Hz: below it a coil
-// is a resistor and the printed numbers lose their meaning.
-const MinFrequency = 1.0
-
-func (frequencyKind) name() string { return "frequency" }
-func (frequencyKind) parse(s string) (unit.Frequency, error) {
-	v, err := quantity.ParseFrequency(s)
-	if err != nil {
-		return 0, err
-	}
-	if v < 0 || (v > 0 && v < MinFrequency) {
-		return 0, fmt.Errorf("%q is below %g Hz, the lowest frequency turnwise works at; give e.g. 7.1MHz", clip(s), MinFrequency)
-	}
-	return v, nil
-}
 
 // choiceFlag accepts one of a fixed set of words.
 type choiceFlag struct {

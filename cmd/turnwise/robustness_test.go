@@ -9,6 +9,7 @@ import (
 	"strings"
 	"testing"
 	"time"
+	"turnwise/internal/quantity"
 )
 
 // The robustness corpus: bad and extreme invocations across every command,
@@ -403,13 +404,13 @@ func TestRobustnessCorpus(t *testing.T) {
 			var stdout, stderr bytes.Buffer
 			code := run(args, &stdout, &stderr)
 			if code != c.code {
-				t.Errorf("exit %d, want %d; stderr %q", code, c.code, clip(stderr.String()))
+				t.Errorf("exit %d, want %d; stderr %q", code, c.code, quantity.Clip(stderr.String()))
 			}
 			for name, s := range map[string]string{"stdout": stdout.String(), "stderr": stderr.String()} {
 				for _, bad := range []string{"NaN", "+Inf", "-Inf", "Inf H", "Inf Hz"} {
 					echoed := strings.Contains(strings.Join(c.args, " "), bad) && name == "stderr"
 					if strings.Contains(s, bad) && !echoed {
-						t.Errorf("%s contains %q: %q", name, bad, clip(s))
+						t.Errorf("%s contains %q: %q", name, bad, quantity.Clip(s))
 					}
 				}
 			}
@@ -426,7 +427,7 @@ func TestRobustnessCorpus(t *testing.T) {
 				}
 			}
 			if len(lines) != 1 || !strings.HasPrefix(lines[0], "turnwise: ") {
-				t.Fatalf("stderr is not one error line: %q", clip(stderr.String()))
+				t.Fatalf("stderr is not one error line: %q", quantity.Clip(stderr.String()))
 			}
 			if len(lines[0]) > 600 {
 				t.Errorf("error line is %d bytes long; echoes must be clipped", len(lines[0]))

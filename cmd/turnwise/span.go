@@ -189,17 +189,8 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 	if out.Plan == nil && spanErr != nil {
 		return spanErr
 	}
-	if ds, use, err := opts.driftSettings(); err != nil {
+	if err := spec.AddSpanDrift(cat, cs, set, &out, opts.driftAt, opts.gangTC, opts.pitch.v, opts.tempRange.ptr()); err != nil {
 		return err
-	} else if use {
-		d, warn, err := spec.BuildSpanDrift(cat, cs, set, out, ds)
-		if err != nil {
-			return err
-		}
-		out.Drift = d
-		if warn != "" {
-			out.Span.Warnings = append(out.Span.Warnings, warn)
-		}
 	}
 	if opts.json {
 		if err := report.WriteSpanJSON(stdout, cs, set, out); err != nil {
@@ -212,14 +203,4 @@ func runSpan(_ context.Context, opts *spanOptions, stdout, stderr io.Writer) err
 	}
 	printWarnings(stderr, out.Span.Warnings)
 	return spanErr
-}
-
-// driftSettings parses --drift-at, --gang-tempco, --pitch-follows and
-// --temp-range; use is false for --drift-at none.
-func (o *spanOptions) driftSettings() (spec.SpanDriftSettings, bool, error) {
-	ds, use, err := spec.ParseSpanDrift(o.driftAt, o.gangTC, o.pitch.v)
-	if use && o.tempRange.set {
-		ds.Low, ds.High = o.tempRange.v.Low, o.tempRange.v.High
-	}
-	return ds, use, err
 }

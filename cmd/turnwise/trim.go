@@ -2,16 +2,13 @@ package main
 
 import (
 	"context"
-	"fmt"
 	"io"
 	"os"
 	"strings"
-	"turnwise/internal/quantity"
 	"turnwise/internal/report"
 	"turnwise/internal/spec"
 
 	"github.com/spf13/cobra"
-	"gonum.org/v1/gonum/unit"
 
 	"turnwise/coil/trim"
 )
@@ -60,7 +57,7 @@ func newTrimOptions() *trimOptions {
 		stock:     newStockOptions(),
 		units:     newChoice("mm", "mm", "in"),
 		meterTol:  percentFlag{raw: "2%", v: 0.02},
-		capTol:    capTolFlag{raw: "5%", rel: 0.05},
+		capTol:    capTolFlag{raw: "5%", v: spec.CapTol{Rel: 0.05}},
 		freqTol:   percentFlag{raw: "0.1%", v: 0.001},
 		tolerance: percentFlag{raw: "0.5%", v: 0.005},
 	}
@@ -212,8 +209,8 @@ func (o *trimOptions) values() spec.TrimFlags {
 		MeterTol: opt(&o.meterTol), FreqTol: opt(&o.freqTol), Tolerance: opt(&o.tolerance),
 		WithCap: opt(&o.withCap), CircuitCap: opt(&o.circuitCap), Stray: opt(&o.stray),
 		Resonances: o.resonances.v,
-		CapTol:     spec.Given{Raw: o.capTol.raw, Set: o.capTol.raw != ""}, CapTolRel: o.capTol.rel, CapTolAbs: o.capTol.abs,
-		Target: spec.Given{Raw: o.target.raw, Set: o.target.set}, TargetL: o.target.l, TargetF: o.target.f, TargetIsFreq: o.target.isFreq,
+		CapTol:     spec.Given{Raw: o.capTol.raw, Set: o.capTol.raw != ""}, CapTolRel: o.capTol.v.Rel, CapTolAbs: o.capTol.v.Abs,
+		Target: spec.Given{Raw: o.target.raw, Set: o.target.set}, TargetL: o.target.v.L, TargetF: o.target.v.F, TargetIsFreq: o.target.v.IsFreq,
 		Tap: opt(&o.tap), TapRatio: opt(&o.tapRatio),
 		MeasuredBottom: opt(&o.measuredBottom), MeasuredTop: opt(&o.measuredTop),
 		Sweep: o.sweepFile != "", Job: o.job, CoilName: o.coilName, Save: o.save,
@@ -224,45 +221,7 @@ func (o *trimOptions) values() spec.TrimFlags {
 }
 
 // firstSet names the first coil flag given, or "".
-func (o *coilOptions) firstSet() string {
-	for _, f := range []struct {
-		name string
-		set  bool
-	}{
-		{"mandrel", o.mandrel != ""}, {"former", o.former != ""}, {"wire", o.wire != ""},
-		{"insulation", o.insulation != ""}, {"conductor", o.conductor != ""}, {"plating", o.plating.set},
-		{"springback", o.springback.set}, {"turns", o.turns.set}, {"pitch", o.pitch.set},
-		{"length", o.length.set}, {"leads", o.leads.set}, {"temp", o.temp.set},
-	} {
-		if f.set {
-			return f.name
-		}
-	}
-	return ""
-}
-
-// targetFlag takes an inductance (48nH) or a resonance frequency (145MHz).
-type targetFlag struct {
-	raw    string
-	l      unit.Inductance
-	f      unit.Frequency
-	isFreq bool
-	set    bool
-}
-
-func (f *targetFlag) String() string { return f.raw }
-func (f *targetFlag) Type() string   { return "L|F" }
-func (f *targetFlag) Set(s string) error {
-	if l, err := quantity.ParseInductance(s); err == nil {
-		*f = targetFlag{raw: s, l: l, set: true}
-		return nil
-	}
-	if fr, err := quantity.ParseFrequency(s); err == nil {
-		*f = targetFlag{raw: s, f: fr, isFreq: true, set: true}
-		return nil
-	}
-	return fmt.Errorf("%q is neither an inductance (48nH) nor a resonance frequency (145MHz, with --circuit-cap)", s)
-}
+func (o *coilOptions) firstSet() string { return spec.FirstWindingKey(o.winding()) }
 
 // resonanceListFlag collects --resonance F@C readings.
 type resonanceListFlag struct {
@@ -273,46 +232,10 @@ type resonanceListFlag struct {
 func (f *resonanceListFlag) String() string { return strings.Join(f.raw, ",") }
 func (f *resonanceListFlag) Type() string   { return "F@C" }
 func (f *resonanceListFlag) Set(s string) error {
-	fs, cs, ok := strings.Cut(s, "@")
-	if !ok {
-		return fmt.Errorf("%q: write a resonance and its capacitor as F@C, e.g. 9.81MHz@100pF", s)
-	}
-	fr, err := quantity.ParseFrequency(strings.TrimSpace(fs))
-	if err != nil {
-		return fmt.Errorf("%q: %w", s, err)
-	}
-	c, err := quantity.ParseCapacitance(strings.TrimSpace(cs))
-	if err != nil {
-		return fmt.Errorf("%q: %w", s, err)
-	}
-	f.raw = append(f.raw, s)
-	f.v = append(f.v, trim.Resonance{Frequency: fr, Capacitance: c})
-	return nil
-}
-
-// capTolFlag is a capacitor tolerance: relative (5%) or absolute (0.25pF).
-type capTolFlag struct {
-	raw string
-	rel float64
-	abs float64 // farads
-}
-
-func (f *capTolFlag) String() string { return f.raw }
-func (f *capTolFlag) Type() string   { return "percent|C" }
-func (f *capTolFlag) Set(s string) error {
-	t := strings.TrimSpace(s)
-	if strings.HasSuffix(strings.ToLower(t), "f") {
-		c, err := quantity.ParseCapacitance(t)
-		if err != nil {
-			return err
-		}
-		*f = capTolFlag{raw: s, abs: float64(c)}
-		return nil
-	}
-	v, err := quantity.ParsePercent(t)
+	r, err := spec.ParseResonance(s)
 	if err != nil {
 		return err
 	}
-	*f = capTolFlag{raw: s, rel: v}
+	f.raw, f.v = append(f.raw, s), append(f.v, r)
 	return nil
 }

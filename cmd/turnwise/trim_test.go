@@ -380,10 +380,10 @@ func TestNewCmdTrim(t *testing.T) {
 	if err := o.resonances.Set("9.81MHz@100pF"); err != nil || len(o.resonances.v) != 1 || o.resonances.v[0].Frequency != 9.81e6 || o.resonances.v[0].Capacitance != 100e-12 {
 		t.Errorf("resonance flag: %+v %v", o.resonances.v, err)
 	}
-	if err := o.capTol.Set("0.25pF"); err != nil || o.capTol.abs != 0.25e-12 || o.capTol.rel != 0 {
+	if err := o.capTol.Set("0.25pF"); err != nil || o.capTol.v.Abs != 0.25e-12 || o.capTol.v.Rel != 0 {
 		t.Errorf("cap-tol: %+v %v", o.capTol, err)
 	}
-	if err := o.target.Set("48nH"); err != nil || o.target.isFreq || math.Abs(float64(o.target.l)/48e-9-1) > 1e-12 {
+	if err := o.target.Set("48nH"); err != nil || o.target.v.IsFreq || math.Abs(float64(o.target.v.L)/48e-9-1) > 1e-12 {
 		t.Errorf("target: %+v %v", o.target, err)
 	}
 }

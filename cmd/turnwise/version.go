@@ -1,9 +1,7 @@
 package main
 
 import (
-	"encoding/json"
 	"fmt"
-	"runtime"
 	"runtime/debug"
 
 	"github.com/spf13/cobra"
@@ -34,15 +32,7 @@ func newVersionCmd(g *globalOptions) *cobra.Command {
 		RunE: func(cmd *cobra.Command, _ []string) error {
 			out := cmd.OutOrStdout()
 			if asJSON {
-				enc := json.NewEncoder(out)
-				enc.SetIndent("", "  ")
-				return enc.Encode(struct {
-					Schema   int      `json:"schema"`
-					Version  string   `json:"version"`
-					Go       string   `json:"go"`
-					Platform string   `json:"platform"`
-					Warnings []string `json:"warnings"`
-				}{report.SchemaVersion, versionString(), runtime.Version(), runtime.GOOS + "/" + runtime.GOARCH, []string{}})
+				return report.WriteVersionJSON(out, versionString())
 			}
 			_, err := fmt.Fprintf(out, "turnwise %s\n", versionString())
 			return err

@@ -3,7 +3,9 @@ package quantity
 import (
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
+	"unicode"
 )
 
 // Messages (errors, warnings, advice) print numbers a little more loosely
@@ -50,4 +52,45 @@ func roundSig(x float64, sig int) float64 {
 	}
 	p := math.Pow(10, float64(sig-1-int(math.Floor(math.Log10(math.Abs(x))))))
 	return math.Round(x*p) / p
+}
+
+// maxEcho is how much of one word of the user's input an error repeats.
+const maxEcho = 80
+
+// Clip shortens an echoed input longer than maxEcho characters to its
+// first 50 and last 29 around "…": a long path keeps its file name.
+func Clip(s string) string {
+	r := []rune(s)
+	if len(r) <= maxEcho {
+		return s
+	}
+	return string(r[:50]) + "…" + string(r[len(r)-29:])
+}
+
+// ClipMessage keeps an error to one readable line: every run of more than
+// maxEcho characters without a space (a pasted name, a whole file) is
+// clipped, control characters are escaped and line breaks become "; ".
+func ClipMessage(msg string) string {
+	var b strings.Builder
+	var word []rune
+	flush := func() {
+		b.WriteString(Clip(string(word)))
+		word = word[:0]
+	}
+	for _, r := range strings.TrimRight(msg, "\n") {
+		switch {
+		case r == '\n':
+			flush()
+			b.WriteString("; ")
+		case r == ' ' || r == '\t':
+			flush()
+			b.WriteRune(' ')
+		case unicode.IsControl(r):
+			word = append(word, []rune(strings.Trim(strconv.QuoteRune(r), "'"))...)
+		default:
+			word = append(word, r)
+		}
+	}
+	flush()
+	return b.String()
 }

@@ -312,3 +312,22 @@ func ResolveFormer(cat *forms.Catalog, s string) (unit.Length, string, error) {
 	}
 	return d, fmt.Sprintf("%s former", s), nil
 }
+
+// FirstWindingKey names the first key (or coil flag: they have the same
+// names) a winding gives, or "" for none.
+func FirstWindingKey(w forms.JobWinding) string {
+	for _, f := range []struct {
+		name string
+		set  bool
+	}{
+		{"mandrel", w.Mandrel != ""}, {"former", w.Former != ""}, {"wire", w.Wire != ""},
+		{"insulation", w.Insulation != ""}, {"conductor", w.Conductor != ""}, {"plating", w.Plating != nil},
+		{"springback", w.Springback != nil}, {"turns", w.Turns != nil}, {"pitch", w.Pitch != nil},
+		{"length", w.Length != nil}, {"leads", w.Leads != nil}, {"temp", w.Temp != nil},
+	} {
+		if f.set {
+			return f.name
+		}
+	}
+	return ""
+}

@@ -180,3 +180,24 @@ type reasonError struct {
 
 func (e *reasonError) Error() string { return e.reason }
 func (e *reasonError) Unwrap() error { return e.err }
+
+// CatalogNames lists the names of the catalog's wires, mandrels or formers
+// (kind "wire", "mandrel" or "former"), for flag completion.
+func CatalogNames(cat *forms.Catalog, kind string) []string {
+	var names []string
+	switch kind {
+	case "wire":
+		for _, w := range cat.Wires {
+			names = append(names, w.Name)
+		}
+	case "mandrel":
+		for _, m := range cat.Mandrels {
+			names = append(names, m.Name)
+		}
+	case "former":
+		for _, f := range cat.Formers {
+			names = append(names, f.Name)
+		}
+	}
+	return names
+}

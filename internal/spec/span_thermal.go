@@ -69,3 +69,26 @@ func BuildSpanDrift(cat *forms.Catalog, s Spec, set SpanSettings, out SpanOutcom
 	}
 	return d, "", nil
 }
+
+// AddSpanDrift reads span's temperature flags (--drift-at, --gang-tempco,
+// --pitch-follows; tempRange is --temp-range when given) and, unless
+// --drift-at is none, adds the drift of both ranges to out, or the reason
+// it cannot as a warning.
+func AddSpanDrift(cat *forms.Catalog, s Spec, set SpanSettings, out *SpanOutcome, driftAt, gangTC, pitch string, tempRange *TempRange) error {
+	ds, use, err := ParseSpanDrift(driftAt, gangTC, pitch)
+	if err != nil || !use {
+		return err
+	}
+	if tempRange != nil {
+		ds.Low, ds.High = tempRange.Low, tempRange.High
+	}
+	d, warn, err := BuildSpanDrift(cat, s, set, *out, ds)
+	if err != nil {
+		return err
+	}
+	out.Drift = d
+	if warn != "" {
+		out.Span.Warnings = append(out.Span.Warnings, warn)
+	}
+	return nil
+}

@@ -1,0 +1,21 @@
+package report
+
+import (
+	"encoding/json"
+	"io"
+	"runtime"
+)
+
+// WriteVersionJSON prints `turnwise version --json`: the version, the Go
+// version it was built with and the platform.
+func WriteVersionJSON(w io.Writer, version string) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	return enc.Encode(struct {
+		Schema   int      `json:"schema"`
+		Version  string   `json:"version"`
+		Go       string   `json:"go"`
+		Platform string   `json:"platform"`
+		Warnings []string `json:"warnings"`
+	}{SchemaVersion, version, runtime.Version(), runtime.GOOS + "/" + runtime.GOARCH, []string{}})
+}
