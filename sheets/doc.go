@@ -38,8 +38,10 @@
 // The PDF core font Helvetica in the Windows-1252 encoding: it needs no
 // embedded font file, every PDF reader has it, and the output is byte-for-byte
 // reproducible. That encoding has µ, ×, ±, °, ¼, ½ and ¾ but not Ω, so
-// resistance is written "ohm". Black on white, no colour, no fills lighter
-// than mid grey: the sheets survive a black-and-white photocopier.
+// resistance is written "ohm". Black on white, no fills lighter than mid
+// grey: the sheets survive a black-and-white photocopier. The only colour
+// is in the plots (the match map's matched loads are dark green dots, the
+// others grey crosses), where shape alone also tells them apart.
 //
 // # Numbers
 //
