@@ -75,7 +75,11 @@ type JobCoil struct {
 	// class (C0G, N750, air …) or coefficient, for its drift on the
 	// sheet; "" means C0G.
 	CapTempco string
-	Span      *JobSpan // nil unless a two-gang capacitor tunes it
+	// TankCap is the tank-cap key of a fixed winding: the capacitor it
+	// resonates with, for its tank's drift on the sheet; nil when absent.
+	// (A design target's capacitor is its cap key, Target.Cap.)
+	TankCap *unit.Capacitance
+	Span    *JobSpan // nil unless a two-gang capacitor tunes it
 
 	keys map[string]jobKey
 }
@@ -173,7 +177,7 @@ var (
 		"turns", "pitch", "length", "leads", "temp", "freq",
 		"inductance", "cap", "stray", "tolerance", "support",
 		"max-length", "max-diameter", "max-wire-length", "min-srf-ratio", "prefer",
-		"tap", "tap-ratio", "transmit", "cap-tempco",
+		"tap", "tap-ratio", "transmit", "cap-tempco", "tank-cap",
 		"gang", "gang-b", "law", "trim-a", "trim-b", "stray-a", "stray-b", "bands", "steps",
 		"loaded-q", "margin", "choose-tap",
 	}
@@ -214,6 +218,8 @@ const (
 //	length = "8mm"                      # or pitch = "1.6mm"; neither: close-wound
 //	leads = "5mm"                       # required
 //	temp = "40C"   freq = "137.5MHz"
+//	tank-cap = "180pF"                  # the capacitor it resonates with: its tank's drift
+//	cap-tempco = "N750"                 # that capacitor's class or ppm/K; default C0G
 //
 //	[[coil]]                            # a target for the design search
 //	name = "L2"

@@ -164,6 +164,13 @@ func (l *jobLoader) target(e *jobEntry, c *JobCoil) {
 	case !hasTurns && !isTarget:
 		e.missing(errors.New(`say what to build: turns = 5 (a fixed winding), or inductance = "48nH" or cap = "22pF" (a design target)`))
 	}
+	if _, present := e.m["tank-cap"]; present {
+		if hasTurns {
+			c.TankCap, _ = quantityOf(e, "tank-cap", `"180pF"`, quantity.ParseCapacitance, false)
+		} else if isTarget {
+			e.fail("tank-cap", "tank-cap", errors.New("is for a fixed winding (turns); a design target's tank capacitor is its cap key: remove tank-cap"))
+		}
+	}
 	if isTarget && !hasTurns {
 		c.Target = t
 		for _, k := range []string{"pitch", "length"} {

@@ -140,6 +140,9 @@ func TestLoadJobErrors(t *testing.T) {
 		{"wrong dimension", head + coil + "freq = \"22pF\"\n", 8, "capacitance"},
 		{"bad date", head + "date = \"14/3/2026\"\n" + coil, 2, "2026-03-14"},
 		{"use mine without stock", head + "use = \"mine\"\n" + coil, 2, "needs a stock file"},
+		{"tank-cap not a capacitance", head + coil + "tank-cap = \"180nH\"\n", 8, "tank-cap"},
+		{"tank-cap zero", head + coil + "tank-cap = \"0pF\"\n", 8, "tank-cap: must be positive"},
+		{"tank-cap on a target", head + "[[coil]]\nname = \"L1\"\ncap = \"22pF\"\nfreq = \"7MHz\"\nleads = \"5mm\"\ntank-cap = \"22pF\"\n", 7, "is for a fixed winding"},
 		{"first error in file wins", head + coil + "tap = 9\n[[coil]]\nname = \"L2\"\nturns = 2\n", 8, "tap"},
 	}
 	for _, tc := range cases {
@@ -163,6 +166,24 @@ func TestLoadJobErrors(t *testing.T) {
 				t.Errorf("not one line: %q", err)
 			}
 		})
+	}
+}
+
+// A fixed winding's tank-cap is read in farads, with its cap-tempco kept
+// as written.
+func TestLoadJobTankCap(t *testing.T) {
+	t.Parallel()
+	in := "title = \"t\"\n[[coil]]\nname = \"V1\"\nmandrel = \"6mm\"\nwire = \"1mm\"\nturns = 5\nleads = \"5mm\"\ntank-cap = \"180pF\"\ncap-tempco = \"N750\"\n"
+	job, err := LoadJob(strings.NewReader(in), "job.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := job.Coils[0]
+	if c.TankCap == nil || math.Abs(float64(*c.TankCap)-180e-12) > 1e-24 || c.CapTempco != "N750" || c.Target != nil {
+		t.Errorf("tank-cap %v, cap-tempco %q, target %v: want 180 pF, N750, a fixed winding", c.TankCap, c.CapTempco, c.Target)
+	}
+	if c.KeyLine("tank-cap") != 8 {
+		t.Errorf("tank-cap on line %d, want 8", c.KeyLine("tank-cap"))
 	}
 }
 

@@ -477,3 +477,76 @@ func TestSheetTapRatio(t *testing.T) {
 		}
 	}
 }
+
+// A fixed winding's tank-cap puts its tank's drift on its page, the same
+// row a design target's cap gets: with the N750 class (−750 ppm/K,
+// EIA-198 class 1 from memory) over the job's temp-range, at the frequency
+// the winding resonates with that capacitor. A bad tank-cap is exit 2 at
+// its line, naming the key.
+func TestSheetTankCap(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	const job = "title = \"t\"\ntemp-range = \"10C-40C\"\n[[coil]]\nname = \"V1\"\nformer = \"pvc 20mm\"\nwire = \"0.5mm\"\nleads = \"10mm\"\nturns = 10\npitch = \"1mm\"\ntank-cap = %s\ncap-tempco = \"N750\"\n"
+	jobFile := filepath.Join(dir, "tank.toml")
+	if err := os.WriteFile(jobFile, []byte(fmt.Sprintf(job, `"100pF"`)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "tank.pdf")
+	if _, stderr, code := runCLI(t, "sheet", jobFile, "-o", out); code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	j, err := spec.LoadJob(jobFile)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cat, err := spec.JobCatalog(j, "", "", false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, _, err := spec.JobSheetCoil(j, &j.Coils[0], cat, quantity.LengthFormat{})
+	if err != nil || c.Thermal == nil || c.Thermal.Tank == nil {
+		t.Fatalf("%v, %+v: want a tank drift", err, c.Thermal)
+	}
+	k := c.Thermal.Tank
+	text := pageText(t, out, 2)
+	m := regexp.MustCompile(`tank drift with 100 pF N750 at ([\d.]+ ?[kMG]?Hz): ([+\-−]?[\d.]+) ppm/K ± [\d.]+, ([+\-−]?[\d.]+ ?[kM]?Hz) ± [\d.]+ ?[kM]?Hz from 10 °C to 40 °C`).FindStringSubmatch(text)
+	if m == nil {
+		t.Fatalf("page 2 has no tank drift row:\n%s", text)
+	}
+	num := func(s string) string {
+		return strings.ReplaceAll(strings.ReplaceAll(strings.ReplaceAll(s, "−", "-"), "+", ""), " ", "")
+	}
+	for _, x := range []struct {
+		name, s string
+		want    float64
+	}{
+		{"frequency", m[1], float64(k.Frequency)},
+		{"shift", m[3], k.ShiftHz},
+	} {
+		s := num(x.s)
+		v, half := printed(t, strings.TrimSuffix(s, "z")) // "7.03MHz" -> "7.03MH": prefix and unit H
+		if math.Abs(v-x.want) > half*1.001 {
+			t.Errorf("%s printed %q, computed %.6g", x.name, x.s, x.want)
+		}
+	}
+	if ppm, err := strconv.ParseFloat(num(m[2]), 64); err != nil || math.Abs(ppm-k.PerK*1e6) > 0.51 {
+		t.Errorf("ppm/K printed %q, computed %.4g", m[2], k.PerK*1e6)
+	}
+	// N750 pulls the tank up: −½(τ_L − 750 ppm/K) is above +300 ppm/K for any τ_L under 150 ppm/K.
+	if !(k.PerK > 300e-6) || !(k.ShiftHz > 0) {
+		t.Errorf("tank %+v: want a rising drift with N750", k)
+	}
+	for _, tc := range []struct{ val, want string }{
+		{`"hot"`, "tank-cap"},
+		{`"-5pF"`, "tank-cap"},
+	} {
+		bad := filepath.Join(dir, "bad.toml")
+		if err := os.WriteFile(bad, []byte(fmt.Sprintf(job, tc.val)), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		_, stderr, code := runCLI(t, "sheet", bad, "-o", filepath.Join(dir, "bad.pdf"))
+		if code != exitBadInput || !strings.Contains(stderr, tc.want) || !strings.Contains(stderr, "line 10") {
+			t.Errorf("tank-cap = %s: exit %d, %q: want exit 2 naming %s at line 10", tc.val, code, stderr, tc.want)
+		}
+	}
+}
