@@ -143,6 +143,7 @@ func SearchBand(b BandTarget, c Constraints) (Result, error) {
 		want = DefaultTop
 	}
 	c.Top = MaxTop
+	c.MinQ = b.MinQ
 	r, err := Search(t, c)
 	if err != nil {
 		var ie *InfeasibleError
@@ -220,8 +221,9 @@ func checkBand(cand Candidate, b BandTarget, cf, m float64) (BandFit, bool) {
 }
 
 // WithMinQ keeps the candidates of r whose Q at the operating frequency is
-// at least minQ, at most top of them (the search having been asked for
-// more); the Pareto list likewise. None left is an *InfeasibleError on
+// at least minQ, at most top of them; the Pareto list likewise. A search
+// given Constraints.MinQ lists only such coils already (its floor prunes
+// inside the search); this re-check on the full model's Q is a safety net. None left is an *InfeasibleError on
 // "min_q" naming the best Q found.
 func WithMinQ(r Result, minQ float64, top int) (Result, error) {
 	if minQ <= 0 {

@@ -137,6 +137,11 @@ type Constraints struct {
 	// must sit: close-wound must give at least (1+m)·target and the
 	// loosest pitch at most (1−m)·target. Zero means DefaultTrimMargin.
 	TrimMargin float64
+	// MinQ, when positive, is the least unloaded Q at the operating
+	// frequency: a coil below it is not listed (nor on the Pareto front),
+	// and the search prunes what its Q bound shows cannot reach it, so the
+	// list fills from the coils that do. It needs an operating frequency.
+	MinQ float64
 
 	Prefer Preference
 	Top    int // candidates returned; zero means DefaultTop
@@ -451,6 +456,10 @@ func resolve(t Target, c Constraints) (settings, error) {
 		return s, coil.InputErrorf("trim_margin", "%.3g %% is outside 0 … 30 %%", c.TrimMargin*100)
 	case !coil.Finite(c.MinTurns) || c.MinTurns < 0 || (c.MinTurns > 0 && c.MinTurns < 2) || c.MinTurns > coil.MaxTurns:
 		return s, coil.InputErrorf("min_turns", "%g is outside 2 … %d: fewer than two turns cannot be trimmed by squeezing or spreading", c.MinTurns, coil.MaxTurns)
+	case !coil.Finite(c.MinQ) || c.MinQ < 0 || c.MinQ > 1e5:
+		return s, coil.InputErrorf("min_q", "%g is outside 0 … 100000", c.MinQ)
+	case c.MinQ > 0 && s.opF == 0:
+		return s, coil.InputErrorf("min_q", "a Q floor needs the frequency it holds at; give the operating frequency")
 	case c.Top < 0 || c.Top > MaxTop:
 		return s, coil.InputErrorf("top", "%d is outside 1 … %d", c.Top, MaxTop)
 	case c.Prefer < PreferBalanced || c.Prefer > PreferEasy:

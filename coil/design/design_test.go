@@ -621,6 +621,8 @@ func TestDesignBadInput(t *testing.T) {
 		{"srf ratio", Target{Inductance: 1e-6}, func(c *Constraints) { c.MinSRFRatio = 1.1 }, "min_srf_ratio"},
 		{"leads", Target{Inductance: 1e-6}, func(c *Constraints) { c.LeadLength = -1e-3 }, "lead_length"},
 		{"top", Target{Inductance: 1e-6}, func(c *Constraints) { c.Top = 1000 }, "top"},
+		{"NaN Q floor", Target{Inductance: 1e-6, Frequency: 7e6}, func(c *Constraints) { c.MinQ = math.NaN() }, "min_q"},
+		{"Q floor without f", Target{Inductance: 1e-6}, func(c *Constraints) { c.MinQ = 100 }, "min_q"},
 		{"no wire", Target{Inductance: 1e-6}, func(c *Constraints) { c.Wires = nil }, "wires"},
 		{"no support", Target{Inductance: 1e-6}, func(c *Constraints) { c.Supports = nil }, "supports"},
 		{"min above max", Target{Inductance: 1e-6}, func(c *Constraints) { c.MinWire, c.MaxWire = 2e-3, 1e-3 }, "min_wire"},

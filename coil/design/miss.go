@@ -44,6 +44,11 @@ func (m *missLog) note(constraint string, ratio float64, p *pair, n, pitch float
 	m.near[constraint] = near{ratio: ratio, pair: p, n: n, pitch: pitch}
 }
 
+func (m *missLog) hasBetter(constraint string, r float64) bool {
+	old, ok := m.near[constraint]
+	return ok && old.ratio <= r
+}
+
 func (m *missLog) tooSmall(l float64, p *pair, n float64) {
 	if m.small == nil || l < m.small.value {
 		m.small = &near{value: l, pair: p, n: n}
@@ -68,6 +73,15 @@ func (m *missLog) relaxed(constraint string, c *found, s *settings) {
 		v, limit = p.od, float64(s.c.MaxDiameter)
 	case "max_wire_length":
 		v, limit = p.wire, float64(s.c.MaxWireLength)
+	case "min_q":
+		v, limit = s.c.MinQ, p.q // ratio: floor over Q, the nearest has the most Q
+		if m.near == nil {
+			m.near = map[string]near{}
+		}
+		if r := v / limit; !m.hasBetter(constraint, r) {
+			m.near[constraint] = near{ratio: r, value: p.q, pair: c.pair, n: c.n, pitch: c.pitch}
+		}
+		return
 	case "min_srf_ratio":
 		v = p.srf
 		if m.near == nil {
@@ -118,6 +132,15 @@ func (x *search) infeasible() error {
 		near near
 	}
 	var binds []lifted
+	if c.MinQ > 0 && len(x.pairs) > 0 {
+		// The floor alone binds when lifting it lets coils through: say
+		// so, with the best Q there is.
+		y := newSearch(s, "min_q", s.top)
+		y.run()
+		if n, ok := y.miss.near["min_q"]; ok && len(y.coils) > 0 {
+			return &InfeasibleError{Constraint: "min_q", Message: x.bindMessage("min_q", n), Nearest: n.value}
+		}
+	}
 	if len(x.pairs) > 0 || x.miss.near["max_diameter"].pair != nil {
 		for _, name := range []string{"max_length", "max_diameter", "max_wire_length", "min_srf_ratio"} {
 			switch {
@@ -208,6 +231,9 @@ func (x *search) bindMessage(name string, n near) string {
 	case "max_wire_length":
 		return fmt.Sprintf("no coil reaches %s with at most %s of wire: the least any needs is %s (%s); allow %s",
 			tw, shortMM(float64(c.MaxWireLength)), shortMM(n.value), x.describe(n), shortMM(math.Ceil(n.value*1e3)/1e3))
+	case "min_q":
+		return fmt.Sprintf("no coil the stock allows reaches Q %.0f at %s under these limits; the best found has Q %.0f (%s; a larger diameter, thicker or silver-plated wire, or a looser length limit raise Q)",
+			c.MinQ, quantity.FormatFrequency(s.opF), n.value, x.describe(n))
 	case "min_srf_ratio":
 		ratio := n.value / s.opF
 		return fmt.Sprintf("no coil for %s keeps its self-resonance at %g × %s = %s: the highest is %s (%.3g × f) with %s; accept a ratio of %.2g, or a smaller inductance or a smaller support",

@@ -163,6 +163,9 @@ func (wk *walk) cannotWin(ub, qub, vol float64) bool {
 	if math.IsInf(ub, -1) {
 		return true // nothing there meets the limits
 	}
+	if x.s.c.MinQ > 0 && x.relax != "min_q" && qub < x.s.c.MinQ {
+		return true // nothing there reaches the Q floor
+	}
 	if ub >= wk.bestScore() && (!wk.global || ub >= x.threshold()) {
 		return false
 	}
@@ -220,6 +223,10 @@ func (wk *walk) visit(n float64, sv *pitchSolver) knot {
 	}
 	if s.opF > 0 && x.relax != "min_srf_ratio" && co.lean.srf < s.srfRatio*s.opF {
 		x.miss.note("min_srf_ratio", s.srfRatio*s.opF/co.lean.srf, p, n, pitch)
+		return k
+	}
+	if s.c.MinQ > 0 && x.relax != "min_q" && co.lean.q < s.c.MinQ {
+		x.miss.note("min_q", s.c.MinQ/co.lean.q, p, n, pitch)
 		return k
 	}
 	if x.relax != "" {

@@ -114,9 +114,7 @@ func Search(cat *forms.Catalog, o *SearchOptions) (design.Result, error) {
 	if top == 0 {
 		top = design.DefaultTop
 	}
-	if o.MinQ > 0 {
-		c.Top = design.MaxTop
-	}
+	c.MinQ = o.MinQ // a constraint inside the search: the list fills from coils that reach it
 	res, err := design.Search(t, c)
 	if err != nil {
 		return res, searchError(err)
