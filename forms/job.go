@@ -140,6 +140,12 @@ type JobTarget struct {
 	MaxWireLength *unit.Length
 	MinSRFRatio   *float64
 	Prefer        string // "", "q", "small", "easy"
+	// Band, with Trimmer, asks for a coil that, with Cap (fixed) and Stray,
+	// tunes the whole band with the trimmer (the design command's --band
+	// and --trimmer); nil otherwise. The band's centre is the operating
+	// frequency.
+	Band    *Band
+	Trimmer *[2]unit.Capacitance // the trimmer's least and most
 }
 
 // JobTap places a tap: by turns from the cold (ground) end, or by the
@@ -176,7 +182,7 @@ var (
 		"mandrel", "former", "wire", "insulation", "conductor", "springback",
 		"turns", "pitch", "length", "leads", "temp", "freq",
 		"inductance", "cap", "stray", "tolerance", "support",
-		"max-length", "max-diameter", "max-wire-length", "min-srf-ratio", "prefer",
+		"max-length", "max-diameter", "max-wire-length", "min-srf-ratio", "prefer", "band", "trimmer",
 		"tap", "tap-ratio", "transmit", "cap-tempco", "tank-cap",
 		"gang", "gang-b", "law", "trim-a", "trim-b", "stray-a", "stray-b", "bands", "steps",
 		"loaded-q", "margin", "choose-tap",
@@ -228,6 +234,13 @@ const (
 //	stray = "2pF"   tolerance = "2%"   support = "mandrel"
 //	max-length = "15mm"   max-diameter = "12mm"   max-wire-length = "200mm"
 //	min-srf-ratio = 3   prefer = "q"
+//
+//	[[coil]]                            # a target tuned over a band
+//	name = "L3"
+//	band = "144-146MHz"                 # instead of inductance or freq; its centre is the operating frequency
+//	trimmer = "2-10pF"                  # in parallel: tunes both band edges (10 % of its swing kept free at each)
+//	cap = "15pF"   stray = "2pF"        # the fixed capacitor (optional) and wiring
+//	leads = "5mm"
 //
 //	tap = 2.5                           # turns from the cold end, or
 //	tap-ratio = 0.25                    # unloaded voltage ratio

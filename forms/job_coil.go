@@ -8,6 +8,8 @@ import (
 	"slices"
 	"strings"
 	"turnwise/internal/quantity"
+
+	"gonum.org/v1/gonum/unit"
 )
 
 // Reading one [[coil]] of a job file: its winding, design target, tap and
@@ -131,9 +133,27 @@ func (l *jobLoader) target(e *jobEntry, c *JobCoil) {
 		}
 	}
 	t.Prefer, _ = e.choice("prefer", []string{"q", "small", "easy"})
+	if s, ok := e.str("band", false, `"144-146MHz"`); ok {
+		if b, err := ParseBand(s); err != nil {
+			e.fail("band", "band", err)
+		} else {
+			t.Band = &b
+		}
+	}
+	if s, ok := e.str("trimmer", false, `"2-10pF"`); ok {
+		if lo, hi, err := ParseCapacitanceRange(s); err != nil {
+			e.fail("trimmer", "trimmer", err)
+		} else if !(hi > lo) {
+			e.fail("trimmer", "trimmer", fmt.Errorf("%q: give the trimmer's range as MIN-MAX with MIN below MAX, e.g. trimmer = \"2-10pF\"", s))
+		} else {
+			t.Trimmer = &[2]unit.Capacitance{lo, hi}
+		}
+	}
+	_, hasBand := e.m["band"]
+	_, hasTrimmer := e.m["trimmer"]
 
 	isTarget := false
-	for _, k := range []string{"inductance", "cap", "stray", "tolerance", "support", "max-length", "max-diameter", "max-wire-length", "min-srf-ratio", "prefer"} {
+	for _, k := range []string{"inductance", "cap", "stray", "tolerance", "support", "max-length", "max-diameter", "max-wire-length", "min-srf-ratio", "prefer", "band", "trimmer"} {
 		if _, present := e.m[k]; present {
 			isTarget = true
 		}
@@ -142,6 +162,20 @@ func (l *jobLoader) target(e *jobEntry, c *JobCoil) {
 	_, hasInd := e.m["inductance"]
 	_, hasCap := e.m["cap"]
 	switch {
+	case hasBand && hasTurns:
+		e.fail("band", "band", errors.New("a band is a design target; this coil is a fixed winding (turns): remove band, or replace turns by band and trimmer"))
+	case hasBand && hasInd:
+		e.fail("band", "band", errors.New("give a band (tuned by cap and trimmer) or an inductance, not both"))
+	case hasBand && e.m["freq"] != nil:
+		e.fail("freq", "freq", errors.New("a band sets the frequency (its centre); remove freq"))
+	case hasBand && e.m["tolerance"] != nil:
+		e.fail("tolerance", "tolerance", errors.New("a band's tolerance is its trimmer's range; remove tolerance"))
+	case hasBand && !hasTrimmer:
+		e.fail("band", "band", errors.New(`a band needs a trimmer to tune it: add trimmer = "2-10pF" (with cap for the fixed capacitor)`))
+	case hasTrimmer && !hasBand:
+		e.fail("trimmer", "trimmer", errors.New(`a trimmer tunes a band: add band = "144-146MHz"`))
+	case hasBand:
+		// A band target: cap is optional, freq comes from the band.
 	case hasTurns && (hasInd || hasCap):
 		k := "inductance"
 		if hasCap {
@@ -149,7 +183,7 @@ func (l *jobLoader) target(e *jobEntry, c *JobCoil) {
 		}
 		e.fail(k, k, errors.New("a coil is either a fixed winding (turns) or a design target (inductance, or cap with freq), not both; remove one"))
 	case hasTurns && isTarget:
-		for _, k := range []string{"stray", "tolerance", "support", "max-length", "max-diameter", "max-wire-length", "min-srf-ratio", "prefer"} {
+		for _, k := range []string{"stray", "tolerance", "support", "max-length", "max-diameter", "max-wire-length", "min-srf-ratio", "prefer", "trimmer"} {
 			if _, present := e.m[k]; present {
 				e.fail(k, k, errors.New("is a design-search key, but this coil is a fixed winding (turns); remove it or replace turns by inductance or cap"))
 				break

@@ -143,6 +143,12 @@ func TestLoadJobErrors(t *testing.T) {
 		{"tank-cap not a capacitance", head + coil + "tank-cap = \"180nH\"\n", 8, "tank-cap"},
 		{"tank-cap zero", head + coil + "tank-cap = \"0pF\"\n", 8, "tank-cap: must be positive"},
 		{"tank-cap on a target", head + "[[coil]]\nname = \"L1\"\ncap = \"22pF\"\nfreq = \"7MHz\"\nleads = \"5mm\"\ntank-cap = \"22pF\"\n", 7, "is for a fixed winding"},
+		{"band without trimmer", head + "[[coil]]\nname = \"L1\"\nband = \"144-146MHz\"\ncap = \"15pF\"\nleads = \"5mm\"\n", 4, "needs a trimmer"},
+		{"trimmer without band", head + "[[coil]]\nname = \"L1\"\ncap = \"15pF\"\nfreq = \"145MHz\"\ntrimmer = \"2-10pF\"\nleads = \"5mm\"\n", 6, "tunes a band"},
+		{"band with freq", head + "[[coil]]\nname = \"L1\"\nband = \"144-146MHz\"\ntrimmer = \"2-10pF\"\nfreq = \"145MHz\"\nleads = \"5mm\"\n", 6, "remove freq"},
+		{"band on a fixed winding", head + coil + "band = \"144-146MHz\"\ntrimmer = \"2-10pF\"\n", 8, "fixed winding"},
+		{"band reversed", head + "[[coil]]\nname = \"L1\"\nband = \"146-144MHz\"\ntrimmer = \"2-10pF\"\nleads = \"5mm\"\n", 4, "band"},
+		{"trimmer one value", head + "[[coil]]\nname = \"L1\"\nband = \"144-146MHz\"\ntrimmer = \"10pF\"\nleads = \"5mm\"\n", 5, "MIN below MAX"},
 		{"first error in file wins", head + coil + "tap = 9\n[[coil]]\nname = \"L2\"\nturns = 2\n", 8, "tap"},
 	}
 	for _, tc := range cases {
@@ -184,6 +190,25 @@ func TestLoadJobTankCap(t *testing.T) {
 	}
 	if c.KeyLine("tank-cap") != 8 {
 		t.Errorf("tank-cap on line %d, want 8", c.KeyLine("tank-cap"))
+	}
+}
+
+// A band target reads its band and trimmer; cap stays the fixed capacitor
+// and no frequency is needed.
+func TestLoadJobBand(t *testing.T) {
+	t.Parallel()
+	in := "title = \"t\"\n[[coil]]\nname = \"T2\"\nband = \"144-146MHz\"\ntrimmer = \"2-10pF\"\ncap = \"15pF\"\nstray = \"2pF\"\nleads = \"5mm\"\n"
+	job, err := LoadJob(strings.NewReader(in), "job.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	tg := job.Coils[0].Target
+	if tg == nil || tg.Band == nil || tg.Trimmer == nil || tg.Cap == nil {
+		t.Fatalf("target %+v: want a band, a trimmer and a cap", tg)
+	}
+	if math.Abs(float64(tg.Band.Low)-144e6) > 1 || math.Abs(float64(tg.Band.High)-146e6) > 1 ||
+		math.Abs(float64(tg.Trimmer[0])-2e-12) > 1e-24 || math.Abs(float64(tg.Trimmer[1])-10e-12) > 1e-24 {
+		t.Errorf("band %v … %v, trimmer %v: want 144 … 146 MHz, 2 … 10 pF", tg.Band.Low, tg.Band.High, *tg.Trimmer)
 	}
 }
 

@@ -7,6 +7,8 @@ import (
 	"turnwise/internal/quantity"
 
 	"turnwise/coil"
+
+	"gonum.org/v1/gonum/unit"
 )
 
 // Heights of the fixed blocks of a coil page, mm.
@@ -313,6 +315,9 @@ func (s *sheet) predictedRows(c *Coil) [][2]string {
 		}
 		r = append(r, [2]string{label, v})
 	}
+	if t := c.Target; t != nil && t.Band != nil {
+		r = append(r, bandRows(t.Band)...)
+	}
 	if f > 0 {
 		r = append(r,
 			[2]string{"L at the terminals", fmt.Sprintf("%s at %s", quantity.FormatEng(float64(p.Inductance), "H", 3), hz(f))},
@@ -558,4 +563,25 @@ func thermalRows(t *Thermal) [][2]string {
 			float64(k.LowTemp)-273.15, float64(k.HighTemp)-273.15)})
 	}
 	return r
+}
+
+// bandRows state a band design: the band, the trimmer and what it is
+// across, and its settings at the two band edges.
+func bandRows(b *TargetBand) [][2]string {
+	pf := func(c unit.Capacitance) string { return quantity.FormatCapacitance(float64(c)) }
+	trim := fmt.Sprintf("%s … %s in parallel", pf(b.TrimMin), pf(b.TrimMax))
+	switch {
+	case b.Fixed > 0 && b.Stray > 0:
+		trim += fmt.Sprintf(" with %s + %s stray", pf(b.Fixed), pf(b.Stray))
+	case b.Fixed > 0:
+		trim += " with " + pf(b.Fixed)
+	case b.Stray > 0:
+		trim += fmt.Sprintf(" with %s stray", pf(b.Stray))
+	}
+	return [][2]string{
+		{"band", fmt.Sprintf("%s … %s", hz(float64(b.Low)), hz(float64(b.High)))},
+		{"trimmer", trim},
+		{"  set at " + hz(float64(b.Low)), pf(b.TrimmerLow) + " (band's low edge)"},
+		{"  set at " + hz(float64(b.High)), pf(b.TrimmerHigh) + " (band's high edge)"},
+	}
 }

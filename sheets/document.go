@@ -95,6 +95,17 @@ type Target struct {
 	Tolerance   float64         // fraction
 	Rank        int             // 1 for the best candidate
 	Why         string          // the search's one-line reason
+	Band        *TargetBand     // a band tuned by a trimmer; nil otherwise
+}
+
+// TargetBand is a band design: the coil, with Fixed + Stray and a trimmer
+// TrimMin … TrimMax in parallel, tunes Low … High; TrimmerLow and
+// TrimmerHigh are the trimmer's settings at the two edges.
+type TargetBand struct {
+	Low, High               unit.Frequency
+	Fixed, Stray            unit.Capacitance
+	TrimMin, TrimMax        unit.Capacitance
+	TrimmerLow, TrimmerHigh unit.Capacitance
 }
 
 // Tap is a tap on the coil, counted from the cold (ground) end.

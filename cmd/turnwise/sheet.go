@@ -75,6 +75,8 @@ and two-gang capacitor (span's flags as keys):
   cap = "15pF"                   # or inductance = "80nH"; also stray,
   freq = "137.5MHz"              # tolerance, support, mandrel, former, wire,
   leads = "4mm"                  # max-length, max-diameter, min-srf-ratio ...
+  # a band instead of freq: band = "144-146MHz", trimmer = "2-10pF"
+  # (in parallel with cap): the page gives the trimmer's settings
   # two-gang: gang = "12-365pF", gang-b, law, trim-a, trim-b, stray-a,
   # stray-b, bands = ["80m=3.5-3.8MHz"], choose-tap = true
 

@@ -12,10 +12,12 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+	"turnwise/coil"
 	"turnwise/internal/quantity"
 	"turnwise/internal/spec"
 
 	"github.com/spf13/pflag"
+	"gonum.org/v1/gonum/unit"
 
 	"turnwise/forms"
 	"turnwise/internal/testtools"
@@ -548,5 +550,91 @@ func TestSheetTankCap(t *testing.T) {
 		if code != exitBadInput || !strings.Contains(stderr, tc.want) || !strings.Contains(stderr, "line 10") {
 			t.Errorf("tank-cap = %s: exit %d, %q: want exit 2 naming %s at line 10", tc.val, code, stderr, tc.want)
 		}
+	}
+}
+
+// A job coil designed to a band with a trimmer states, on its page, the
+// band, the trimmer and its settings at both band edges; re-predicted
+// (coil.Predict at each edge, self-capacitance included), the coil with
+// the fixed capacitor, the stray and the trimmer at the printed setting
+// resonates at that edge. The page states the tap and its achieved
+// voltage ratio, which re-checks through coil.Tap.
+func TestSheetBandTrimmer(t *testing.T) {
+	t.Setenv("TURNWISE_STOCK", "")
+	dir := t.TempDir()
+	const job = "title = \"t\"\n[[coil]]\nname = \"T2\"\nband = \"144-146MHz\"\ntrimmer = \"2-10pF\"\ncap = \"15pF\"\nstray = \"2pF\"\nleads = \"5mm\"\ntap-ratio = 0.2\n"
+	jobFile := filepath.Join(dir, "band.toml")
+	if err := os.WriteFile(jobFile, []byte(job), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "band.pdf")
+	if _, stderr, code := runCLI(t, "sheet", jobFile, "-o", out); code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	text := pageText(t, out, 2)
+	for _, want := range []string{"band 144.0 MHz … 146.0 MHz", "trimmer 2 pF … 10 pF in parallel with 15 pF + 2 pF stray", "Designed to tune 144 MHz–146 MHz with a 2 pF–10 pF trimmer"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("page 2 lacks %q:\n%s", want, text)
+		}
+	}
+	// The coil on the page, from the same search.
+	j, err := spec.LoadJob(jobFile)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cat, err := spec.JobCatalog(j, "", "", false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, cand, _, err := spec.DesignJobCoil(j, &j.Coils[0], cat)
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := cand.Prediction.Geometry
+	const fixed, stray, tmin, tmax = 15e-12, 2e-12, 2e-12, 10e-12
+	for _, edge := range []struct {
+		f    float64
+		name string
+	}{{144e6, "low"}, {146e6, "high"}} {
+		m := regexp.MustCompile(`set at ` + regexp.QuoteMeta(quantity.FormatEng(edge.f, "Hz", 4)) + ` ([\d.]+ pF) \(band's ` + edge.name + ` edge\)`).FindStringSubmatch(text)
+		if m == nil {
+			t.Errorf("page 2 gives no trimmer setting at the %s edge:\n%s", edge.name, text)
+			continue
+		}
+		set, half := printed(t, m[1])
+		// 10 % of the swing kept free at each end (the default margin).
+		if set < tmin+0.1*(tmax-tmin)-half || set > tmax-0.1*(tmax-tmin)+half {
+			t.Errorf("%s edge: trimmer at %.3g pF leaves less than 10 %% of its swing", edge.name, set*1e12)
+		}
+		p, err := coil.Predict(g, unit.Frequency(edge.f))
+		if err != nil {
+			t.Fatal(err)
+		}
+		// f = 1/(2π√(L_eff·C)): the resonance with the printed setting.
+		fr := 1 / (2 * math.Pi * math.Sqrt(float64(p.InductanceEffective)*(fixed+stray+set)))
+		tol := half/(2*(fixed+stray+set)) + 1e-6 // the printed digits' rounding, through √
+		if math.Abs(fr/edge.f-1) > tol {
+			t.Errorf("%s edge: with the trimmer at %s the coil resonates at %.6g MHz, want %.6g MHz (± %.2g)", edge.name, m[1], fr/1e6, edge.f/1e6, tol)
+		}
+	}
+	// The tap: the page's ratio is coil.Tap's at the page's turns.
+	f := cand.Prediction.Frequency
+	choices, err := coil.FindTap(g, f, coil.GoalVoltageRatio, 0.2)
+	if err != nil || len(choices) == 0 {
+		t.Fatalf("FindTap: %v", err)
+	}
+	s, err := coil.Tap(g, choices[0].Sections.TapTurns, f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := regexp.MustCompile(`tap (\S+) turns? from the cold end voltage at the tap ([\d.]+) ×`).FindStringSubmatch(text)
+	if m == nil {
+		t.Fatalf("page 2 does not state the tap and its ratio:\n%s", text)
+	}
+	if m[1] != quantity.FormatTurnsWord(s.TapTurns) && m[1]+" turn" != quantity.FormatTurnsWord(s.TapTurns) && m[1]+" turns" != quantity.FormatTurnsWord(s.TapTurns) {
+		t.Errorf("tap at %q, want %s", m[1], quantity.FormatTurnsWord(s.TapTurns))
+	}
+	if r, half := printed(t, m[2]); math.Abs(r-s.Ratio) > half+1e-9 {
+		t.Errorf("tap ratio printed %s, coil.Tap gives %.4g", m[2], s.Ratio)
 	}
 }

@@ -69,6 +69,14 @@ func JobSheetCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog, lf quan
 			Rank:        1,
 			Why:         cand.Why,
 		}
+		if bf := cand.Band; bf != nil && res.Band != nil {
+			bt := res.Band.Target
+			c.Target.Band = &sheets.TargetBand{
+				Low: bf.Low, High: bf.High, Fixed: bt.Fixed, Stray: bt.Stray,
+				TrimMin: bt.TrimMin, TrimMax: bt.TrimMax,
+				TrimmerLow: bf.TrimmerLow, TrimmerHigh: bf.TrimmerHigh,
+			}
+		}
 	} else {
 		spec, p, err := PredictJobCoil(job, jc, cat)
 		if err != nil {
@@ -210,6 +218,10 @@ func DesignJobCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog) (Spec,
 	if w.Freq != nil {
 		o.Freq = *w.Freq
 	}
+	if t.Band != nil && t.Trimmer != nil {
+		o.BandLow, o.BandHigh = t.Band.Low, t.Band.High
+		o.TrimMin, o.TrimMax = t.Trimmer[0], t.Trimmer[1]
+	}
 	if t.Tolerance != nil {
 		o.Tolerance = *t.Tolerance
 	}
@@ -248,6 +260,21 @@ func DesignJobCoil(job *forms.Job, jc *forms.JobCoil, cat *forms.Catalog) (Spec,
 // targetDescription says what a job coil's target is.
 func targetDescription(jc *forms.JobCoil, res design.Result) string {
 	t := jc.Target
+	if t.Band != nil && t.Trimmer != nil {
+		d := fmt.Sprintf("tune %s–%s with a %s–%s trimmer", quantity.FormatFrequency(float64(t.Band.Low)), quantity.FormatFrequency(float64(t.Band.High)),
+			quantity.FormatCapacitance(float64(t.Trimmer[0])), quantity.FormatCapacitance(float64(t.Trimmer[1])))
+		var parts []string
+		if t.Cap != nil && *t.Cap > 0 {
+			parts = append(parts, quantity.FormatCapacitance(float64(*t.Cap))+" fixed")
+		}
+		if t.Stray != nil && *t.Stray > 0 {
+			parts = append(parts, quantity.FormatCapacitance(float64(*t.Stray))+" stray")
+		}
+		if len(parts) > 0 {
+			d += " across " + strings.Join(parts, " + ")
+		}
+		return d
+	}
 	tol := fmt.Sprintf(", L within ± %.3g %%", res.Tolerance*100)
 	if t.Cap != nil {
 		c := quantity.FormatCapacitance(float64(*t.Cap))
