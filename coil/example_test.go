@@ -31,7 +31,7 @@ func ExamplePredict() {
 	fmt.Printf("Q: %.0f (%.0f … %.0f)\n", p.Q, p.QMin, p.QMax)
 	// Output:
 	// L at the terminals: 96.4 nH
-	// SRF (one end grounded): 961 MHz
+	// SRF (one end grounded): 962 MHz
 	// Q: 401 (281 … 441)
 }
 
