@@ -29,9 +29,9 @@
 // self-resonance of both mountings (one end grounded: quarter-wave-like;
 // both ends floating: half-wave-like) comes from the coil as a helical
 // transmission line (srf.go: sheath helix with an end correction and a
-// slow correction in ln(p/d), ln(p/d)·ln(l/D) and D/l per mounting, five
+// slow correction in ln(p/d), ln(p/d)·ln(l/D) and D/l (D/(N·l) floating) per mounting, five
 // constants each, calibrated against NEC-2; uncertainty from a
-// leave-one-out check, 4 % grounded and 6 % floating); the equivalent self-capacitance is the C that resonates
+// leave-one-out check, 4 % grounded and 8 % floating); the equivalent self-capacitance is the C that resonates
 // the winding at its mounting's SRF. The effective inductance and Q at the
 // operating frequency follow from the lumped model (leads in series with
 // the coil, the coil in parallel with that self-capacitance). Against a

@@ -249,8 +249,8 @@ func necResonance(ctx context.Context, nec, dir string, c necCoil, grounded bool
 	return a - xa*(b-a)/(xb-xa), ns, calls, nil
 }
 
-// necReference returns the reference coils: 26 of our own choosing, spanning
-// l/D 0.3 … 10, p/d 1.1 … 10, D 4 … 50 mm, N 2 … 60. Names give N, l/D,
+// necReference returns the reference coils: 37 of our own choosing, spanning
+// l/D 0.3 … 10, p/d 1.1 … 10, D 3 … 50 mm, N 2 … 60. Names give N, l/D,
 // p/d.
 func necReference() []necCoil {
 	mk := func(dmm, ld, pd, n float64) necCoil {
@@ -285,6 +285,20 @@ func necReference() []necCoil {
 		mk(25, 5, 6, 10),
 		mk(10, 7, 2, 40),
 		mk(20, 10, 3, 50),
+		// Added near the held-out worst corners (long steep grounded,
+		// short few-turn floating); TestNECTableAppend computed them.
+		mk(5, 10, 10, 12),
+		mk(8, 8, 6, 12),
+		mk(30, 0.3, 6, 2),
+		mk(15, 0.4, 4, 3),
+		mk(50, 0.3, 10, 3),
+		mk(25, 0.5, 8, 3),
+		// A second round: an out-of-sample check of the refitted model.
+		mk(40, 0.3, 1.5, 3),
+		mk(12, 0.3, 2, 2),
+		mk(20, 0.4, 6, 2),
+		mk(6, 0.6, 8, 3),
+		mk(3, 9, 5, 20),
 	}
 }
 

@@ -165,3 +165,61 @@ func TestNECTableDoubled(t *testing.T) {
 		t.Fatal(err)
 	}
 }
+
+// TestNECTableAppend appends to testdata/nec/srf.csv the coils of
+// necReference that the table does not have yet, each grounded and
+// floating at the base and at the doubled segmentation (the doubled run
+// starts at 0.9 of the base resonance), leaving the existing rows as they
+// are. NEC_ONLY, if set, names the one coil to run:
+//
+//	go test -tags necfull -run TestNECTableAppend -timeout 60m -v ./coil
+func TestNECTableAppend(t *testing.T) {
+	nec := necTool(t)
+	path := filepath.Join("..", "testdata", "nec", "srf.csv")
+	have := map[string]bool{}
+	for _, r := range readNECTable(t, path) {
+		have[r.C.Name] = true
+	}
+	only := os.Getenv("NEC_ONLY")
+	var todo []necCoil
+	for _, c := range necReference() {
+		if !have[c.Name] && (only == "" || only == c.Name) {
+			todo = append(todo, c)
+		}
+	}
+	for _, c := range todo {
+		start := time.Now()
+		ctx := context.Background()
+		dir := t.TempDir()
+		f0 := necStartFrequency(c)
+		fg, ns, _, err := necResonance(ctx, nec, dir, c, true, f0, 1)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ff, _, _, err := necResonance(ctx, nec, dir, c, false, f0, 1)
+		if err != nil {
+			t.Fatal(err)
+		}
+		fg2, _, _, err := necResonance(ctx, nec, dir, c, true, 0.9*fg, 2)
+		if err != nil {
+			t.Fatal(err)
+		}
+		ff2, _, _, err := necResonance(ctx, nec, dir, c, false, 0.9*ff, 2)
+		if err != nil {
+			t.Fatal(err)
+		}
+		row := fmt.Sprintf("%s,%.6g,%.6g,%.6g,%g,%d,%.6g,%.6g,%.6g,%.6g\n", c.Name, c.D, c.P, c.Wd, c.N, ns, fg, ff, fg2, ff2)
+		f, err := os.OpenFile(path, os.O_APPEND|os.O_WRONLY, 0o644)
+		if err != nil {
+			t.Fatal(err)
+		}
+		_, err = f.WriteString(row)
+		if cerr := f.Close(); err == nil {
+			err = cerr
+		}
+		if err != nil {
+			t.Fatal(err)
+		}
+		t.Logf("%s (%v)", strings.TrimSpace(row), time.Since(start).Round(time.Second))
+	}
+}

