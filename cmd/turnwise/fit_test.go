@@ -129,5 +129,43 @@ func TestFitPlotAndCompare(t *testing.T) {
 	}
 }
 
+// A missing jig file is blamed on the flag that named it, --open or
+// --short, in fit and in trim --sweep; exit 2 (issue 10).
+func TestMissingJigFileNamesFlag(t *testing.T) {
+	t.Parallel()
+	dir := filepath.Join("..", "..", "testdata", "sweep")
+	sw, open, short := filepath.Join(dir, "l1-as-wound.s1p"), filepath.Join(dir, "jig-open.s1p"), filepath.Join(dir, "jig-short.s1p")
+	missing := filepath.Join(t.TempDir(), "gone.s1p")
+	trimArgs := []string{"trim", "--sweep", sw, "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "10mm", "--leads", "4mm"}
+	tests := []struct {
+		name string
+		args []string
+		want string
+	}{
+		{"fit open", []string{"fit", sw, "--open", missing, "--short", short}, "--open: "},
+		{"fit short", []string{"fit", sw, "--open", open, "--short", missing}, "--short: "},
+		{"trim open", append(append([]string{}, trimArgs...), "--open", missing, "--short", short), "--open: "},
+		{"trim short", append(append([]string{}, trimArgs...), "--open", open, "--short", missing), "--short: "},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, tc.args...)
+			if code != exitBadInput {
+				t.Errorf("exit %d, want %d", code, exitBadInput)
+			}
+			if out != "" {
+				t.Errorf("stdout not empty: %q", out)
+			}
+			line := strings.TrimSpace(errOut)
+			if !strings.HasPrefix(line, "turnwise: "+tc.want) || !strings.Contains(line, "gone.s1p") || !strings.Contains(line, "does not exist") {
+				t.Errorf("error %q does not name %s and the file", line, strings.TrimSuffix(tc.want, ": "))
+			}
+			if strings.Contains(line, "sweep file") {
+				t.Errorf("error %q calls the jig file the sweep file", line)
+			}
+		})
+	}
+}
+
 func unitLength(m float64) unit.Length       { return unit.Length(m) }
 func unitFrequency(f float64) unit.Frequency { return unit.Frequency(f) }

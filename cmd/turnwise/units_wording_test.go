@@ -1,7 +1,6 @@
 package main
 
 import (
-	"fmt"
 	"regexp"
 	"strings"
 	"testing"
@@ -41,34 +40,6 @@ func TestSizesAsStatedOneUnit(t *testing.T) {
 				t.Errorf("output has %q:\n%s%s", m, out, errOut)
 			}
 		})
-	}
-}
-
-// Two-capacitor readings with default 5 % capacitors leave the stray
-// swamped (4.92 pF ± 30.2 pF, issue 10): the table says so and what 1 %
-// parts would give. First-order propagation scales the capacitor term with
-// the tolerance, so 1 % gives about a fifth (30.2/5 ≈ 6.0 pF) plus the
-// frequency term (counter 0.01 % default).
-func TestTwoCapacitorOnePercentAdvice(t *testing.T) {
-	t.Parallel()
-	args := []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz",
-		"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF"}
-	out, errOut, code := runCLI(t, args...)
-	if code != 0 {
-		t.Fatalf("exit %d: %s", code, errOut)
-	}
-	m := regexp.MustCompile(`1 % capacitors would give ± ([0-9.]+) pF`).FindStringSubmatch(out)
-	if m == nil || !strings.Contains(out, "larger than the value") {
-		t.Fatalf("no 1 %% advice:\n%s", out)
-	}
-	var u1 float64
-	if _, err := fmt.Sscan(m[1], &u1); err != nil || u1 < 5.5 || u1 > 7.5 {
-		t.Errorf("1 %% parts give ± %s pF, want about 6 pF (a fifth of 30.2 pF)", m[1])
-	}
-	// 1 % parts already: no advice.
-	out, _, _ = runCLI(t, append(args, "--cap-tol", "1%")...)
-	if strings.Contains(out, "1 % capacitors would give") {
-		t.Errorf("advice printed with 1 %% parts:\n%s", out)
 	}
 }
 
