@@ -16,9 +16,10 @@ import (
 // the tolerance, so 1 % gives about a fifth (30.2/5 ≈ 6.0 pF) plus the
 // frequency term (counter 0.01 % default).
 func TestTwoCapacitorOnePercentAdvice(t *testing.T) {
+	// Checks here: the trim table's and JSON's two-capacitor advice, against hand-worked figures and each other (internal consistency).
 	t.Parallel()
 	args := []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz",
-		"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF"}
+		"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF"} // invented readings; hand: f1²(C1+Cs) = f2²(C2+Cs) gives Cs = 4.92 pF, 5 % on C1, C2 by RSS ± 30.2 pF
 	out, errOut, code := runCLI(t, args...)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
@@ -28,7 +29,7 @@ func TestTwoCapacitorOnePercentAdvice(t *testing.T) {
 		t.Fatalf("no 1 %% advice:\n%s", out)
 	}
 	var u1 float64
-	if _, err := fmt.Sscan(m[1], &u1); err != nil || u1 < 5.5 || u1 > 7.5 {
+	if _, err := fmt.Sscan(m[1], &u1); err != nil || u1 < 5.5 || u1 > 7.5 { // hand: the same RSS with 1 % parts gives 6.04 pF, plus the small counter term
 		t.Errorf("1 %% parts give ± %s pF, want about 6 pF (a fifth of 30.2 pF)", m[1])
 	}
 	// 1 % parts already: no advice.
@@ -45,7 +46,7 @@ func TestTwoCapacitorOnePercentAdvice(t *testing.T) {
 func TestTwoCapacitorOnePercentJSON(t *testing.T) {
 	t.Parallel()
 	args := []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz",
-		"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF"}
+		"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF"} // invented readings; hand: f1²(C1+Cs) = f2²(C2+Cs) gives Cs = 4.92 pF, 5 % on C1, C2 by RSS ± 30.2 pF
 	table, errOut, code := runCLI(t, args...)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
@@ -81,7 +82,7 @@ func TestTwoCapacitorOnePercentJSON(t *testing.T) {
 	if u == nil || u.Capacitance == nil || u.InductanceFraction == nil {
 		t.Fatalf("no one_percent_uncertainty {capacitance, inductance_fraction}:\n%s", out)
 	}
-	if got := *u.Capacitance * 1e12; math.Abs(got-wantC) > 0.051*math.Max(1, wantC/10) {
+	if got := *u.Capacitance * 1e12; math.Abs(got-wantC) > 0.051*math.Max(1, wantC/10) { // JSON against the table: internal consistency
 		t.Errorf("one_percent_uncertainty.capacitance %.4g pF, table says ± %s pF", got, m[1])
 	}
 	if got := *u.InductanceFraction * 100; math.Abs(got-wantL) > 0.051 {
