@@ -10,6 +10,10 @@ import (
 	"testing"
 )
 
+// twoCapArgs is a trim by the two-capacitor method with default 5 % parts.
+var twoCapArgs = []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz",
+	"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF"} // invented readings; hand: f1²(C1+Cs) = f2²(C2+Cs) gives Cs = 4.92 pF, 5 % on C1, C2 by RSS ± 30.2 pF
+
 // Two-capacitor readings with default 5 % capacitors leave the stray
 // swamped (4.92 pF ± 30.2 pF, issue 10): the table says so and what 1 %
 // parts would give. First-order propagation scales the capacitor term with
@@ -18,8 +22,7 @@ import (
 func TestTwoCapacitorOnePercentAdvice(t *testing.T) {
 	// Checks here: the trim table's and JSON's two-capacitor advice, against hand-worked figures and each other (internal consistency).
 	t.Parallel()
-	args := []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz",
-		"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF"} // invented readings; hand: f1²(C1+Cs) = f2²(C2+Cs) gives Cs = 4.92 pF, 5 % on C1, C2 by RSS ± 30.2 pF
+	args := twoCapArgs
 	out, errOut, code := runCLI(t, args...)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
@@ -45,8 +48,7 @@ func TestTwoCapacitorOnePercentAdvice(t *testing.T) {
 // half a unit of its last digit.
 func TestTwoCapacitorOnePercentJSON(t *testing.T) {
 	t.Parallel()
-	args := []string{"trim", "--former", "25mm", "--wire", "22awg", "--turns", "30", "--leads", "20mm", "--freq", "3.7MHz",
-		"--resonance", "2.0MHz@330pF", "--resonance", "0.9435MHz@1.5nF"} // invented readings; hand: f1²(C1+Cs) = f2²(C2+Cs) gives Cs = 4.92 pF, 5 % on C1, C2 by RSS ± 30.2 pF
+	args := twoCapArgs
 	table, errOut, code := runCLI(t, args...)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
