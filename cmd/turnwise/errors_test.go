@@ -19,6 +19,7 @@ import (
 // coil spec, the design search's supports, a job file, the whole command)
 // and checks errors.Is still finds forms.ErrNotFound and the exit code is 2.
 func TestLookupNotFoundWraps(t *testing.T) {
+	// Checks here: error wrapping and exit codes (internal consistency); no reference values.
 	t.Setenv("TURNWISE_STOCK", "")
 	cat, err := forms.BuiltIn()
 	if err != nil {

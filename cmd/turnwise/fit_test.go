@@ -17,6 +17,7 @@ import (
 var demoSweep = []string{"../../testdata/sweep/l1-as-wound.s1p", "--open", "../../testdata/sweep/jig-open.s1p", "--short", "../../testdata/sweep/jig-short.s1p"}
 
 func TestFitDemo(t *testing.T) {
+	// Checks here: CLI wiring of fit and trim --sweep (keys, flags, exit codes) and internal consistency against the invented demo sweep.
 	out, errOut, code := runCLI(t, append([]string{"fit"}, demoSweep...)...)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
@@ -45,7 +46,7 @@ func TestFitDemo(t *testing.T) {
 			t.Errorf("uncertainty lacks %q", k)
 		}
 	}
-	if rec["fixture"] != "reflection" || rec["frequency"].(float64) != 137.5e6 {
+	if rec["fixture"] != "reflection" || rec["frequency"].(float64) != 137.5e6 { // the --freq 137.5MHz given above, echoed: internal consistency
 		t.Errorf("fixture %v frequency %v", rec["fixture"], rec["frequency"])
 	}
 }
@@ -70,7 +71,7 @@ func TestTrimSweepLandsDemoCoil(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &rec); err != nil {
 		t.Fatal(err)
 	}
-	if math.Abs(rec.Springback-0.06) > 0.003 {
+	if math.Abs(rec.Springback-0.06) > 0.003 { // 0.06: the invented springback the demo sweep was synthesised with (internal/sweepfile/demo_test.go), not a reference
 		t.Errorf("springback %g, the demo coil was wound with 0.06", rec.Springback)
 	}
 	job, err := spec.LoadJob("../../testdata/club-night.toml")
@@ -84,7 +85,7 @@ func TestTrimSweepLandsDemoCoil(t *testing.T) {
 		t.Fatal(err)
 	}
 	g := s.Geometry
-	g.Springback = 0.06
+	g.Springback = 0.06 // the demo coil's invented springback, as above
 	g.Pitch = unitLength(rec.NewPitch)
 	if rec.NewTurns > 0 {
 		g.Turns = rec.NewTurns
@@ -93,7 +94,7 @@ func TestTrimSweepLandsDemoCoil(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if miss := float64(p.Inductance)/rec.TargetInductance - 1; math.Abs(miss) > 0.01 {
+	if miss := float64(p.Inductance)/rec.TargetInductance - 1; math.Abs(miss) > 0.01 { // re-predicted by turnwise itself: internal consistency
 		t.Errorf("corrected coil re-predicted %.4g H against the target %.4g H: %+.2f %%", float64(p.Inductance), rec.TargetInductance, miss*100)
 	}
 }
@@ -124,8 +125,46 @@ func TestFitPlotAndCompare(t *testing.T) {
 		t.Errorf("no comparison:\n%s", out)
 	}
 	b, err := os.ReadFile(plot)
-	if err != nil || !strings.HasPrefix(string(b), "\x89PNG") {
+	if err != nil || !strings.HasPrefix(string(b), "\x89PNG") { // PNG signature, PNG specification (W3C / RFC 2083)
 		t.Errorf("plot not a PNG: %v", err)
+	}
+}
+
+// A missing jig file is blamed on the flag that named it, --open or
+// --short, in fit and in trim --sweep; exit 2 (issue 10).
+func TestMissingJigFileNamesFlag(t *testing.T) {
+	t.Parallel()
+	dir := filepath.Join("..", "..", "testdata", "sweep")
+	sw, open, short := filepath.Join(dir, "l1-as-wound.s1p"), filepath.Join(dir, "jig-open.s1p"), filepath.Join(dir, "jig-short.s1p")
+	missing := filepath.Join(t.TempDir(), "gone.s1p")
+	trimArgs := []string{"trim", "--sweep", sw, "--mandrel", "6mm", "--wire", "1mm", "--turns", "5", "--length", "10mm", "--leads", "4mm"}
+	tests := []struct {
+		name string
+		args []string
+		want string
+	}{
+		{"fit open", []string{"fit", sw, "--open", missing, "--short", short}, "--open: "},
+		{"fit short", []string{"fit", sw, "--open", open, "--short", missing}, "--short: "},
+		{"trim open", append(append([]string{}, trimArgs...), "--open", missing, "--short", short), "--open: "},
+		{"trim short", append(append([]string{}, trimArgs...), "--open", open, "--short", missing), "--short: "},
+	}
+	for _, tc := range tests {
+		t.Run(tc.name, func(t *testing.T) {
+			out, errOut, code := runCLI(t, tc.args...)
+			if code != exitBadInput {
+				t.Errorf("exit %d, want %d", code, exitBadInput)
+			}
+			if out != "" {
+				t.Errorf("stdout not empty: %q", out)
+			}
+			line := strings.TrimSpace(errOut)
+			if !strings.HasPrefix(line, "turnwise: "+tc.want) || !strings.Contains(line, "gone.s1p") || !strings.Contains(line, "does not exist") {
+				t.Errorf("error %q does not name %s and the file", line, strings.TrimSuffix(tc.want, ": "))
+			}
+			if strings.Contains(line, "sweep file") {
+				t.Errorf("error %q calls the jig file the sweep file", line)
+			}
+		})
 	}
 }
 

@@ -46,6 +46,7 @@ lines:
 }
 
 func TestMatchRefusals(t *testing.T) {
+	// Checks here: exit codes and flag naming for bad match input (CLI wiring); no reference values.
 	t.Setenv("TURNWISE_STOCK", "")
 	base := []string{"match", couplerFile, "--freq", "7.1MHz"}
 	tests := []struct {
@@ -127,7 +128,7 @@ func TestMatchJSON(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatal(err)
 	}
-	if len(doc.Frequencies) != 2 || doc.Frequencies[0].Band != "40m" || math.Abs(doc.Frequencies[0].Frequency-7.1e6) > 1 { // band centre, (7.0+7.2)/2 MHz
+	if len(doc.Frequencies) != 2 || doc.Frequencies[0].Band != "40m" || math.Abs(doc.Frequencies[0].Frequency-7.1e6) > 1 { // hand: band centre of the --band given above, (7.0+7.2)/2 MHz
 		t.Fatalf("frequencies %+v", doc.Frequencies)
 	}
 	if len(doc.Cautions) == 0 {
@@ -185,7 +186,7 @@ func TestMatchJSON(t *testing.T) {
 				t.Fatal(err)
 			}
 			g := cmplx.Abs(r.S[0][0])
-			swr := (1 + g) / (1 - g)
+			swr := (1 + g) / (1 - g)                                             // SWR from |Γ|, the standard definition (common practice)
 			if swr > doc.SWRLimit*(1+1e-9) || math.Abs(swr-p.SWR) > 1e-6*p.SWR { // the JSON's SWR, re-solved (implTol; JSON keeps full precision)
 				t.Errorf("%g Hz, load %g%+gj: solver SWR %g, JSON %g", fr.Frequency, p.LoadR, p.LoadX, swr, p.SWR)
 			}
@@ -228,7 +229,7 @@ func TestMatchTableAndPlot(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			magic := map[string][]byte{"svg": []byte("<svg"), "png": []byte("\x89PNG")}[ext]
+			magic := map[string][]byte{"svg": []byte("<svg"), "png": []byte("\x89PNG")}[ext] // SVG root element (W3C SVG) and PNG signature (RFC 2083)
 			if !bytes.Contains(b[:min(len(b), 512)], magic) {
 				t.Errorf("%s does not look like %s", path, ext)
 			}

@@ -17,11 +17,12 @@ import (
 // a 20 mm PVC former at 1 mm pitch, a 15–365 pF two-gang capacitor with
 // 5 pF of wiring at each node, and three listening bands.
 var spanArgs = []string{"span", "--former", "pvc 20mm", "--wire", "0.5mm", "--insulation", "grade1", "--turns", "40",
-	"--pitch", "1mm", "--leads", "20mm", "--gang", "15-365pF", "--stray-a", "5pF", "--stray-b", "5pF"}
+	"--pitch", "1mm", "--leads", "20mm", "--gang", "15-365pF", "--stray-a", "5pF", "--stray-b", "5pF"} // 15-365 pF: a usual broadcast two-gang capacitor (from memory); the rest invented
 
 var spanBandFile = filepath.Join("..", "..", "testdata", "span", "hf-listening.txt")
 
 func TestSpanGolden(t *testing.T) {
+	// Checks here: CLI wiring and exit codes; the golden files are regression pins (turnwise's own output, not a reference).
 	t.Setenv("TURNWISE_STOCK", "")
 	tests := []struct {
 		name   string
@@ -32,7 +33,7 @@ func TestSpanGolden(t *testing.T) {
 		{"tap 17 with bands and chart", withArgs(spanArgs, "--tap", "17", "--bands", spanBandFile, "--chart"), exitOK, "span_example.txt"},
 		{"tap 17 json", withArgs(spanArgs, "--tap", "17", "--bands", spanBandFile, "--json"), exitOK, "span_example.json"},
 		{"choose tap", withArgs(spanArgs, "--bands", spanBandFile, "--choose-tap"), exitOK, "span_choose.txt"},
-		{"choose tap impossible", withArgs(spanArgs, "--band", "160m=1.81-2MHz", "--band", "20m=14-14.35MHz", "--band", "10m=28-29.7MHz", "--choose-tap"), exitInfeasible, "span_infeasible.txt"},
+		{"choose tap impossible", withArgs(spanArgs, "--band", "160m=1.81-2MHz", "--band", "20m=14-14.35MHz", "--band", "10m=28-29.7MHz", "--choose-tap"), exitInfeasible, "span_infeasible.txt"}, // amateur band edges, ITU Region 1 (from memory)
 		{"measured law", []string{"span", "--former", "pvc 20mm", "--wire", "0.5mm", "--insulation", "grade1", "--turns", "40", "--pitch", "1mm", "--leads", "20mm",
 			"--tap", "11", "--law", filepath.Join("..", "..", "testdata", "span", "gang-measured.txt"), "--trim-b", "3pF", "--steps", "6"}, exitOK, "span_measured.txt"},
 	}
@@ -74,7 +75,7 @@ func TestSpanJSONKeys(t *testing.T) {
 			t.Errorf("sections.%s = %v", k, v)
 		}
 	}
-	if len(doc.Dial) != 11 {
+	if len(doc.Dial) != 11 { // span's default --steps: internal consistency
 		t.Fatalf("%d dial rows", len(doc.Dial))
 	}
 	for _, r := range doc.Dial {
@@ -101,9 +102,9 @@ func TestSpanJSONKeys(t *testing.T) {
 
 // The glue the build sheet uses gives what the command prints.
 func TestBuildSpanGlue(t *testing.T) {
-	g := coil.Geometry{FormerDiameter: 20e-3, WireDiameter: 0.5e-3, WireOverall: 0.5e-3 * 1.08, Turns: 40, Pitch: 1e-3, LeadLength: 20e-3}
+	g := coil.Geometry{FormerDiameter: 20e-3, WireDiameter: 0.5e-3, WireOverall: 0.5e-3 * 1.08, Turns: 40, Pitch: 1e-3, LeadLength: 20e-3} // overall 0.54 mm ≈ grade 1 max 0.544 mm, IEC 60317-0-1 (from memory, forms/data/enamel.csv); only compared with itself
 	set := spec.SpanSettings{GangA: [2]float64{15e-12, 365e-12}, StrayA: 5e-12, StrayB: 5e-12,
-		Bands:     []tuning.Band{{Name: "80m", Low: 3.5e6, High: 3.8e6}, {Name: "40m", Low: 7e6, High: 7.2e6}, {Name: "31m", Low: 9.4e6, High: 9.9e6}},
+		Bands:     []tuning.Band{{Name: "80m", Low: 3.5e6, High: 3.8e6}, {Name: "40m", Low: 7e6, High: 7.2e6}, {Name: "31m", Low: 9.4e6, High: 9.9e6}}, // 80 m and 40 m amateur (ITU Region 1) and 31 m broadcast band edges (from memory)
 		ChooseTap: true}
 	out, err := spec.BuildSpan(g, set)
 	if err != nil {
