@@ -350,3 +350,63 @@ func TestTappedCoilTwoNode(t *testing.T) {
 		}
 	}
 }
+
+// A solver reused at one frequency re-reads every value a caller changes
+// (a capacitor's setting, a load, a port's Z0, a coil's geometry): each
+// answer equals a fresh solver's on the changed network.
+func TestSolverRereadsChangedValues(t *testing.T) {
+	g := coil.Geometry{FormerDiameter: unit.Length(20e-3), WireDiameter: unit.Length(1e-3), Turns: 10, Pitch: unit.Length(2e-3)}
+	n := &Network{
+		Nodes: []string{"gnd", "top"},
+		Parts: []Part{
+			{Name: "L1", Kind: Wound, A: 1, B: 0, Coil: &g, TapNode: -1},
+			{Name: "C1", Kind: Capacitor, A: 1, B: 0, Value: 100e-12},
+			{Name: "RL", Kind: Impedance, A: 1, B: 0, Z: complex(5000, 0)},
+		},
+		Ports: []Port{{Node: 1, Z0: 50}},
+	}
+	const f = 3.5e6
+	s, err := NewSolver(n)
+	if err != nil {
+		t.Fatal(err)
+	}
+	changes := []struct {
+		name string
+		edit func()
+	}{
+		{"capacitor value", func() { n.Parts[1].Value = 150e-12 }},
+		{"load impedance", func() { n.Parts[2].Z = complex(2000, 300) }},
+		{"port Z0", func() { n.Ports[0].Z0 = 75 }},
+		{"coil geometry", func() { g.Turns = 12 }},
+	}
+	for _, c := range changes {
+		t.Run(c.name, func(t *testing.T) {
+			before, err := s.Response(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			c.edit()
+			got, err := s.Response(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			fresh, err := NewSolver(n)
+			if err != nil {
+				t.Fatal(err)
+			}
+			want, err := fresh.Response(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if cmplx.Abs(got.Zin-want.Zin) > implTol*cmplx.Abs(want.Zin) {
+				t.Errorf("reused solver Zin %v, fresh %v", got.Zin, want.Zin)
+			}
+			if cmplx.Abs(got.S[0][0]-want.S[0][0]) > implTol {
+				t.Errorf("reused solver S11 %v, fresh %v", got.S[0][0], want.S[0][0])
+			}
+			if cmplx.Abs(before.S[0][0]-want.S[0][0]) <= implTol {
+				t.Errorf("the change did not move S11 (%v): the test cannot tell", want.S[0][0])
+			}
+		})
+	}
+}
