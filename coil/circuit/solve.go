@@ -137,7 +137,7 @@ func (s *Solver) assemble(f float64, term uint8) error {
 		case Impedance:
 			s.addY(p.A, p.B, 1/p.Z)
 		case Capacitor:
-			z := complex(p.seriesR(), -1/(w*p.Value))
+			z := complex(p.SeriesR(), -1/(w*p.Value))
 			s.addY(p.A, p.B, 1/z)
 		case Wound:
 			wa, err := p.woundAt(f)
@@ -179,7 +179,7 @@ func (s *Solver) assemble(f float64, term uint8) error {
 		var z complex128
 		switch b.role {
 		case roleInductor:
-			z = complex(p.seriesR(), w*p.Value)
+			z = complex(p.SeriesR(), w*p.Value)
 		case roleLeads:
 			m := s.wnd[b.part].m
 			z = complex(float64(m.RLeads), w*float64(m.LLeads))
@@ -407,7 +407,7 @@ func (st State) PartCurrent(i int) complex128 {
 	case Impedance:
 		return v / p.Z
 	case Capacitor:
-		return v / complex(p.seriesR(), -1/(w*p.Value))
+		return v / complex(p.SeriesR(), -1/(w*p.Value))
 	case Inductor:
 		return st.branchI[s.partBr[i]]
 	}
