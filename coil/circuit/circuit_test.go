@@ -27,25 +27,48 @@ func tank(l, c, r float64) *Network {
 	}
 }
 
+// solver is NewSolver(n), failing the test on an error.
+func solver(t *testing.T, n *Network) *Solver {
+	t.Helper()
+	s, err := NewSolver(n)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return s
+}
+
+// resonances is n's resonances below fMax, failing the test on an error.
+func resonances(t *testing.T, n *Network, fMax float64) []Resonance {
+	t.Helper()
+	rs, err := solver(t, n).Resonances(fMax)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return rs
+}
+
+// lone is wound coil g alone from port 1 ("hot") to ground, mounted m.
+func lone(g *coil.Geometry, m coil.Mounting) *Network {
+	return &Network{
+		Nodes: []string{"gnd", "hot"},
+		Parts: []Part{{Name: "L1", Kind: Wound, A: 1, B: 0, Coil: g, TapNode: -1, Mounting: m}},
+		Ports: []Port{{Node: 1, Z0: 50}},
+	}
+}
+
 // A parallel tank worked by hand: f0 = 1/(2π√(LC)); with series loss r the
 // impedance peak is about (ωL)²/r = Q·ωL and Q = ωL/r (any circuit text,
 // e.g. Terman, Radio Engineers' Handbook, 1943, from memory).
 func TestParallelTankByHand(t *testing.T) {
 	l, c, r := 10e-6, 180e-12, 2.0
-	s, err := NewSolver(tank(l, c, r))
-	if err != nil {
-		t.Fatal(err)
-	}
+	n := tank(l, c, r)
 	f0 := 1 / (2 * math.Pi * math.Sqrt(l*c))
 	// 10 µH with 180 pF resonates near 3.75 MHz (common practice: the
 	// 80 m band's tank).
 	if f0 < 3.6e6 || f0 > 3.9e6 {
 		t.Fatalf("hand value %g", f0)
 	}
-	rs, err := s.Resonances(1e9)
-	if err != nil {
-		t.Fatal(err)
-	}
+	rs := resonances(t, n, 1e9)
 	if len(rs) != 1 || rs[0].Kind != Parallel {
 		t.Fatalf("resonances %+v", rs)
 	}
@@ -83,14 +106,7 @@ func TestSeriesTrapByHand(t *testing.T) {
 		},
 		Ports: []Port{{Node: 1, Z0: 50}},
 	}
-	s, err := NewSolver(n)
-	if err != nil {
-		t.Fatal(err)
-	}
-	rs, err := s.Resonances(1e9)
-	if err != nil {
-		t.Fatal(err)
-	}
+	rs := resonances(t, n, 1e9)
 	f0 := 1 / (2 * math.Pi * math.Sqrt(l*c))
 	if len(rs) != 1 || rs[0].Kind != Series {
 		t.Fatalf("resonances %+v", rs)
@@ -120,10 +136,7 @@ func TestSParametersSeriesResistor(t *testing.T) {
 		},
 		Ports: []Port{{Node: 1, Z0: 50}, {Node: 2, Z0: 50}},
 	}
-	s, err := NewSolver(n)
-	if err != nil {
-		t.Fatal(err)
-	}
+	s := solver(t, n)
 	r, err := s.Response(1e6)
 	if err != nil {
 		t.Fatal(err)
@@ -156,10 +169,7 @@ func TestNaturalFrequenciesMatchSweep(t *testing.T) {
 		},
 		Ports: []Port{{Node: 1, Z0: 50}},
 	}
-	s, err := NewSolver(n)
-	if err != nil {
-		t.Fatal(err)
-	}
+	s := solver(t, n)
 	par, err := s.NaturalFrequencies(1e10, false)
 	if err != nil {
 		t.Fatal(err)
@@ -207,19 +217,7 @@ func TestNaturalFrequenciesMatchSweep(t *testing.T) {
 // Predict takes L at the SRF by one fixed-point step, the solver iterates).
 func TestWoundCoilSelfResonance(t *testing.T) {
 	g := coil.Geometry{FormerDiameter: 20e-3, WireDiameter: 0.5e-3, Turns: 40, Pitch: 0.6e-3}
-	n := &Network{
-		Nodes: []string{"gnd", "hot"},
-		Parts: []Part{{Name: "L1", Kind: Wound, A: 1, B: 0, Coil: &g, TapNode: -1}},
-		Ports: []Port{{Node: 1, Z0: 50}},
-	}
-	s, err := NewSolver(n)
-	if err != nil {
-		t.Fatal(err)
-	}
-	rs, err := s.Resonances(10e9)
-	if err != nil {
-		t.Fatal(err)
-	}
+	rs := resonances(t, lone(&g, coil.Grounded), 10e9)
 	p, err := coil.Predict(g, 0)
 	if err != nil {
 		t.Fatal(err)
@@ -271,19 +269,7 @@ func TestValidateRefuses(t *testing.T) {
 // sits above it.
 func TestWoundCoilWithLeads(t *testing.T) {
 	g := coil.Geometry{FormerDiameter: 20e-3, WireDiameter: 0.5e-3, Turns: 40, Pitch: 0.6e-3, LeadLength: 20e-3}
-	n := &Network{
-		Nodes: []string{"gnd", "hot"},
-		Parts: []Part{{Name: "L1", Kind: Wound, A: 1, B: 0, Coil: &g, TapNode: -1}},
-		Ports: []Port{{Node: 1, Z0: 50}},
-	}
-	s, err := NewSolver(n)
-	if err != nil {
-		t.Fatal(err)
-	}
-	rs, err := s.Resonances(10e9)
-	if err != nil {
-		t.Fatal(err)
-	}
+	rs := resonances(t, lone(&g, coil.Grounded), 10e9)
 	p, _ := coil.Predict(g, 0)
 	if len(rs) < 2 || rs[0].Kind != Parallel || rs[1].Kind != Series {
 		t.Fatalf("resonances %+v", rs)
@@ -315,10 +301,7 @@ func TestTappedCoilTwoNode(t *testing.T) {
 		},
 		Ports: []Port{{Node: 1, Z0: 50}},
 	}
-	s, err := NewSolver(n)
-	if err != nil {
-		t.Fatal(err)
-	}
+	s := solver(t, n)
 	modes, err := s.NaturalFrequencies(1e9, false)
 	if err != nil {
 		t.Fatal(err)
@@ -348,5 +331,58 @@ func TestTappedCoilTwoNode(t *testing.T) {
 		if math.Abs(d) > 1e-9*scale {
 			t.Errorf("f=%g: det %g (scale %g)", md.Frequency, d, scale)
 		}
+	}
+}
+
+// A solver reused at one frequency re-reads every value a caller changes
+// (a capacitor's setting, a load, a port's Z0, a coil's geometry): each
+// answer equals a fresh solver's on the changed network.
+func TestSolverRereadsChangedValues(t *testing.T) {
+	g := coil.Geometry{FormerDiameter: unit.Length(20e-3), WireDiameter: unit.Length(1e-3), Turns: 10, Pitch: unit.Length(2e-3)}
+	n := &Network{
+		Nodes: []string{"gnd", "top"},
+		Parts: []Part{
+			{Name: "L1", Kind: Wound, A: 1, B: 0, Coil: &g, TapNode: -1},
+			{Name: "C1", Kind: Capacitor, A: 1, B: 0, Value: 100e-12},
+			{Name: "RL", Kind: Impedance, A: 1, B: 0, Z: complex(5000, 0)},
+		},
+		Ports: []Port{{Node: 1, Z0: 50}},
+	}
+	const f = 3.5e6
+	s := solver(t, n)
+	changes := []struct {
+		name string
+		edit func()
+	}{
+		{"capacitor value", func() { n.Parts[1].Value = 150e-12 }},
+		{"load impedance", func() { n.Parts[2].Z = complex(2000, 300) }},
+		{"port Z0", func() { n.Ports[0].Z0 = 75 }},
+		{"coil geometry", func() { g.Turns = 12 }},
+	}
+	for _, c := range changes {
+		t.Run(c.name, func(t *testing.T) {
+			before, err := s.Response(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			c.edit()
+			got, err := s.Response(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			want, err := solver(t, n).Response(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if cmplx.Abs(got.Zin-want.Zin) > implTol*cmplx.Abs(want.Zin) {
+				t.Errorf("reused solver Zin %v, fresh %v", got.Zin, want.Zin)
+			}
+			if cmplx.Abs(got.S[0][0]-want.S[0][0]) > implTol {
+				t.Errorf("reused solver S11 %v, fresh %v", got.S[0][0], want.S[0][0])
+			}
+			if cmplx.Abs(before.S[0][0]-want.S[0][0]) <= implTol {
+				t.Errorf("the change did not move S11 (%v): the test cannot tell", want.S[0][0])
+			}
+		})
 	}
 }

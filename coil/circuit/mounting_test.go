@@ -21,19 +21,7 @@ func TestWoundCoilMounting(t *testing.T) {
 		want float64
 	}{{coil.Grounded, float64(p.SRF)}, {coil.Floating, float64(p.SRFFloating)}} {
 		t.Run(tc.m.String(), func(t *testing.T) {
-			n := &Network{
-				Nodes: []string{"gnd", "hot"},
-				Parts: []Part{{Name: "L1", Kind: Wound, A: 1, B: 0, Coil: &g, TapNode: -1, Mounting: tc.m}},
-				Ports: []Port{{Node: 1, Z0: 50}},
-			}
-			s, err := NewSolver(n)
-			if err != nil {
-				t.Fatal(err)
-			}
-			rs, err := s.Resonances(10e9)
-			if err != nil {
-				t.Fatal(err)
-			}
+			rs := resonances(t, lone(&g, tc.m), 10e9)
 			if len(rs) != 1 || rel(rs[0].Natural, tc.want) > 1e-3 {
 				t.Errorf("resonances %+v, want one at %g Hz", rs, tc.want)
 			}

@@ -246,8 +246,9 @@ func (n *Network) Validate() error {
 // omega is 2πf.
 func omega(f float64) float64 { return 2 * math.Pi * f }
 
-// seriesR is a lumped part's series resistance.
-func (p *Part) seriesR() float64 {
+// SeriesR is a capacitor's or inductor's series resistance as the solver
+// takes it: the ESR, or else X(QFrequency)/Q (zero for neither).
+func (p *Part) SeriesR() float64 {
 	if p.ESR > 0 || p.Q == 0 {
 		return p.ESR
 	}

@@ -3,6 +3,7 @@ package circuit
 import (
 	"math"
 	"math/cmplx"
+	"slices"
 
 	"turnwise/coil"
 )
@@ -24,7 +25,10 @@ const (
 
 // Solver solves one network at any frequency. It reads the parts' values
 // at every call, so a caller may change a capacitor's Value (a tuning
-// setting) between calls. A Solver is not safe for concurrent use.
+// setting), a load's Z, a coupling's K or a wound coil's geometry between
+// calls: the factorisation is reused only while the frequency, the port
+// terminations and every value it was built from are unchanged. A Solver
+// is not safe for concurrent use.
 type Solver struct {
 	net      *Network
 	nodes    int   // all nodes, ground and coils' internal nodes included
@@ -40,6 +44,13 @@ type Solver struct {
 	lf   float64 // frequency the factorisation is for (0: none)
 	lt   uint8   // ports terminated in that factorisation (bit k: port k)
 	wnd  []woundAt
+
+	// The values the factorisation was built from, to tell when a
+	// caller has changed one since.
+	seenParts []Part
+	seenCoils []coil.Geometry // per part: *Coil's value for a wound coil
+	seenCpl   []Coupling
+	seenPorts []Port
 }
 
 // NewSolver validates n and prepares its equations. n must not change
@@ -82,6 +93,10 @@ func NewSolver(n *Network) (*Solver, error) {
 	s.rhs = make([]complex128, s.size)
 	s.x = make([]complex128, s.size)
 	s.wnd = make([]woundAt, len(n.Parts))
+	s.seenParts = make([]Part, len(n.Parts))
+	s.seenCoils = make([]coil.Geometry, len(n.Parts))
+	s.seenCpl = make([]Coupling, len(n.Couplings))
+	s.seenPorts = make([]Port, len(n.Ports))
 	return s, nil
 }
 
@@ -122,7 +137,7 @@ func (s *Solver) assemble(f float64, term uint8) error {
 		case Impedance:
 			s.addY(p.A, p.B, 1/p.Z)
 		case Capacitor:
-			z := complex(p.seriesR(), -1/(w*p.Value))
+			z := complex(p.SeriesR(), -1/(w*p.Value))
 			s.addY(p.A, p.B, 1/z)
 		case Wound:
 			wa, err := p.woundAt(f)
@@ -164,7 +179,7 @@ func (s *Solver) assemble(f float64, term uint8) error {
 		var z complex128
 		switch b.role {
 		case roleInductor:
-			z = complex(p.seriesR(), w*p.Value)
+			z = complex(p.SeriesR(), w*p.Value)
 		case roleLeads:
 			m := s.wnd[b.part].m
 			z = complex(float64(m.RLeads), w*float64(m.LLeads))
@@ -194,7 +209,34 @@ func (s *Solver) assemble(f float64, term uint8) error {
 		return err
 	}
 	s.lf, s.lt = f, term
+	s.remember()
 	return nil
+}
+
+// remember records the values the factorisation was built from.
+func (s *Solver) remember() {
+	n := s.net
+	copy(s.seenParts, n.Parts)
+	for i := range n.Parts {
+		if n.Parts[i].Kind == Wound {
+			s.seenCoils[i] = *n.Parts[i].Coil
+		}
+	}
+	copy(s.seenCpl, n.Couplings)
+	copy(s.seenPorts, n.Ports)
+}
+
+// unchanged reports whether every value is still the one the
+// factorisation was built from.
+func (s *Solver) unchanged() bool {
+	n := s.net
+	for i := range n.Parts {
+		p := &n.Parts[i]
+		if *p != s.seenParts[i] || p.Kind == Wound && *p.Coil != s.seenCoils[i] {
+			return false
+		}
+	}
+	return slices.Equal(n.Couplings, s.seenCpl) && slices.Equal(n.Ports, s.seenPorts)
 }
 
 // inductiveBranch is the branch that carries a part's coupled inductance:
@@ -339,7 +381,7 @@ func (s *Solver) state(f float64) State {
 }
 
 func (s *Solver) ensure(f float64, term uint8) error {
-	if s.lf == f && s.lt == term && f > 0 {
+	if s.lf == f && s.lt == term && f > 0 && s.unchanged() {
 		return nil
 	}
 	return s.assemble(f, term)
@@ -365,7 +407,7 @@ func (st State) PartCurrent(i int) complex128 {
 	case Impedance:
 		return v / p.Z
 	case Capacitor:
-		return v / complex(p.seriesR(), -1/(w*p.Value))
+		return v / complex(p.SeriesR(), -1/(w*p.Value))
 	case Inductor:
 		return st.branchI[s.partBr[i]]
 	}

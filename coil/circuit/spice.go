@@ -79,7 +79,7 @@ func (s *Solver) WriteSpice(w io.Writer, o SpiceOptions) error {
 			if p.Kind == Inductor {
 				inductorName[i] = el
 			}
-			if r := p.seriesR(); r > 0 {
+			if r := p.SeriesR(); r > 0 {
 				mid := names.unique("", p.Name+"_esr")
 				fmt.Fprintf(bw, "%s %s %s %s\n", el, a, mid, num(p.Value))
 				fmt.Fprintf(bw, "%s %s %s %s\n", names.unique("R", p.Name+"_esr"), mid, b, num(r))

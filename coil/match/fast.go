@@ -21,10 +21,8 @@ type fastNet struct {
 	y0   []complex128 // n×n, fixed parts, port 1 open, port 2 terminated
 	port int          // port 1's unknown
 	z0   float64
-	adj  [][2]int // adjustable capacitors' unknowns (−1: ground)
-	q    []float64
-	qf   []float64
-	esr  []float64
+	adj  [][2]int       // adjustable capacitors' unknowns (−1: ground)
+	caps []circuit.Part // adjustable capacitors, Value set per trial
 	load [2]int
 	a    []complex128 // scratch
 	x    []complex128
@@ -54,7 +52,7 @@ func newFastNet(ln *lumped, adj []int, f float64) (*fastNet, bool) {
 		isAdj[li] = true
 		p := net.Parts[li]
 		fn.adj = append(fn.adj, [2]int{p.A - 1, p.B - 1})
-		fn.q, fn.qf, fn.esr = append(fn.q, p.Q), append(fn.qf, p.QFrequency), append(fn.esr, p.ESR)
+		fn.caps = append(fn.caps, p)
 	}
 	var br []int // inductor part indexes
 	brIndex := map[int]int{}
@@ -66,7 +64,7 @@ func newFastNet(ln *lumped, adj []int, f float64) (*fastNet, bool) {
 		case p.Kind == circuit.Impedance:
 			stamp(p.A, p.B, 1/p.Z)
 		case p.Kind == circuit.Capacitor:
-			stamp(p.A, p.B, 1/complex(seriesR(p), -1/(w*p.Value)))
+			stamp(p.A, p.B, 1/complex(p.SeriesR(), -1/(w*p.Value)))
 		case p.Kind == circuit.Inductor:
 			brIndex[i] = len(br)
 			br = append(br, i)
@@ -84,7 +82,7 @@ func newFastNet(ln *lumped, adj []int, f float64) (*fastNet, bool) {
 		zb := make([]complex128, nb*nb)
 		for k, i := range br {
 			p := net.Parts[i]
-			zb[k*nb+k] = complex(seriesR(p), w*p.Value)
+			zb[k*nb+k] = complex(p.SeriesR(), w*p.Value)
 		}
 		for _, c := range net.Couplings {
 			bp, bq := brIndex[c.P], brIndex[c.Q]
@@ -116,19 +114,6 @@ func newFastNet(ln *lumped, adj []int, f float64) (*fastNet, bool) {
 	return fn, true
 }
 
-// seriesR is a lumped part's series resistance, as the circuit solver
-// takes it: the ESR, or X(QFrequency)/Q.
-func seriesR(p circuit.Part) float64 {
-	if p.ESR > 0 || p.Q == 0 {
-		return p.ESR
-	}
-	w := 2 * math.Pi * p.QFrequency
-	if p.Kind == circuit.Capacitor {
-		return 1 / (w * p.Value * p.Q)
-	}
-	return w * p.Value / p.Q
-}
-
 // zin is the impedance at port 1 with capacitances c and load z.
 func (fn *fastNet) zin(c []float64, z complex128) (complex128, bool) {
 	n := fn.n
@@ -147,11 +132,9 @@ func (fn *fastNet) zin(c []float64, z complex128) (complex128, bool) {
 		}
 	}
 	for k, nodes := range fn.adj {
-		r := fn.esr[k]
-		if !(r > 0) && fn.q[k] > 0 {
-			r = 1 / (2 * math.Pi * fn.qf[k] * c[k] * fn.q[k])
-		}
-		stamp(nodes[0], nodes[1], 1/complex(r, -1/(fn.w*c[k])))
+		p := &fn.caps[k]
+		p.Value = c[k]
+		stamp(nodes[0], nodes[1], 1/complex(p.SeriesR(), -1/(fn.w*c[k])))
 	}
 	stamp(fn.load[0], fn.load[1], 1/z)
 	x := fn.x

@@ -35,7 +35,7 @@ func spiceNetlist(ln *lumped, f, r, x float64, out string) string {
 		if i == ln.load {
 			continue
 		}
-		rs := seriesR(p)
+		rs := p.SeriesR()
 		a, bb := node(p.A), node(p.B)
 		switch p.Kind {
 		case circuit.Capacitor:

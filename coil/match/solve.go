@@ -147,7 +147,6 @@ func newEngine(p *prepared, f float64) (*engine, error) {
 func (e *engine) setLoad(z complex128) {
 	e.ln.net.Parts[e.ln.load].Z = z
 	e.z = z
-	e.s.Retune()
 }
 
 // capacitance is dial k's capacitance at position u.
@@ -160,7 +159,6 @@ func (e *engine) set(u []float64) {
 	for k, li := range e.adj {
 		e.ln.net.Parts[li].Value = e.capacitance(k, u[k])
 	}
-	e.s.Retune()
 }
 
 // gamma is |Γ| at port 1 at dial positions u (1 where the equations are
