@@ -1,11 +1,9 @@
 package forms
 
 import (
-	"cmp"
 	"errors"
 	"fmt"
 	"math"
-	"slices"
 	"strings"
 	"turnwise/internal/quantity"
 
@@ -35,19 +33,8 @@ func (l *jobLoader) coil(i int, m map[string]any) JobCoil {
 		c.Name = strings.TrimSpace(n)
 		e.label = c.Label()
 	}
-	var unknown []string
-	for k := range m {
-		if !slices.Contains(jobCoilKeys, k) {
-			unknown = append(unknown, k)
-		}
-	}
-	slices.SortFunc(unknown, func(a, b string) int { return cmp.Or(e.line(a)-e.line(b), strings.Compare(a, b)) })
-	for _, k := range unknown {
-		msg := fmt.Sprintf("unknown key %q; see the job file format with turnwise sheet --help", k)
-		if s := closest(strings.ReplaceAll(k, "_", "-"), jobCoilKeys); s != "" {
-			msg = fmt.Sprintf("unknown key %q; did you mean %s?", k, s)
-		}
-		e.fail(k, "", errors.New(msg))
+	for _, k := range unknownKeys(m, jobCoilKeys, e.line) {
+		e.fail(k, "", unknownKeyError(k, strings.ReplaceAll(k, "_", "-"), jobCoilKeys, "see the job file format with turnwise sheet --help"))
 		e.typo = true
 	}
 
