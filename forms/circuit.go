@@ -245,11 +245,7 @@ func loadCircuit(l *jobLoader, doc map[string]any) *Circuit {
 		if slices.Contains(circuitTopKeys, k) {
 			continue
 		}
-		msg := fmt.Sprintf("unknown key %q; a circuit file takes title, notes, [[coil]], [[capacitor]], [[inductor]], [[resistor]], [[coupling]], [[port]] and [load]", k)
-		if s := closest(k, circuitTopKeys); s != "" {
-			msg = fmt.Sprintf("unknown key %q; did you mean %s?", k, s)
-		}
-		top.fail(k, "", errors.New(msg))
+		top.fail(k, "", unknownKeyError(k, k, circuitTopKeys, "a circuit file takes title, notes, [[coil]], [[capacitor]], [[inductor]], [[resistor]], [[coupling]], [[port]] and [load]"))
 	}
 	if s, ok := top.str("title", false, `"HF+VHF front end"`); ok {
 		c.Title = strings.TrimSpace(s)
@@ -348,19 +344,8 @@ func (l *jobLoader) entry(table string, i int, m map[string]any, allowed []strin
 	if n, ok := m["name"].(string); ok && strings.TrimSpace(n) != "" {
 		e.label = fmt.Sprintf("%s %q", table, strings.TrimSpace(n))
 	}
-	var unknown []string
-	for k := range m {
-		if !slices.Contains(allowed, k) {
-			unknown = append(unknown, k)
-		}
-	}
-	slices.SortFunc(unknown, func(a, b string) int { return cmp.Or(e.line(a)-e.line(b), strings.Compare(a, b)) })
-	for _, k := range unknown {
-		msg := fmt.Sprintf("unknown key %q; a [[%s]] takes %s", k, table, strings.Join(allowed, ", "))
-		if s := closest(k, allowed); s != "" {
-			msg = fmt.Sprintf("unknown key %q; did you mean %s?", k, s)
-		}
-		e.fail(k, "", errors.New(msg))
+	for _, k := range unknownKeys(m, allowed, e.line) {
+		e.fail(k, "", unknownKeyError(k, k, allowed, fmt.Sprintf("a [[%s]] takes %s", table, strings.Join(allowed, ", "))))
 		e.typo = true
 	}
 	return e, ce

@@ -48,15 +48,10 @@ func (l *jobLoader) circuitCoil(i int, m map[string]any) CircuitCoil {
 		l.winding(e, &jc)
 		if _, ok := m["turns"]; !ok {
 			e.missing(errors.New(`add turns = 5 (or job = "file.toml" with coil = "name" to use a job file's coil)`))
-		} else if n, ok := e.number("turns", "5"); ok && (n <= 0 || math.Abs(n*4-math.Round(n*4)) > 1e-9) {
-			e.fail("turns", "turns", fmt.Errorf("%g is not a positive number of quarter turns; e.g. turns = 5.25", n))
+		} else if n := jc.Winding.Turns; n != nil && !quarterTurns(*n) {
+			e.fail("turns", "turns", fmt.Errorf("%g is not a positive number of quarter turns; e.g. turns = 5.25", *n))
 		}
-		if m["mandrel"] == nil && m["former"] == nil {
-			e.missing(errors.New(`add mandrel = "6mm drill" (self-supporting) or former = "pvc 20mm" (the coil stays on it)`))
-		}
-		if m["wire"] == nil {
-			e.missing(errors.New(`add wire = "1mm" (a gauge, a bare diameter or a stock wire name)`))
-		}
+		e.needWinding(m["mandrel"] == nil && m["former"] == nil)
 		c.Winding = &jc
 	}
 	_, hasTap := m["tap"]
@@ -67,7 +62,7 @@ func (l *jobLoader) circuitCoil(i int, m map[string]any) CircuitCoil {
 		if !ok {
 			break
 		}
-		if n <= 0 || math.Abs(n*4-math.Round(n*4)) > 1e-9 {
+		if !quarterTurns(n) {
 			e.fail("tap", "tap", fmt.Errorf("%g is not a positive number of quarter turns from the cold end; e.g. tap = 3.25", n))
 			break
 		}

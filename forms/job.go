@@ -303,11 +303,7 @@ func (l *jobLoader) load(doc map[string]any) *Job {
 		if slices.Contains(jobTopKeys, k) {
 			continue
 		}
-		msg := fmt.Sprintf("unknown key %q; a job file takes %s and [[coil]] sections", k, strings.Join(jobTopKeys[:len(jobTopKeys)-1], ", "))
-		if s := closest(k, jobTopKeys); s != "" {
-			msg = fmt.Sprintf("unknown key %q; did you mean %s?", k, s)
-		}
-		top.fail(k, "", errors.New(msg))
+		top.fail(k, "", unknownKeyError(k, k, jobTopKeys, fmt.Sprintf("a job file takes %s and [[coil]] sections", strings.Join(jobTopKeys[:len(jobTopKeys)-1], ", "))))
 	}
 
 	if s, ok := top.str("title", true, `"Club build night"`); ok {

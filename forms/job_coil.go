@@ -1,11 +1,9 @@
 package forms
 
 import (
-	"cmp"
 	"errors"
 	"fmt"
 	"math"
-	"slices"
 	"strings"
 	"turnwise/internal/quantity"
 
@@ -35,19 +33,8 @@ func (l *jobLoader) coil(i int, m map[string]any) JobCoil {
 		c.Name = strings.TrimSpace(n)
 		e.label = c.Label()
 	}
-	var unknown []string
-	for k := range m {
-		if !slices.Contains(jobCoilKeys, k) {
-			unknown = append(unknown, k)
-		}
-	}
-	slices.SortFunc(unknown, func(a, b string) int { return cmp.Or(e.line(a)-e.line(b), strings.Compare(a, b)) })
-	for _, k := range unknown {
-		msg := fmt.Sprintf("unknown key %q; see the job file format with turnwise sheet --help", k)
-		if s := closest(strings.ReplaceAll(k, "_", "-"), jobCoilKeys); s != "" {
-			msg = fmt.Sprintf("unknown key %q; did you mean %s?", k, s)
-		}
-		e.fail(k, "", errors.New(msg))
+	for _, k := range unknownKeys(m, jobCoilKeys, e.line) {
+		e.fail(k, "", unknownKeyError(k, strings.ReplaceAll(k, "_", "-"), jobCoilKeys, "see the job file format with turnwise sheet --help"))
 		e.typo = true
 	}
 
@@ -216,14 +203,24 @@ func (l *jobLoader) target(e *jobEntry, c *JobCoil) {
 	}
 	if hasTurns {
 		w := &c.Winding
-		if w.Mandrel == "" && w.Former == "" && e.m["mandrel"] == nil && e.m["former"] == nil {
-			e.missing(errors.New(`add mandrel = "6mm drill" (self-supporting) or former = "pvc 20mm" (the coil stays on it)`))
-		}
-		if e.m["wire"] == nil {
-			e.missing(errors.New(`add wire = "1mm" (a gauge, a bare diameter or a stock wire name)`))
-		}
+		e.needWinding(w.Mandrel == "" && w.Former == "" && e.m["mandrel"] == nil && e.m["former"] == nil)
 	}
 }
+
+// needWinding reports the keys a fixed winding cannot do without: the
+// wire, and the mandrel or former when noForm.
+func (e *jobEntry) needWinding(noForm bool) {
+	if noForm {
+		e.missing(errors.New(`add mandrel = "6mm drill" (self-supporting) or former = "pvc 20mm" (the coil stays on it)`))
+	}
+	if e.m["wire"] == nil {
+		e.missing(errors.New(`add wire = "1mm" (a gauge, a bare diameter or a stock wire name)`))
+	}
+}
+
+// quarterTurns reports whether n is a positive whole number of quarter
+// turns, the resolution of turns and taps.
+func quarterTurns(n float64) bool { return n > 0 && math.Abs(n*4-math.Round(n*4)) <= 1e-9 }
 
 func (l *jobLoader) tap(e *jobEntry, c *JobCoil) {
 	_, hasTurns := e.m["tap"]
@@ -241,7 +238,7 @@ func (l *jobLoader) tap(e *jobEntry, c *JobCoil) {
 		if !ok {
 			return
 		}
-		if n <= 0 || math.Abs(n*4-math.Round(n*4)) > 1e-9 {
+		if !quarterTurns(n) {
 			e.fail("tap", "tap", fmt.Errorf("%g is not a positive number of quarter turns from the cold end; e.g. tap = 2.5", n))
 			return
 		}

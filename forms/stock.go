@@ -228,24 +228,33 @@ func (l *stockLoader) entry(section string, i int, m map[string]any) *stockEntry
 		e.label = fmt.Sprintf("%s %q", section, n)
 	}
 	// Unknown keys first, in file order.
-	var unknown []string
-	for k := range m {
-		if !slices.Contains(stockKeys[section], k) {
-			unknown = append(unknown, k)
-		}
-	}
-	slices.SortFunc(unknown, func(a, b string) int {
-		return cmp.Or(e.line(a)-e.line(b), strings.Compare(a, b))
-	})
-	for _, k := range unknown {
-		msg := fmt.Sprintf("unknown key %q; [[%s]] takes %s", k, section, strings.Join(stockKeys[section], ", "))
-		if s := closest(k, stockKeys[section]); s != "" {
-			msg = fmt.Sprintf("unknown key %q; did you mean %s?", k, s)
-		}
-		e.fail(k, "", errors.New(msg))
+	for _, k := range unknownKeys(m, stockKeys[section], e.line) {
+		e.fail(k, "", unknownKeyError(k, k, stockKeys[section], fmt.Sprintf("[[%s]] takes %s", section, strings.Join(stockKeys[section], ", "))))
 		e.typo = true
 	}
 	return e
+}
+
+// unknownKeys returns the keys of m that are not in allowed, in file order
+// (line gives a key's line).
+func unknownKeys(m map[string]any, allowed []string, line func(string) int) []string {
+	var unknown []string
+	for k := range m {
+		if !slices.Contains(allowed, k) {
+			unknown = append(unknown, k)
+		}
+	}
+	slices.SortFunc(unknown, func(a, b string) int { return cmp.Or(line(a)-line(b), strings.Compare(a, b)) })
+	return unknown
+}
+
+// unknownKeyError reports key k as unknown: it names the allowed key
+// nearest to guess (k as the reader spells keys), or else gives hint.
+func unknownKeyError(k, guess string, allowed []string, hint string) error {
+	if s := closest(guess, allowed); s != "" {
+		return fmt.Errorf("unknown key %q; did you mean %s?", k, s)
+	}
+	return fmt.Errorf("unknown key %q; %s", k, hint)
 }
 
 // missing reports a required key that is absent, unless an unknown key

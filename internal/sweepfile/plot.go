@@ -50,13 +50,7 @@ func Plot(w io.Writer, format, title string, pts []sweep.Point, curves []Curve) 
 	fmax := 0.0
 	var mz, mq plotter.XYs
 	for _, p := range pts {
-		x := p.Frequency / 1e6
-		if a := cmplx.Abs(p.Z); a > 0 && !math.IsInf(a, 0) {
-			mz = append(mz, plotter.XY{X: x, Y: a})
-		}
-		if q := imag(p.Z) / real(p.Z); real(p.Z) > 0 && q > 0 && q < 1e5 {
-			mq = append(mq, plotter.XY{X: x, Y: q})
-		}
+		mz, mq = appendZQ(mz, mq, p.Frequency, p.Z)
 		fmax = math.Max(fmax, p.Frequency)
 	}
 	for i, set := range []struct {
@@ -82,13 +76,7 @@ func Plot(w io.Writer, format, title string, pts []sweep.Point, curves []Curve) 
 		fmin := pts[0].Frequency
 		for i := range 400 {
 			f := fmin * math.Pow(fmax/fmin, float64(i)/399)
-			z := c.Z(f)
-			if a := cmplx.Abs(z); a > 0 && !math.IsInf(a, 0) && !math.IsNaN(a) {
-				cz = append(cz, plotter.XY{X: f / 1e6, Y: a})
-			}
-			if q := imag(z) / real(z); real(z) > 0 && q > 0 && q < 1e5 {
-				cq = append(cq, plotter.XY{X: f / 1e6, Y: q})
-			}
+			cz, cq = appendZQ(cz, cq, f, c.Z(f))
 		}
 		for i, set := range []struct {
 			p  *plot.Plot
@@ -129,4 +117,18 @@ func Plot(w io.Writer, format, title string, pts []sweep.Point, curves []Curve) 
 	bottom.Draw(cs[1][0])
 	_, err := dc.WriteTo(w)
 	return err
+}
+
+// appendZQ adds |z| and Q = X/R at f (plotted in MHz) to zs and qs, each
+// only where it can be drawn: |z| finite and positive for the log axis, Q
+// positive and below 1e5.
+func appendZQ(zs, qs plotter.XYs, f float64, z complex128) (plotter.XYs, plotter.XYs) {
+	x := f / 1e6
+	if a := cmplx.Abs(z); a > 0 && !math.IsInf(a, 0) {
+		zs = append(zs, plotter.XY{X: x, Y: a})
+	}
+	if q := imag(z) / real(z); real(z) > 0 && q > 0 && q < 1e5 {
+		qs = append(qs, plotter.XY{X: x, Y: q})
+	}
+	return zs, qs
 }
