@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"strings"
@@ -116,9 +115,7 @@ func WriteDesignJSON(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, re
 		doc.Pareto = append(doc.Pareto, newDesignCandidateRecord(cat, so, rows, i+1, c))
 	}
 	doc.Search = designSearchRecord{res.Stats.Pairs, res.Stats.Searched, res.Stats.Coils, res.Stats.Evaluations}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(doc)
+	return writeJSON(w, doc)
 }
 
 func orDefault(v, def float64) float64 {

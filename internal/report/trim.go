@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
@@ -585,9 +584,7 @@ func WriteTrimJSON(w io.Writer, res *Trim) error {
 	}
 	d.Coil = NewCoilRecord(res.Coil, res.Spec)
 	d.Warnings = res.Warnings
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(d)
+	return writeJSON(w, d)
 }
 
 // Trim is trim.Plan's result with what the writers need besides: the
