@@ -28,7 +28,14 @@ var demoJob = filepath.Join("..", "..", "testdata", "club-night.toml")
 
 func loadDemo(t *testing.T) (*forms.Job, *forms.Catalog) {
 	t.Helper()
-	job, err := spec.LoadJob(demoJob)
+	return loadJob(t, demoJob)
+}
+
+// loadJob reads a job file and its catalog as the sheet command does, with
+// no stock or wire-table overrides.
+func loadJob(t *testing.T, file string) (*forms.Job, *forms.Catalog) {
+	t.Helper()
+	job, err := spec.LoadJob(file)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -422,14 +429,7 @@ func TestJobStock(t *testing.T) {
 	if err := os.WriteFile(jobFile, []byte(job), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	j, err := spec.LoadJob(jobFile)
-	if err != nil {
-		t.Fatal(err)
-	}
-	cat, err := spec.JobCatalog(j, "", "", false)
-	if err != nil {
-		t.Fatal(err)
-	}
+	j, cat := loadJob(t, jobFile)
 	cs, err := spec.ResolveJobCoil(j, &j.Coils[0], cat)
 	if err != nil {
 		t.Fatal(err)
@@ -497,14 +497,7 @@ func TestSheetTankCap(t *testing.T) {
 	if _, stderr, code := runCLI(t, "sheet", jobFile, "-o", out); code != exitOK {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
-	j, err := spec.LoadJob(jobFile)
-	if err != nil {
-		t.Fatal(err)
-	}
-	cat, err := spec.JobCatalog(j, "", "", false)
-	if err != nil {
-		t.Fatal(err)
-	}
+	j, cat := loadJob(t, jobFile)
 	c, _, err := spec.JobSheetCoil(j, &j.Coils[0], cat, quantity.LengthFormat{})
 	if err != nil || c.Thermal == nil || c.Thermal.Tank == nil {
 		t.Fatalf("%v, %+v: want a tank drift", err, c.Thermal)
@@ -578,14 +571,7 @@ func TestSheetBandTrimmer(t *testing.T) {
 		}
 	}
 	// The coil on the page, from the same search.
-	j, err := spec.LoadJob(jobFile)
-	if err != nil {
-		t.Fatal(err)
-	}
-	cat, err := spec.JobCatalog(j, "", "", false)
-	if err != nil {
-		t.Fatal(err)
-	}
+	j, cat := loadJob(t, jobFile)
 	_, cand, _, err := spec.DesignJobCoil(j, &j.Coils[0], cat)
 	if err != nil {
 		t.Fatal(err)

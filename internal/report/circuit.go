@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"math/cmplx"
@@ -152,9 +151,7 @@ func WriteCircuitJSON(w io.Writer, r *spec.CircuitResult) error {
 		out.Passband = &circuitPassbandJSON{Peak: pb.Peak, InsertionLoss: -pb.PeakDB, Low: pb.Low, High: pb.High}
 	}
 	out.Warnings = append(out.Warnings, r.Warnings...)
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(out)
+	return writeJSON(w, out)
 }
 
 // WriteCircuitTable writes the result as tables.

@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"strings"
@@ -116,9 +115,7 @@ func WriteDesignJSON(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, re
 		doc.Pareto = append(doc.Pareto, newDesignCandidateRecord(cat, so, rows, i+1, c))
 	}
 	doc.Search = designSearchRecord{res.Stats.Pairs, res.Stats.Searched, res.Stats.Coils, res.Stats.Evaluations}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(doc)
+	return writeJSON(w, doc)
 }
 
 func orDefault(v, def float64) float64 {
@@ -140,7 +137,7 @@ func orDefaultString(v, def string) string {
 // and the Pareto list.
 func WriteDesignTable(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, res design.Result, lf quantity.LengthFormat) error {
 	f := float64(res.Frequency)
-	tol := fmt.Sprintf("± %.3g %%", res.Tolerance*100)
+	tol := "± " + quantity.FormatPercent(res.Tolerance)
 	leads := "2 × " + lf.Format(float64(so.Leads)) + " leads"
 	if res.Band != nil {
 		writeBandTarget(w, res.Band, leads)
@@ -171,7 +168,7 @@ func WriteDesignTable(w io.Writer, cat *forms.Catalog, so *spec.SearchOptions, r
 	if f > 0 {
 		limits = append(limits, fmt.Sprintf("SRF ≥ %g × f", orDefault(so.MinSRFRatio, design.DefaultSRFRatio)))
 	}
-	limits = append(limits, fmt.Sprintf("target inside the trim window by %.3g %%", orDefault(so.TrimMargin, design.DefaultTrimMargin)*100))
+	limits = append(limits, "target inside the trim window by "+quantity.FormatPercent(orDefault(so.TrimMargin, design.DefaultTrimMargin)))
 	fmt.Fprintf(w, "LIMITS  %s\n", strings.Join(limits, "; "))
 	fmt.Fprintf(w, "SEARCH  %d support × wire pairs, %d opened, %d coils solved\n", res.Stats.Pairs, res.Stats.Searched, res.Stats.Coils)
 

@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"text/tabwriter"
@@ -109,9 +108,7 @@ func FitWarnings(f *sweep.Fit) []string {
 
 // WriteFitJSON writes the record.
 func WriteFitJSON(w io.Writer, r FitRecord) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(r)
+	return writeJSON(w, r)
 }
 
 // WriteFitText writes the fit as a table.

@@ -128,7 +128,7 @@ func JobInputs(job *forms.Job) []string {
 	rel := func(p string) {
 		out = append(out, p)
 		if !filepath.IsAbs(p) {
-			out = append(out, filepath.Join(filepath.Dir(job.File), p))
+			out = append(out, spec.JobPath(job, p))
 		}
 	}
 	if job.Stock != "" {

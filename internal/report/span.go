@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
@@ -383,9 +382,7 @@ func WriteSpanJSON(w io.Writer, s spec.Spec, set spec.SpanSettings, out spec.Spa
 	if err != nil {
 		return err
 	}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(rec)
+	return writeJSON(w, rec)
 }
 
 // writeSpanChart draws both ranges against the dial in text: frequency on

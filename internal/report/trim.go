@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
@@ -496,6 +495,24 @@ type TrimRecord struct {
 
 func ptr(v float64) *float64 { return &v }
 
+// resonancesJSON lists resonance readings in SI units (nil for none).
+func resonancesJSON(rs []trim.Resonance) []resonanceJSON {
+	var out []resonanceJSON
+	for _, r := range rs {
+		out = append(out, resonanceJSON{float64(r.Frequency), float64(r.Capacitance)})
+	}
+	return out
+}
+
+// senseName is the JSON word for which inductance a value is: the
+// effective one at frequency, or the terminal one.
+func senseName(effective bool) string {
+	if effective {
+		return "effective"
+	}
+	return "terminal"
+}
+
 func WriteTrimJSON(w io.Writer, res *Trim) error {
 	cal, r, c, m := res.Calibration, res.Calibration.Reading, res.Correction, res.Meas
 	g := res.Coil.Geometry
@@ -509,12 +526,10 @@ func WriteTrimJSON(w io.Writer, res *Trim) error {
 	if m.Kind == trim.MeasureDirect {
 		d.Measurement.Reading = float64(m.Inductance)
 	}
-	for _, rs := range m.Resonances {
-		d.Measurement.Resonances = append(d.Measurement.Resonances, resonanceJSON{float64(rs.Frequency), float64(rs.Capacitance)})
-	}
+	d.Measurement.Resonances = resonancesJSON(m.Resonances)
 	d.MeasuredInductance = float64(r.Inductance)
 	d.MeasuredInductanceUncertainty = r.Uncertainty
-	d.MeasuredSense = map[bool]string{true: "effective", false: "terminal"}[r.Effective]
+	d.MeasuredSense = senseName(r.Effective)
 	d.MeasurementFrequency = float64(r.Frequency)
 	if r.Kind == trim.MeasureTwoCapacitor {
 		d.StrayCapacitance = ptr(float64(r.TotalStray))
@@ -540,7 +555,7 @@ func WriteTrimJSON(w io.Writer, res *Trim) error {
 	d.Residual = cal.Residual
 
 	d.TargetInductance, d.TargetFrequency = float64(c.Target), float64(res.Target.Frequency)
-	d.TargetSense = map[bool]string{true: "effective", false: "terminal"}[res.Target.Effective]
+	d.TargetSense = senseName(res.Target.Effective)
 	d.TargetSource = res.Aim.Source.String()
 	if res.Aim.Source == trim.TargetResonance {
 		d.TargetResonance, d.TargetCapacitance = ptr(float64(res.Aim.Resonance)), ptr(float64(res.Aim.Capacitance))
@@ -560,9 +575,7 @@ func WriteTrimJSON(w io.Writer, res *Trim) error {
 	d.TrimLengthPerPercent = float64(c.LengthPerPercent)
 	d.NewWireLength = float64(res.After.WireLength)
 	d.NextMeasurement.Inductance = float64(res.Next.Inductance)
-	for _, rs := range res.Next.Resonances {
-		d.NextMeasurement.Resonances = append(d.NextMeasurement.Resonances, resonanceJSON{float64(rs.Frequency), float64(rs.Capacitance)})
-	}
+	d.NextMeasurement.Resonances = resonancesJSON(res.Next.Resonances)
 	if t := res.Tap; t != nil {
 		tj := &trimTapJSON{TapTurns: t.Turns, NewTapTurns: t.NewTurns, RatioWanted: t.WantRatio, RatioAsBuilt: t.RatioBefore,
 			RatioAfter: t.RatioAfter, RatioOffset: t.Offset}
@@ -585,9 +598,7 @@ func WriteTrimJSON(w io.Writer, res *Trim) error {
 	}
 	d.Coil = NewCoilRecord(res.Coil, res.Spec)
 	d.Warnings = res.Warnings
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(d)
+	return writeJSON(w, d)
 }
 
 // Trim is trim.Plan's result with what the writers need besides: the

@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"io"
 	"runtime"
 )
@@ -9,9 +8,7 @@ import (
 // WriteVersionJSON prints `turnwise version --json`: the version, the Go
 // version it was built with and the platform.
 func WriteVersionJSON(w io.Writer, version string) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(struct {
+	return writeJSON(w, struct {
 		Schema   int      `json:"schema"`
 		Version  string   `json:"version"`
 		Go       string   `json:"go"`

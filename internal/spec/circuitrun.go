@@ -290,10 +290,7 @@ func (r *CircuitResult) SheetCircuit() *sheets.Circuit {
 // JobCircuitPage computes a circuit named in a job file (its path relative
 // to the job file) for the build sheet, with the circuit file's own bands.
 func JobCircuitPage(job *forms.Job, path, stockPath, use string, stockGiven bool) (*sheets.Circuit, error) {
-	full := path
-	if !filepath.IsAbs(full) {
-		full = filepath.Join(filepath.Dir(job.File), path)
-	}
+	full := JobPath(job, path)
 	c, err := LoadCircuitFile(full)
 	if err != nil {
 		var ue *UsageError

@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"os"
-	"path/filepath"
 	"sort"
 	"strings"
 
@@ -186,11 +185,10 @@ func JobStock(job *forms.Job, path, use string, flagsGiven bool) (string, string
 	if flagsGiven || (job.Stock == "" && job.Use == "") {
 		return path, use
 	}
-	path = job.Stock
-	if path != "" && !filepath.IsAbs(path) {
-		path = filepath.Join(filepath.Dir(job.File), path)
+	if job.Stock == "" {
+		return "", job.Use
 	}
-	return path, job.Use
+	return JobPath(job, job.Stock), job.Use
 }
 
 // CouplerMap maps a job's [coupler] (forms.JobCoupler) as `turnwise match`
@@ -201,10 +199,7 @@ func CouplerMap(ctx context.Context, job *forms.Job, stockPath, use string, flag
 	fail := func(key string, err error) error {
 		return &forms.ParseError{Kind: "job", File: job.File, Line: jc.Line, Field: "coupler: " + key, Err: err}
 	}
-	path := jc.Circuit
-	if !filepath.IsAbs(path) {
-		path = filepath.Join(filepath.Dir(job.File), path)
-	}
+	path := JobPath(job, jc.Circuit)
 	if _, err := os.Stat(path); err != nil {
 		return nil, nil, nil, fail("circuit", fmt.Errorf("%q (read as %s) cannot be read; the path is relative to the job file", jc.Circuit, path))
 	}

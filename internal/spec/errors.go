@@ -38,16 +38,20 @@ func (e *FlagError) Error() string {
 }
 func (e *FlagError) Unwrap() error { return e.Err }
 
+// withFlag wraps err in a *FlagError when it is a *coil.InputError whose
+// Param flags maps to a flag (ok true); otherwise it returns err as it is.
+// It is the one mechanism behind each command's parameter-to-flag table.
+func withFlag(err error, flags map[string]string) (_ error, ok bool) {
+	ie, isInput := errors.AsType[*coil.InputError](err)
+	if !isInput || flags[ie.Param] == "" {
+		return err, false
+	}
+	return &FlagError{Flag: flags[ie.Param], Err: err}, true
+}
+
 // SweepFlagError names the flag of fit and trim --sweep a sweep error
 // belongs to.
 func SweepFlagError(err error) error {
-	ie, ok := errors.AsType[*coil.InputError](err)
-	if !ok {
-		return err
-	}
-	flag := map[string]string{"fixture": "fixture", "open": "open", "short": "short", "freq": "freq", "fit_range": "fit-to"}[ie.Param]
-	if flag == "" {
-		return err
-	}
-	return &FlagError{Flag: flag, Err: err}
+	err, _ = withFlag(err, map[string]string{"fixture": "fixture", "open": "open", "short": "short", "freq": "freq", "fit_range": "fit-to"})
+	return err
 }

@@ -76,10 +76,7 @@ func JobCatalog(job *forms.Job, path, use string, flagsGiven bool) (*forms.Catal
 	if flagsGiven || (job.Stock == "" && job.Use == "") {
 		return LoadCatalog(path, use)
 	}
-	path, use = job.Stock, job.Use
-	if path != "" && !filepath.IsAbs(path) {
-		path = filepath.Join(filepath.Dir(job.File), path)
-	}
+	path, use = JobStock(job, path, use, flagsGiven)
 	cat, err := LoadCatalog(path, use)
 	if err != nil {
 		var ue *UsageError
@@ -89,6 +86,15 @@ func JobCatalog(job *forms.Job, path, use string, flagsGiven bool) (*forms.Catal
 		}
 	}
 	return cat, err
+}
+
+// JobPath is a path named in a job file as read: an absolute path as it
+// stands, a relative one taken from the job file's directory.
+func JobPath(job *forms.Job, p string) string {
+	if filepath.IsAbs(p) {
+		return p
+	}
+	return filepath.Join(filepath.Dir(job.File), p)
 }
 
 // fixedWinding refuses a coil entry that is a design target.

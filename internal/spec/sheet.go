@@ -8,7 +8,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"path/filepath"
 	"strings"
 	"turnwise/coil"
 	"turnwise/coil/design"
@@ -298,8 +297,8 @@ func spanJobCoil(job *forms.Job, jc *forms.JobCoil, g coil.Geometry, tap *sheets
 		return nil, nil, nil, JobFieldError(job, jc, "gang", errors.New("a gang of 0 pF leaves section A with no capacitor; give the capacitor's minimum and maximum per section, e.g. 15-365pF"))
 	}
 	law := js.Law
-	if _, named := tuning.ParseLaw(law); !named && !filepath.IsAbs(law) {
-		law = filepath.Join(filepath.Dir(job.File), law)
+	if _, named := tuning.ParseLaw(law); !named {
+		law = JobPath(job, law)
 	}
 	set := SpanSettings{
 		GangA: [2]float64{float64(js.GangA.Min), float64(js.GangA.Max)}, GangB: [2]float64{float64(js.GangB.Min), float64(js.GangB.Max)},

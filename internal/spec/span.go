@@ -130,24 +130,18 @@ func BuildSpan(g coil.Geometry, s SpanSettings) (SpanOutcome, error) {
 
 // spanFlagError names the span flag a coil.InputError belongs to.
 func spanFlagError(err error, gangBSet bool) error {
-	var ie *coil.InputError
-	if !errors.As(err, &ie) {
-		return err
-	}
 	gangB := "gang-b"
 	if !gangBSet {
 		gangB = "gang"
 	}
-	flag := map[string]string{
+	flags := map[string]string{
 		"tap_turns": "tap", "gang_a": "gang", "gang_b": gangB, "gang_a_law": "law", "gang_b_law": "law",
 		"gang_a_table": "law", "gang_b_table": "law", "gang_a_trimmer": "trim-a", "gang_b_trimmer": "trim-b",
 		"gang_a_stray": "stray-a", "gang_b_stray": "stray-b", "steps": "steps", "loaded_q": "loaded-q",
 		"margin": "margin", "band": "band", "max_harmonic": "max-harmonic", "bandspread": "bandspread", "turns_range": "max-turns",
-	}[ie.Param]
-	if flag == "" {
-		return err
 	}
-	return &FlagError{Flag: flag, Err: err}
+	err, _ = withFlag(err, flags)
+	return err
 }
 
 // DescribeLaw names a section's capacitance law.

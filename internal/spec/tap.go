@@ -71,13 +71,7 @@ func PlanTap(g coil.Geometry, f unit.Frequency, in TapGoalInput) (TapPlan, error
 
 // TapLoadError names the flag of a coil.TapForLoad refusal.
 func TapLoadError(err error) error {
-	var ie *coil.InputError
-	if errors.As(err, &ie) {
-		flag := map[string]string{"loaded_q": "loaded-q", "tank_q": "tank-q", "tank_impedance": "tank-impedance", "frequency": "freq", "source": "source"}[ie.Param]
-		if flag != "" {
-			return &FlagError{Flag: flag, Err: err}
-		}
-	}
+	err, _ = withFlag(err, map[string]string{"loaded_q": "loaded-q", "tank_q": "tank-q", "tank_impedance": "tank-impedance", "frequency": "freq", "source": "source"})
 	return err
 }
 

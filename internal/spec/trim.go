@@ -341,11 +341,10 @@ func (tc TrimCoil) coilError(err error) error {
 // TrimError names the flag (or job key) an error of trim.Plan belongs to.
 // via is the flag the measurement came from.
 func TrimError(via string, tc TrimCoil, err error) error {
-	var ie *coil.InputError
-	if !errors.As(err, &ie) {
+	if _, ok := errors.AsType[*coil.InputError](err); !ok {
 		return err
 	}
-	flag := map[string]string{
+	flags := map[string]string{
 		"frequency":           "freq",
 		"target":              "target",
 		"tap_turns":           "tap",
@@ -361,11 +360,11 @@ func TrimError(via string, tc TrimCoil, err error) error {
 		"fixture_lead_length": "fixture-leads",
 		"measured_bottom":     "measured-bottom",
 		"measured_top":        "measured-top",
-	}[ie.Param]
-	if flag == "" {
-		return tc.coilError(err)
 	}
-	return &FlagError{Flag: flag, Err: err}
+	if fe, ok := withFlag(err, flags); ok {
+		return fe
+	}
+	return tc.coilError(err)
 }
 
 // TrimSweepFit is a sweep's fit as trim's reading.
