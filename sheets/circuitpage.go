@@ -53,6 +53,20 @@ var (
 	resColour = color.RGBA{R: 200, G: 60, B: 40, A: 255}
 )
 
+// freqTicks labels a frequency axis as a builder reads it ("145 MHz"), not
+// in the plot library's exponent form ("1.45e+08").
+type freqTicks struct{ plot.Ticker }
+
+func (t freqTicks) Ticks(min, max float64) []plot.Tick {
+	ts := t.Ticker.Ticks(min, max)
+	for i := range ts {
+		if ts[i].Label != "" {
+			ts[i].Label = quantity.FormatShort(ts[i].Value, "Hz")
+		}
+	}
+	return ts
+}
+
 // PlotCircuit draws the response (|Z| or |S21| against frequency) with the
 // bands shaded and the resonances marked, as "svg" or "png" of the given
 // size in millimetres.
@@ -62,7 +76,8 @@ func PlotCircuit(w io.Writer, c *Circuit, format string, widthMM, heightMM float
 	}
 	p := plot.New()
 	p.Title.Text = c.Title
-	p.X.Label.Text = "frequency (Hz)"
+	p.X.Label.Text = "frequency"
+	p.X.Tick.Marker = freqTicks{plot.DefaultTicks{}}
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, v := range c.Values {
 		if !finite(v) {
@@ -86,7 +101,7 @@ func PlotCircuit(w io.Writer, c *Circuit, format string, widthMM, heightMM float
 	}
 	if c.LogX {
 		p.X.Scale = plot.LogScale{}
-		p.X.Tick.Marker = plot.LogTicks{Prec: -1}
+		p.X.Tick.Marker = freqTicks{plot.LogTicks{Prec: -1}}
 	}
 	fmin, fmax := c.Freqs[0], c.Freqs[len(c.Freqs)-1]
 	for _, b := range c.Bands {
