@@ -255,7 +255,7 @@ func WriteTrimTable(w io.Writer, res *Trim) error {
 	if m.FixtureLeadLength > 0 {
 		row("fixture leads", "2 × "+lf.Format(float64(m.FixtureLeadLength))+" of extra wire (in the model for the reading)")
 	}
-	row("inductance", fmt.Sprintf("%s ± %.1f %%  (%s)", quantity.FormatEng(float64(r.Inductance), "H", 4), r.Uncertainty*100, senseText(r)))
+	row("inductance", fmt.Sprintf("%s ± %s  (%s)", quantity.FormatEng(float64(r.Inductance), "H", 4), uncertaintyPct(r.Uncertainty), senseText(r)))
 	if r.Kind == trim.MeasureTwoCapacitor {
 		row("capacitance across it", fmt.Sprintf("%s ± %s  (fixture stray + self-capacitance)", signedFarads(float64(r.TotalStray)), quantity.FormatCapacitance(float64(r.TotalStrayUncertainty))))
 		if u1 := r.StrayUncertaintyOnePercent; u1 > 0 {
@@ -611,4 +611,14 @@ type Trim struct {
 	Warnings    []string
 	Saved       *SavedCalibration
 	LF          quantity.LengthFormat
+}
+
+// uncertaintyPct prints a relative uncertainty to one decimal of a percent,
+// or to two significant figures when it is finer than that (a fitted sweep's
+// ±0.016 %), so it never reads as "± 0.0 %".
+func uncertaintyPct(u float64) string {
+	if u*100 >= 0.1 {
+		return fmt.Sprintf("%.1f %%", u*100)
+	}
+	return fmt.Sprintf("%.2g %%", u*100)
 }
