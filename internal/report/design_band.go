@@ -148,13 +148,14 @@ func WriteLoadPlanLines(w io.Writer, p coil.LoadPlan, indent string, lf quantity
 	}
 }
 
-// writeBandTapLines prints a candidate's trimmer settings and tap.
+// writeBandTapLines prints a candidate's trimmer settings and tap. The two
+// settings keep three figures each ("6.10 pF", "5.46 pF") so they read alike.
 func writeBandTapLines(w io.Writer, c design.Candidate, res design.Result, lf quantity.LengthFormat) {
 	if b := c.Band; b != nil && res.Band != nil {
 		t := res.Band.Target
 		fmt.Fprintf(w, "    trimmer: %s at %s, %s at %s (range %s–%s; %.0f %% and %.0f %% of its swing left at the ends)\n",
-			quantity.FormatCapacitance(float64(b.TrimmerLow)), quantity.FormatFrequency(float64(t.Low)),
-			quantity.FormatCapacitance(float64(b.TrimmerHigh)), quantity.FormatFrequency(float64(t.High)),
+			quantity.FormatEng(float64(b.TrimmerLow), "F", 3), quantity.FormatFrequency(float64(t.Low)),
+			quantity.FormatEng(float64(b.TrimmerHigh), "F", 3), quantity.FormatFrequency(float64(t.High)),
 			quantity.FormatCapacitance(float64(t.TrimMin)), quantity.FormatCapacitance(float64(t.TrimMax)), b.MarginLow*100, b.MarginHigh*100)
 	}
 	if tp := c.Tapped; tp != nil {
