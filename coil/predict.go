@@ -191,7 +191,7 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	// the mounting's: the C across the winding that resonates it at that
 	// mounting's SRF.
 	rho := CopperResistivity(g.Temperature)
-	cs, srfG, inTable := c.SelfResonance(r, rho)
+	cs, srfG, inTable := c.SelfResonance()
 	srfF := c.FloatingResonance()
 	u, uf := SRFUncertainty, SRFFloatingUncertainty
 	if !inTable {
