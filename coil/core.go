@@ -150,7 +150,7 @@ type Loss struct {
 func (c *Core) LossAt(w *WireAt, helix, srf float64) Loss {
 	rr := w.F / srf
 	gr := 1 - rr*rr
-	lEff := w.Leads + c.CoilAt(w)/gr
+	lEff := c.Effective(w, srf)
 	prox := PartialProximity(ProximityFactor(c.LD, c.D/c.Pitch), w.Fs)
 	area := math.Pi * c.A * c.A
 	nAL := c.N * area / (w.Lambda * w.Lambda)
