@@ -107,9 +107,8 @@ func PartialProximity(phiMax, fs float64) float64 { return 1 + (phiMax-1)*(fs-1)
 // model was validated over (SRFValid), and the equivalent lumped
 // self-capacitance 1/(ω²L) at that frequency. The coil's own inductance
 // at the SRF comes from the DC value less its internal part (the skin
-// effect is developed at any practical SRF). r and rho are kept for the
-// callers' signature.
-func (c *Core) SelfResonance(r, rho float64) (cs, srf float64, inTable bool) {
+// effect is developed at any practical SRF).
+func (c *Core) SelfResonance() (cs, srf float64, inTable bool) {
 	srf = HelixSRF(c.N, c.Pitch, c.D, c.Dm, c.Km, true)
 	lSRF := c.LCoilDC - c.Internal
 	w := twoPi * srf
@@ -151,7 +150,7 @@ type Loss struct {
 func (c *Core) LossAt(w *WireAt, helix, srf float64) Loss {
 	rr := w.F / srf
 	gr := 1 - rr*rr
-	lEff := w.Leads + c.CoilAt(w)/gr
+	lEff := c.Effective(w, srf)
 	prox := PartialProximity(ProximityFactor(c.LD, c.D/c.Pitch), w.Fs)
 	area := math.Pi * c.A * c.A
 	nAL := c.N * area / (w.Lambda * w.Lambda)

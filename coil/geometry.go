@@ -222,11 +222,3 @@ func PitchForWindingLength(n float64, overall, length unit.Length) (unit.Length,
 	}
 	return unit.Length(p), nil
 }
-
-// HelixWireLength is the length of wire in the winding alone,
-// N·√((πD)² + p²).
-func (g *Geometry) HelixWireLength() unit.Length {
-	dm := float64(g.MeanDiameter())
-	p := float64(g.Pitch)
-	return unit.Length(g.Turns * math.Hypot(math.Pi*dm, p))
-}

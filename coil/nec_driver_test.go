@@ -312,7 +312,7 @@ func necCISubset() []necCoil {
 // grounded estimate by Medhurst's self-capacitance.
 func necStartFrequency(c necCoil) float64 {
 	core := NewCore(c.N, c.P, c.Wd, c.D, RosaMutual(c.N))
-	_, srf, _ := core.SelfResonance(c.Wd/2, CopperResistivity(0))
+	_, srf, _ := core.SelfResonance()
 	return 0.55 * srf
 }
 

@@ -148,9 +148,6 @@ func PredictMounted(g Geometry, f unit.Frequency, m Mounting) (Prediction, error
 // tuning range) use it. It allocates nothing.
 func Evaluate(p *Prediction, g *Geometry, f float64) { evaluate(p, g, f, Grounded) }
 
-// EvaluateMounted is Evaluate for mounting m.
-func EvaluateMounted(p *Prediction, g *Geometry, f float64, m Mounting) { evaluate(p, g, f, m) }
-
 // evaluate fills p for a validated geometry. It allocates nothing.
 func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	p.Geometry = *g
@@ -191,7 +188,7 @@ func evaluate(p *Prediction, g *Geometry, f float64, m Mounting) {
 	// the mounting's: the C across the winding that resonates it at that
 	// mounting's SRF.
 	rho := CopperResistivity(g.Temperature)
-	cs, srfG, inTable := c.SelfResonance(r, rho)
+	cs, srfG, inTable := c.SelfResonance()
 	srfF := c.FloatingResonance()
 	u, uf := SRFUncertainty, SRFFloatingUncertainty
 	if !inTable {

@@ -66,7 +66,7 @@ func selfCapacitancePerD(n, ld, pd float64) float64 {
 		return math.Inf(1)
 	}
 	c := NewCore(n, pitch, d, dm, RosaMutual(n))
-	cs, _, _ := c.SelfResonance(d/2, CopperResistivity(20))
+	cs, _, _ := c.SelfResonance()
 	return cs / dm
 }
 

@@ -394,20 +394,7 @@ func TestDesignBoundsHold(t *testing.T) {
 // within its stated slack.
 func TestDesignOptimalAgainstBruteForce(t *testing.T) {
 	t.Parallel()
-	sups := []Support{
-		{Name: "4mm", Diameter: 4e-3}, {Name: "6mm", Diameter: 6e-3}, {Name: "8mm", Diameter: 8e-3},
-		{Name: "tube 12", Diameter: 12e-3, OnFormer: true}, {Name: "tube 20", Diameter: 20e-3, OnFormer: true},
-	}
-	wires := []WireOption{
-		{Name: "0.63", Diameter: 0.63e-3, Overall: 0.68e-3}, {Name: "0.8", Diameter: 0.8e-3, Overall: 0.86e-3},
-		{Name: "1.0", Diameter: 1e-3, Overall: 1.06e-3}, {Name: "1.25", Diameter: 1.25e-3, Overall: 1.32e-3},
-		{Name: "1.0 silver", Diameter: 1e-3, Conductor: coil.SilverPlated}, {Name: "0.4", Diameter: 0.4e-3, Overall: 0.44e-3},
-	}
-	cases := []designCase{
-		{"vhf", Target{Resonance: 145e6, Capacitance: 22e-12}, Constraints{LeadLength: 5e-3, MaxLength: 15e-3}},
-		{"vhf small", Target{Inductance: 80e-9, Frequency: 100e6}, Constraints{LeadLength: 5e-3, Prefer: PreferSmall}},
-		{"hf", Target{Inductance: 2e-6, Frequency: 10e6}, Constraints{LeadLength: 10e-3, MaxDiameter: 22e-3}},
-	}
+	sups, wires, cases := bruteStock()
 	const steps = 600
 	for _, tc := range cases {
 		t.Run(tc.name, func(t *testing.T) {
@@ -422,47 +409,14 @@ func TestDesignOptimalAgainstBruteForce(t *testing.T) {
 			best, bestName := math.Inf(-1), ""
 			type pt struct{ q, vol float64 }
 			var feasible []pt
-			for _, sp := range sups {
-				for _, w := range wires {
-					if ok, _ := WireSuits(sp, w, &tc.c); !ok {
-						continue
-					}
-					do := float64(w.Overall)
-					if do == 0 {
-						do = float64(w.Diameter)
-					}
-					for n := s.minTurns; n <= 80; n += 0.25 {
-						g := coil.Geometry{FormerDiameter: sp.Diameter, WireDiameter: w.Diameter, WireOverall: w.Overall,
-							Conductor: w.Conductor, Turns: n, LeadLength: tc.c.LeadLength}
-						g.Pitch = unit.Length(do)
-						if matchedValue(tc.t, g) < s.required*(1+s.margin) {
-							continue
-						}
-						g.Pitch = unit.Length(coil.LoosestPitchFactor * do)
-						if matchedValue(tc.t, g) > s.required*(1-s.margin) {
-							break
-						}
-						for k := 0; k <= steps; k++ {
-							g.Pitch = unit.Length(do * math.Pow(coil.LoosestPitchFactor, float64(k)/steps))
-							if math.Abs(matchedValue(tc.t, g)/s.required-1) > 0.0025 {
-								continue
-							}
-							var p coil.Prediction
-							coil.Evaluate(&p, &g, s.opF)
-							if tc.c.MaxLength > 0 && p.WindingLength > tc.c.MaxLength || tc.c.MaxDiameter > 0 && p.OutsideDiameter > tc.c.MaxDiameter ||
-								float64(p.SRF) < s.srfRatio*s.opF {
-								continue
-							}
-							sc := testScore(p, tc.c.Prefer, s.srfRatio, w.Conductor == coil.Tinned)
-							if sc > best {
-								best, bestName = sc, fmt.Sprintf("%g turns of %s on %s at %.3g mm", n, w.Name, sp.Name, float64(g.Pitch)*1e3)
-							}
-							od := float64(p.OutsideDiameter)
-							feasible = append(feasible, pt{p.Q, math.Pi / 4 * od * od * float64(p.WindingLength)})
-						}
-					}
+			bruteForce(tc.t, &tc.c, s, steps, func(p coil.Prediction, g coil.Geometry, sp Support, w WireOption) {
+				sc := testScore(p, tc.c.Prefer, s.srfRatio, w.Conductor == coil.Tinned)
+				if sc > best {
+					best, bestName = sc, fmt.Sprintf("%g turns of %s on %s at %.3g mm", g.Turns, w.Name, sp.Name, float64(g.Pitch)*1e3)
 				}
-			}
+				od := float64(p.OutsideDiameter)
+				feasible = append(feasible, pt{p.Q, math.Pi / 4 * od * od * float64(p.WindingLength)})
+			})
 			// 0.25 % off target moves the score by a few thousandths.
 			const scoreSlack = 0.01
 			if best > top.Score+scoreSlack {

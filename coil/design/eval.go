@@ -22,9 +22,8 @@ func (x *search) core(p *pair, n, pitch float64) coil.Core {
 }
 
 // srf is the self-resonance, one end grounded, as coil.Predict computes it.
-func (x *search) srf(p *pair, c *coil.Core) float64 {
-	dw := &x.wires[p.wi]
-	_, srf, _ := c.SelfResonance(dw.r, dw.rho)
+func (x *search) srf(c *coil.Core) float64 {
+	_, srf, _ := c.SelfResonance()
 	return srf
 }
 
@@ -38,7 +37,7 @@ func (x *search) matched(p *pair, n, pitch float64) float64 {
 	if !x.s.effective {
 		return c.CoilAt(fr) + fr.Leads
 	}
-	srf := x.srf(p, &c)
+	srf := x.srf(&c)
 	if srf < 1.05*fr.F {
 		return math.Inf(1)
 	}
@@ -66,7 +65,7 @@ func (x *search) lean(p *pair, n, pitch float64) lean {
 		od:     p.od,
 		wire:   helix + 2*float64(x.s.c.LeadLength) + float64(coil.CutAllowance),
 		ld:     c.LD,
-		srf:    x.srf(p, &c),
+		srf:    x.srf(&c),
 	}
 	fr := &dw.atOp
 	if fr.F == 0 {

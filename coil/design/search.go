@@ -39,8 +39,8 @@ import (
 //     in (ln p, ln L) with the slope learned so far inside the bracket
 //     close winding … loosest pitch; two or three evaluations usually do.
 //
-// Evaluations use a lean copy of coil.Predict's formulas (design_eval.go); the
-// candidates returned are re-checked through coil.Predict and coil.Window. The
+// Evaluations call coil's inner functions, the code coil.Predict runs
+// (eval.go); the candidates returned are re-checked through coil.Predict and coil.Window. The
 // bounds rely on the inductance rising with the turns and falling with the
 // pitch (tested for two turns and more, hence DefaultMinTurns).
 
@@ -65,7 +65,6 @@ type pair struct {
 type wireData struct {
 	r        float64 // bare radius
 	do       float64
-	rho      float64                        // resistivity at the conductor temperature
 	rdcPerM  float64                        // Ω/m at the conductor temperature
 	atMatch  coil.WireAt                    // at the matching frequency
 	atOp     coil.WireAt                    // at the operating frequency
@@ -205,7 +204,7 @@ func (x *search) prepareWires() {
 			do = d
 		}
 		r := d / 2
-		dw := wireData{r: r, do: do, rho: rho, tinned: w.Conductor == coil.Tinned}
+		dw := wireData{r: r, do: do, tinned: w.Conductor == coil.Tinned}
 		dw.atMatch = coil.NewWireAt(r, rho, lead, x.s.matchF)
 		dw.atOp = coil.NewWireAt(r, rho, lead, x.s.opF)
 		dw.atMatch.Plate(coil.PlatingRatio(w.Conductor, 0, rho, x.s.matchF))

@@ -29,7 +29,8 @@ import (
 // symmetric one C^(−½)·Γ·C^(−½) and solved with gonum/mat's EigenSym.
 // When cTap is zero the tap node has no capacitance and is eliminated
 // (Schur complement): one resonance, of the whole coil with cTop. A tap at
-// an end (L_a or L_b zero) leaves one tank as well.
+// an end (L_a or L_b zero) leaves one tank, 1/(2π·√(L·C)), taken from
+// singleTank (there Λ is singular and the pencil has no second route).
 func eigenResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances, error) {
 	la, lb, m := float64(s.LA), float64(s.LB), float64(s.M)
 	ct, cb := float64(cTop), float64(cTap)
@@ -39,17 +40,11 @@ func eigenResonances(s coil.Sections, cTop, cTap unit.Capacitance) (Resonances, 
 	case !coil.Finite(la) || !coil.Finite(lb) || !coil.Finite(m) || la < 0 || lb < 0:
 		return Resonances{}, coil.InputErrorf("sections", "section inductances must be zero or positive")
 	}
-	single := func(l, c float64) (Resonances, error) {
-		if l <= 0 || c <= 0 {
-			return Resonances{}, coil.InputErrorf("capacitance", "the circuit has no capacitance across its inductance: no resonance")
-		}
-		return Resonances{Low: unit.Frequency(1 / (twoPi * math.Sqrt(l*c)))}, nil
-	}
 	switch {
 	case la == 0: // tap at the top: both sections' capacitance across the whole coil
-		return single(lb, ct+cb)
+		return singleTank(lb, ct+cb)
 	case lb == 0: // tap at ground: section B is shorted
-		return single(la, ct)
+		return singleTank(la, ct)
 	}
 	det := la*lb - m*m
 	if !(det > 0) {
