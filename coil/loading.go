@@ -93,6 +93,15 @@ type Divider struct {
 	QC2 float64
 }
 
+// NewDivider splits a tank capacitance into a capacitive tap with the
+// voltage ratio √impedanceRatio: C1 = C/(1−n) from the top to the tap node
+// and C2 = C/n from the tap node to ground, in series C again. QC2 is left
+// for the caller, who knows the source.
+func NewDivider(tank unit.Capacitance, impedanceRatio float64) Divider {
+	n := math.Sqrt(impedanceRatio)
+	return Divider{Tank: tank, C1: tank / unit.Capacitance(1-n), C2: tank / unit.Capacitance(n), Ratio: n}
+}
+
 // LoadPlan is TapForLoad's answer.
 type LoadPlan struct {
 	Frequency   unit.Frequency
@@ -225,9 +234,9 @@ func TapForLoad(g Geometry, goal LoadGoal) (LoadPlan, error) {
 	}
 	// The divider: the tank capacitance that resonates L_eff at f.
 	if plan.WantRatio < 1 {
-		c := 1 / (w * x)
-		n := math.Sqrt(plan.WantRatio)
-		plan.Divider = &Divider{Tank: unit.Capacitance(c), C1: unit.Capacitance(c / (1 - n)), C2: unit.Capacitance(c / n), Ratio: n, QC2: w * c / n * rs}
+		d := NewDivider(unit.Capacitance(1/(w*x)), plan.WantRatio)
+		d.QC2 = w * float64(d.C2) * rs
+		plan.Divider = &d
 	}
 	return plan, nil
 }

@@ -59,9 +59,8 @@ func AddTaps(r Result, goal TapGoalInfo, f unit.Frequency) (Result, error) {
 		p.Within = len(p.Taps) > 0 && math.Abs(p.Taps[0].Error) <= coil.TapRatioTolerance
 		if pr, err := coil.Predict(g, f); err == nil {
 			w := 2 * math.Pi * float64(f)
-			ct := 1 / (w * w * float64(pr.InductanceEffective))
-			n := math.Sqrt(goal.Ratio)
-			p.Divider = &coil.Divider{Tank: unit.Capacitance(ct), C1: unit.Capacitance(ct / (1 - n)), C2: unit.Capacitance(ct / n), Ratio: n}
+			d := coil.NewDivider(unit.Capacitance(1/(w*w*float64(pr.InductanceEffective))), goal.Ratio)
+			p.Divider = &d
 		}
 		c.Tapped = &TapFit{Plan: p}
 		return nil

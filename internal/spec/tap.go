@@ -84,10 +84,9 @@ func ratioMissAdvice(g coil.Geometry, f unit.Frequency, ratio, miss float64) str
 	if f > 0 {
 		if p, err := coil.Predict(g, f); err == nil && p.InductanceEffective > 0 {
 			w := 2 * math.Pi * float64(f)
-			c := 1 / (w * w * float64(p.InductanceEffective))
-			n := math.Sqrt(ratio)
+			d := coil.NewDivider(unit.Capacitance(1/(w*w*float64(p.InductanceEffective))), ratio)
 			msg += fmt.Sprintf(": the tank's %s as %s (top to tap node) in series with %s (tap node to ground)",
-				quantity.FormatCapacitance(c), quantity.FormatCapacitance(c/(1-n)), quantity.FormatCapacitance(c/n))
+				quantity.FormatCapacitance(float64(d.Tank)), quantity.FormatCapacitance(float64(d.C1)), quantity.FormatCapacitance(float64(d.C2)))
 		}
 	}
 	return msg
